@@ -1,0 +1,67 @@
+package org.polebench.cli;
+
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.io.UncheckedIOException;
+import org.polebench.InputProblem;
+import picocli.CommandLine;
+import picocli.CommandLine.Command;
+
+/** The {@code polebench} command: subcommands, version, and the mapping of problems to exit codes. */
+@Command(name = "polebench",
+        mixinStandardHelpOptions = true,
+        versionProvider = VersionProvider.class,
+        description = "Reconciles an amplifier stage as designed with the same stage as built: "
+                + "predicts its low-frequency response, fits a bench sweep, finds the capacitor "
+                + "that explains the difference and writes a test report.",
+        subcommands = {
+                CommandLine.HelpCommand.class,
+        },
+        exitCodeListHeading = "%nExit codes:%n",
+        exitCodeList = {
+                "0:done; every verdict passed",
+                "1:a verdict failed (the board does not meet its limits)",
+                "2:bad input or usage (stage file, sweep, profile or option)",
+                "3:instrument or I/O fault (port, timeout, file not writable)"})
+public final class Main implements Runnable {
+
+    @CommandLine.Spec
+    CommandLine.Model.CommandSpec spec;
+
+    public static void main(String[] args) {
+        System.exit(run(args, new PrintWriter(System.out, true), new PrintWriter(System.err, true)));
+    }
+
+    /** Runs one command line with the given writers; returns the exit code. Tests call this. */
+    public static int run(String[] args, PrintWriter out, PrintWriter err) {
+        CommandLine line = new CommandLine(new Main());
+        line.setOut(out);
+        line.setErr(err);
+        line.setExecutionExceptionHandler(Main::handle);
+        int code = line.execute(args);
+        out.flush();
+        err.flush();
+        return code;
+    }
+
+    @Override
+    public void run() {
+        spec.commandLine().usage(spec.commandLine().getOut());
+    }
+
+    private static int handle(Exception failure, CommandLine line, CommandLine.ParseResult parsed) {
+        PrintWriter err = line.getErr();
+        if (failure instanceof InputProblem) {
+            err.println("polebench: " + ((InputProblem) failure).describe());
+            return ExitCodes.BAD_INPUT;
+        }
+        if (failure instanceof IOException || failure instanceof UncheckedIOException) {
+            err.println("polebench: " + failure.getMessage());
+            return ExitCodes.INSTRUMENT_OR_IO;
+        }
+        // a defect in polebench itself: say so plainly, keep the detail for a bug report
+        err.println("polebench: internal error (" + failure.getClass().getSimpleName() + ": "
+                + failure.getMessage() + "); please report it with the command line and input files");
+        return 70;
+    }
+}

@@ -1,0 +1,204 @@
+package org.polebench.units;
+
+import java.util.Locale;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
+
+/**
+ * Reads and writes values in engineering notation with SI prefixes (BIPM, The International
+ * System of Units, 9th edition, 2019, table 7): {@code 4.7u}, {@code 4u7} (the prefix as the
+ * decimal mark, IEC 60062 style), {@code 4.7 µF}, {@code 10k}, {@code 2.2M}, {@code 100n}.
+ * {@code M} is mega and {@code m} milli, as in SI; {@code u} and {@code µ} are micro.
+ *
+ * <p>Parsing is strict: the whole text must be consumed. {@link Double#parseDouble} alone is
+ * not used on user text because it accepts {@code NaN}, {@code Infinity}, hex and trailing
+ * {@code d}/{@code f}.
+ */
+public final class EngineeringValue {
+
+    private static final String DECIMAL = "[+-]?(?:\\d+(?:\\.\\d*)?|\\.\\d+)(?:[eE][+-]?\\d+)?";
+    private static final Pattern PLAIN = Pattern.compile("(" + DECIMAL + ")\\s*(.*)");
+    // 4u7, 4k7, 2M2, 4R7 (R for ohms): the prefix letter stands where the decimal mark would.
+    private static final Pattern INFIX = Pattern.compile("([+-]?\\d+)([pnuµμmkKMGR])(\\d+)\\s*(.*)");
+
+    private EngineeringValue() {
+    }
+
+    /**
+     * @param text     what the user wrote, such as {@code "4.7 µF"}
+     * @param quantity what the value stands for; its unit symbol may follow the number
+     * @return the value in the base SI unit (farads, ohms, hertz, …)
+     * @throws IllegalArgumentException with a message fit to show the user when the text is
+     *         not a finite number in engineering notation for this quantity
+     */
+    public static double parse(String text, Quantity quantity) {
+        if (text == null || text.isBlank()) {
+            throw new IllegalArgumentException("no value given");
+        }
+        String trimmed = text.strip();
+        Matcher infix = INFIX.matcher(trimmed);
+        if (infix.matches()) {
+            String letter = infix.group(2);
+            double scale = letter.equals("R")
+                    ? (quantity == Quantity.OHMS ? 1.0 : Double.NaN)
+                    : prefixScale(letter.charAt(0));
+            if (!Double.isNaN(scale)) {
+                double mantissa = Double.parseDouble(infix.group(1) + "." + infix.group(3));
+                checkUnit(infix.group(4), quantity, trimmed);
+                return finite(mantissa * scale, trimmed);
+            }
+        }
+        Matcher plain = PLAIN.matcher(trimmed);
+        if (!plain.matches()) {
+            throw new IllegalArgumentException("'" + trimmed + "' does not start with a number");
+        }
+        double number = Double.parseDouble(plain.group(1));
+        String rest = plain.group(2).strip();
+        return finite(number * suffixScale(rest, quantity, trimmed), trimmed);
+    }
+
+    /** Like {@link #parse(String, Quantity)} for a dimensionless number, such as a β of 200. */
+    public static double parseNumber(String text) {
+        return parse(text, Quantity.DIMENSIONLESS);
+    }
+
+    /**
+     * Formats with three significant digits and an SI prefix: {@code 4.7e-6, "F"} gives
+     * {@code "4.7 µF"}; zero gives {@code "0 F"}; non-finite values print as they are.
+     */
+    public static String format(double value, String unitSymbol) {
+        return format(value, unitSymbol, 3);
+    }
+
+    /** @param significant significant digits, 1 to 15 */
+    public static String format(double value, String unitSymbol, int significant) {
+        if (significant < 1 || significant > 15) {
+            throw new IllegalArgumentException("significant digits must be 1..15, was " + significant);
+        }
+        String unit = unitSymbol == null ? "" : unitSymbol;
+        String gap = unit.isEmpty() ? "" : " ";
+        if (!Double.isFinite(value)) {
+            return value + gap + unit;
+        }
+        if (value == 0) {
+            return "0" + gap + unit;
+        }
+        double magnitude = Math.abs(value);
+        // round first, so that 999.96 prints as 1.00 k rather than 1000 
+        double rounded = roundSignificant(magnitude, significant);
+        int exponent3 = (int) Math.floor(Math.log10(rounded) / 3) * 3;
+        exponent3 = Math.max(-15, Math.min(12, exponent3));
+        double scaled = rounded / Math.pow(10, exponent3);
+        String prefix = prefixFor(exponent3);
+        String digits = stripZeros(String.format(Locale.ROOT, "%." + decimalsFor(scaled, significant) + "f", scaled));
+        String sign = value < 0 ? "-" : "";
+        String spacer = prefix.isEmpty() && unit.isEmpty() ? "" : " ";
+        return sign + digits + spacer + prefix + unit;
+    }
+
+    private static int decimalsFor(double scaled, int significant) {
+        int integerDigits = scaled < 1 ? 1 : (int) Math.floor(Math.log10(scaled)) + 1;
+        return Math.max(0, significant - integerDigits);
+    }
+
+    private static double roundSignificant(double magnitude, int significant) {
+        int exponent = (int) Math.floor(Math.log10(magnitude));
+        double factor = Math.pow(10, significant - 1 - exponent);
+        return Math.round(magnitude * factor) / factor;
+    }
+
+    private static String stripZeros(String digits) {
+        if (!digits.contains(".")) {
+            return digits;
+        }
+        String stripped = digits.replaceAll("0+$", "");
+        return stripped.endsWith(".") ? stripped.substring(0, stripped.length() - 1) : stripped;
+    }
+
+    private static String prefixFor(int exponent3) {
+        switch (exponent3) {
+            case -15: return "f";
+            case -12: return "p";
+            case -9: return "n";
+            case -6: return "µ";
+            case -3: return "m";
+            case 0: return "";
+            case 3: return "k";
+            case 6: return "M";
+            case 9: return "G";
+            case 12: return "T";
+            default: throw new IllegalArgumentException("no SI prefix for 1e" + exponent3);
+        }
+    }
+
+    /** @return the SI prefix's factor, or NaN when the character is no prefix */
+    private static double prefixScale(char prefix) {
+        switch (prefix) {
+            case 'f': return 1e-15;
+            case 'p': return 1e-12;
+            case 'n': return 1e-9;
+            case 'u': case 'µ': case 'μ': return 1e-6;
+            case 'm': return 1e-3;
+            case 'k': case 'K': return 1e3;
+            case 'M': return 1e6;
+            case 'G': return 1e9;
+            case 'T': return 1e12;
+            default: return Double.NaN;
+        }
+    }
+
+    private static double suffixScale(String rest, Quantity quantity, String whole) {
+        if (rest.isEmpty()) {
+            return 1.0;
+        }
+        String unit = matchUnit(rest, quantity);
+        if (unit != null && rest.equals(unit)) {
+            return 1.0;
+        }
+        String beforeUnit = unit == null ? rest : rest.substring(0, rest.length() - unit.length()).strip();
+        if (beforeUnit.length() == 1) {
+            char letter = beforeUnit.charAt(0);
+            // 'K' is kelvin for temperatures, never a prefix there
+            if (!(quantity == Quantity.KELVIN && letter == 'K')) {
+                double scale = prefixScale(letter);
+                if (!Double.isNaN(scale)) {
+                    return scale;
+                }
+            }
+        }
+        throw new IllegalArgumentException("'" + whole + "': cannot read '" + rest + "' as "
+                + describeExpected(quantity));
+    }
+
+    private static String matchUnit(String rest, Quantity quantity) {
+        String best = null;
+        for (String symbol : quantity.acceptedSymbols()) {
+            if (rest.endsWith(symbol) && (best == null || symbol.length() > best.length())) {
+                best = symbol;
+            }
+        }
+        return best;
+    }
+
+    private static void checkUnit(String rest, Quantity quantity, String whole) {
+        String unit = rest.strip();
+        if (!unit.isEmpty() && !quantity.acceptedSymbols().contains(unit)) {
+            throw new IllegalArgumentException("'" + whole + "': cannot read '" + unit + "' as "
+                    + describeExpected(quantity));
+        }
+    }
+
+    private static String describeExpected(Quantity quantity) {
+        if (quantity.acceptedSymbols().isEmpty()) {
+            return "an SI prefix (p n u µ m k M G)";
+        }
+        return "an SI prefix (p n u µ m k M G) and/or the unit " + String.join(" or ", quantity.acceptedSymbols());
+    }
+
+    private static double finite(double value, String whole) {
+        if (!Double.isFinite(value)) {
+            throw new IllegalArgumentException("'" + whole + "' is out of range");
+        }
+        return value;
+    }
+}
