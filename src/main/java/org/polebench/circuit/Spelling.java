@@ -34,7 +34,7 @@ final class Spelling {
         return best != null && bestDistance <= allowed ? Optional.of(best) : Optional.empty();
     }
 
-    /** @return " (did you mean 'x'?)" or an empty text */
+    /** @return " Did you mean 'x'?" (with a leading space, to follow a sentence) or an empty text */
     static String didYouMean(String word, Collection<String> candidates) {
         return closest(word, candidates).map(s -> " Did you mean '" + s + "'?").orElse("");
     }

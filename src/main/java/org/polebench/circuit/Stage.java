@@ -146,7 +146,10 @@ public record Stage(String name, Path sourceFile, String ground, List<Supply> su
         return List.copyOf(seen);
     }
 
-    /** @return a copy with capacitor {@code id} at {@code farads}; the id must name a capacitor */
+    /**
+     * @return a copy with capacitor {@code id} at {@code farads} (positive), keeping its band, so
+     *         that the set of low-band ports does not change; the id must name a capacitor
+     */
     public Stage withCapacitance(String id, double farads) {
         return withPart(capacitor(id).withFarads(farads));
     }

@@ -559,9 +559,9 @@ public final class StageReader {
             Map<String, String> terminals = new LinkedHashMap<>();
             for (YamlNode.Entry terminal : map.entries()) {
                 if (!all.contains(terminal.key())) {
-                    throw problem(terminal.line(), id + ": '" + terminal.key() + "' is not a terminal of an " + kind
+                    throw problem(terminal.line(), id + ": '" + terminal.key() + "' is not a terminal of " + withArticle(kind)
                             + "." + Spelling.didYouMean(terminal.key(), all),
-                            "an " + kind + " has terminals " + String.join(", ", all) + ", as in '" + kind + ": "
+                            withArticle(kind) + " has terminals " + String.join(", ", all) + ", as in '" + kind + ": "
                                     + example + "'");
                 }
                 String node = nodeName(terminal.value(), id + " terminal " + terminal.key());
@@ -772,15 +772,20 @@ public final class StageReader {
                     continue;
                 }
                 String owner = ownerOf(key);
-                String message = id + ": unknown key '" + key + "' for a " + kind + ".";
+                String message = id + ": unknown key '" + key + "' for " + withArticle(kind) + ".";
                 Optional<String> close = Spelling.closest(key, allowed);
                 if (close.isPresent()) {
                     message += " Did you mean '" + close.get() + "'?";
                 } else if (!owner.isEmpty()) {
                     message += " '" + key + "' belongs to " + owner + ".";
                 }
-                throw problem(entry.line(), message, "a " + kind + " takes: " + String.join(", ", allowed));
+                throw problem(entry.line(), message, withArticle(kind) + " takes: " + String.join(", ", allowed));
             }
+        }
+
+        /** @return "an npn", "an nmos", "a pnp", "a resistor": as the words are spoken */
+        private static String withArticle(String kind) {
+            return (kind.equals("npn") || kind.equals("nmos") ? "an " : "a ") + kind;
         }
 
         private static String ownerOf(String key) {
