@@ -1,0 +1,60 @@
+package org.polebench.circuit;
+
+import java.util.Collection;
+import java.util.Optional;
+
+/**
+ * Finds the word a user most likely meant, by Levenshtein edit distance (V. I. Levenshtein,
+ * Soviet Physics Doklady 10(8), 1966): insertions, deletions and substitutions each cost one.
+ */
+final class Spelling {
+    private Spelling() {
+    }
+
+    /**
+     * @return the closest candidate within a distance of max(1, length/3) (at most 3), so that
+     *         {@code tolerence} suggests {@code tolerance} but {@code foo} suggests nothing; ties go
+     *         to the first candidate
+     */
+    static Optional<String> closest(String word, Collection<String> candidates) {
+        String best = null;
+        int bestDistance = Integer.MAX_VALUE;
+        String lowered = word.toLowerCase();
+        for (String candidate : candidates) {
+            if (candidate.equals(word)) {
+                continue;
+            }
+            int distance = distance(lowered, candidate.toLowerCase());
+            if (distance < bestDistance) {
+                best = candidate;
+                bestDistance = distance;
+            }
+        }
+        int allowed = Math.min(3, Math.max(1, word.length() / 3));
+        return best != null && bestDistance <= allowed ? Optional.of(best) : Optional.empty();
+    }
+
+    /** @return " Did you mean 'x'?" (with a leading space, to follow a sentence) or an empty text */
+    static String didYouMean(String word, Collection<String> candidates) {
+        return closest(word, candidates).map(s -> " Did you mean '" + s + "'?").orElse("");
+    }
+
+    static int distance(String a, String b) {
+        int[] previous = new int[b.length() + 1];
+        int[] current = new int[b.length() + 1];
+        for (int j = 0; j <= b.length(); j++) {
+            previous[j] = j;
+        }
+        for (int i = 1; i <= a.length(); i++) {
+            current[0] = i;
+            for (int j = 1; j <= b.length(); j++) {
+                int substitution = previous[j - 1] + (a.charAt(i - 1) == b.charAt(j - 1) ? 0 : 1);
+                current[j] = Math.min(substitution, Math.min(previous[j] + 1, current[j - 1] + 1));
+            }
+            int[] swap = previous;
+            previous = current;
+            current = swap;
+        }
+        return previous[b.length()];
+    }
+}

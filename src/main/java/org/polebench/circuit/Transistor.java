@@ -1,0 +1,17 @@
+package org.polebench.circuit;
+
+/** A BJT or a MOSFET: a part with a bias point and a bias-current tolerance. */
+public sealed interface Transistor permits Bjt, Mosfet {
+    String name();
+
+    int line();
+
+    /** @return how the DC operating point is found: solved, or a given current */
+    Bias bias();
+
+    /**
+     * @return the tolerance of the bias current, a nuisance parameter in the back-solve
+     *         (default ±20 %, DESIGN.md "Conventions")
+     */
+    Tolerance biasTolerance();
+}
