@@ -98,10 +98,14 @@ public final class CornerFinder {
      * ∂B_i/∂ln C_i = −B_i, ∂H/∂ln C_i = −s·w_i·x_i, and ∂H/∂s = −Σ w_i·x_i. The values sum to −1
      * (scaling every capacitor by a scales every frequency by 1/a).
      *
+     * @param model         a model without links (every low-band model)
      * @param cornerRadPerS a corner found by this class for the same model
      * @return one value per port, in port order
      */
     public double[] cornerSensitivities(StateModel model, double cornerRadPerS) {
+        if (model.hasLinks()) {
+            throw new IllegalArgumentException("sensitivities assume a diagonal capacitance matrix");
+        }
         int k = model.order();
         ResponseEvaluator evaluator = new ResponseEvaluator(model);
         evaluator.evaluate(cornerRadPerS);

@@ -6,6 +6,7 @@ import java.util.Arrays;
 import java.util.Deque;
 import java.util.LinkedHashSet;
 import java.util.List;
+import java.util.Optional;
 import java.util.Set;
 import org.polebench.circuit.NetworkElement;
 import org.polebench.circuit.SmallSignalNetwork;
@@ -17,8 +18,19 @@ import org.polebench.circuit.SmallSignalNetwork;
  * algorithm", J. ACM 22(2), 1975). One instance per reduction.
  */
 final class NetworkTopology {
-    /** A voltage-defined branch: the stimulus, a port or a short. */
-    record Branch(String name, int a, int b, boolean port) {
+    /**
+     * A voltage-defined branch from a (+) to b (−): the stimulus, a short, or a port.
+     *
+     * @param port the port's state index, or −1 for the stimulus and shorts
+     */
+    record Branch(String name, int a, int b, int port, boolean stimulus) {
+        boolean isPort() {
+            return port >= 0;
+        }
+    }
+
+    /** A branch on a path, with +1 when the path runs from its a to its b. */
+    record Step(Branch branch, int sign) {
     }
 
     private final SmallSignalNetwork network;
@@ -59,21 +71,19 @@ final class NetworkTopology {
     /**
      * Adds a voltage-defined branch to the forest.
      *
-     * @return empty when the branch joins two separate trees; otherwise the branches of the loop
-     * it closes (the forest path between its ends, then the branch itself); the branch is then
-     * not added
+     * @return empty when the branch joins two separate trees; otherwise the forest path from its
+     * a to its b (itself empty for a branch with both ends on one node), which with the branch
+     * closes a loop; the branch is then not added
      */
-    List<Branch> addVoltageBranch(Branch branch) {
+    Optional<List<Step>> addVoltageBranch(Branch branch) {
         if (join(branch.a(), branch.b())) {
             forest.add(branch);
-            return List.of();
+            return Optional.empty();
         }
-        List<Branch> loop = new ArrayList<>(pathInForest(branch.a(), branch.b()));
-        loop.add(branch);
-        return loop;
+        return Optional.of(pathInForest(branch.a(), branch.b()));
     }
 
-    private List<Branch> pathInForest(int from, int to) {
+    private List<Step> pathInForest(int from, int to) {
         int n = parent.length;
         Branch[] via = new Branch[n];
         int[] previous = new int[n];
@@ -95,9 +105,10 @@ final class NetworkTopology {
                 }
             }
         }
-        List<Branch> path = new ArrayList<>();
+        List<Step> path = new ArrayList<>();
         for (int node = to; node != from && previous[node] >= 0; node = previous[node]) {
-            path.add(0, via[node]);
+            // stepping from previous[node] to node: along the branch when node is its b
+            path.add(0, new Step(via[node], via[node].b() == node ? 1 : -1));
         }
         return path;
     }

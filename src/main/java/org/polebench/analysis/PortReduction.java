@@ -19,11 +19,14 @@ import org.polebench.circuit.SmallSignalNetwork;
  * A = −Cd⁻¹·Y, B = −Cd⁻¹·b, C = cᵀ, D (DESIGN.md, "Port reduction"), with one real LU and
  * k + 1 solves; nothing is inverted but diag(C) and the k×k matrix Y.
  *
- * <p>Low band: the low-band capacitors are ports and the high-band ones open. High band: the
- * high-band capacitors are ports and the low-band ones shorted (ideal 0 V sources); a
- * high-band capacitor whose terminals the stimulus and those shorts already tie together
- * (Cπ of a common-emitter stage driven from an ideal source with a bypassed emitter) sets no
- * pole and is left out, listed in {@link StateModel#capacitorsAcrossSources()}.
+ * <p>Low band: the low-band capacitors are ports and the high-band ones open; a loop of them is
+ * a named singular case. High band: the high-band capacitors are ports and the low-band ones
+ * shorted (ideal 0 V sources). Device capacitances often form loops there (Cπ, Cμ and a load
+ * capacitance through the shorted bypass and coupling capacitors), so a high-band capacitor
+ * that closes a loop becomes a link: its voltage is a fixed combination of the ports' (and the
+ * stimulus'), it is no state, and its charge enters the capacitance matrix of the ports
+ * ({@link StateModel}). A link across the stimulus and shorts alone (Cπ of a stage driven at
+ * its base with a bypassed emitter) sets no pole at all ({@link StateModel#capacitorsAcrossSources()}).
  *
  * <p>Singular cases, checked in this order: a loop of ports and sources
  * ({@link SingularCase#CAPACITOR_LOOP}, naming the loop's parts), nodes no resistor or source
@@ -57,24 +60,25 @@ public final class PortReduction {
                 band == Band.HIGH ? network.capacitances(Band.LOW) : List.of();
 
         NetworkTopology topology = new NetworkTopology(network);
-        List<NetworkTopology.Branch> loop = topology.addVoltageBranch(
-                new NetworkTopology.Branch(MnaSystem.STIMULUS, network.drivenNode(), 0, false));
+        topology.addVoltageBranch(new NetworkTopology.Branch(MnaSystem.STIMULUS, network.drivenNode(), 0, -1, true));
         for (NetworkElement.Capacitance c : shorted) {
-            loop = topology.addVoltageBranch(new NetworkTopology.Branch(c.name(), c.a(), c.b(), false));
-            if (!loop.isEmpty()) {
-                return loopCase(network, band, loop);
+            Optional<List<NetworkTopology.Step>> loop =
+                    topology.addVoltageBranch(new NetworkTopology.Branch(c.name(), c.a(), c.b(), -1, false));
+            if (loop.isPresent()) {
+                return loopCase(network, band, loop.get(), c.name());
             }
         }
         List<NetworkElement.Capacitance> ports = new ArrayList<>(candidates.size());
-        List<String> acrossSources = new ArrayList<>();
+        List<LinkCapacitor> links = new ArrayList<>();
         for (NetworkElement.Capacitance c : candidates) {
-            loop = topology.addVoltageBranch(new NetworkTopology.Branch(c.name(), c.a(), c.b(), true));
+            Optional<List<NetworkTopology.Step>> loop = topology.addVoltageBranch(
+                    new NetworkTopology.Branch(c.name(), c.a(), c.b(), ports.size(), false));
             if (loop.isEmpty()) {
                 ports.add(c);
-            } else if (band == Band.HIGH && loop.stream().filter(NetworkTopology.Branch::port).count() == 1) {
-                acrossSources.add(c.name());
+            } else if (band == Band.HIGH) {
+                links.add(new LinkCapacitor(c.name(), c.farads(), loop.get()));
             } else {
-                return loopCase(network, band, loop);
+                return loopCase(network, band, loop.get(), c.name());
             }
         }
         List<Integer> floating = topology.nodesWithoutDcPath();
@@ -117,17 +121,19 @@ public final class PortReduction {
         if (k > 0 && !invertEquilibrated(y, yInverse)) {
             return poleAtZero(y, names, band);
         }
-        return new Reduction.StateSpace(new StateModel(band, names, acrossSources, farads, y, yInverse, b, c, d));
+        return new Reduction.StateSpace(new StateModel(band, names, farads, links, y, yInverse, b, c, d));
     }
 
-    private static Reduction.Singular loopCase(SmallSignalNetwork network, Band band, List<NetworkTopology.Branch> loop) {
+    private static Reduction.Singular loopCase(SmallSignalNetwork network, Band band, List<NetworkTopology.Step> loop,
+                                               String closing) {
         List<String> parts = new ArrayList<>();
         Set<String> nodes = new LinkedHashSet<>();
-        for (NetworkTopology.Branch branch : loop) {
-            parts.add(branch.name());
-            nodes.add(network.nodes().get(branch.a()));
-            nodes.add(network.nodes().get(branch.b()));
+        for (NetworkTopology.Step step : loop) {
+            parts.add(step.branch().name());
+            nodes.add(network.nodes().get(step.branch().a()));
+            nodes.add(network.nodes().get(step.branch().b()));
         }
+        parts.add(closing);
         return new Reduction.Singular(SingularCase.CAPACITOR_LOOP, band, parts, new ArrayList<>(nodes),
                 "capacitors " + parts + " form a loop of voltage-defined branches in the "
                         + band.name().toLowerCase() + "-band analysis, so their voltages are not independent");
