@@ -11,10 +11,10 @@ import org.apache.commons.math3.exception.MathIllegalStateException;
  * decade and solved with Brent's method (Brent, Algorithms for Minimization without
  * Derivatives, 1973; Commons Math {@link BrentSolver}) on ln ω, to 1e-12 in ln ω.
  *
- * <p>Lower corner: the scan runs down from 10·‖A‖∞ (above every pole, where H ≈ D) and takes
- * the first crossing, so with peaking it is the highest one below midband. Upper corner: the
- * scan runs up from 0.1/‖A⁻¹‖∞ (below every high-band pole) and takes the first crossing above
- * midband. Two crossings closer than one step (a very sharp dip) would be missed. Empty when
+ * <p>Lower corner: the scan runs down from 10 times a bound on the largest pole
+ * ({@link SpectralBound}; above every pole, where H ≈ D) and takes the first crossing, so with
+ * peaking it is the highest one below midband. Upper corner: the scan runs up from 0.1 times a
+ * bound below the smallest high-band pole and takes the first crossing above midband. Two crossings closer than one step (a very sharp dip) would be missed. Empty when
  * the midband gain is 0, when the band has no capacitors, or when the response never crosses
  * within three decades beyond the poles (a shelf that stays above −3 dB). Immutable.
  */
@@ -33,11 +33,11 @@ public final class CornerFinder {
         ResponseEvaluator evaluator = new ResponseEvaluator(lowBand);
         double target = d * d / 2;
         UnivariateFunction excess = lnOmega -> excess(evaluator, Math.exp(lnOmega), target);
-        double hi = 10 * lowBand.normA();
+        double hi = 10 * lowBand.largestPoleBound();
         for (int tries = 0; tries < 6 && !(excess.value(Math.log(hi)) > 0); tries++) {
             hi *= 10;
         }
-        double floor = 1e-3 / lowBand.normAInverse();
+        double floor = 1e-3 / lowBand.inverseSmallestPoleBound();
         while (hi > floor) {
             double lo = hi / STEP;
             if (excess.value(Math.log(lo)) <= 0) {
@@ -60,11 +60,11 @@ public final class CornerFinder {
         ResponseEvaluator evaluator = new ResponseEvaluator(highBand);
         double target = midbandGain * midbandGain / 2;
         UnivariateFunction excess = lnOmega -> excess(evaluator, Math.exp(lnOmega), target);
-        double lo = 0.1 / highBand.normAInverse();
+        double lo = 0.1 / highBand.inverseSmallestPoleBound();
         for (int tries = 0; tries < 6 && !(excess.value(Math.log(lo)) > 0); tries++) {
             lo /= 10;
         }
-        double ceiling = 1e3 * highBand.normA();
+        double ceiling = 1e3 * highBand.largestPoleBound();
         while (lo < ceiling) {
             double hi = lo * STEP;
             if (excess.value(Math.log(hi)) <= 0) {

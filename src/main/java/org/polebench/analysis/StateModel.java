@@ -42,8 +42,8 @@ public final class StateModel {
     private final double d;
     private final double[][] a;
     private final double[] bState;
-    private final double normA;
-    private final double normAInverse;
+    private final double largestPoleBound;
+    private final double inverseSmallestPoleBound;
 
     StateModel(Band band, List<String> capacitorNames, double[] farads, List<LinkCapacitor> links,
                double[][] y, double[][] yInverse, double[] b, double[] c, double directGain) {
@@ -89,11 +89,8 @@ public final class StateModel {
         this.d = dPrime;
         this.a = new double[k][k];
         this.bState = new double[k];
-        double rowMax = 0;
-        double inverseRowMax = 0;
+        double[][] aInverse = new double[k][k];
         for (int i = 0; i < k; i++) {
-            double rowSum = 0;
-            double inverseRowSum = 0;
             for (int j = 0; j < k; j++) {
                 double sum = 0;
                 double inverseSum = 0;
@@ -102,20 +99,17 @@ public final class StateModel {
                     inverseSum += yInverse[i][m] * capacitance[m][j];
                 }
                 a[i][j] = -sum;
-                rowSum += Math.abs(sum);
                 // A⁻¹ = −Y⁻¹·Cf
-                inverseRowSum += Math.abs(inverseSum);
+                aInverse[i][j] = -inverseSum;
             }
             double bi = 0;
             for (int m = 0; m < k; m++) {
                 bi += cInverse[i][m] * (yCInverseG[m] - b[m]);
             }
             bState[i] = bi;
-            rowMax = Math.max(rowMax, rowSum);
-            inverseRowMax = Math.max(inverseRowMax, inverseRowSum);
         }
-        this.normA = rowMax;
-        this.normAInverse = inverseRowMax;
+        this.largestPoleBound = SpectralBound.of(a);
+        this.inverseSmallestPoleBound = SpectralBound.of(aInverse);
     }
 
     private static double[] multiply(double[][] m, double[] v) {
@@ -249,14 +243,14 @@ public final class StateModel {
         return c;
     }
 
-    /** @return the row-sum norm ‖A‖∞ in 1/s: no pole is larger in magnitude */
-    double normA() {
-        return normA;
+    /** @return an upper bound in rad/s on every pole's magnitude ({@link SpectralBound}) */
+    double largestPoleBound() {
+        return largestPoleBound;
     }
 
-    /** @return ‖A⁻¹‖∞ in s: no pole is smaller in magnitude than its reciprocal */
-    double normAInverse() {
-        return normAInverse;
+    /** @return the same bound for A⁻¹, in s: no pole is smaller in magnitude than its reciprocal */
+    double inverseSmallestPoleBound() {
+        return inverseSmallestPoleBound;
     }
 
     /** @return H(jω) = C·(jωI − A)⁻¹·B + D at ω in rad/s, O(k³) */
