@@ -1,0 +1,130 @@
+package org.polebench.analysis;
+
+import java.util.OptionalDouble;
+import org.apache.commons.math3.analysis.UnivariateFunction;
+import org.apache.commons.math3.analysis.solvers.BrentSolver;
+import org.apache.commons.math3.exception.MathIllegalStateException;
+
+/**
+ * The exact −3 dB corners of a state-space model (DESIGN.md, "Numerics"): where |H(jω)|
+ * crosses |midband gain|/√2, bracketed by a scan in steps of 1/{@value #STEPS_PER_DECADE}
+ * decade and solved with Brent's method (Brent, Algorithms for Minimization without
+ * Derivatives, 1973; Commons Math {@link BrentSolver}) on ln ω, to 1e-12 in ln ω.
+ *
+ * <p>Lower corner: the scan runs down from 10 times a bound on the largest pole
+ * ({@link SpectralBound}; above every pole, where H ≈ D) and takes the first crossing, so with
+ * peaking it is the highest one below midband. Upper corner: the scan runs up from 0.1 times a
+ * bound below the smallest high-band pole and takes the first crossing above midband. Two crossings closer than one step (a very sharp dip) would be missed. Empty when
+ * the midband gain is 0, when the band has no capacitors, or when the response never crosses
+ * within three decades beyond the poles (a shelf that stays above −3 dB). Immutable.
+ */
+public final class CornerFinder {
+    public static final int STEPS_PER_DECADE = 20;
+    private static final double STEP = Math.pow(10, 1.0 / STEPS_PER_DECADE);
+    private static final double LN_OMEGA_ACCURACY = 1e-12;
+    private static final int MAX_EVALUATIONS = 200;
+
+    /** @return the exact lower −3 dB corner of a low-band model in rad/s */
+    public OptionalDouble lowerCornerRadPerS(StateModel lowBand) {
+        double d = lowBand.directGain();
+        if (lowBand.order() == 0 || d == 0) {
+            return OptionalDouble.empty();
+        }
+        ResponseEvaluator evaluator = new ResponseEvaluator(lowBand);
+        double target = d * d / 2;
+        UnivariateFunction excess = lnOmega -> excess(evaluator, Math.exp(lnOmega), target);
+        double hi = 10 * lowBand.largestPoleBound();
+        for (int tries = 0; tries < 6 && !(excess.value(Math.log(hi)) > 0); tries++) {
+            hi *= 10;
+        }
+        double floor = 1e-3 / lowBand.inverseSmallestPoleBound();
+        while (hi > floor) {
+            double lo = hi / STEP;
+            if (excess.value(Math.log(lo)) <= 0) {
+                return solve(excess, Math.log(lo), Math.log(hi));
+            }
+            hi = lo;
+        }
+        return OptionalDouble.empty();
+    }
+
+    /**
+     * @param midbandGain the low-band model's D, V/V: the high-band response approaches it below
+     *                    the high-band poles
+     * @return the exact upper −3 dB corner of a high-band model in rad/s
+     */
+    public OptionalDouble upperCornerRadPerS(StateModel highBand, double midbandGain) {
+        if (highBand.order() == 0 || midbandGain == 0) {
+            return OptionalDouble.empty();
+        }
+        ResponseEvaluator evaluator = new ResponseEvaluator(highBand);
+        double target = midbandGain * midbandGain / 2;
+        UnivariateFunction excess = lnOmega -> excess(evaluator, Math.exp(lnOmega), target);
+        double lo = 0.1 / highBand.inverseSmallestPoleBound();
+        for (int tries = 0; tries < 6 && !(excess.value(Math.log(lo)) > 0); tries++) {
+            lo /= 10;
+        }
+        double ceiling = 1e3 * highBand.largestPoleBound();
+        while (lo < ceiling) {
+            double hi = lo * STEP;
+            if (excess.value(Math.log(hi)) <= 0) {
+                return solve(excess, Math.log(lo), Math.log(hi));
+            }
+            lo = hi;
+        }
+        return OptionalDouble.empty();
+    }
+
+    // |H|²/target − 1: finite where |H| = 0, and of the sign of |H| − |D|/√2.
+    private static double excess(ResponseEvaluator evaluator, double omega, double target) {
+        if (!evaluator.evaluate(omega)) {
+            return Double.NaN;
+        }
+        return evaluator.magnitudeSquared() / target - 1;
+    }
+
+    private static OptionalDouble solve(UnivariateFunction f, double lnLo, double lnHi) {
+        try {
+            double root = new BrentSolver(1e-15, LN_OMEGA_ACCURACY).solve(MAX_EVALUATIONS, f, lnLo, lnHi);
+            return OptionalDouble.of(Math.exp(root));
+        } catch (MathIllegalStateException e) {
+            return OptionalDouble.empty();
+        }
+    }
+
+    /**
+     * ∂ln ω/∂ln C_i of a corner ω where |H(jω)|² = const, by implicit differentiation. With
+     * x = (sI − A)⁻¹B and w = (sI − A)⁻ᵀCᵀ at s = jω: since ∂A/∂ln C_i = −(row i of A) and
+     * ∂B_i/∂ln C_i = −B_i, ∂H/∂ln C_i = −s·w_i·x_i, and ∂H/∂s = −Σ w_i·x_i. The values sum to −1
+     * (scaling every capacitor by a scales every frequency by 1/a).
+     *
+     * @param model         a model without links (every low-band model)
+     * @param cornerRadPerS a corner found by this class for the same model
+     * @return one value per port, in port order
+     */
+    public double[] cornerSensitivities(StateModel model, double cornerRadPerS) {
+        if (model.hasLinks()) {
+            throw new IllegalArgumentException("sensitivities assume a diagonal capacitance matrix");
+        }
+        int k = model.order();
+        ResponseEvaluator evaluator = new ResponseEvaluator(model);
+        evaluator.evaluate(cornerRadPerS);
+        evaluator.solveAdjoint();
+        double hr = evaluator.responseRe();
+        double hi = evaluator.responseIm();
+        double[] numerator = new double[k];
+        double denominator = 0;
+        for (int i = 0; i < k; i++) {
+            double pr = evaluator.stateRe(i) * evaluator.adjointRe(i) - evaluator.stateIm(i) * evaluator.adjointIm(i);
+            double pi = evaluator.stateRe(i) * evaluator.adjointIm(i) + evaluator.stateIm(i) * evaluator.adjointRe(i);
+            // Re(conj(H)·(−j)·p) = Re(conj(H)·(pi − j·pr)) = hr·pi − hi·pr
+            numerator[i] = hr * pi - hi * pr;
+            denominator += numerator[i];
+        }
+        double[] result = new double[k];
+        for (int i = 0; i < k; i++) {
+            result[i] = -numerator[i] / denominator;
+        }
+        return result;
+    }
+}

@@ -1,0 +1,215 @@
+package org.polebench.analysis;
+
+import java.util.ArrayList;
+import java.util.LinkedHashSet;
+import java.util.List;
+import java.util.Optional;
+import java.util.Set;
+import org.apache.commons.math3.linear.Array2DRowRealMatrix;
+import org.apache.commons.math3.linear.DecompositionSolver;
+import org.apache.commons.math3.linear.LUDecomposition;
+import org.apache.commons.math3.linear.RealMatrix;
+import org.apache.commons.math3.linear.SingularValueDecomposition;
+import org.polebench.circuit.Band;
+import org.polebench.circuit.NetworkElement;
+import org.polebench.circuit.SmallSignalNetwork;
+
+/**
+ * Reduces the resistive network around one band's capacitors to the state-space model
+ * A = −Cd⁻¹·Y, B = −Cd⁻¹·b, C = cᵀ, D (DESIGN.md, "Port reduction"), with one real LU and
+ * k + 1 solves; nothing is inverted but diag(C) and the k×k matrix Y.
+ *
+ * <p>Low band: the low-band capacitors are ports and the high-band ones open; a loop of them is
+ * a named singular case. High band: the high-band capacitors are ports and the low-band ones
+ * shorted (ideal 0 V sources). Device capacitances often form loops there (Cπ, Cμ and a load
+ * capacitance through the shorted bypass and coupling capacitors), so a high-band capacitor
+ * that closes a loop becomes a link: its voltage is a fixed combination of the ports' (and the
+ * stimulus'), it is no state, and its charge enters the capacitance matrix of the ports
+ * ({@link StateModel}). A link across the stimulus and shorts alone (Cπ of a stage driven at
+ * its base with a bypassed emitter) sets no pole at all ({@link StateModel#capacitorsAcrossSources()}).
+ *
+ * <p>Singular cases, checked in this order: a loop of ports and sources
+ * ({@link SingularCase#CAPACITOR_LOOP}, naming the loop's parts), nodes no resistor or source
+ * ties to ground ({@link SingularCase#NO_DC_PATH}, naming the nodes and the parts on them),
+ * a singular MNA matrix for any other reason (also NO_DC_PATH, named from its null vector),
+ * and a singular Y ({@link SingularCase#POLE_AT_ZERO}, naming the capacitors in Y's right
+ * null vector). Immutable; one instance serves any thread.
+ */
+public final class PortReduction {
+    /** Pivot threshold of the row-equilibrated Y below which Y counts as singular. */
+    public static final double DEFAULT_ADMITTANCE_PIVOT = 1e-11;
+    /** A null-vector entry above this share of the largest names its part in a singular case. */
+    private static final double NULL_VECTOR_SHARE = 0.1;
+
+    private final MnaSolver solver;
+    private final double admittancePivot;
+
+    public PortReduction() {
+        this(new MnaSolver(), DEFAULT_ADMITTANCE_PIVOT);
+    }
+
+    public PortReduction(MnaSolver solver, double admittancePivot) {
+        this.solver = solver;
+        this.admittancePivot = admittancePivot;
+    }
+
+    /** @return the band's model (A in 1/s, D as a voltage ratio), or the named singular case */
+    public Reduction reduce(SmallSignalNetwork network, Band band) {
+        List<NetworkElement.Capacitance> candidates = network.capacitances(band);
+        List<NetworkElement.Capacitance> shorted =
+                band == Band.HIGH ? network.capacitances(Band.LOW) : List.of();
+
+        NetworkTopology topology = new NetworkTopology(network);
+        topology.addVoltageBranch(new NetworkTopology.Branch(MnaSystem.STIMULUS, network.drivenNode(), 0, -1, true));
+        for (NetworkElement.Capacitance c : shorted) {
+            Optional<List<NetworkTopology.Step>> loop =
+                    topology.addVoltageBranch(new NetworkTopology.Branch(c.name(), c.a(), c.b(), -1, false));
+            if (loop.isPresent()) {
+                return loopCase(network, band, loop.get(), c.name());
+            }
+        }
+        List<NetworkElement.Capacitance> ports = new ArrayList<>(candidates.size());
+        List<LinkCapacitor> links = new ArrayList<>();
+        for (NetworkElement.Capacitance c : candidates) {
+            Optional<List<NetworkTopology.Step>> loop = topology.addVoltageBranch(
+                    new NetworkTopology.Branch(c.name(), c.a(), c.b(), ports.size(), false));
+            if (loop.isEmpty()) {
+                ports.add(c);
+            } else if (band == Band.HIGH) {
+                links.add(new LinkCapacitor(c.name(), c.farads(), loop.get()));
+            } else {
+                return loopCase(network, band, loop.get(), c.name());
+            }
+        }
+        List<Integer> floating = topology.nodesWithoutDcPath();
+        if (!floating.isEmpty()) {
+            List<String> nodes = topology.nodeNames(floating);
+            List<String> parts = topology.elementsTouching(floating);
+            return new Reduction.Singular(SingularCase.NO_DC_PATH, band, parts, nodes,
+                    "no resistor or source ties node(s) " + nodes + " to ground in the " + band.name().toLowerCase()
+                            + "-band network; parts there: " + parts);
+        }
+
+        MnaSystem system = MnaSystem.withPorts(network, ports, shorted);
+        Optional<MnaSolver.Factored> factored = solver.factor(system);
+        if (factored.isEmpty()) {
+            return singularMna(system, band);
+        }
+        int k = ports.size();
+        double[][] y = new double[k][k];
+        double[] b = new double[k];
+        double[] c = new double[k];
+        double[] farads = new double[k];
+        List<String> names = new ArrayList<>(k);
+        for (int j = 0; j < k; j++) {
+            double[] solution = factored.get().solveUnitSource(j + 1);
+            for (int i = 0; i < k; i++) {
+                // Y counts current out of the port into the network: minus the source current.
+                y[i][j] = -system.sourceCurrentAmps(solution, i + 1);
+            }
+            c[j] = system.outputVolts(solution);
+            farads[j] = ports.get(j).farads();
+            names.add(ports.get(j).name());
+        }
+        double[] stimulus = factored.get().solveUnitSource(0);
+        for (int i = 0; i < k; i++) {
+            b[i] = -system.sourceCurrentAmps(stimulus, i + 1);
+        }
+        double d = system.outputVolts(stimulus);
+
+        double[][] yInverse = new double[k][k];
+        if (k > 0 && !invertEquilibrated(y, yInverse)) {
+            return poleAtZero(y, names, band);
+        }
+        return new Reduction.StateSpace(new StateModel(band, names, farads, links, y, yInverse, b, c, d));
+    }
+
+    private static Reduction.Singular loopCase(SmallSignalNetwork network, Band band, List<NetworkTopology.Step> loop,
+                                               String closing) {
+        List<String> parts = new ArrayList<>();
+        Set<String> nodes = new LinkedHashSet<>();
+        for (NetworkTopology.Step step : loop) {
+            parts.add(step.branch().name());
+            nodes.add(network.nodes().get(step.branch().a()));
+            nodes.add(network.nodes().get(step.branch().b()));
+        }
+        parts.add(closing);
+        return new Reduction.Singular(SingularCase.CAPACITOR_LOOP, band, parts, new ArrayList<>(nodes),
+                "capacitors " + parts + " form a loop of voltage-defined branches in the "
+                        + band.name().toLowerCase() + "-band analysis, so their voltages are not independent");
+    }
+
+    // Row equilibration makes the pivot test relative to each row's size: a port seen through
+    // a large resistance is not singular, a dependent combination of ports is.
+    private boolean invertEquilibrated(double[][] y, double[][] inverse) {
+        int k = y.length;
+        double[] rowScale = new double[k];
+        double[][] scaled = new double[k][k];
+        for (int i = 0; i < k; i++) {
+            double max = 0;
+            for (int j = 0; j < k; j++) {
+                max = Math.max(max, Math.abs(y[i][j]));
+            }
+            rowScale[i] = max > 0 ? 1 / max : 1;
+            for (int j = 0; j < k; j++) {
+                scaled[i][j] = y[i][j] * rowScale[i];
+            }
+        }
+        DecompositionSolver lu = new LUDecomposition(new Array2DRowRealMatrix(scaled, false), admittancePivot).getSolver();
+        if (!lu.isNonSingular()) {
+            return false;
+        }
+        RealMatrix inv = lu.getInverse();
+        for (int i = 0; i < k; i++) {
+            for (int j = 0; j < k; j++) {
+                // (R·Y)⁻¹ = Y⁻¹·R⁻¹, so Y⁻¹ = (R·Y)⁻¹·R
+                inverse[i][j] = inv.getEntry(i, j) * rowScale[j];
+            }
+        }
+        return true;
+    }
+
+    private static Reduction.Singular poleAtZero(double[][] y, List<String> names, Band band) {
+        SingularValueDecomposition svd = new SingularValueDecomposition(new Array2DRowRealMatrix(y));
+        int last = y.length - 1;
+        // the right null vector is the pattern of port voltages that draws no current: the mode
+        // that drifts at DC
+        double[] right = svd.getV().getColumn(last);
+        List<String> parts = new ArrayList<>();
+        for (int i = 0; i < y.length; i++) {
+            if (significant(right, i)) {
+                parts.add(names.get(i));
+            }
+        }
+        return new Reduction.Singular(SingularCase.POLE_AT_ZERO, band, parts, List.of(),
+                "the short-circuit admittance seen by " + parts + " is singular: no DC current can flow "
+                        + "through that combination of capacitors, which gives a pole at s = 0");
+    }
+
+    private static Reduction.Singular singularMna(MnaSystem system, Band band) {
+        SingularValueDecomposition svd = new SingularValueDecomposition(new Array2DRowRealMatrix(system.matrixView()));
+        double[] nullVector = svd.getV().getColumn(system.size() - 1);
+        List<String> nodes = new ArrayList<>();
+        List<String> parts = new ArrayList<>();
+        for (int i = 0; i < nullVector.length; i++) {
+            if (significant(nullVector, i)) {
+                if (i < system.nodeCount() - 1) {
+                    nodes.add(system.nodeNames().get(i + 1));
+                } else {
+                    parts.add(system.sourceNames().get(i - system.nodeCount() + 1));
+                }
+            }
+        }
+        return new Reduction.Singular(SingularCase.NO_DC_PATH, band, parts, nodes,
+                "the " + band.name().toLowerCase() + "-band network does not fix the DC voltage of node(s) "
+                        + nodes + (parts.isEmpty() ? "" : " (sources involved: " + parts + ")"));
+    }
+
+    private static boolean significant(double[] vector, int i) {
+        double max = 0;
+        for (double v : vector) {
+            max = Math.max(max, Math.abs(v));
+        }
+        return Math.abs(vector[i]) > NULL_VECTOR_SHARE * max;
+    }
+}

@@ -1,0 +1,157 @@
+package org.polebench.analysis;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Optional;
+import java.util.OptionalDouble;
+import org.polebench.circuit.Band;
+import org.polebench.circuit.SmallSignalNetwork;
+
+/**
+ * The analysis entry point: port reduction of both bands, poles, zeros, the SCTC and OCTC
+ * estimates, the exact corners and the sensitivities of one network (DESIGN.md, "Numerics").
+ * Immutable and stateless between calls; one instance serves any number of threads.
+ */
+public final class StagePredictor {
+    /** |wᵀv| of unit eigenvectors below this marks a repeated or defective pole. */
+    static final double REPEATED_POLE_CONDITION = 1e-6;
+
+    private final PortReduction reduction;
+    private final PoleFinder poleFinder;
+    private final CornerFinder cornerFinder;
+
+    public StagePredictor() {
+        this(new PortReduction(), new PoleFinder(), new CornerFinder());
+    }
+
+    public StagePredictor(PortReduction reduction, PoleFinder poleFinder, CornerFinder cornerFinder) {
+        this.reduction = reduction;
+        this.poleFinder = poleFinder;
+        this.cornerFinder = cornerFinder;
+    }
+
+    /** @return the full prediction, or the named singular case of the low band */
+    public PredictionOutcome predict(SmallSignalNetwork network) {
+        Reduction low = reduction.reduce(network, Band.LOW);
+        if (low instanceof Reduction.Singular) {
+            return (Reduction.Singular) low;
+        }
+        StateModel model = ((Reduction.StateSpace) low).model();
+        Optional<Eigenpairs> eigen = poleFinder.eigenpairs(model.aView(), false);
+        if (eigen.isEmpty()) {
+            return noEigenvalues(model);
+        }
+        double d = model.directGain();
+        Optional<Spectrum> zeros = d == 0 ? Optional.empty()
+                : poleFinder.eigenpairs(zeroMatrix(model), true).map(Eigenpairs::spectrum);
+
+        SctcEstimate sctc = SctcEstimate.of(model);
+        OptionalDouble lowerRadPerS = cornerFinder.lowerCornerRadPerS(model);
+        double[] cornerSensitivity = lowerRadPerS.isPresent()
+                ? cornerFinder.cornerSensitivities(model, lowerRadPerS.getAsDouble()) : null;
+        List<CapacitorSensitivity> capacitorSensitivities = new ArrayList<>(model.order());
+        for (int i = 0; i < model.order(); i++) {
+            capacitorSensitivities.add(new CapacitorSensitivity(model.capacitorNames().get(i),
+                    cornerSensitivity == null ? OptionalDouble.empty() : OptionalDouble.of(cornerSensitivity[i]),
+                    -1 / sctc.terms().get(i).seconds()));
+        }
+
+        Optional<UpperBand> upper = Optional.empty();
+        Optional<Reduction.Singular> upperProblem = Optional.empty();
+        if (!network.capacitances(Band.HIGH).isEmpty()) {
+            Reduction high = reduction.reduce(network, Band.HIGH);
+            if (high instanceof Reduction.Singular) {
+                upperProblem = Optional.of((Reduction.Singular) high);
+            } else {
+                StateModel highModel = ((Reduction.StateSpace) high).model();
+                if (highModel.order() > 0) {
+                    Optional<Spectrum> highPoles = poleFinder.spectrum(highModel.aView());
+                    if (highPoles.isEmpty()) {
+                        upperProblem = Optional.of(noEigenvalues(highModel));
+                    } else {
+                        OptionalDouble upperRadPerS = cornerFinder.upperCornerRadPerS(highModel, d);
+                        upper = Optional.of(new UpperBand(highModel, OctcEstimate.of(highModel),
+                                hz(upperRadPerS), highPoles.get()));
+                    }
+                }
+            }
+        }
+        return new Prediction(d, model, sctc, hz(lowerRadPerS), eigen.get().spectrum(), zeros, capacitorSensitivities,
+                poleSensitivities(eigen.get()), upper, upperProblem);
+    }
+
+    /**
+     * The light path for a Monte Carlo spread: only the low-band reduction and the exact lower
+     * corner, no eigenvalues, zeros, sensitivities or high band.
+     *
+     * @return the exact lower −3 dB corner in Hz; empty when the low band is singular or there
+     * is no corner (see {@link Prediction#exactLowerCornerHz()}); {@link #predict} says which
+     */
+    public OptionalDouble exactLowerCornerHz(SmallSignalNetwork network) {
+        Reduction low = reduction.reduce(network, Band.LOW);
+        if (low instanceof Reduction.Singular) {
+            return OptionalDouble.empty();
+        }
+        return hz(cornerFinder.lowerCornerRadPerS(((Reduction.StateSpace) low).model()));
+    }
+
+    private static OptionalDouble hz(OptionalDouble radPerS) {
+        return radPerS.isPresent() ? OptionalDouble.of(radPerS.getAsDouble() / (2 * Math.PI)) : OptionalDouble.empty();
+    }
+
+    private static Reduction.Singular noEigenvalues(StateModel model) {
+        return new Reduction.Singular(SingularCase.EIGENVALUES_NOT_FOUND, model.band(), model.capacitorNames(),
+                List.of(), "the eigenvalue iteration did not converge on the " + model.band().name().toLowerCase()
+                        + "-band state matrix");
+    }
+
+    // Zeros of a SISO model: det(sI − A)·H(s)/D = det(sI − (A − B·C/D)).
+    private static double[][] zeroMatrix(StateModel model) {
+        int k = model.order();
+        double[][] a = model.aView();
+        double[] b = model.bView();
+        double[] c = model.cView();
+        double d = model.directGain();
+        double[][] z = new double[k][k];
+        for (int i = 0; i < k; i++) {
+            for (int j = 0; j < k; j++) {
+                z[i][j] = a[i][j] - b[i] * c[j] / d;
+            }
+        }
+        return z;
+    }
+
+    private static List<PoleSensitivity> poleSensitivities(Eigenpairs eigen) {
+        int n = eigen.size();
+        List<PoleSensitivity> result = new ArrayList<>(n);
+        for (int m = 0; m < n; m++) {
+            double[] vr = eigen.right[m][0];
+            double[] vi = eigen.right[m][1];
+            double[] wr = eigen.left[m][0];
+            double[] wi = eigen.left[m][1];
+            double sr = 0;
+            double si = 0;
+            double[] pr = new double[n];
+            double[] pi = new double[n];
+            for (int i = 0; i < n; i++) {
+                pr[i] = wr[i] * vr[i] - wi[i] * vi[i];
+                pi[i] = wr[i] * vi[i] + wi[i] * vr[i];
+                sr += pr[i];
+                si += pi[i];
+            }
+            ComplexFrequency pole = new ComplexFrequency(eigen.re[m], eigen.im[m]);
+            double size = sr * sr + si * si;
+            if (Math.sqrt(size) < REPEATED_POLE_CONDITION) {
+                result.add(new PoleSensitivity(pole, true, List.of()));
+                continue;
+            }
+            List<Double> values = new ArrayList<>(n);
+            for (int i = 0; i < n; i++) {
+                // −Re(p_i / Σp)
+                values.add(-(pr[i] * sr + pi[i] * si) / size);
+            }
+            result.add(new PoleSensitivity(pole, false, values));
+        }
+        return result;
+    }
+}
