@@ -164,6 +164,15 @@ public record Stage(String name, Path sourceFile, String ground, List<Supply> su
         return withPart(bjt(id).withBeta(beta));
     }
 
+    /**
+     * @return a copy with a whole new part list (same names expected, as a Monte Carlo draw
+     *         makes); one copy instead of one per part
+     */
+    public Stage withParts(List<Part> newParts) {
+        return new Stage(name, sourceFile, ground, supplies, input, output, limits, temperatureKelvin,
+                gainCalibrationDb, newParts);
+    }
+
     /** @return a copy with the part of the same name replaced; the name must exist */
     public Stage withPart(Part replacement) {
         List<Part> changed = new ArrayList<>(parts.size());

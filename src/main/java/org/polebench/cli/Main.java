@@ -16,6 +16,7 @@ import picocli.CommandLine.Command;
                 + "that explains the difference and writes a test report.",
         subcommands = {
                 CommandLine.HelpCommand.class,
+                PredictCommand.class,
         },
         exitCodeListHeading = "%nExit codes:%n",
         exitCodeList = {

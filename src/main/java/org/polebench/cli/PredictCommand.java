@@ -1,0 +1,65 @@
+package org.polebench.cli;
+
+import java.io.IOException;
+import java.nio.file.Path;
+import java.util.concurrent.Callable;
+import org.polebench.InputProblem;
+import org.polebench.analysis.StageAnalysis;
+import org.polebench.analysis.StagePrediction;
+import org.polebench.analysis.ToleranceSpread;
+import org.polebench.circuit.StageReader;
+import org.polebench.report.PredictionJson;
+import org.polebench.report.PredictionText;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
+import picocli.CommandLine.Model.CommandSpec;
+
+/** {@code polebench predict}: a stage file's predicted low-frequency response. */
+@Command(name = "predict", mixinStandardHelpOptions = true,
+        description = {"Predicts a stage's response: operating points, the SCTC resistance and time constant "
+                + "of every low-band capacitor, the SCTC and exact lower corners, poles and zeros, midband "
+                + "gain, the upper corner when device capacitances are given, and the spread of the lower "
+                + "corner over the part tolerances.",
+                "With no stage it runs on the bundled demo stage (demo data)."},
+        footer = {"", "Example:", "  polebench predict sample-measurements/hydrophone-preamp-ce.stage.yaml --json"})
+final class PredictCommand implements Callable<Integer> {
+    @Spec
+    CommandSpec spec;
+
+    @Parameters(index = "0", arity = "0..1", paramLabel = "STAGE", description = "the stage file (*.stage.yaml)")
+    Path positionalStage;
+
+    @Option(names = "--stage", paramLabel = "STAGE", description = "the stage file, as an option")
+    Path stageOption;
+
+    @Option(names = "--json", description = "print one JSON object instead of the summary")
+    boolean json;
+
+    @Option(names = "--samples", paramLabel = "N", defaultValue = "" + ToleranceSpread.DEFAULT_SAMPLES,
+            description = "boards drawn for the tolerance spread (default ${DEFAULT-VALUE})")
+    int samples;
+
+    @Option(names = "--seed", paramLabel = "SEED", defaultValue = "" + ToleranceSpread.DEFAULT_SEED,
+            description = "random seed of the tolerance spread (default ${DEFAULT-VALUE})")
+    long seed;
+
+    @Override
+    public Integer call() throws InputProblem, IOException {
+        Path stage = StageChoice.resolve(positionalStage, stageOption);
+        if (samples < 20) {
+            throw new InputProblem(null, 0, "--samples " + samples + " is too few for 5 % and 95 % points",
+                    "use at least 20 (the default is " + ToleranceSpread.DEFAULT_SAMPLES + ")");
+        }
+        StagePrediction result = new StageAnalysis()
+                .withSpread(new ToleranceSpread(samples, seed))
+                .analyse(new StageReader().read(stage));
+        if (json) {
+            new JsonOutput().print(new PredictionJson().of(result), spec.commandLine().getOut());
+        } else {
+            new PredictionText().write(result, spec.commandLine().getOut());
+        }
+        return ExitCodes.OK;
+    }
+}

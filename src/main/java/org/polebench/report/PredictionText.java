@@ -1,0 +1,121 @@
+package org.polebench.report;
+
+import java.io.PrintWriter;
+import java.util.List;
+import java.util.Locale;
+import java.util.OptionalDouble;
+import org.polebench.InputWarning;
+import org.polebench.analysis.ComplexFrequency;
+import org.polebench.analysis.CornerSpread;
+import org.polebench.analysis.Prediction;
+import org.polebench.analysis.SctcTerm;
+import org.polebench.analysis.StagePrediction;
+import org.polebench.analysis.UpperBand;
+import org.polebench.circuit.OperatingPoint;
+import org.polebench.units.EngineeringValue;
+
+/** The readable summary {@code polebench predict} prints. */
+public final class PredictionText {
+
+    public void write(StagePrediction result, PrintWriter out) {
+        Prediction prediction = result.prediction();
+        out.println("Stage: " + result.stage().name());
+        out.println();
+        out.println("Operating points");
+        for (OperatingPoint point : result.operatingPoints().transistors()) {
+            out.println("  " + describe(point));
+        }
+        out.println();
+        out.println("Low-band capacitors (SCTC: each seen with the others shorted)");
+        out.println(String.format(Locale.ROOT, "  %-8s %10s %12s %12s %7s %10s",
+                "part", "value", "R seen", "tau", "share", "dlnf/dlnC"));
+        for (int i = 0; i < prediction.sctc().terms().size(); i++) {
+            SctcTerm term = prediction.sctc().terms().get(i);
+            OptionalDouble sensitivity = prediction.capacitorSensitivities().get(i).exactCornerPerLnC();
+            out.println(String.format(Locale.ROOT, "  %-8s %10s %12s %12s %6.1f%% %10s", term.capacitor(),
+                    EngineeringValue.format(term.farads(), "F"), EngineeringValue.format(term.ohms(), "Ω"),
+                    EngineeringValue.format(term.seconds(), "s"), 100 * term.share(),
+                    sensitivity.isPresent() ? String.format(Locale.ROOT, "%.3f", sensitivity.getAsDouble()) : "-"));
+        }
+        out.println();
+        double sctc = prediction.sctcLowerCornerHz();
+        out.println("Lower corner");
+        out.println("  SCTC estimate      " + EngineeringValue.format(sctc, "Hz", 4));
+        if (prediction.exactLowerCornerHz().isPresent()) {
+            double exact = prediction.exactLowerCornerHz().getAsDouble();
+            out.println("  exact (-3 dB)      " + EngineeringValue.format(exact, "Hz", 4)
+                    + String.format(Locale.ROOT, "   (SCTC is %+.1f %% off the exact corner)",
+                    100 * (sctc - exact) / exact));
+        } else {
+            out.println("  exact (-3 dB)      none: the gain never falls 3 dB below midband");
+        }
+        CornerSpread spread = result.spread();
+        if (spread.analysed() > 0) {
+            out.println(String.format(Locale.ROOT, "  tolerance spread   5 %% %s   50 %% %s   95 %% %s   (%d boards drawn, seed %d%s)",
+                    EngineeringValue.format(spread.percentileHz(0.05).getAsDouble(), "Hz"),
+                    EngineeringValue.format(spread.percentileHz(0.50).getAsDouble(), "Hz"),
+                    EngineeringValue.format(spread.percentileHz(0.95).getAsDouble(), "Hz"),
+                    spread.samplesDrawn(), spread.seed(),
+                    spread.biasFailures() > 0 ? ", " + spread.biasFailures() + " left the active region" : ""));
+        } else {
+            out.println("  tolerance spread   none: no drawn board could be analysed");
+        }
+        out.println();
+        out.println(String.format(Locale.ROOT, "Midband gain         %.2f dB (%s, %s)", prediction.midbandGainDb(),
+                String.format(Locale.ROOT, "%.4g V/V", prediction.midbandGain()),
+                prediction.inverting() ? "inverting" : "non-inverting"));
+        if (prediction.upperBand().isPresent()) {
+            UpperBand upper = prediction.upperBand().get();
+            out.println("Upper corner         OCTC estimate " + EngineeringValue.format(upper.octcUpperCornerHz(), "Hz", 4)
+                    + (upper.exactUpperCornerHz().isPresent()
+                    ? ", exact " + EngineeringValue.format(upper.exactUpperCornerHz().getAsDouble(), "Hz", 4) : ""));
+        }
+        out.println();
+        out.println("Low-band poles (Hz, s/2π): " + roots(prediction.poles().roots()));
+        out.println("Low-band zeros (Hz, s/2π): " + (prediction.zeros().isPresent()
+                ? roots(prediction.zeros().get().roots()) : "not defined (midband gain is 0)"));
+        if (!result.warnings().isEmpty()) {
+            out.println();
+            out.println("Warnings");
+            for (InputWarning warning : result.warnings()) {
+                out.println("  " + warning.describe());
+            }
+        }
+    }
+
+    static String roots(List<ComplexFrequency> roots) {
+        if (roots.isEmpty()) {
+            return "none";
+        }
+        StringBuilder text = new StringBuilder();
+        for (ComplexFrequency root : roots) {
+            if (text.length() > 0) {
+                text.append(", ");
+            }
+            if (root.isReal()) {
+                text.append(String.format(Locale.ROOT, "%.4g", root.realHz()));
+            } else {
+                text.append(String.format(Locale.ROOT, "%.4g%+.4gj", root.realHz(), root.imaginaryHz()));
+            }
+        }
+        return text.toString();
+    }
+
+    private static String regionWords(OperatingPoint point) {
+        return point.region().name().toLowerCase(Locale.ROOT).replace('_', ' ');
+    }
+
+    private static String describe(OperatingPoint point) {
+        String given = point.currentGiven() ? " (current given)" : "";
+        if (point instanceof OperatingPoint.BjtPoint) {
+            OperatingPoint.BjtPoint bjt = (OperatingPoint.BjtPoint) point;
+            return String.format(Locale.ROOT, "%-4s IC %s, VCE %.2f V, VBE %.2f V, %s%s", bjt.transistor(),
+                    EngineeringValue.format(bjt.collectorAmps(), "A"), bjt.vceVolts(), bjt.vbeVolts(),
+                    regionWords(point), given);
+        }
+        OperatingPoint.MosfetPoint mosfet = (OperatingPoint.MosfetPoint) point;
+        return String.format(Locale.ROOT, "%-4s ID %s, VDS %.2f V, VGS %.2f V, %s%s", mosfet.transistor(),
+                EngineeringValue.format(mosfet.drainAmps(), "A"), mosfet.vdsVolts(), mosfet.vgsVolts(),
+                regionWords(point), given);
+    }
+}
