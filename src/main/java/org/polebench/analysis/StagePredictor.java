@@ -15,6 +15,8 @@ import org.polebench.circuit.SmallSignalNetwork;
 public final class StagePredictor {
     /** |wᵀv| of unit eigenvectors below this marks a repeated or defective pole. */
     static final double REPEATED_POLE_CONDITION = 1e-6;
+    /** A zero below this share of the smallest pole magnitude is a zero at DC (see zerosOf). */
+    static final double DC_ZERO_SHARE = 1e-3;
 
     private final PortReduction reduction;
     private final PoleFinder poleFinder;
@@ -42,8 +44,7 @@ public final class StagePredictor {
             return noEigenvalues(model);
         }
         double d = model.directGain();
-        Optional<Spectrum> zeros = d == 0 ? Optional.empty()
-                : poleFinder.eigenpairs(zeroMatrix(model), true).map(Eigenpairs::spectrum);
+        Optional<Spectrum> zeros = d == 0 ? Optional.empty() : zerosOf(model, eigen.get().spectrum());
 
         SctcEstimate sctc = SctcEstimate.of(model);
         OptionalDouble lowerRadPerS = cornerFinder.lowerCornerRadPerS(model);
@@ -103,6 +104,32 @@ public final class StagePredictor {
         return new Reduction.Singular(SingularCase.EIGENVALUES_NOT_FOUND, model.band(), model.capacitorNames(),
                 List.of(), "the eigenvalue iteration did not converge on the " + model.band().name().toLowerCase()
                         + "-band state matrix");
+    }
+
+    /**
+     * Zeros with the ones at DC made exact. A zero of multiplicity m at s = 0 (one per coupling
+     * capacitor in the signal path) forms a Jordan block of Z = A − B·C/D, which any eigenvalue
+     * solver perturbs to about ε^(1/m)·‖Z‖ (Wilkinson, The Algebraic Eigenvalue Problem, 1965),
+     * far above a fixed snap threshold, and Z's null space does not count them (it has
+     * dimension 1). So a zero below 1e-3 of the smallest pole magnitude is taken as DC: no sweep
+     * that starts within three decades of the lowest pole could tell it from one.
+     */
+    private Optional<Spectrum> zerosOf(StateModel model, Spectrum poles) {
+        Optional<Spectrum> found = poleFinder.eigenpairs(zeroMatrix(model), true).map(Eigenpairs::spectrum);
+        if (found.isEmpty() || poles.roots().isEmpty()) {
+            return found;
+        }
+        double smallestPole = Double.POSITIVE_INFINITY;
+        for (ComplexFrequency pole : poles.roots()) {
+            smallestPole = Math.min(smallestPole, pole.magnitudeRadPerS());
+        }
+        Spectrum spectrum = found.get();
+        List<ComplexFrequency> roots = new ArrayList<>(spectrum.roots().size());
+        for (ComplexFrequency zero : spectrum.roots()) {
+            roots.add(zero.magnitudeRadPerS() < DC_ZERO_SHARE * smallestPole ? new ComplexFrequency(0, 0) : zero);
+        }
+        return Optional.of(new Spectrum(roots, spectrum.traceRelativeError(), spectrum.determinantRelativeError(),
+                spectrum.maxRelativeResidual()));
     }
 
     // Zeros of a SISO model: det(sI − A)·H(s)/D = det(sI − (A − B·C/D)).
