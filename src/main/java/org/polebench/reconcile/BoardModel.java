@@ -53,6 +53,8 @@ final class BoardModel {
         }
     };
     private final SmallComplexLu lowLu;
+    private int reductions;
+    private int responses;
     private final double[] xr;
     private final double[] xi;
     private final double[] ur;
@@ -116,17 +118,20 @@ final class BoardModel {
      * @param hIm   out: Im H per frequency
      * @param dRe   out, or null: [frequency][parameter] real part of ∂ln H/∂θ
      * @param dIm   out, or null: imaginary part
+     * @param biasColumns whether to compute the bias columns of {@code dRe, dIm} (by forward
+     *                    difference); when false they are left as they were
      * @return false when the network is singular at these bias currents or H vanishes
      */
-    boolean evaluate(double[] theta, double[] hRe, double[] hIm, double[][] dRe, double[][] dIm) {
+    boolean evaluate(double[] theta, double[] hRe, double[] hIm, double[][] dRe, double[][] dIm,
+                     boolean biasColumns) {
         int k = capacitors.size();
         int m = transistors.size();
         double[] lnBias = Arrays.copyOfRange(theta, k, k + m);
-        Reduced reduced = reduced(lnBias);
+        Reduced reduced = reduced(lnBias, true);
         if (reduced == null || !response(reduced, theta, hRe, hIm, dRe, dIm)) {
             return false;
         }
-        if (dRe == null) {
+        if (dRe == null || !biasColumns) {
             return true;
         }
         double[] pr = new double[omegas.length];
@@ -134,15 +139,23 @@ final class BoardModel {
         for (int j = 0; j < m; j++) {
             double[] stepped = lnBias.clone();
             stepped[j] += BIAS_STEP;
-            Reduced other = reduced(stepped);
+            // the derivative leaves out the high band's small bias dependence (its value is kept
+            // exact): a Jacobian only steers the search, the residuals fix where it ends
+            Reduced other = reduced(stepped, false);
             if (other == null || !response(other, theta, pr, pi, null, null)) {
+                return false;
+            }
+            Reduced lowOnly = reduced(lnBias, false);
+            double[] br = new double[omegas.length];
+            double[] bi = new double[omegas.length];
+            if (lowOnly == null || !response(lowOnly, theta, br, bi, null, null)) {
                 return false;
             }
             for (int n = 0; n < omegas.length; n++) {
                 // ln(H'/H)/h: a ratio, so no branch cut of the logarithm is crossed
-                double size = hRe[n] * hRe[n] + hIm[n] * hIm[n];
-                double qr = (pr[n] * hRe[n] + pi[n] * hIm[n]) / size;
-                double qi = (pi[n] * hRe[n] - pr[n] * hIm[n]) / size;
+                double size = br[n] * br[n] + bi[n] * bi[n];
+                double qr = (pr[n] * br[n] + pi[n] * bi[n]) / size;
+                double qi = (pi[n] * br[n] - pr[n] * bi[n]) / size;
                 dRe[n][k + j] = 0.5 * Math.log(qr * qr + qi * qi) / BIAS_STEP;
                 dIm[n][k + j] = Math.atan2(qi, qr) / BIAS_STEP;
             }
@@ -175,6 +188,7 @@ final class BoardModel {
 
     private boolean response(Reduced reduced, double[] theta, double[] hRe, double[] hIm, double[][] dRe,
                              double[][] dIm) {
+        responses++;
         int k = capacitors.size();
         double gain = Math.exp(theta[theta.length - 1]);
         double[] farads = new double[k];
@@ -238,20 +252,31 @@ final class BoardModel {
         return true;
     }
 
-    private Reduced reduced(double[] lnBias) {
-        String key = Arrays.toString(lnBias);
+    private Reduced reduced(double[] lnBias, boolean withHighBand) {
+        String key = Arrays.toString(lnBias) + withHighBand;
         Reduced hit = cache.get(key);
         if (hit != null) {
             return hit;
         }
-        Reduced made = reduce(lnBias);
+        Reduced made = reduce(lnBias, withHighBand);
         if (made != null) {
             cache.put(key, made);
         }
         return made;
     }
 
-    private Reduced reduce(double[] lnBias) {
+    /** @return how many port reductions this model has made: the cost driver of a back-solve */
+    int reductions() {
+        return reductions;
+    }
+
+    /** @return how many responses over the sweep this model has evaluated */
+    int responses() {
+        return responses;
+    }
+
+    private Reduced reduce(double[] lnBias, boolean withHighBand) {
+        reductions++;
         SmallSignalNetwork network = expansion.expand(stage, points(lnBias));
         Reduction low = reduction.reduce(network, Band.LOW);
         if (!(low instanceof Reduction.StateSpace)) {
@@ -276,7 +301,7 @@ final class BoardModel {
         double[] highRe = new double[omegas.length];
         double[] highIm = new double[omegas.length];
         Arrays.fill(highRe, 1);
-        if (!network.capacitances(Band.HIGH).isEmpty() && d != 0) {
+        if (withHighBand && !network.capacitances(Band.HIGH).isEmpty() && d != 0) {
             Reduction high = reduction.reduce(network, Band.HIGH);
             if (!(high instanceof Reduction.StateSpace)) {
                 return null;

@@ -58,6 +58,8 @@ public final class FaultRanking {
     static final double ZERO_BAND_SIGMA = 1e-3;
     static final int SCREEN_ITERATIONS = 5;
     static final int MAX_ITERATIONS = 60;
+    /** Log-posterior lag after screening beyond which a hypothesis is not run to convergence. */
+    static final double SKIP_NATS = 30;
 
     private final MapSolver screen = new MapSolver(SCREEN_ITERATIONS);
     private final MapSolver solver = new MapSolver(MAX_ITERATIONS);
@@ -90,15 +92,48 @@ public final class FaultRanking {
             kinds.add(kindOf(parameters.get(j).kind()));
         }
 
-        MapPoint none = solve(new Misfit(model, measured, tolerance, 1), List.of(mean));
+        boolean[] biasHeld = new boolean[p];
+        java.util.Arrays.fill(biasHeld, true);
+        int k = model.capacitors().size();
+        for (int j = k; j < k + model.transistors().size(); j++) {
+            biasHeld[j] = false;
+        }
+        MapPoint none = solve(new Misfit(model, measured, tolerance, 1), List.of(mean), biasHeld);
+        double[] logPrior = new double[priorSets.size()];
+        double alternative = (1 - NO_FAULT_PRIOR) / p;
+        logPrior[0] = Math.log(NO_FAULT_PRIOR);
         List<MapPoint> points = new ArrayList<>();
         points.add(none);
+        List<Misfit> misfits = new ArrayList<>();
+        misfits.add(null);
         for (int h = 1; h < priorSets.size(); h++) {
             int j = h - 1;
-            points.add(solve(new Misfit(model, measured, priorSets.get(h), 1),
-                    starts(none.theta(), j, parameters.get(j), priorSets.get(h)[j].mean())));
+            logPrior[h] = Math.log(alternative);
+            Misfit misfit = new Misfit(model, measured, priorSets.get(h), 1);
+            misfits.add(misfit);
+            List<double[]> starts = starts(none.theta(), j, parameters.get(j), priorSets.get(h)[j].mean());
+            boolean freedBias = parameters.get(j).kind() == ParameterKind.BIAS;
+            boolean[] free = biasHeld;
+            if (freedBias) {
+                // screen with only the freed bias among the biases moving
+                free = biasHeld.clone();
+                free[j] = true;
+            }
+            points.add(screen(misfit, starts, free, freedBias));
         }
         double[] lnZ = evidence(points, priorSets);
+        double bestScreened = Double.NEGATIVE_INFINITY;
+        for (int h = 0; h < lnZ.length; h++) {
+            bestScreened = Math.max(bestScreened, logPrior[h] + lnZ[h]);
+        }
+        for (int h = 1; h < priorSets.size(); h++) {
+            // a hypothesis far behind after screening keeps its screened point: its probability is
+            // below e^-SKIP_NATS either way, and converging it would not change the ranking
+            if (logPrior[h] + lnZ[h] > bestScreened - SKIP_NATS) {
+                points.set(h, solve(misfits.get(h), List.of(points.get(h).theta()), biasHeld));
+            }
+        }
+        lnZ = evidence(points, priorSets);
         int best = argMax(lnZ, kinds.size());
         int nu = Math.max(1, measured.rows() - p);
         double scale = Math.sqrt(Math.max(1, points.get(best).dataChiSquared() / nu));
@@ -106,16 +141,14 @@ public final class FaultRanking {
         if (scale > 1) {
             List<MapPoint> rescaled = new ArrayList<>();
             for (int h = 0; h < priorSets.size(); h++) {
-                rescaled.add(solve(new Misfit(model, measured, priorSets.get(h), scale),
-                        List.of(points.get(h).theta())));
+                rescaled.add(points.get(h).withNoiseScale(scale, priorSets.get(h)));
             }
             points = rescaled;
             lnZ = evidence(points, priorSets);
         }
         double[] logPosterior = new double[lnZ.length];
-        double alternative = (1 - NO_FAULT_PRIOR) / p;
         for (int h = 0; h < lnZ.length; h++) {
-            logPosterior[h] = Math.log(h == 0 ? NO_FAULT_PRIOR : alternative) + lnZ[h];
+            logPosterior[h] = logPrior[h] + lnZ[h];
         }
         double max = Double.NEGATIVE_INFINITY;
         for (double v : logPosterior) {
@@ -179,10 +212,11 @@ public final class FaultRanking {
 
     private static List<double[]> starts(double[] noFault, int j, ModelParameter parameter, double mean) {
         List<double[]> starts = new ArrayList<>();
-        double[] fromNoFault = noFault.clone();
-        starts.add(fromNoFault);
-        double[] offsets = parameter.kind() == ParameterKind.CAPACITOR
-                ? new double[] {0, -Math.log(10), Math.log(10)} : new double[] {0};
+        starts.add(noFault.clone());
+        if (parameter.kind() != ParameterKind.CAPACITOR) {
+            return starts;
+        }
+        double[] offsets = {-Math.log(10), Math.log(10)};
         for (double offset : offsets) {
             double[] start = noFault.clone();
             start[j] = mean + offset;
@@ -191,28 +225,42 @@ public final class FaultRanking {
         return starts;
     }
 
-    private MapPoint solve(Misfit misfit, List<double[]> starts) {
+    // every start with the bias held (no reductions needed), the best one kept
+    private MapPoint screen(Misfit misfit, List<double[]> starts, boolean[] free, boolean biasMoves) {
         MapPoint best = null;
-        double[] bestStart = null;
-        if (starts.size() > 1) {
-            for (double[] start : starts) {
-                Optional<MapPoint> point = screen.solve(misfit, start);
-                if (point.isPresent() && (best == null || point.get().objective() < best.objective())) {
-                    best = point.get();
-                }
+        for (double[] start : starts) {
+            Optional<MapPoint> point = screen.solve(misfit, start, free, biasMoves);
+            if (point.isPresent() && (best == null || point.get().objective() < best.objective())) {
+                best = point.get();
             }
-            bestStart = best == null ? null : best.theta();
-        } else {
-            bestStart = starts.get(0);
         }
-        if (bestStart == null) {
+        if (best == null) {
             throw new IllegalStateException("the stage's model is undefined at every start of the back-solve");
         }
-        Optional<MapPoint> point = solver.solve(misfit, bestStart);
-        if (point.isEmpty()) {
+        return best;
+    }
+
+    // bias held first (no reductions while the capacitors move), then everything free: the
+    // bias moves little under its priors, so the second phase takes a few iterations
+    private MapPoint solve(Misfit misfit, List<double[]> starts, boolean[] biasHeld) {
+        MapPoint best = null;
+        for (double[] start : starts) {
+            double[] from = start;
+            if (biasHeld != null) {
+                Optional<MapPoint> held = solver.solve(misfit, start, biasHeld, false);
+                if (held.isPresent()) {
+                    from = held.get().theta();
+                }
+            }
+            Optional<MapPoint> point = solver.solve(misfit, from);
+            if (point.isPresent() && (best == null || point.get().objective() < best.objective())) {
+                best = point.get();
+            }
+        }
+        if (best == null) {
             throw new IllegalStateException("the stage's model is undefined at the back-solve's start");
         }
-        return point.get();
+        return best;
     }
 
     private static double[] evidence(List<MapPoint> points, List<Prior[]> priorSets) {

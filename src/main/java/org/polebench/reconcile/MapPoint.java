@@ -26,6 +26,28 @@ final class MapPoint {
         this.iterations = iterations;
     }
 
+    /**
+     * @return this point's objective, Hessian and covariance with every data σ times
+     *         {@code scale}, at the same θ̂ (the shift of the MAP is second order in the
+     *         evidence): χ²/s², H' = (H − Σp⁻¹)/s² + Σp⁻¹
+     */
+    MapPoint withNoiseScale(double scale, Prior[] priors) {
+        int p = theta.length;
+        double[][] scaled = new double[p][p];
+        double s2 = scale * scale;
+        for (int i = 0; i < p; i++) {
+            double priorCurvature = 1 / (priors[i].standardDeviation() * priors[i].standardDeviation());
+            for (int j = 0; j < p; j++) {
+                double data = hessian[i][j] - (i == j ? priorCurvature : 0);
+                scaled[i][j] = data / s2 + (i == j ? priorCurvature : 0);
+            }
+        }
+        Cholesky factor = Cholesky.of(scaled).orElseThrow(
+                () -> new IllegalStateException("a rescaled posterior Hessian is not positive definite"));
+        return new MapPoint(theta, dataChiSquared / s2, priorMisfit, scaled, factor.inverse(), factor.lnDeterminant(),
+                converged, iterations);
+    }
+
     double[] theta() {
         return theta.clone();
     }

@@ -17,6 +17,8 @@ final class Misfit {
     private final double[] hi;
     private final double[][] dr;
     private final double[][] di;
+    private double[] biasAtColumns;
+    static final double BIAS_REFRESH = 0.03;
 
     Misfit(BoardModel model, MeasuredResponse measured, Prior[] priors, double noiseScale) {
         if (priors.length != model.parameterCount()) {
@@ -59,9 +61,35 @@ final class Misfit {
      * @return false where the model is undefined (singular network, H = 0)
      */
     boolean evaluate(double[] theta, double[] residuals, double[][] jacobian) {
-        boolean ok = model.evaluate(theta, hr, hi, jacobian == null ? null : dr, jacobian == null ? null : di);
+        return evaluate(theta, residuals, jacobian, false);
+    }
+
+    /**
+     * As {@link #evaluate(double[], double[], double[][])}; {@code exact} forces fresh bias
+     * columns of the Jacobian, which are otherwise reused until the bias has moved by
+     * {@value #BIAS_REFRESH} in ln I (they change slowly, and each costs a reduction).
+     */
+    boolean evaluate(double[] theta, double[] residuals, double[][] jacobian, boolean exact) {
+        return evaluate(theta, residuals, jacobian, exact, true);
+    }
+
+    /** @param biasWanted false when the bias parameters are held, so their columns are not needed */
+    boolean evaluate(double[] theta, double[] residuals, double[][] jacobian, boolean exact, boolean biasWanted) {
+        int caps = model.capacitors().size();
+        int m = model.transistors().size();
+        boolean fresh = false;
+        if (jacobian != null && m > 0 && biasWanted) {
+            fresh = exact || biasAtColumns == null;
+            for (int j = 0; !fresh && j < m; j++) {
+                fresh = Math.abs(theta[caps + j] - biasAtColumns[j]) > BIAS_REFRESH;
+            }
+        }
+        boolean ok = model.evaluate(theta, hr, hi, jacobian == null ? null : dr, jacobian == null ? null : di, fresh);
         if (!ok) {
             return false;
+        }
+        if (fresh) {
+            biasAtColumns = java.util.Arrays.copyOfRange(theta, caps, caps + m);
         }
         int n = measured.size();
         int p = priors.length;
