@@ -1,0 +1,40 @@
+package org.polebench.measure;
+
+import java.util.Locale;
+import java.util.Optional;
+
+/** What separates the cells of a table row. */
+public enum Delimiter {
+    COMMA("comma", ','),
+    SEMICOLON("semicolon", ';'),
+    TAB("tab", '\t'),
+    /** One or more spaces or tabs; leading and trailing blanks are not cells. */
+    SPACES("spaces", ' ');
+
+    private final String word;
+    private final char character;
+
+    Delimiter(String word, char character) {
+        this.word = word;
+        this.character = character;
+    }
+
+    public String word() {
+        return word;
+    }
+
+    /** @return the character written between cells (one space for {@link #SPACES}) */
+    public char character() {
+        return character;
+    }
+
+    public static Optional<Delimiter> parse(String text) {
+        String key = text.strip().toLowerCase(Locale.ROOT);
+        for (Delimiter delimiter : values()) {
+            if (delimiter.word.equals(key)) {
+                return Optional.of(delimiter);
+            }
+        }
+        return Optional.empty();
+    }
+}
