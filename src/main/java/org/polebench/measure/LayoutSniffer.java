@@ -185,6 +185,7 @@ final class LayoutSniffer {
             }
         }
         AngleUnit angle = AngleUnit.DEGREES;
+        Optional<PhaseSign> sign = Optional.empty();
         if (phase != null) {
             if (phase.any(RADIAN_WORDS)) {
                 angle = AngleUnit.RADIANS;
@@ -196,7 +197,10 @@ final class LayoutSniffer {
                     ambiguities.add("column " + phase.number + " '" + phase.header + "' could be phase in degrees or radians");
                 }
             }
-            assumed.add("phase sign lead-positive");
+            sign = signOf(phase);
+            if (sign.isEmpty()) {
+                assumed.add("phase sign lead-positive");
+            }
         }
         if (!ambiguities.isEmpty()) {
             List<String> fitting = fittingProfiles(file);
@@ -221,7 +225,7 @@ final class LayoutSniffer {
                 Optional.ofNullable(input).map(c -> ColumnRef.numbered(c.number)),
                 Optional.ofNullable(output).map(c -> ColumnRef.numbered(c.number)),
                 Optional.ofNullable(phase).map(c -> ColumnRef.numbered(c.number)), Optional.empty(), Optional.empty());
-        ReadingScale scale = new ReadingScale(unit, form, kind, angle, PhaseSign.LEAD_POSITIVE, true);
+        ReadingScale scale = new ReadingScale(unit, form, kind, angle, sign.orElse(PhaseSign.LEAD_POSITIVE), true);
         TableProfile profile = new TableProfile("auto", "sniffed from the header", layout, tableColumns, scale,
                 InstrumentAccuracy.unstated(), ReadingLimits.none(), Optional.empty());
         String preface = "auto: " + delimiter.word() + "-delimited, decimal " + (decimalComma ? "comma" : "point") + ", "
@@ -331,6 +335,36 @@ final class LayoutSniffer {
             }
         }
         return out;
+    }
+
+    /**
+     * Reads the sign convention from a phase header: "CH1-CH2" or "in-out" is input minus
+     * output, so a lag reads positive; "CH2-CH1" or "out-in" is a lead; so are the words lag
+     * and lead themselves.
+     */
+    private static Optional<PhaseSign> signOf(Column c) {
+        if (c.any(Set.of("lag", "nacheilend", "retard", "retraso"))) {
+            return Optional.of(PhaseSign.LAG_POSITIVE);
+        }
+        if (c.any(Set.of("lead", "voreilend", "avance", "adelanto"))) {
+            return Optional.of(PhaseSign.LEAD_POSITIVE);
+        }
+        int in = -1;
+        int out = -1;
+        int i = 0;
+        for (String word : c.words) {
+            if (in < 0 && INPUT_WORDS.contains(word)) {
+                in = i;
+            }
+            if (out < 0 && OUTPUT_WORDS.contains(word)) {
+                out = i;
+            }
+            i++;
+        }
+        if (in < 0 || out < 0) {
+            return Optional.empty();
+        }
+        return Optional.of(in < out ? PhaseSign.LAG_POSITIVE : PhaseSign.LEAD_POSITIVE);
     }
 
     private static Optional<AmplitudeKind> kindOf(Column c) {

@@ -44,18 +44,20 @@ public sealed interface LineProtocol permits LineProtocol.ScpiExchange, LineProt
      * @param setup        commands sent once before the sweep
      * @param step         commands sent for each frequency, in order; settling happens after
      *                     the command that waits for completion, or after the frequency is set
+     * @param finish       commands sent once after the sweep (such as turning the output off)
      * @param errorQuery   the error-queue query, {@code SYST:ERR?} (SCPI-99)
      * @param retries      how often a step is repeated after an error answer or a timeout
      * @param amplitude    generator level in the profile's amplitude kind, in volts
      * @param maxAmplitude the highest level the profile allows, in volts of that kind
      */
     record ScpiExchange(List<ScpiInstrument> instruments, List<ScpiCommand> setup, List<ScpiCommand> step,
-                        Settling settle, String errorQuery, int retries, int timeoutMs, double amplitude,
+                        List<ScpiCommand> finish, Settling settle, String errorQuery, int retries, int timeoutMs, double amplitude,
                         double maxAmplitude) implements LineProtocol {
         public ScpiExchange {
             instruments = List.copyOf(instruments);
             setup = List.copyOf(setup);
             step = List.copyOf(step);
+            finish = List.copyOf(finish);
             Objects.requireNonNull(settle);
             if (step.stream().noneMatch(c -> c.role() == CommandRole.SETS_FREQUENCY)) {
                 throw new IllegalArgumentException("a step needs a command that sets the frequency");

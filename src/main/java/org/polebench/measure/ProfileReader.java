@@ -24,7 +24,7 @@ import org.polebench.yaml.YamlReader;
 public final class ProfileReader {
     private static final Set<String> TABLE_KEYS = Set.of("kind", "name", "description", "layout", "columns", "units",
             "accuracy", "limits");
-    private static final Set<String> SCPI_KEYS = Set.of("kind", "name", "description", "instruments", "setup", "step",
+    private static final Set<String> SCPI_KEYS = Set.of("kind", "name", "description", "instruments", "setup", "step", "finish",
             "settle", "error-query", "retries", "timeout-ms", "amplitude", "max-amplitude", "units", "accuracy",
             "limits");
     private static final Set<String> STREAM_KEYS = Set.of("kind", "name", "description", "port", "identify", "start",
@@ -135,6 +135,7 @@ public final class ProfileReader {
         String errorQuery = doc.textOr(top, "error-query", "SYST:ERR?");
         List<ScpiCommand> setup = commands(doc, top, "setup", instruments, errorQuery, false);
         List<ScpiCommand> step = commands(doc, top, "step", instruments, errorQuery, true);
+        List<ScpiCommand> finish = commands(doc, top, "finish", instruments, errorQuery, false);
         ReadingScale scale = units(doc, top, true);
         boolean readsGain = step.stream().anyMatch(c -> c.role() == CommandRole.READS_GAIN);
         boolean readsIn = step.stream().anyMatch(c -> c.role() == CommandRole.READS_INPUT_AMPLITUDE);
@@ -157,7 +158,7 @@ public final class ProfileReader {
         if (amplitude > max) {
             throw doc.problem(top, "amplitude", "the amplitude is above max-amplitude", "lower it or raise the maximum");
         }
-        LineProtocol protocol = new LineProtocol.ScpiExchange(instruments, setup, step, settle, errorQuery,
+        LineProtocol protocol = new LineProtocol.ScpiExchange(instruments, setup, step, finish, settle, errorQuery,
                 doc.integer(top, "retries", 2, 0, 100), doc.integer(top, "timeout-ms", 2000, 1, 600_000),
                 amplitude, max);
         return new SerialProfile(name, doc.description(top), protocol, scale, accuracy(doc, top), limits(doc, top),

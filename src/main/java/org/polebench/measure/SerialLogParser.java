@@ -86,6 +86,7 @@ public final class SerialLogParser {
             LineProtocol.ScpiExchange scpi = (LineProtocol.ScpiExchange) profile.protocol();
             scpi.step().forEach(c -> commands.add(new Known(c)));
             scpi.setup().forEach(c -> commands.add(new Known(c)));
+            scpi.finish().forEach(c -> commands.add(new Known(c)));
             for (LineProtocol.ScpiInstrument instrument : scpi.instruments()) {
                 commands.add(new Known(new ScpiCommand(instrument.name(), instrument.identify(), CommandRole.IDENTIFIES)));
             }
