@@ -35,7 +35,7 @@ import org.polebench.InputProblem;
 public final class SerialLogParser {
     private static final Pattern PREFIX = Pattern.compile(
             "^(?:(?<iso>\\d{4}-\\d{2}-\\d{2}[T ]\\d{2}:\\d{2}:\\d{2}(?:[.,]\\d+)?(?:Z|[+-]\\d{2}:?\\d{2})?)|\\[[^\\]]*\\])?"
-                    + "\\s*(?:[A-Za-z][\\w.-]*\\s*(?=->|<-|>|<))?(?<dir>->|<-|>|<|TX:|RX:)?\\s*(?<body>.*)$");
+                    + "\\s*(?:(?<who>[A-Za-z][\\w.-]*)\\s*(?=->|<-|>|<))?(?<dir>->|<-|>|<|TX:|RX:)?\\s*(?<body>.*)$");
     private static final Pattern ERROR_ANSWER = Pattern.compile("^(?<code>[+-]?\\d+)\\s*,\\s*\"(?<text>.*)\"$");
     /** SCPI's +9.9E37 stands for an overrange (infinite) reading, 9.91E37 for NaN. */
     private static final double SCPI_OVERRANGE = 9.9e37;
@@ -149,15 +149,15 @@ public final class SerialLogParser {
             return;
         }
         if (profile.protocol() instanceof LineProtocol.ScpiExchange) {
-            scpiLine(lineNo, body, sent, received);
+            scpiLine(lineNo, body, prefix.group("who"), sent, received);
         } else {
             streamLine(lineNo, body, sent);
         }
     }
 
-    private void scpiLine(int lineNo, String body, boolean sent, boolean received) {
-        Known command = received ? null : matchCommand(body);
-        if (received && matchCommand(body) != null) {
+    private void scpiLine(int lineNo, String body, String sender, boolean sent, boolean received) {
+        Known command = received ? null : matchCommand(body, sender);
+        if (received && matchCommand(body, sender) != null) {
             return;   // the instrument echoed a command back
         }
         if (command != null && !sent && !answeredSinceCommand && body.equalsIgnoreCase(lastCommandText)) {
@@ -174,13 +174,22 @@ public final class SerialLogParser {
         answer(lineNo, body);
     }
 
-    private Known matchCommand(String body) {
+    /**
+     * @param sender the name before the direction marker, or null; when it names one of the
+     *               profile's instruments, that instrument's commands are preferred (two
+     *               instruments both answer {@code *IDN?})
+     */
+    private Known matchCommand(String body, String sender) {
+        Known first = null;
         for (Known known : commands) {
             if (known.pattern.matcher(body).matches()) {
-                return known;
+                if (sender == null || known.command.instrument().equalsIgnoreCase(sender)) {
+                    return known;
+                }
+                first = first == null ? known : first;
             }
         }
-        return null;
+        return first;
     }
 
     private void command(int lineNo, Known known, String body) {
