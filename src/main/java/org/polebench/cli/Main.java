@@ -16,6 +16,8 @@ import picocli.CommandLine.Command;
                 + "that explains the difference and writes a test report.",
         subcommands = {
                 CommandLine.HelpCommand.class,
+                InspectCommand.class,
+                ProfilesCommand.class,
         },
         exitCodeListHeading = "%nExit codes:%n",
         exitCodeList = {

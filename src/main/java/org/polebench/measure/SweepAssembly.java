@@ -22,6 +22,12 @@ import org.polebench.units.Decibels;
 final class SweepAssembly {
     /** Fewer points than this cannot support a pole-zero fit of a two-pole stage (issue 3). */
     static final int MIN_POINTS = 8;
+    /**
+     * Gains beyond ±1000 dB and phases beyond ±10⁶° (some 2800 turns) are no reading any
+     * instrument makes; refusing them also keeps averaging and unwrapping finite.
+     */
+    static final double MAX_GAIN_DB = 1000;
+    static final double MAX_PHASE_DEG = 1e6;
 
     private final Path file;
     private final ReadingScale scale;
@@ -97,6 +103,10 @@ final class SweepAssembly {
                 return drop("out-of-range numbers", line, "phase " + rawPhase + " is out of range; row skipped");
             }
             phase = scale.phaseDeg(rawPhase);
+            if (!(Math.abs(phase) <= MAX_PHASE_DEG)) {
+                return drop("out-of-range numbers", line, "phase " + format(rawPhase) + " is beyond any reading ("
+                        + "more than " + format(MAX_PHASE_DEG) + "°); row skipped");
+            }
         }
         if (uGainDb < 0 || uPhaseDeg < 0 || Double.isInfinite(uGainDb) || Double.isInfinite(uPhaseDeg)) {
             return drop("bad uncertainties", line, "an uncertainty must be finite and not negative; row skipped");
@@ -158,8 +168,9 @@ final class SweepAssembly {
             default:
                 throw new IllegalStateException("unknown gain form " + scale.gainForm());
         }
-        if (!Double.isFinite(gain)) {
-            drop("out-of-range numbers", line, "the gain is out of range; row skipped");
+        if (!(Math.abs(gain) <= MAX_GAIN_DB)) {
+            drop("out-of-range numbers", line, "gain " + format(gain) + " dB is beyond any reading (more than "
+                    + format(MAX_GAIN_DB) + " dB); row skipped");
             return Double.NaN;
         }
         return gain;
