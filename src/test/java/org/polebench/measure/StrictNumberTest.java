@@ -26,6 +26,29 @@ class StrictNumberTest {
     }
 
     @Test
+    void eiselLemireDecidesNearlyEveryToStringAndAgreesWithTheJdk() {
+        // seed 11; the JDK's correctly rounded parse is the reference
+        Random random = new Random(11);
+        int decided = 0;
+        int n = 100_000;
+        for (int i = 0; i < n; i++) {
+            double value = Double.longBitsToDouble(random.nextLong() & 0x7fefffffffffffffL);
+            java.math.BigDecimal exact = new java.math.BigDecimal(Double.toString(value));
+            java.math.BigInteger digits = exact.unscaledValue();
+            if (digits.bitLength() > 62 || value < Double.MIN_NORMAL) {
+                continue;
+            }
+            double fast = StrictNumber.eiselLemire(digits.longValueExact(), -exact.scale());
+            if (!Double.isNaN(fast)) {
+                decided++;
+                assertEquals(Double.doubleToLongBits(value), Double.doubleToLongBits(fast), exact.toString());
+            }
+        }
+        // Lemire (2021) reports fallbacks as rare; 99 % is a loose floor
+        assertTrue(decided > 0.99 * n * 0.9, "decided " + decided);
+    }
+
+    @Test
     void refusesWhatIsNotAPlainDecimalNumber() {
         for (String text : new String[] {"NaN", "Infinity", "-Inf", "0x10", "1d", "1f", "17,739.89", "1.5.5", "1e",
                 "e5", "", " ", "+", "1 2", "--1", "1e+", "١٢"}) {
