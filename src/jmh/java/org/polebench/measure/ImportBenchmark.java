@@ -29,8 +29,8 @@ import org.polebench.InputProblem;
  *
  * <p>The file is made in setup from a fixed closed form (a first-order high-pass, corner
  * 3 Hz, 1 mHz to 1 MHz, Double.toString cells), in two shapes with the same 1,000,000 points:
- * {@code narrow} (three columns, about 50 MB) and {@code wide} (ten more columns the profile
- * does not read, about 230 MB). The fork runs with {@code -Xmx320m}: the wide file alone,
+ * {@code narrow} (three columns, about 60 MB) and {@code wide} (ten more columns the profile
+ * does not read, about 260 MB). The fork runs with {@code -Xmx320m}: the wide file alone,
  * held as bytes, would take most of that and as a String list far more, so an importer that
  * loaded the file whole would fail while this one reads both shapes in the same heap. Run
  * with {@code -prof gc} for allocation per import.
