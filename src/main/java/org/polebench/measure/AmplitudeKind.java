@@ -1,6 +1,5 @@
 package org.polebench.measure;
 
-import java.util.Locale;
 import java.util.Optional;
 
 /**
@@ -24,12 +23,6 @@ public enum AmplitudeKind {
     }
 
     public static Optional<AmplitudeKind> parse(String text) {
-        String key = text.strip().toLowerCase(Locale.ROOT);
-        for (AmplitudeKind kind : values()) {
-            if (kind.symbol.toLowerCase(Locale.ROOT).equals(key)) {
-                return Optional.of(kind);
-            }
-        }
-        return Optional.empty();
+        return ProfileWords.lookup(values(), AmplitudeKind::symbol, text);
     }
 }

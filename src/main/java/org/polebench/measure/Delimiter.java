@@ -1,6 +1,5 @@
 package org.polebench.measure;
 
-import java.util.Locale;
 import java.util.Optional;
 
 /** What separates the cells of a table row. */
@@ -29,12 +28,6 @@ public enum Delimiter {
     }
 
     public static Optional<Delimiter> parse(String text) {
-        String key = text.strip().toLowerCase(Locale.ROOT);
-        for (Delimiter delimiter : values()) {
-            if (delimiter.word.equals(key)) {
-                return Optional.of(delimiter);
-            }
-        }
-        return Optional.empty();
+        return ProfileWords.lookup(values(), Delimiter::word, text);
     }
 }

@@ -1,6 +1,5 @@
 package org.polebench.measure;
 
-import java.util.Locale;
 import java.util.Optional;
 
 /** The unit an instrument writes its test frequencies in. */
@@ -28,12 +27,6 @@ public enum FrequencyUnit {
 
     /** @param text {@code Hz}, {@code kHz} or {@code MHz}, in any letter case */
     public static Optional<FrequencyUnit> parse(String text) {
-        String key = text.strip().toLowerCase(Locale.ROOT);
-        for (FrequencyUnit unit : values()) {
-            if (unit.symbol.toLowerCase(Locale.ROOT).equals(key)) {
-                return Optional.of(unit);
-            }
-        }
-        return Optional.empty();
+        return ProfileWords.lookup(values(), FrequencyUnit::symbol, text);
     }
 }

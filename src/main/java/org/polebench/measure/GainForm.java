@@ -1,6 +1,5 @@
 package org.polebench.measure;
 
-import java.util.Locale;
 import java.util.Optional;
 
 /** How an instrument states the gain of each point. */
@@ -24,12 +23,6 @@ public enum GainForm {
     }
 
     public static Optional<GainForm> parse(String text) {
-        String key = text.strip().toLowerCase(Locale.ROOT);
-        for (GainForm form : values()) {
-            if (form.word.toLowerCase(Locale.ROOT).equals(key)) {
-                return Optional.of(form);
-            }
-        }
-        return Optional.empty();
+        return ProfileWords.lookup(values(), GainForm::word, text);
     }
 }

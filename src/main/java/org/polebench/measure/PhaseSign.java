@@ -1,6 +1,5 @@
 package org.polebench.measure;
 
-import java.util.Locale;
 import java.util.Optional;
 
 /**
@@ -30,12 +29,6 @@ public enum PhaseSign {
     }
 
     public static Optional<PhaseSign> parse(String text) {
-        String key = text.strip().toLowerCase(Locale.ROOT);
-        for (PhaseSign sign : values()) {
-            if (sign.word.equals(key)) {
-                return Optional.of(sign);
-            }
-        }
-        return Optional.empty();
+        return ProfileWords.lookup(values(), PhaseSign::word, text);
     }
 }

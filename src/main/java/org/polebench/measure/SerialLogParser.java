@@ -428,7 +428,7 @@ public final class SerialLogParser {
         }
     }
 
-    /** Records the log file's hash and any provenance gathered elsewhere (the live capture's clock). */
+    /** Records when the sweep was captured, for a live capture whose lines carry no timestamps; the first time given wins. */
     public void captured(Instant when) {
         notes.captured(when);
     }
