@@ -184,7 +184,8 @@ final class StageTopology {
             if (!loop.isEmpty()) {
                 warnings.add(new InputWarning(file, capacitor.line(), "the high-band capacitors "
                         + String.join(", ", loop) + " form a loop once the low-band capacitors are shorted;"
-                        + " an open-circuit time-constant estimate of the upper corner will not be possible"));
+                        + " the upper-corner analysis gives the one that closes the loop no pole of its own"
+                        + " (it enters the capacitance matrix as a link)"));
             }
         }
         return warnings;

@@ -17,6 +17,8 @@ import picocli.CommandLine.Command;
         subcommands = {
                 CommandLine.HelpCommand.class,
                 PredictCommand.class,
+                InspectCommand.class,
+                ProfilesCommand.class,
         },
         exitCodeListHeading = "%nExit codes:%n",
         exitCodeList = {

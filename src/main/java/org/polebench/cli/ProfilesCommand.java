@@ -1,0 +1,32 @@
+package org.polebench.cli;
+
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.util.concurrent.Callable;
+import org.polebench.InputProblem;
+import org.polebench.measure.InstrumentProfile;
+import org.polebench.measure.ProfileLibrary;
+import org.polebench.measure.TableProfile;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Spec;
+
+/** {@code polebench profiles}: lists the instrument profiles with one line each. */
+@Command(name = "profiles", mixinStandardHelpOptions = true,
+        description = "Lists the instrument profiles: the shipped ones and any in ./instrument-profiles.")
+public final class ProfilesCommand implements Callable<Integer> {
+    @Spec
+    CommandSpec spec;
+
+    @Override
+    public Integer call() throws InputProblem {
+        PrintWriter out = spec.commandLine().getOut();
+        out.printf("%-26s %-7s %s%n", "auto", "table", "sniff the layout from the header's words (the default)");
+        for (InstrumentProfile profile : ProfileLibrary.standard(Path.of("")).profiles()) {
+            out.printf("%-26s %-7s %s%n", profile.name(), profile instanceof TableProfile ? "table" : "serial",
+                    profile.description());
+        }
+        out.flush();
+        return ExitCodes.OK;
+    }
+}
