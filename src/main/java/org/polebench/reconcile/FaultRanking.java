@@ -59,7 +59,7 @@ public final class FaultRanking {
     static final int SCREEN_ITERATIONS = 5;
     static final int MAX_ITERATIONS = 60;
     /** Log-posterior lag after screening beyond which a hypothesis is not run to convergence. */
-    static final double SKIP_NATS = 30;
+    static final double SKIP_NATS = 100;
 
     private final MapSolver screen = new MapSolver(SCREEN_ITERATIONS);
     private final MapSolver solver = new MapSolver(MAX_ITERATIONS);
@@ -111,7 +111,7 @@ public final class FaultRanking {
             logPrior[h] = Math.log(alternative);
             Misfit misfit = new Misfit(model, measured, priorSets.get(h), 1);
             misfits.add(misfit);
-            List<double[]> starts = starts(none.theta(), j, parameters.get(j), priorSets.get(h)[j].mean());
+            List<double[]> starts = starts(none.theta(), mean, j, parameters.get(j));
             boolean freedBias = parameters.get(j).kind() == ParameterKind.BIAS;
             boolean[] free = biasHeld;
             if (freedBias) {
@@ -210,16 +210,17 @@ public final class FaultRanking {
         }
     }
 
-    private static List<double[]> starts(double[] noFault, int j, ModelParameter parameter, double mean) {
+    // From the no-fault MAP, and from the tolerance means with the freed parameter at its mean
+    // (and a decade either side for a capacitor): when one part is far off, the no-fault MAP
+    // has bent the others to compensate, and the means are the better place to start them.
+    private static List<double[]> starts(double[] noFault, double[] mean, int j, ModelParameter parameter) {
         List<double[]> starts = new ArrayList<>();
         starts.add(noFault.clone());
-        if (parameter.kind() != ParameterKind.CAPACITOR) {
-            return starts;
-        }
-        double[] offsets = {-Math.log(10), Math.log(10)};
+        double[] offsets = parameter.kind() == ParameterKind.CAPACITOR
+                ? new double[] {0, -Math.log(10), Math.log(10)} : new double[] {0};
         for (double offset : offsets) {
-            double[] start = noFault.clone();
-            start[j] = mean + offset;
+            double[] start = mean.clone();
+            start[j] = mean[j] + offset;
             starts.add(start);
         }
         return starts;
