@@ -52,6 +52,36 @@ final class CandidateFitter {
         return best;
     }
 
+    /**
+     * Which DC-zero counts to try, read off the unconstrained linearised estimate: its zeros more
+     * than a factor 3 below the lowest swept frequency are indistinguishable from DC zeros there;
+     * a zero within a factor 3 of that edge is ambiguous, so the count with it at DC is tried too.
+     *
+     * @return {fewest, most}, or null when the estimate fails
+     */
+    int[] dcZeroRange(PreparedSweep data, int poles) {
+        RationalEstimate estimate = linearised.estimate(data, 0, poles, poles, Double.NaN);
+        PolynomialRoots zeros = estimate == null ? null : PolynomialRoots.of(estimate.numerator);
+        if (zeros == null) {
+            return null;
+        }
+        double below = data.x[0] / 3;
+        double above = data.x[0] * 3;
+        int dc = 0;
+        int ambiguous = 0;
+        for (double z : zeros.real) {
+            double magnitude = estimate.squaredMagnitude ? Math.sqrt(Math.abs(z)) : Math.abs(z);
+            dc += magnitude < below ? 1 : 0;
+            ambiguous += magnitude >= below && magnitude < above ? 1 : 0;
+        }
+        for (Complex z : zeros.pairs) {
+            double magnitude = estimate.squaredMagnitude ? Math.sqrt(z.abs()) : z.abs();
+            dc += magnitude < below ? 2 : 0;
+            ambiguous += magnitude >= below && magnitude < above ? 2 : 0;
+        }
+        return new int[]{Math.min(dc, poles), Math.min(dc + Math.min(ambiguous, 1), poles)};
+    }
+
     /** Re-fits with the two closest real poles as one complex-pair factor; null unless damping ends below one. */
     private RefinedFit tryPair(PreparedSweep data, RefinedFit fit) {
         ModelStructure s = fit.structure();

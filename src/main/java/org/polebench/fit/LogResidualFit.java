@@ -9,7 +9,6 @@ import org.apache.commons.math3.fitting.leastsquares.MultivariateJacobianFunctio
 import org.apache.commons.math3.linear.Array2DRowRealMatrix;
 import org.apache.commons.math3.linear.ArrayRealVector;
 import org.apache.commons.math3.linear.CholeskyDecomposition;
-import org.apache.commons.math3.linear.DiagonalMatrix;
 import org.apache.commons.math3.linear.NonPositiveDefiniteMatrixException;
 import org.apache.commons.math3.linear.NonSymmetricMatrixException;
 import org.apache.commons.math3.linear.RealMatrix;
@@ -20,11 +19,11 @@ import org.apache.commons.math3.util.Pair;
  * nepers over σ_gain, imaginary part (principal value, so no phase unwrapping) in radians over
  * σ_phase; a magnitude-only sweep uses the real part alone (DESIGN.md, "Measured model").
  * Levenberg–Marquardt from Commons Math; its residual is target − model, so the target is zero
- * and the model value is −r (PITFALLS.md, "Least squares").
+ * and the model value is −r/σ (PITFALLS.md, "Least squares").
  */
 final class LogResidualFit {
-    private static final int MAX_ITERATIONS = 300;
-    private static final int MAX_EVALUATIONS = 600;
+    private static final int MAX_ITERATIONS = 60;
+    private static final int MAX_EVALUATIONS = 120;
     // tight enough that a noise-free sweep is recovered to better than 1e-9 relative
     private static final double TOLERANCE = 1e-13;
 
@@ -35,29 +34,48 @@ final class LogResidualFit {
     RefinedFit refine(PreparedSweep data, RationalModel model, double[] start, double[] robustWeights) {
         int n = data.size();
         int rows = data.residualCount();
-        double[] weights = new double[rows];
+        // √w per row folded into the model and Jacobian: an explicit weight matrix would make
+        // Commons Math multiply by it densely (rows² work per evaluation)
+        double[] root = new double[rows];
         for (int k = 0; k < n; k++) {
-            double r = robustWeights == null ? 1 : robustWeights[k];
-            weights[k] = r / (data.sigmaGain[k] * data.sigmaGain[k]);
+            double r = robustWeights == null ? 1 : Math.sqrt(robustWeights[k]);
+            root[k] = r / data.sigmaGain[k];
             if (data.hasPhase) {
-                weights[n + k] = r / (data.sigmaPhase[k] * data.sigmaPhase[k]);
+                root[n + k] = r / data.sigmaPhase[k];
             }
         }
+        double[] box = rootBox(data);
         MultivariateJacobianFunction function = point -> {
             double[] p = point.toArray();
             double[] value = new double[rows];
             double[][] jacobian = new double[rows][];
             evaluate(data, model, p, value, jacobian);
+            for (int r = 0; r < rows; r++) {
+                value[r] *= root[r];
+                double[] g = jacobian[r];
+                for (int i = 0; i < g.length; i++) {
+                    g[i] *= root[r];
+                }
+            }
             return new Pair<>(new ArrayRealVector(value, false), new Array2DRowRealMatrix(jacobian, false));
         };
         LeastSquaresProblem problem = new LeastSquaresBuilder()
                 .start(start)
                 .model(function)
                 .target(new double[rows])
-                .weight(new DiagonalMatrix(weights, false))
                 .maxIterations(MAX_ITERATIONS)
                 .maxEvaluations(MAX_EVALUATIONS)
                 .lazyEvaluation(false)
+                .checker((iteration, previous, current) -> {
+                    // called with each accepted point only (trial steps may roam further)
+                    double[] p = current.getPoint().toArray();
+                    for (int i = 1; i < p.length; i++) {
+                        if (!(p[i] > box[0] && p[i] < box[1])) {
+                            throw new RunawayRoot();
+                        }
+                    }
+                    return false;
+                })
                 .build();
         LeastSquaresOptimizer.Optimum optimum;
         try {
@@ -66,8 +84,9 @@ final class LogResidualFit {
                     .withParameterRelativeTolerance(TOLERANCE)
                     .withOrthoTolerance(TOLERANCE)
                     .optimize(problem);
-        } catch (MathIllegalStateException notConverged) {
-            // too many iterations or evaluations: this candidate is not a usable fit
+        } catch (MathIllegalStateException | RunawayRoot notConverged) {
+            // too many iterations, or a root heading for DC or infinity (a zero that wants to be a
+            // DC zero, a pole–zero pair cancelling): this structure is not what the data hold
             return null;
         }
         double[] p = optimum.getPoint().toArray();
@@ -77,6 +96,24 @@ final class LogResidualFit {
             }
         }
         return assess(data, model, p);
+    }
+
+    /**
+     * Bounds on every log-parameter but ln|K|: a root more than 10⁶ beyond either end of the band
+     * has left anything the data can say (ln ζ gets the same, far wider than any real damping).
+     */
+    private static double[] rootBox(PreparedSweep data) {
+        double reach = Math.log(1e6);
+        return new double[]{Math.log(data.x[0]) - reach, Math.log(data.x[data.size() - 1]) + reach};
+    }
+
+    /** Thrown from inside the optimiser to stop a candidate whose root has run away. */
+    private static final class RunawayRoot extends RuntimeException {
+        private static final long serialVersionUID = 1L;
+
+        RunawayRoot() {
+            super(null, null, false, false);
+        }
     }
 
     /** χ² and (JᵀWJ)⁻¹ with the points' own (not robust) weights at the given parameters. */
@@ -114,10 +151,11 @@ final class LogResidualFit {
         int n = data.size();
         int np = p.length;
         double[] out = new double[2];
+        double[] e = RationalModel.exponentials(p);
         for (int k = 0; k < n; k++) {
             double[] gRe = new double[np];
             double[] gIm = new double[np];
-            model.logAt(p, data.x[k], out, gRe, gIm);
+            model.logAt(p, e, data.x[k], out, gRe, gIm);
             value[k] = out[0] - data.lnGain[k];
             jacobian[k] = gRe;
             if (data.hasPhase) {

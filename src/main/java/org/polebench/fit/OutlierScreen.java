@@ -10,16 +10,27 @@ import java.util.Arrays;
  * 1.4826·median|r/σ| when that is larger (the data scatter more than stated).
  */
 final class OutlierScreen {
-    private static final int IRLS_ROUNDS = 6;
+    private static final int IRLS_ROUNDS = 3;
     private static final double MAD_TO_SIGMA = 1.4826;
 
     private final LogResidualFit refinement = new LogResidualFit();
 
-    /** Per-point result: how far out each point stands, in σ. */
-    double[] standardisedResiduals(PreparedSweep data, RefinedFit fit, RobustLoss loss) {
+    /**
+     * How far out each point stands, in σ. The robust refit is skipped when no point of the plain
+     * fit stands out even half as far as the threshold: a point's plain residual is (1 − h) times
+     * its robust one for leverage h, and no leverage in a sweep of many points comes near ½.
+     */
+    double[] standardisedResiduals(PreparedSweep data, RefinedFit fit, RobustLoss loss, double threshold) {
         double[] p = fit.parameters.clone();
         double[] weights = new double[data.size()];
         double[] e = standardised(data, fit.model, p);
+        double largest = 0;
+        for (double v : e) {
+            largest = Math.max(largest, v);
+        }
+        if (largest < threshold / 2) {
+            return e;
+        }
         for (int round = 0; round < IRLS_ROUNDS; round++) {
             for (int k = 0; k < weights.length; k++) {
                 weights[k] = loss.weight(e[k]);

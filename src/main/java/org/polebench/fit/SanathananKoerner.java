@@ -1,11 +1,5 @@
 package org.polebench.fit;
 
-import org.apache.commons.math3.exception.MathIllegalArgumentException;
-import org.apache.commons.math3.linear.Array2DRowRealMatrix;
-import org.apache.commons.math3.linear.ArrayRealVector;
-import org.apache.commons.math3.linear.QRDecomposition;
-import org.apache.commons.math3.linear.RealVector;
-
 /**
  * The linearised starting estimate: Sanathanan–Koerner iteration (Sanathanan and Koerner, IEEE
  * Trans. Automatic Control 8(1), 1963). Each step solves min Σ |(N(vₖ) − Hₖ·D(vₖ))/(Hₖ·D_prev(vₖ))|²
@@ -16,7 +10,7 @@ import org.apache.commons.math3.linear.RealVector;
  * least-squares optimum: Levenberg–Marquardt finishes the job (PITFALLS.md, "Fitting").
  */
 final class SanathananKoerner {
-    static final int ITERATIONS = 6;
+    static final int ITERATIONS = 4;
 
     /**
      * Iterates to a rational estimate.
@@ -164,10 +158,11 @@ final class SanathananKoerner {
     }
 
     /**
-     * Least-squares solution by Householder QR after scaling each column to unit norm (the
-     * powers of v span many decades, and scaling keeps the QR well conditioned).
+     * Least-squares solution by Householder QR (Golub and Van Loan, Matrix Computations, 4th ed.,
+     * 2013, §5.3.3) after scaling each column to unit norm: the powers of v span many decades,
+     * and scaling keeps the triangular solve well conditioned.
      *
-     * @return the coefficients, or null when the columns are dependent
+     * @return the coefficients, or null when the columns are numerically dependent
      */
     double[] solve(LinearisedSystem system) {
         int rows = system.rows();
@@ -175,32 +170,72 @@ final class SanathananKoerner {
         if (rows < cols) {
             return null;
         }
-        double[][] a = system.copyOfMatrix();
+        // column-major copy: each Householder step works down whole columns
+        double[][] a = new double[cols][rows];
+        double[] b = system.copyOfRhs();
         double[] scale = new double[cols];
         for (int j = 0; j < cols; j++) {
             double s = 0;
             for (int i = 0; i < rows; i++) {
-                s += a[i][j] * a[i][j];
+                double v = system.entry(i, j);
+                a[j][i] = v;
+                s += v * v;
             }
             scale[j] = s > 0 ? Math.sqrt(s) : 1;
             for (int i = 0; i < rows; i++) {
-                a[i][j] /= scale[j];
+                a[j][i] /= scale[j];
             }
         }
-        try {
-            RealVector c = new QRDecomposition(new Array2DRowRealMatrix(a, false), 1e-13).getSolver()
-                    .solve(new ArrayRealVector(system.copyOfRhs(), false));
-            double[] out = new double[cols];
-            for (int j = 0; j < cols; j++) {
-                out[j] = c.getEntry(j) / scale[j];
-                if (!Double.isFinite(out[j])) {
-                    return null;
-                }
+        double[] diagonal = new double[cols];
+        for (int k = 0; k < cols; k++) {
+            double[] col = a[k];
+            double norm = 0;
+            for (int i = k; i < rows; i++) {
+                norm += col[i] * col[i];
             }
-            return out;
-        } catch (MathIllegalArgumentException singular) {
-            // dependent columns: this structure cannot be started from these data
-            return null;
+            norm = Math.sqrt(norm);
+            // a unit-norm column left with less than 1e-12 of itself is dependent on the earlier ones
+            if (norm < 1e-12) {
+                return null;
+            }
+            double alpha = col[k] > 0 ? -norm : norm;
+            col[k] -= alpha;
+            double vNorm2 = 0;
+            for (int i = k; i < rows; i++) {
+                vNorm2 += col[i] * col[i];
+            }
+            for (int j = k + 1; j < cols; j++) {
+                reflect(col, a[j], k, rows, vNorm2);
+            }
+            reflect(col, b, k, rows, vNorm2);
+            diagonal[k] = alpha;
+        }
+        double[] c = new double[cols];
+        for (int k = cols - 1; k >= 0; k--) {
+            double sum = b[k];
+            for (int j = k + 1; j < cols; j++) {
+                sum -= a[j][k] * c[j];
+            }
+            c[k] = sum / diagonal[k];
+        }
+        for (int j = 0; j < cols; j++) {
+            c[j] /= scale[j];
+            if (!Double.isFinite(c[j])) {
+                return null;
+            }
+        }
+        return c;
+    }
+
+    /** y ← (I − 2vvᵀ/vᵀv)·y on rows k… */
+    private static void reflect(double[] v, double[] y, int k, int rows, double vNorm2) {
+        double dot = 0;
+        for (int i = k; i < rows; i++) {
+            dot += v[i] * y[i];
+        }
+        double f = 2 * dot / vNorm2;
+        for (int i = k; i < rows; i++) {
+            y[i] -= f * v[i];
         }
     }
 

@@ -49,7 +49,8 @@ public final class SweepFitter {
         }
         List<DroppedPoint> dropped = new ArrayList<>();
         if (settings.loss() != RobustLoss.NONE) {
-            double[] e = new OutlierScreen().standardisedResiduals(data, outcome.chosen, settings.loss());
+            double[] e = new OutlierScreen().standardisedResiduals(data, outcome.chosen, settings.loss(),
+                    settings.outlierThreshold());
             boolean[] drop = new boolean[data.size()];
             for (int k = 0; k < e.length; k++) {
                 if (e[k] > settings.outlierThreshold()) {
@@ -87,12 +88,22 @@ public final class SweepFitter {
         int lowest = settings.poleCount().orElse(0);
         int highest = settings.poleCount().orElse(settings.maxPoles());
         for (int poles = lowest; poles <= highest; poles++) {
-            for (int dc = 0; dc <= poles; dc++) {
+            int fewest = 0;
+            int most = poles;
+            if (settings.dcZeros().isPresent()) {
                 // a fixed DC-zero count still allows fewer poles: a coupling pole far below the band
                 // cancels against its DC zero there, and the data cannot see either
-                if (settings.dcZeros().isPresent() && dc != Math.min(settings.dcZeros().getAsInt(), poles)) {
-                    continue;
+                fewest = Math.min(settings.dcZeros().getAsInt(), poles);
+                most = fewest;
+            } else if (poles > 0) {
+                // fewer DC zeros than the estimate shows would force a finite zero to run to DC
+                int[] range = fitter.dcZeroRange(data, poles);
+                if (range != null) {
+                    fewest = range[0];
+                    most = range[1];
                 }
+            }
+            for (int dc = fewest; dc <= most; dc++) {
                 for (boolean high : highOptions) {
                     ModelStructure shape = new ModelStructure(dc, poles - dc, 0, poles, 0, high);
                     if (shape.parameterCount() >= data.residualCount()) {
