@@ -57,10 +57,11 @@ final class CandidateFitter {
      * than a factor 3 below the lowest swept frequency are indistinguishable from DC zeros there;
      * a zero within a factor 3 of that edge is ambiguous, so the count with it at DC is tried too.
      *
+     * @param high whether the candidates carry a high-band pole (divided out of the data first)
      * @return {fewest, most}, or null when the estimate fails
      */
-    int[] dcZeroRange(PreparedSweep data, int poles) {
-        RationalEstimate estimate = linearised.estimate(data, 0, poles, poles, Double.NaN);
+    int[] dcZeroRange(PreparedSweep data, int poles, boolean high) {
+        RationalEstimate estimate = linearised.estimate(data, 0, poles, poles, high ? highBandStart(data) : Double.NaN);
         PolynomialRoots zeros = estimate == null ? null : PolynomialRoots.of(estimate.numerator);
         if (zeros == null) {
             return null;

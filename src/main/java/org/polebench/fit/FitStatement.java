@@ -109,7 +109,9 @@ final class FitStatement {
         }
 
         double signedK = (fit.model.inverting() ? -1 : 1) * Math.exp(p[0]);
-        FittedModel model = new FittedModel(signedK, s.dcZeros(), values(zeros, true), values(poles, false), high);
+        List<FittedRoot> lowBandPoles = s.highBandPole() ? poles.subList(0, poles.size() - 1) : poles;
+        FittedModel model = new FittedModel(signedK, s.dcZeros(), values(zeros, true), values(lowBandPoles, false),
+                high);
         Estimate gain = new Estimate(Decibels.fromNepers(p[0]), Math.sqrt(cov[0][0]) / Decibels.NEPERS_PER_DB, k);
         if (!data.hasPhase) {
             warnings.add(InputWarning.general("magnitude-only sweep: the zeros are taken in the left half-plane "

@@ -9,8 +9,9 @@ import java.util.List;
  * than AIC or AICc because it is consistent (it picks the true order with probability → 1 as the
  * sweep grows, where AIC keeps a fixed chance of one pole too many) and because its heavier
  * penalty suits "never report what the data cannot support". χ² uses the points' uncertainties;
- * when they understate the scatter, s² = χ²/ν of the largest eligible candidate (as Mallows' Cp
- * takes σ² from the fullest model) keeps a misstated σ from buying extra poles; s² is never below 1.
+ * when they understate the scatter, s² = the smallest χ²/ν among eligible candidates (the
+ * best-fitting model's residual variance, much as Mallows' Cp takes σ² from the fullest model)
+ * keeps a misstated σ from buying extra poles; s² is never below 1.
  * A candidate whose information matrix is singular (more parameters than the data determine) is
  * not eligible.
  */
@@ -33,14 +34,13 @@ final class OrderSelection {
      * @return the outcome; its chosen fit is null when no candidate was eligible
      */
     Outcome choose(List<RefinedFit> fits, List<ModelStructure> tried) {
-        RefinedFit largest = null;
+        double scale = Double.POSITIVE_INFINITY;
         for (RefinedFit fit : fits) {
-            if (eligible(fit) && (largest == null || fit.parameters.length > largest.parameters.length
-                    || (fit.parameters.length == largest.parameters.length && fit.chiSquare < largest.chiSquare))) {
-                largest = fit;
+            if (eligible(fit)) {
+                scale = Math.min(scale, fit.chiSquare / fit.degreesOfFreedom());
             }
         }
-        double scale = largest == null ? 1 : Math.max(1, largest.chiSquare / largest.degreesOfFreedom());
+        scale = Double.isInfinite(scale) ? 1 : Math.max(1, scale);
         double[] bic = new double[fits.size()];
         int best = -1;
         for (int i = 0; i < fits.size(); i++) {

@@ -88,23 +88,23 @@ public final class SweepFitter {
         int lowest = settings.poleCount().orElse(0);
         int highest = settings.poleCount().orElse(settings.maxPoles());
         for (int poles = lowest; poles <= highest; poles++) {
-            int fewest = 0;
-            int most = poles;
-            if (settings.dcZeros().isPresent()) {
-                // a fixed DC-zero count still allows fewer poles: a coupling pole far below the band
-                // cancels against its DC zero there, and the data cannot see either
-                fewest = Math.min(settings.dcZeros().getAsInt(), poles);
-                most = fewest;
-            } else if (poles > 0) {
-                // fewer DC zeros than the estimate shows would force a finite zero to run to DC
-                int[] range = fitter.dcZeroRange(data, poles);
-                if (range != null) {
-                    fewest = range[0];
-                    most = range[1];
+            for (boolean high : highOptions) {
+                int fewest = 0;
+                int most = poles;
+                if (settings.dcZeros().isPresent()) {
+                    // a fixed DC-zero count still allows fewer poles: a coupling pole far below the band
+                    // cancels against its DC zero there, and the data cannot see either
+                    fewest = Math.min(settings.dcZeros().getAsInt(), poles);
+                    most = fewest;
+                } else if (poles > 0) {
+                    // fewer DC zeros than the estimate shows would force a finite zero to run to DC
+                    int[] range = fitter.dcZeroRange(data, poles, high);
+                    if (range != null) {
+                        fewest = range[0];
+                        most = range[1];
+                    }
                 }
-            }
-            for (int dc = fewest; dc <= most; dc++) {
-                for (boolean high : highOptions) {
+                for (int dc = fewest; dc <= most; dc++) {
                     ModelStructure shape = new ModelStructure(dc, poles - dc, 0, poles, 0, high);
                     if (shape.parameterCount() >= data.residualCount()) {
                         continue;
@@ -135,20 +135,32 @@ public final class SweepFitter {
     /**
      * The sweep reaches the upper rolloff when its last two steps both fall and the last point
      * lies below the sweep's highest gain by more than 0.3 dB and five of its standard
-     * uncertainties (a low band alone levels off towards the top, it does not fall there).
+     * uncertainties, or when its last point lags the midband phase (0° or 180°, whichever is
+     * nearer the phase at the highest gain) by more than 1° and five standard uncertainties. A low
+     * band alone levels off towards the top and leads there; it neither falls nor lags.
      */
     private static boolean topFallsAway(PreparedSweep data) {
         int n = data.size();
         if (n < 4) {
             return false;
         }
-        double max = Double.NEGATIVE_INFINITY;
-        for (double g : data.lnGain) {
-            max = Math.max(max, g);
+        int top = 0;
+        for (int k = 1; k < n; k++) {
+            if (data.lnGain[k] > data.lnGain[top]) {
+                top = k;
+            }
         }
-        double drop = max - data.lnGain[n - 1];
+        double drop = data.lnGain[top] - data.lnGain[n - 1];
         boolean falling = data.lnGain[n - 1] < data.lnGain[n - 2] && data.lnGain[n - 2] < data.lnGain[n - 3];
-        return falling && drop > Math.max(Decibels.toNepers(0.3), 5 * data.sigmaGain[n - 1]);
+        if (falling && drop > Math.max(Decibels.toNepers(0.3), 5 * data.sigmaGain[n - 1])) {
+            return true;
+        }
+        if (!data.hasPhase) {
+            return false;
+        }
+        double reference = Math.abs(Math.IEEEremainder(data.phaseRad[top], 2 * Math.PI)) > Math.PI / 2 ? Math.PI : 0;
+        double lag = -Math.IEEEremainder(data.phaseRad[n - 1] - reference, 2 * Math.PI);
+        return lag > Math.max(Math.toRadians(1), 5 * data.sigmaPhase[n - 1]);
     }
 
     private static InputProblem unfittable(Sweep sweep, PreparedSweep data) {
