@@ -27,7 +27,6 @@ class NoiseFreeRecoveryTest {
     void recoversOneCouplingPole() throws InputProblem {
         KnownResponse truth = new KnownResponse(10, 1, new double[0][], KnownResponse.real(-15.9), Double.NaN);
         FitResult result = fit(truth, 1, 20_000, 60);
-        print(result);
         assertEquals(1, result.structure().lowBandPoles());
         assertEquals(1, result.structure().dcZeros());
         assertEquals(-15.9, result.poles().get(0).realHz(), 1e-6 * 15.9);
@@ -40,7 +39,6 @@ class NoiseFreeRecoveryTest {
     void recoversTwoCouplingPoles() throws InputProblem {
         KnownResponse truth = new KnownResponse(-31.6, 2, new double[0][], KnownResponse.real(-8, -45), Double.NaN);
         FitResult result = fit(truth, 1, 20_000, 80);
-        print(result);
         assertRecovered(truth, result);
         assertTrue(result.inverting());
     }
@@ -51,7 +49,6 @@ class NoiseFreeRecoveryTest {
         KnownResponse truth = new KnownResponse(42, 2, KnownResponse.real(-4.2), KnownResponse.real(-3, -16, -180),
                 Double.NaN);
         FitResult result = fit(truth, 1, 50_000, 100);
-        print(result);
         assertRecovered(truth, result);
     }
 
@@ -60,7 +57,6 @@ class NoiseFreeRecoveryTest {
     void recoversBypassedEmitterPoleZeroPair() throws InputProblem {
         KnownResponse truth = new KnownResponse(20, 0, KnownResponse.real(-9), KnownResponse.real(-160), Double.NaN);
         FitResult result = fit(truth, 1, 20_000, 60);
-        print(result);
         assertRecovered(truth, result);
     }
 
@@ -69,7 +65,6 @@ class NoiseFreeRecoveryTest {
     void recoversTwoPolesWithinAFactorOfTwo() throws InputProblem {
         KnownResponse truth = new KnownResponse(5, 2, new double[0][], KnownResponse.real(-40, -70), Double.NaN);
         FitResult result = fit(truth, 2, 20_000, 80);
-        print(result);
         assertRecovered(truth, result);
     }
 
@@ -81,7 +76,6 @@ class NoiseFreeRecoveryTest {
         double[][] poles = {{-zeta * w0, w0 * Math.sqrt(1 - zeta * zeta)}, {-zeta * w0, -w0 * Math.sqrt(1 - zeta * zeta)}};
         KnownResponse truth = new KnownResponse(3, 2, new double[0][], poles, Double.NaN);
         FitResult result = fit(truth, 2, 20_000, 80);
-        print(result);
         assertRecovered(truth, result);
     }
 
@@ -107,9 +101,4 @@ class NoiseFreeRecoveryTest {
         assertEquals(truth.gain < 0, result.inverting());
     }
 
-    private static void print(FitResult r) {
-        System.out.println(r.structure().describe() + " K=" + r.midbandGainDb() + " poles=" + r.poles() + " zeros=" + r.zeros());
-        r.candidates().forEach(c -> System.out.println("  " + c));
-        r.warnings().forEach(w -> System.out.println("  W " + w.describe()));
-    }
 }
