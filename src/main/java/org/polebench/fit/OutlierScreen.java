@@ -16,19 +16,17 @@ final class OutlierScreen {
     private final LogResidualFit refinement = new LogResidualFit();
 
     /**
-     * How far out each point stands, in σ. The robust refit is skipped when no point of the plain
-     * fit stands out even half as far as the threshold: a point's plain residual is (1 − h) times
-     * its robust one for leverage h, and no leverage in a sweep of many points comes near ½.
+     * How far out each point stands, in σ. The robust refit is skipped when no point could reach
+     * the threshold even with the pull of its own residual removed: a point's residual with
+     * itself left out is r/(1 − h) for leverage h = gᵀ(JᵀWJ)⁻¹g (Cook and Weisberg, Residuals and
+     * Influence in Regression, 1982, §2.2), so the plain fit already shows every point that the
+     * robust one could drop.
      */
     double[] standardisedResiduals(PreparedSweep data, RefinedFit fit, RobustLoss loss, double threshold) {
         double[] p = fit.parameters.clone();
         double[] weights = new double[data.size()];
         double[] e = standardised(data, fit.model, p);
-        double largest = 0;
-        for (double v : e) {
-            largest = Math.max(largest, v);
-        }
-        if (largest < threshold / 2) {
+        if (fit.inverseInformation != null && !anyCouldReach(data, fit, e, threshold)) {
             return e;
         }
         for (int round = 0; round < IRLS_ROUNDS; round++) {
@@ -43,6 +41,36 @@ final class OutlierScreen {
             e = standardised(data, fit.model, p);
         }
         return e;
+    }
+
+    private static boolean anyCouldReach(PreparedSweep data, RefinedFit fit, double[] e, double threshold) {
+        int n = data.size();
+        double[] value = new double[data.residualCount()];
+        double[][] jacobian = new double[value.length][];
+        LogResidualFit.evaluate(data, fit.model, fit.parameters, value, jacobian);
+        double[][] c = fit.inverseInformation;
+        for (int k = 0; k < n; k++) {
+            double h = leverage(jacobian[k], data.sigmaGain[k], c);
+            if (data.hasPhase) {
+                h = Math.max(h, leverage(jacobian[n + k], data.sigmaPhase[k], c));
+            }
+            if (h >= 1 || e[k] >= threshold * (1 - h)) {
+                return true;
+            }
+        }
+        return false;
+    }
+
+    private static double leverage(double[] gradient, double sigma, double[][] c) {
+        double h = 0;
+        for (int i = 0; i < gradient.length; i++) {
+            double row = 0;
+            for (int j = 0; j < gradient.length; j++) {
+                row += c[i][j] * gradient[j];
+            }
+            h += gradient[i] * row;
+        }
+        return h / (sigma * sigma);
     }
 
     private static double[] standardised(PreparedSweep data, RationalModel model, double[] p) {
