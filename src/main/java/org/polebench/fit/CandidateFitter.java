@@ -8,8 +8,9 @@ import org.apache.commons.math3.complex.Complex;
  * Fits one candidate order: a number of low-band poles, of DC zeros, and whether a high-band
  * pole is present. Starts from the predicted poles when their count matches, else from the
  * Sanathanan–Koerner estimate; refines with LM. Where two fitted real poles lie within a factor
- * of three of each other the data may really hold a complex pair, so the pair is tried as well
- * and kept when it fits better with damping below one.
+ * of three of each other and the fit leaves more misfit than noise explains, the data may really
+ * hold a complex pair, so the pair is tried as well and kept when it fits better with damping
+ * below one.
  */
 final class CandidateFitter {
     private static final double CLOSE_POLES = 3;
@@ -43,7 +44,7 @@ final class CandidateFitter {
             return null;
         }
         RefinedFit best = refinement.refine(data, start.model, start.parameters, null);
-        if (best != null && best.structure().realPoles() >= 2) {
+        if (best != null && best.structure().realPoles() >= 2 && misfitExceedsNoise(best)) {
             RefinedFit paired = tryPair(data, best);
             if (paired != null && paired.chiSquare < best.chiSquare) {
                 best = paired;
@@ -81,6 +82,15 @@ final class CandidateFitter {
             ambiguous += magnitude >= below && magnitude < above ? 2 : 0;
         }
         return new int[]{Math.min(dc, poles), Math.min(dc + Math.min(ambiguous, 1), poles)};
+    }
+
+    /**
+     * Whether χ² lies above ν + 3√(2ν), three standard deviations of a χ² with ν degrees of
+     * freedom above its mean: only then do the data demand more than real poles can give.
+     */
+    private static boolean misfitExceedsNoise(RefinedFit fit) {
+        double nu = fit.degreesOfFreedom();
+        return fit.chiSquare > nu + 3 * Math.sqrt(2 * nu);
     }
 
     /** Re-fits with the two closest real poles as one complex-pair factor; null unless damping ends below one. */

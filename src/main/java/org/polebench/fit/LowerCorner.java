@@ -3,7 +3,6 @@ package org.polebench.fit;
 import java.util.OptionalDouble;
 import org.apache.commons.math3.analysis.solvers.BrentSolver;
 import org.apache.commons.math3.exception.MathIllegalStateException;
-import org.polebench.units.Decibels;
 
 /**
  * The lower −3 dB corner, two ways. Of the model: the highest normalised frequency below
@@ -112,10 +111,5 @@ final class LowerCorner {
 
     private static double sq(double v) {
         return v * v;
-    }
-
-    /** −3.0103 dB in decibels, for labels. */
-    static double halfPowerDb() {
-        return Decibels.fromNepers(HALF_POWER_NEPERS);
     }
 }

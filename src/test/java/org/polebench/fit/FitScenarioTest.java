@@ -158,6 +158,15 @@ class FitScenarioTest {
         assertEquals(List.of(8.0, 45.0, 30_000.0).size(), fittedPolesHz(result).size());
         assertEquals(8, fittedPolesHz(result).get(0), 8e-6);
         assertEquals(45, fittedPolesHz(result).get(1), 45e-6);
+        // the assembled model evaluates as the independently written truth does, inside and
+        // beyond the sweep (1e-6 relative in |H|, 1e-6 rad in phase: the fit's own accuracy)
+        for (double f : new double[]{0.5, 3, 45, 1_000, 30_000, 500_000}) {
+            double[] h = truth.at(f);
+            Complex fitted = result.model().responseAt(f);
+            assertEquals(Math.hypot(h[0], h[1]), fitted.abs(), 1e-6 * fitted.abs(), "|H| at " + f);
+            assertEquals(0, Math.IEEEremainder(Math.atan2(h[1], h[0]) - fitted.getArgument(), 2 * Math.PI), 1e-6,
+                    "arg H at " + f);
+        }
     }
 
     // the band keeps spoiled points out: the top decade is garbage (+10 dB), the band stops below it
