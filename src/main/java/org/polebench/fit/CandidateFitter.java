@@ -3,6 +3,7 @@ package org.polebench.fit;
 import java.util.ArrayList;
 import java.util.List;
 import org.apache.commons.math3.complex.Complex;
+import org.polebench.units.Decibels;
 
 /**
  * Fits one candidate order: a number of low-band poles, of DC zeros, and whether a high-band
@@ -152,7 +153,7 @@ final class CandidateFitter {
         for (double g : data.lnGain) {
             max = Math.max(max, g);
         }
-        double dropDb = (max - data.lnGain[n - 1]) / org.polebench.units.Decibels.NEPERS_PER_DB;
+        double dropDb = (max - data.lnGain[n - 1]) / Decibels.NEPERS_PER_DB;
         double ratio = dropDb > 0.1 ? Math.sqrt(Math.pow(10, dropDb / 10) - 1) : 0.1;
         return data.x[n - 1] / ratio;
     }

@@ -2,6 +2,7 @@ package org.polebench.fit;
 
 import java.util.List;
 import java.util.Optional;
+import java.util.stream.Collectors;
 import org.polebench.InputWarning;
 
 /**
@@ -38,7 +39,7 @@ public record FitResult(FittedModel model, ModelStructure structure, Estimate mi
         poles = List.copyOf(poles);
         zeros = List.copyOf(zeros);
         parameterNames = List.copyOf(parameterNames);
-        correlation = correlation.stream().map(List::copyOf).collect(java.util.stream.Collectors.toUnmodifiableList());
+        correlation = correlation.stream().map(List::copyOf).collect(Collectors.toUnmodifiableList());
         droppedPoints = List.copyOf(droppedPoints);
         candidates = List.copyOf(candidates);
         warnings = List.copyOf(warnings);

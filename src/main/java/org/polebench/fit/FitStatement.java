@@ -1,6 +1,7 @@
 package org.polebench.fit;
 
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.List;
 import java.util.Optional;
 import java.util.OptionalDouble;
@@ -136,7 +137,7 @@ final class FitStatement {
         ModelStructure low = new ModelStructure(s.dcZeros(), s.realZeros(), s.zeroPairs(), s.realPoles(),
                 s.polePairs(), false);
         RationalModel lowBand = new RationalModel(low, false);
-        double[] p = java.util.Arrays.copyOf(fit.parameters, low.parameterCount());
+        double[] p = Arrays.copyOf(fit.parameters, low.parameterCount());
         OptionalDouble x = corner.modelCorner(lowBand, p, data.x[0], data.x[data.size() - 1]);
         if (x.isEmpty()) {
             if (low.lowBandPoles() > 0) {

@@ -49,7 +49,7 @@ final class PolynomialRoots {
                 upper.add(r);
             }
         }
-        // a pair is counted once; if round-off left the halves unbalanced, the real list absorbs it
+        // each pair needs both halves; unbalanced halves mean the solver did not converge cleanly
         int lower = degree - roots.real.size() - upper.size();
         if (lower != upper.size()) {
             return null;

@@ -9,6 +9,8 @@ import java.io.IOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.text.DecimalFormat;
+import java.text.DecimalFormatSymbols;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
@@ -18,6 +20,7 @@ import org.jfree.chart.ChartUtils;
 import org.jfree.chart.JFreeChart;
 import org.jfree.chart.axis.LogAxis;
 import org.jfree.chart.axis.NumberAxis;
+import org.jfree.chart.axis.NumberTickUnit;
 import org.jfree.chart.plot.CombinedDomainXYPlot;
 import org.jfree.chart.plot.XYPlot;
 import org.jfree.chart.renderer.xy.DeviationRenderer;
@@ -167,11 +170,10 @@ public final class BodeChart {
         }
         LogAxis frequency = new LogAxis("Frequency (Hz)");
         frequency.setRange(low / 1.1, high * 1.1);
-        frequency.setNumberFormatOverride(new java.text.DecimalFormat("#,##0.###",
-                java.text.DecimalFormatSymbols.getInstance(Locale.ROOT)));
+        frequency.setNumberFormatOverride(new DecimalFormat("#,##0.###", DecimalFormatSymbols.getInstance(Locale.ROOT)));
         frequency.setBase(10);
         // one tick per decade: the default half-decade ticks print as 3.162, 31.623, …
-        frequency.setTickUnit(new org.jfree.chart.axis.NumberTickUnit(1));
+        frequency.setTickUnit(new NumberTickUnit(1));
 
         NumberAxis gainAxis = new NumberAxis("Gain (dB)");
         gainAxis.setAutoRangeIncludesZero(false);

@@ -13,7 +13,7 @@ import org.polebench.measure.SweepPoint;
  * complex arithmetic here, independent of the fitter's model code, and sweeps sampled from it.
  * Poles and zeros are given in Hz as negative real parts (complex ones as re, im pairs).
  */
-final class KnownResponse {
+public final class KnownResponse {
     final double gain;
     final int dcZeros;
     final double[][] zerosHz;
@@ -25,7 +25,7 @@ final class KnownResponse {
      * @param polesHz low-band poles, each {re, im} in Hz
      * @param highBandPoleHz the high-band pole's frequency, or NaN for none
      */
-    KnownResponse(double gain, int dcZeros, double[][] zerosHz, double[][] polesHz, double highBandPoleHz) {
+    public KnownResponse(double gain, int dcZeros, double[][] zerosHz, double[][] polesHz, double highBandPoleHz) {
         this.gain = gain;
         this.dcZeros = dcZeros;
         this.zerosHz = zerosHz;
@@ -33,7 +33,7 @@ final class KnownResponse {
         this.highBandPoleHz = highBandPoleHz;
     }
 
-    static double[][] real(double... hz) {
+    public static double[][] real(double... hz) {
         double[][] out = new double[hz.length][];
         for (int i = 0; i < hz.length; i++) {
             out[i] = new double[]{hz[i], 0};
@@ -79,7 +79,7 @@ final class KnownResponse {
     }
 
     /** Log-spaced frequencies from lowHz to highHz. */
-    static double[] logSpaced(double lowHz, double highHz, int n) {
+    public static double[] logSpaced(double lowHz, double highHz, int n) {
         double[] f = new double[n];
         for (int i = 0; i < n; i++) {
             f[i] = lowHz * Math.pow(highHz / lowHz, i / (double) (n - 1));
@@ -87,7 +87,7 @@ final class KnownResponse {
         return f;
     }
 
-    Sweep sweep(double[] frequencies, boolean withPhase) {
+    public Sweep sweep(double[] frequencies, boolean withPhase) {
         List<SweepPoint> points = new ArrayList<>();
         for (double f : frequencies) {
             points.add(withPhase ? SweepPoint.of(f, gainDb(f), phaseDeg(f)) : SweepPoint.magnitudeOnly(f, gainDb(f)));
@@ -101,7 +101,7 @@ final class KnownResponse {
      * @param sigmaDb  normal noise on the gain, dB
      * @param sigmaDeg normal noise on the phase, degrees
      */
-    Sweep noisySweep(double[] frequencies, double sigmaDb, double sigmaDeg, Random random, boolean stateUncertainty) {
+    public Sweep noisySweep(double[] frequencies, double sigmaDb, double sigmaDeg, Random random, boolean stateUncertainty) {
         List<SweepPoint> points = new ArrayList<>();
         for (double f : frequencies) {
             points.add(new SweepPoint(f, gainDb(f) + sigmaDb * random.nextGaussian(),
