@@ -20,6 +20,7 @@ import picocli.CommandLine.Command;
                 InspectCommand.class,
                 ProfilesCommand.class,
                 FitCommand.class,
+                ReconcileCommand.class,
         },
         exitCodeListHeading = "%nExit codes:%n",
         exitCodeList = {

@@ -52,17 +52,27 @@ public final class BoardSynthesizer {
         }
         FullResponse response = new FullResponse(expansion.expand(built, points));
         SplittableRandom random = new SplittableRandom(seed);
-        List<SweepPoint> sweepPoints = new ArrayList<>(frequenciesHz.size());
-        for (double frequencyHz : frequenciesHz) {
+        int n = frequenciesHz.size();
+        double[] truePhaseDeg = new double[n];
+        double[] trueGainDb = new double[n];
+        for (int i = 0; i < n; i++) {
+            double frequencyHz = frequenciesHz.get(i);
             Optional<Complex> h = response.atHz(frequencyHz);
             if (h.isEmpty()) {
                 throw new IllegalStateException("the stage's MNA matrix is singular at " + frequencyHz + " Hz");
             }
             Complex value = h.get().multiply(gainFactor);
-            double gainDb = Decibels.fromRatio(value.abs()) + noise.gainSigmaDb() * random.nextGaussian();
-            double phaseDeg = Math.toDegrees(value.getArgument()) + noise.phaseSigmaDeg() * random.nextGaussian();
-            OptionalDouble phase = withPhase ? OptionalDouble.of(wrapDegrees(phaseDeg)) : OptionalDouble.empty();
-            sweepPoints.add(new SweepPoint(frequencyHz, gainDb, phase, OptionalDouble.empty(), OptionalDouble.empty()));
+            trueGainDb[i] = Decibels.fromRatio(value.abs());
+            truePhaseDeg[i] = Math.toDegrees(value.getArgument());
+        }
+        unwrapFromTop(truePhaseDeg);
+        List<SweepPoint> sweepPoints = new ArrayList<>(n);
+        for (int i = 0; i < n; i++) {
+            double gainDb = trueGainDb[i] + noise.gainSigmaDb() * random.nextGaussian();
+            double phaseDeg = truePhaseDeg[i] + noise.phaseSigmaDeg() * random.nextGaussian();
+            OptionalDouble phase = withPhase ? OptionalDouble.of(phaseDeg) : OptionalDouble.empty();
+            sweepPoints.add(new SweepPoint(frequenciesHz.get(i), gainDb, phase, OptionalDouble.empty(),
+                    OptionalDouble.empty()));
         }
         return new Sweep(provenance(stage, faults, noise, seed), sweepPoints);
     }
@@ -97,20 +107,20 @@ public final class BoardSynthesizer {
         for (Fault fault : faults) {
             faultText.append(faultText.length() == 0 ? "" : "; ").append(fault.describe());
         }
-        notes.add("fault: " + (faults.isEmpty() ? new Fault.None().describe() : faultText));
+        notes.add("as built (differences from the stage file): "
+                + (faults.isEmpty() ? new Fault.None().describe() : faultText));
         notes.add("noise: " + noise.describe());
         notes.add(String.format(Locale.ROOT, "seed: %d", seed));
         return new Provenance(Optional.empty(), "", "polebench board synthesizer (no instrument)", "synthesized",
                 Optional.empty(), Optional.empty(), notes);
     }
 
-    private static double wrapDegrees(double degrees) {
-        double wrapped = degrees % 360;
-        if (wrapped > 180) {
-            wrapped -= 360;
-        } else if (wrapped <= -180) {
-            wrapped += 360;
+    // Continuous phase, as analysers show it: the highest frequency keeps its value in
+    // (−180°, 180°], each lower point is moved by whole turns to lie within 180° of its neighbour.
+    private static void unwrapFromTop(double[] phaseDeg) {
+        for (int i = phaseDeg.length - 2; i >= 0; i--) {
+            double step = phaseDeg[i] - phaseDeg[i + 1];
+            phaseDeg[i] -= 360 * Math.rint(step / 360);
         }
-        return wrapped;
     }
 }
