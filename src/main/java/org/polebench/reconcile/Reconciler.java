@@ -92,8 +92,8 @@ public final class Reconciler {
 
         Optional<Apportionment> shares = Optional.empty();
         if (corner.isPresent() && prediction.exactLowerCornerHz().isPresent()) {
-            shares = Optional.of(apportionment.apportion(prediction, capacitorParameters(diagnosis),
-                    corner.get().value(), corner.get().standardUncertainty()));
+            shares = apportionment.apportion(predicted.stage(), predicted.operatingPoints(), prediction,
+                    capacitorParameters(diagnosis), corner.get().value(), corner.get().standardUncertainty());
         }
         Optional<MeasuredQuantity> lower = corner.map(c -> new MeasuredQuantity(c.value(), c.expandedUncertainty(),
                 cornerSource));
