@@ -35,6 +35,8 @@ final class BoardModel {
     /** Forward-difference step in ln I: truncation ~1e-6 relative, round-off ~1e-10. */
     static final double BIAS_STEP = 1e-6;
     private static final int CACHED_REDUCTIONS = 8;
+    /** Bias move in ln I within which a high-band factor is reused between exact evaluations. */
+    static final double HIGH_BAND_REFRESH = 0.02;
 
     private final Stage stage;
     private final OperatingPoints nominalPoints;
@@ -54,6 +56,7 @@ final class BoardModel {
     };
     private final SmallComplexLu lowLu;
     private int reductions;
+    private HighFactor lastHigh;
     private int responses;
     private final double[] xr;
     private final double[] xi;
@@ -124,31 +127,40 @@ final class BoardModel {
      */
     boolean evaluate(double[] theta, double[] hRe, double[] hIm, double[][] dRe, double[][] dIm,
                      boolean biasColumns) {
+        return evaluate(theta, hRe, hIm, dRe, dIm, biasColumns, true);
+    }
+
+    /**
+     * @param exactHighBand false lets the high-band factor of a bias point within
+     *                      {@value #HIGH_BAND_REFRESH} in ln I of the last one computed be reused
+     */
+    boolean evaluate(double[] theta, double[] hRe, double[] hIm, double[][] dRe, double[][] dIm,
+                     boolean biasColumns, boolean exactHighBand) {
         int k = capacitors.size();
         int m = transistors.size();
         double[] lnBias = Arrays.copyOfRange(theta, k, k + m);
-        Reduced reduced = reduced(lnBias, true);
-        if (reduced == null || !response(reduced, theta, hRe, hIm, dRe, dIm)) {
+        Reduced reduced = reduced(lnBias);
+        HighFactor high = reduced == null ? null : highFactor(lnBias, exactHighBand, reduced.d);
+        if (reduced == null || high == null || !response(reduced, high, theta, hRe, hIm, dRe, dIm)) {
             return false;
         }
-        if (dRe == null || !biasColumns) {
+        if (dRe == null || !biasColumns || m == 0) {
             return true;
         }
         double[] pr = new double[omegas.length];
         double[] pi = new double[omegas.length];
+        double[] br = new double[omegas.length];
+        double[] bi = new double[omegas.length];
+        if (!response(reduced, null, theta, br, bi, null, null)) {
+            return false;
+        }
         for (int j = 0; j < m; j++) {
             double[] stepped = lnBias.clone();
             stepped[j] += BIAS_STEP;
-            // the derivative leaves out the high band's small bias dependence (its value is kept
-            // exact): a Jacobian only steers the search, the residuals fix where it ends
-            Reduced other = reduced(stepped, false);
-            if (other == null || !response(other, theta, pr, pi, null, null)) {
-                return false;
-            }
-            Reduced lowOnly = reduced(lnBias, false);
-            double[] br = new double[omegas.length];
-            double[] bi = new double[omegas.length];
-            if (lowOnly == null || !response(lowOnly, theta, br, bi, null, null)) {
+            // the derivative leaves out the high band's small bias dependence (its value is kept):
+            // a Jacobian only steers the search, the residuals fix where it ends
+            Reduced other = reduced(stepped);
+            if (other == null || !response(other, null, theta, pr, pi, null, null)) {
                 return false;
             }
             for (int n = 0; n < omegas.length; n++) {
@@ -186,8 +198,9 @@ final class BoardModel {
         return points;
     }
 
-    private boolean response(Reduced reduced, double[] theta, double[] hRe, double[] hIm, double[][] dRe,
-                             double[][] dIm) {
+    // high null: the low band alone
+    private boolean response(Reduced reduced, HighFactor high, double[] theta, double[] hRe, double[] hIm,
+                             double[][] dRe, double[][] dIm) {
         responses++;
         int k = capacitors.size();
         double gain = Math.exp(theta[theta.length - 1]);
@@ -200,12 +213,12 @@ final class BoardModel {
             double lr = reduced.d;
             double li = 0;
             if (k > 0) {
-                double[][] mr = lowLu.real();
-                double[][] mi = lowLu.imaginary();
+                double[] mr = lowLu.real();
+                double[] mi = lowLu.imaginary();
+                System.arraycopy(reduced.yFlat, 0, mr, 0, k * k);
+                Arrays.fill(mi, 0);
                 for (int i = 0; i < k; i++) {
-                    System.arraycopy(reduced.y[i], 0, mr[i], 0, k);
-                    Arrays.fill(mi[i], 0);
-                    mi[i][i] = omega * farads[i];
+                    mi[i * k + i] = omega * farads[i];
                     xr[i] = -reduced.b[i];
                     xi[i] = 0;
                 }
@@ -222,8 +235,8 @@ final class BoardModel {
             if (!(lowSize > 0) || !Double.isFinite(lowSize)) {
                 return false;
             }
-            double fr = reduced.highRe[n];
-            double fi = reduced.highIm[n];
+            double fr = high == null ? 1 : high.re[n];
+            double fi = high == null ? 0 : high.im[n];
             hRe[n] = gain * (lr * fr - li * fi);
             hIm[n] = gain * (lr * fi + li * fr);
             if (dRe == null) {
@@ -252,13 +265,13 @@ final class BoardModel {
         return true;
     }
 
-    private Reduced reduced(double[] lnBias, boolean withHighBand) {
-        String key = Arrays.toString(lnBias) + withHighBand;
+    private Reduced reduced(double[] lnBias) {
+        String key = Arrays.toString(lnBias);
         Reduced hit = cache.get(key);
         if (hit != null) {
             return hit;
         }
-        Reduced made = reduce(lnBias, withHighBand);
+        Reduced made = reduce(lnBias);
         if (made != null) {
             cache.put(key, made);
         }
@@ -275,10 +288,9 @@ final class BoardModel {
         return responses;
     }
 
-    private Reduced reduce(double[] lnBias, boolean withHighBand) {
+    private Reduced reduce(double[] lnBias) {
         reductions++;
-        SmallSignalNetwork network = expansion.expand(stage, points(lnBias));
-        Reduction low = reduction.reduce(network, Band.LOW);
+        Reduction low = reduction.reduce(expansion.expand(stage, points(lnBias)), Band.LOW);
         if (!(low instanceof Reduction.StateSpace)) {
             return null;
         }
@@ -297,20 +309,40 @@ final class BoardModel {
             // B = −Cd⁻¹·b, so b = −C_i·B_i
             b[i] = -model.farads(i) * bState[i];
         }
-        double d = model.directGain();
-        double[] highRe = new double[omegas.length];
-        double[] highIm = new double[omegas.length];
-        Arrays.fill(highRe, 1);
-        if (withHighBand && !network.capacitances(Band.HIGH).isEmpty() && d != 0) {
+        return new Reduced(y, b, model.c(), model.directGain());
+    }
+
+    // The high band moves with the bias only through gm and rπ (the Miller effect): a fraction
+    // of a degree over the top of a low-band sweep, so between exact evaluations the factor of a
+    // bias point within HIGH_BAND_REFRESH in ln I is reused (its change there is about 1e-2 of
+    // the point noise); the MAP's final evaluation, which fixes χ² and the evidence, is exact.
+    private HighFactor highFactor(double[] lnBias, boolean exact, double midbandGain) {
+        if (lastHigh != null) {
+            boolean near = true;
+            for (int j = 0; j < lnBias.length && near; j++) {
+                near = exact ? lnBias[j] == lastHigh.lnBias[j]
+                        : Math.abs(lnBias[j] - lastHigh.lnBias[j]) <= HIGH_BAND_REFRESH;
+            }
+            if (near) {
+                return lastHigh;
+            }
+        }
+        double[] re = new double[omegas.length];
+        double[] im = new double[omegas.length];
+        Arrays.fill(re, 1);
+        SmallSignalNetwork network = expansion.expand(stage, points(lnBias));
+        if (!network.capacitances(Band.HIGH).isEmpty()) {
+            reductions++;
             Reduction high = reduction.reduce(network, Band.HIGH);
             if (!(high instanceof Reduction.StateSpace)) {
                 return null;
             }
-            if (!highFactor(((Reduction.StateSpace) high).model(), d, highRe, highIm)) {
+            if (midbandGain != 0 && !highFactor(((Reduction.StateSpace) high).model(), midbandGain, re, im)) {
                 return null;
             }
         }
-        return new Reduced(y, b, model.c(), d, highRe, highIm);
+        lastHigh = new HighFactor(lnBias.clone(), re, im);
+        return lastHigh;
     }
 
     // H_high(jω)/D with H_high = C·(jωI − A)⁻¹·B + D_high, from the high-band model's matrices
@@ -328,14 +360,14 @@ final class BoardModel {
         double[] vr = new double[k];
         double[] vi = new double[k];
         for (int n = 0; n < omegas.length; n++) {
-            double[][] mr = lu.real();
-            double[][] mi = lu.imaginary();
+            double[] mr = lu.real();
+            double[] mi = lu.imaginary();
             for (int i = 0; i < k; i++) {
                 for (int j = 0; j < k; j++) {
-                    mr[i][j] = -a[i][j];
-                    mi[i][j] = 0;
+                    mr[i * k + j] = -a[i][j];
+                    mi[i * k + j] = 0;
                 }
-                mi[i][i] = omegas[n];
+                mi[i * k + i] = omegas[n];
                 vr[i] = bState[i];
                 vi[i] = 0;
             }
@@ -355,22 +387,37 @@ final class BoardModel {
         return true;
     }
 
-    /** One bias point's low-band reduction and high-band factor; arrays owned, never exposed. */
+    /** One bias point's low-band reduction; arrays owned, never exposed. */
     private static final class Reduced {
         final double[][] y;
+        final double[] yFlat;
         final double[] b;
         final double[] c;
         final double d;
-        final double[] highRe;
-        final double[] highIm;
 
-        Reduced(double[][] y, double[] b, double[] c, double d, double[] highRe, double[] highIm) {
+        Reduced(double[][] y, double[] b, double[] c, double d) {
             this.y = y;
+            int k = y.length;
+            this.yFlat = new double[k * k];
+            for (int i = 0; i < k; i++) {
+                System.arraycopy(y[i], 0, yFlat, i * k, k);
+            }
             this.b = b;
             this.c = c;
             this.d = d;
-            this.highRe = highRe;
-            this.highIm = highIm;
+        }
+    }
+
+    /** H_high/D per frequency at one bias point. */
+    private static final class HighFactor {
+        final double[] lnBias;
+        final double[] re;
+        final double[] im;
+
+        HighFactor(double[] lnBias, double[] re, double[] im) {
+            this.lnBias = lnBias;
+            this.re = re;
+            this.im = im;
         }
     }
 }

@@ -16,10 +16,10 @@ final class MapSolver {
     private static final double INITIAL_LAMBDA = 1e-3;
     private static final double MAX_LAMBDA = 1e12;
     /**
-     * A drop of ‖r‖² (χ² units) below which the search has converged: 1e-4 moves a log
-     * evidence by 5e-5, far below any difference that changes a ranking.
+     * A drop of ‖r‖² (χ² units) below which the search has converged: 1e-3 moves a log
+     * evidence by 5e-4, far below any difference that changes a ranking.
      */
-    private static final double COST_TOLERANCE = 1e-4;
+    private static final double COST_TOLERANCE = 1e-3;
     /** A step this small on every log-scale parameter has converged (1e-9 relative in value). */
     private static final double STEP_TOLERANCE = 1e-9;
 

@@ -18,7 +18,7 @@ final class Misfit {
     private final double[][] dr;
     private final double[][] di;
     private double[] biasAtColumns;
-    static final double BIAS_REFRESH = 0.03;
+    static final double BIAS_REFRESH = 0.1;
 
     Misfit(BoardModel model, MeasuredResponse measured, Prior[] priors, double noiseScale) {
         if (priors.length != model.parameterCount()) {
@@ -33,6 +33,10 @@ final class Misfit {
         this.hi = new double[n];
         this.dr = new double[n][model.parameterCount()];
         this.di = new double[n][model.parameterCount()];
+    }
+
+    int responses() {
+        return model.responses();
     }
 
     int parameters() {
@@ -84,7 +88,8 @@ final class Misfit {
                 fresh = Math.abs(theta[caps + j] - biasAtColumns[j]) > BIAS_REFRESH;
             }
         }
-        boolean ok = model.evaluate(theta, hr, hi, jacobian == null ? null : dr, jacobian == null ? null : di, fresh);
+        boolean ok = model.evaluate(theta, hr, hi, jacobian == null ? null : dr, jacobian == null ? null : di, fresh,
+                exact);
         if (!ok) {
             return false;
         }

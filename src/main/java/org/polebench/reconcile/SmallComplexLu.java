@@ -3,29 +3,31 @@ package org.polebench.reconcile;
 /**
  * LU factors of a small dense complex matrix with partial pivoting (Golub and Van Loan, Matrix
  * Computations, 3rd ed., algorithm 3.4.1), solving M·x = r and Mᵀ·x = r with the same factors.
- * The matrix is given as real and imaginary parts and overwritten by the factors. One instance
- * per thread and task; it keeps work arrays between calls.
+ * The matrix is held row-major in flat real and imaginary arrays (entry (i, j) at i·n + j),
+ * filled by the caller and overwritten by the factors; flat arrays keep the inner loops free of
+ * row lookups, which matters at thousands of small solves per back-solve. One instance per
+ * thread and task.
  */
 final class SmallComplexLu {
     private final int n;
-    private final double[][] re;
-    private final double[][] im;
+    private final double[] re;
+    private final double[] im;
     private final int[] pivot;
 
     SmallComplexLu(int n) {
         this.n = n;
-        this.re = new double[n][n];
-        this.im = new double[n][n];
+        this.re = new double[n * n];
+        this.im = new double[n * n];
         this.pivot = new int[n];
     }
 
-    /** @return the real part to fill before {@link #factor()} */
-    double[][] real() {
+    /** @return the real part, row-major, to fill before {@link #factor()} */
+    double[] real() {
         return re;
     }
 
-    /** @return the imaginary part to fill before {@link #factor()} */
-    double[][] imaginary() {
+    /** @return the imaginary part, row-major, to fill before {@link #factor()} */
+    double[] imaginary() {
         return im;
     }
 
@@ -33,9 +35,11 @@ final class SmallComplexLu {
     boolean factor() {
         for (int col = 0; col < n; col++) {
             int best = col;
-            double bestSize = re[col][col] * re[col][col] + im[col][col] * im[col][col];
+            int at = col * n + col;
+            double bestSize = re[at] * re[at] + im[at] * im[at];
             for (int row = col + 1; row < n; row++) {
-                double size = re[row][col] * re[row][col] + im[row][col] * im[row][col];
+                int e = row * n + col;
+                double size = re[e] * re[e] + im[e] * im[e];
                 if (size > bestSize) {
                     best = row;
                     bestSize = size;
@@ -46,30 +50,35 @@ final class SmallComplexLu {
             }
             pivot[col] = best;
             if (best != col) {
-                double[] swap = re[best];
-                re[best] = re[col];
-                re[col] = swap;
-                swap = im[best];
-                im[best] = im[col];
-                im[col] = swap;
+                for (int j = 0; j < n; j++) {
+                    int a = best * n + j;
+                    int b = col * n + j;
+                    double swap = re[a];
+                    re[a] = re[b];
+                    re[b] = swap;
+                    swap = im[a];
+                    im[a] = im[b];
+                    im[b] = swap;
+                }
             }
-            double pr = re[col][col];
-            double pi = im[col][col];
+            int diagonal = col * n + col;
+            double pr = re[diagonal];
+            double pi = im[diagonal];
             for (int row = col + 1; row < n; row++) {
-                // l = m[row][col] / pivot
-                double ar = re[row][col];
-                double ai = im[row][col];
+                int e = row * n + col;
+                double ar = re[e];
+                double ai = im[e];
                 double lr = (ar * pr + ai * pi) / bestSize;
                 double li = (ai * pr - ar * pi) / bestSize;
-                re[row][col] = lr;
-                im[row][col] = li;
-                double[] rr = re[row];
-                double[] ri = im[row];
-                double[] cr = re[col];
-                double[] ci = im[col];
+                re[e] = lr;
+                im[e] = li;
+                int r = row * n;
+                int c = col * n;
                 for (int j = col + 1; j < n; j++) {
-                    rr[j] -= lr * cr[j] - li * ci[j];
-                    ri[j] -= lr * ci[j] + li * cr[j];
+                    double cr = re[c + j];
+                    double ci = im[c + j];
+                    re[r + j] -= lr * cr - li * ci;
+                    im[r + j] -= lr * ci + li * cr;
                 }
             }
         }
@@ -92,9 +101,10 @@ final class SmallComplexLu {
         for (int i = 1; i < n; i++) {
             double sr = xr[i];
             double si = xi[i];
+            int r = i * n;
             for (int j = 0; j < i; j++) {
-                sr -= re[i][j] * xr[j] - im[i][j] * xi[j];
-                si -= re[i][j] * xi[j] + im[i][j] * xr[j];
+                sr -= re[r + j] * xr[j] - im[r + j] * xi[j];
+                si -= re[r + j] * xi[j] + im[r + j] * xr[j];
             }
             xr[i] = sr;
             xi[i] = si;
@@ -102,11 +112,12 @@ final class SmallComplexLu {
         for (int i = n - 1; i >= 0; i--) {
             double sr = xr[i];
             double si = xi[i];
+            int r = i * n;
             for (int j = i + 1; j < n; j++) {
-                sr -= re[i][j] * xr[j] - im[i][j] * xi[j];
-                si -= re[i][j] * xi[j] + im[i][j] * xr[j];
+                sr -= re[r + j] * xr[j] - im[r + j] * xi[j];
+                si -= re[r + j] * xi[j] + im[r + j] * xr[j];
             }
-            divide(sr, si, re[i][i], im[i][i], xr, xi, i);
+            divide(sr, si, re[r + i], im[r + i], xr, xi, i);
         }
     }
 
@@ -117,17 +128,19 @@ final class SmallComplexLu {
             double sr = xr[i];
             double si = xi[i];
             for (int j = 0; j < i; j++) {
-                sr -= re[j][i] * xr[j] - im[j][i] * xi[j];
-                si -= re[j][i] * xi[j] + im[j][i] * xr[j];
+                int e = j * n + i;
+                sr -= re[e] * xr[j] - im[e] * xi[j];
+                si -= re[e] * xi[j] + im[e] * xr[j];
             }
-            divide(sr, si, re[i][i], im[i][i], xr, xi, i);
+            divide(sr, si, re[i * n + i], im[i * n + i], xr, xi, i);
         }
         for (int i = n - 2; i >= 0; i--) {
             double sr = xr[i];
             double si = xi[i];
             for (int j = i + 1; j < n; j++) {
-                sr -= re[j][i] * xr[j] - im[j][i] * xi[j];
-                si -= re[j][i] * xi[j] + im[j][i] * xr[j];
+                int e = j * n + i;
+                sr -= re[e] * xr[j] - im[e] * xi[j];
+                si -= re[e] * xi[j] + im[e] * xr[j];
             }
             xr[i] = sr;
             xi[i] = si;
