@@ -1,0 +1,57 @@
+package org.polebench.cli;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.io.StringWriter;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import org.polebench.InputProblem;
+import org.polebench.measure.ProfileLibrary;
+import org.polebench.measure.Sweep;
+import org.polebench.measure.SweepReader;
+
+class SynthesizeCommandTest {
+    private static final String STAGE = "sample-measurements/hydrophone-preamp-ce.stage.yaml";
+
+    private static String[] run(String... args) {
+        StringWriter out = new StringWriter();
+        StringWriter err = new StringWriter();
+        int code = Main.run(args, new PrintWriter(out), new PrintWriter(err));
+        return new String[] {Integer.toString(code), out.toString(), err.toString()};
+    }
+
+    @Test
+    void writesALabelledSweepThatReadsBackAndKeepsAnExistingFile(@TempDir Path dir) throws IOException, InputProblem {
+        Path out = dir.resolve("board.csv");
+        String[] run = run("synthesize", "--stage", STAGE, "--fault", "gain=10", "--noise", "0dB,0deg",
+                "--from", "100Hz", "--to", "1k", "--points", "11", "--out", out.toString());
+        assertEquals("0", run[0], run[2]);
+        Sweep sweep = new SweepReader(ProfileLibrary.bundled()).read(out, "canonical").sweep();
+        assertEquals(11, sweep.size());
+        // log spacing: the 6th of 11 points from 100 Hz to 1 kHz is √(100·1000) Hz (closed form)
+        assertEquals(Math.sqrt(1e5), sweep.points().get(5).frequencyHz(), 1e-9);
+        String text = Files.readString(out);
+        assertTrue(text.contains("demo data, invented"), text);
+        assertTrue(text.contains("flat gain ×10.00 (+20.00 dB)"), text);
+        assertTrue(text.contains("seed: 1"), text);
+        String[] again = run("synthesize", "--stage", STAGE, "--out", out.toString());
+        assertEquals("2", again[0]);
+        assertTrue(again[2].contains("--force"), again[2]);
+        assertEquals(text, Files.readString(out));
+    }
+
+    @Test
+    void refusesAFaultOnAPartTheStageLacks(@TempDir Path dir) {
+        String[] run = run("synthesize", "--stage", STAGE, "--fault", "C9=4.7u", "--out", dir.resolve("x.csv").toString());
+        assertEquals("2", run[0]);
+        assertTrue(run[2].contains("C9=4.7u"), run[2]);
+        String[] bias = run("synthesize", "--stage", STAGE, "--fault", "bias:R1=0.5", "--out", dir.resolve("y.csv").toString());
+        assertEquals("2", bias[0]);
+        assertTrue(bias[2].contains("no transistor"), bias[2]);
+    }
+}
