@@ -67,6 +67,14 @@ public final class ToleranceSpread {
      *         be analysed (every draw left the active region or had no corner)
      */
     public CornerSpread lowerCorner(Stage nominal) {
+        BiasSolver.Prepared bias;
+        try {
+            bias = biasSolver.prepare(nominal);
+        } catch (InputProblem noDcPath) {
+            // a node without a DC path is one in every draw: each draw's bias solve would fail
+            return new CornerSpread(samples, seed, samples, List.of());
+        }
+        SmallSignalExpansion.Prepared small = expansion.prepare(nominal);
         SplittableRandom random = new SplittableRandom(seed);
         double[] corners = new double[samples];
         int used = 0;
@@ -75,13 +83,13 @@ public final class ToleranceSpread {
             Stage drawn = draw(nominal, random);
             OperatingPoints points;
             try {
-                points = biasSolver.solve(drawn);
+                points = bias.solve(drawn);
             } catch (InputProblem outOfRegion) {
                 biasFailures++;
                 continue;
             }
             points = drawGivenBias(drawn, points, random);
-            OptionalDouble corner = predictor.exactLowerCornerHz(expansion.expand(drawn, points));
+            OptionalDouble corner = predictor.exactLowerCornerHz(small.expand(drawn, points));
             if (corner.isPresent()) {
                 corners[used++] = corner.getAsDouble();
             }
