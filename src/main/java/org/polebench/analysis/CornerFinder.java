@@ -39,8 +39,19 @@ public final class CornerFinder {
         for (int tries = 0; tries < 6 && !(excess.value(Math.log(hi)) > 0); tries++) {
             hi *= 10;
         }
-        double floor = 1e-3 / lowBand.inverseSmallestPoleBound();
-        while (hi > floor) {
+        // floor = 1e-3/bound(A⁻¹) ≤ 1e-3·|smallest pole| ≤ 1e-3·bound(A): above half of that the
+        // scan is surely above the floor, which is then left uncomputed
+        double surelyAbove = 0.5e-3 * lowBand.largestPoleBound();
+        double floor = Double.NaN;
+        while (true) {
+            if (!(hi > surelyAbove)) {
+                if (Double.isNaN(floor)) {
+                    floor = 1e-3 / lowBand.inverseSmallestPoleBound();
+                }
+                if (!(hi > floor)) {
+                    break;
+                }
+            }
             double lo = hi / STEP;
             if (excess.value(Math.log(lo)) <= 0) {
                 return solve(excess, Math.log(lo), Math.log(hi));

@@ -1,12 +1,13 @@
 package org.polebench.analysis;
 
 /**
- * Dense real LU factorisation with partial pivoting, PA = LU, in the left-looking (Crout)
- * order of Commons Math's {@code LUDecomposition} (3.6.1), operation for operation, so that
- * factors, solutions and singularity verdicts are bit-for-bit those of that class, without its
- * matrix and vector wrappers on every solve (Golub and Van Loan, Matrix Computations, 4th ed.,
- * section 3.4). The pivot is the first largest entry of the column; the matrix counts as
- * singular when that pivot's magnitude is below the threshold. Immutable after construction.
+ * Real LU factorisation with partial pivoting, PA = LU, by right-looking Gaussian elimination
+ * that skips zero multipliers and zero entries of the pivot row (Golub and Van Loan, Matrix
+ * Computations, 4th ed., algorithm 3.4.1): an MNA matrix is mostly zeros, and a unit source's
+ * right-hand side has one non-zero, so most of the dense work is multiplying by zero. The pivot
+ * rule and singularity test are those of Commons Math's {@code LUDecomposition}: the first
+ * largest entry of the column, singular when its magnitude is below an absolute threshold; the
+ * factors agree with that class's to round-off. Immutable after construction.
  */
 final class RealLu {
     private final double[][] lu;
@@ -32,26 +33,14 @@ final class RealLu {
 
     private boolean factor(double singularThreshold) {
         int m = lu.length;
+        int[] nonZero = new int[m];
         for (int col = 0; col < m; col++) {
-            for (int row = 0; row < col; row++) {
-                double[] luRow = lu[row];
-                double sum = luRow[col];
-                for (int i = 0; i < row; i++) {
-                    sum -= luRow[i] * lu[i][col];
-                }
-                luRow[col] = sum;
-            }
             int max = col;
             double largest = Double.NEGATIVE_INFINITY;
             for (int row = col; row < m; row++) {
-                double[] luRow = lu[row];
-                double sum = luRow[col];
-                for (int i = 0; i < col; i++) {
-                    sum -= luRow[i] * lu[i][col];
-                }
-                luRow[col] = sum;
-                if (Math.abs(sum) > largest) {
-                    largest = Math.abs(sum);
+                double size = Math.abs(lu[row][col]);
+                if (size > largest) {
+                    largest = size;
                     max = row;
                 }
             }
@@ -66,9 +55,25 @@ final class RealLu {
                 pivot[max] = pivot[col];
                 pivot[col] = p;
             }
-            double diagonal = lu[col][col];
+            double[] pivotRow = lu[col];
+            int count = 0;
+            for (int j = col + 1; j < m; j++) {
+                if (pivotRow[j] != 0) {
+                    nonZero[count++] = j;
+                }
+            }
+            double diagonal = pivotRow[col];
             for (int row = col + 1; row < m; row++) {
-                lu[row][col] /= diagonal;
+                double[] luRow = lu[row];
+                if (luRow[col] == 0) {
+                    continue;
+                }
+                double multiplier = luRow[col] / diagonal;
+                luRow[col] = multiplier;
+                for (int n = 0; n < count; n++) {
+                    int j = nonZero[n];
+                    luRow[j] -= multiplier * pivotRow[j];
+                }
             }
         }
         return true;
@@ -90,6 +95,9 @@ final class RealLu {
         }
         for (int col = 0; col < m; col++) {
             double xCol = x[col];
+            if (xCol == 0) {
+                continue;
+            }
             for (int i = col + 1; i < m; i++) {
                 x[i] -= xCol * lu[i][col];
             }
@@ -97,6 +105,9 @@ final class RealLu {
         for (int col = m - 1; col >= 0; col--) {
             x[col] /= lu[col][col];
             double xCol = x[col];
+            if (xCol == 0) {
+                continue;
+            }
             for (int i = 0; i < col; i++) {
                 x[i] -= xCol * lu[i][col];
             }

@@ -612,11 +612,12 @@ public final class BiasSolver {
         }
 
         private double[] linearSolve(double[][] matrix, double[] rhs) throws InputProblem {
-            RealMatrix m = new Array2DRowRealMatrix(matrix, true);
+            // no copies: the decomposition copies the matrix itself and only reads the right-hand side
+            RealMatrix m = new Array2DRowRealMatrix(matrix, false);
             try {
                 // an absolute pivot floor far below any conductance a stage holds (1 TΩ is 1e-12 S)
                 DecompositionSolver solver = new LUDecomposition(m, 1e-300).getSolver();
-                RealVector solution = solver.solve(new ArrayRealVector(rhs, true));
+                RealVector solution = solver.solve(new ArrayRealVector(rhs, false));
                 double[] x = solution.toArray();
                 for (double v : x) {
                     if (!Double.isFinite(v)) {

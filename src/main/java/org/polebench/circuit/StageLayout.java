@@ -32,21 +32,33 @@ final class StageLayout {
         return true;
     }
 
+    // typed comparisons: terminalNodes() would build a list per part and draw
     private static boolean sameLayout(Part part, Part was) {
-        if (part.getClass() != was.getClass() || !part.name().equals(was.name())
-                || !part.terminalNodes().equals(was.terminalNodes())) {
+        if (part == was) {
+            return true;
+        }
+        if (part.getClass() != was.getClass() || !part.name().equals(was.name())) {
             return false;
         }
-        if (part instanceof Transistor
-                && ((Transistor) part).bias().getClass() != ((Transistor) was).bias().getClass()) {
-            return false;
-        }
-        if (part instanceof Bjt) {
-            return (((Bjt) part).rxOhms() > 0) == (((Bjt) was).rxOhms() > 0);
+        if (part instanceof Resistor) {
+            return ((Resistor) part).between().equals(((Resistor) was).between());
         }
         if (part instanceof Capacitor) {
-            return ((Capacitor) part).band() == ((Capacitor) was).band();
+            Capacitor c = (Capacitor) part;
+            Capacitor w = (Capacitor) was;
+            return c.between().equals(w.between()) && c.band() == w.band();
         }
-        return true;
+        if (part instanceof Bjt) {
+            Bjt q = (Bjt) part;
+            Bjt w = (Bjt) was;
+            return q.polarity() == w.polarity() && q.collector().equals(w.collector()) && q.base().equals(w.base())
+                    && q.emitter().equals(w.emitter()) && (q.rxOhms() > 0) == (w.rxOhms() > 0)
+                    && q.bias().getClass() == w.bias().getClass();
+        }
+        Mosfet m = (Mosfet) part;
+        Mosfet w = (Mosfet) was;
+        return m.channel() == w.channel() && m.drain().equals(w.drain()) && m.gate().equals(w.gate())
+                && m.source().equals(w.source()) && m.body().equals(w.body())
+                && m.hasBodyEffect() == w.hasBodyEffect() && m.bias().getClass() == w.bias().getClass();
     }
 }
