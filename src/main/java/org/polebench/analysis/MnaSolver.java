@@ -1,6 +1,7 @@
 package org.polebench.analysis;
 
 import java.util.Optional;
+import org.polebench.circuit.RealLu;
 
 /**
  * Factors an {@link MnaSystem} once (LU with partial pivoting, {@link RealLu}: the arithmetic of

@@ -7,13 +7,6 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
-import org.apache.commons.math3.linear.Array2DRowRealMatrix;
-import org.apache.commons.math3.linear.ArrayRealVector;
-import org.apache.commons.math3.linear.DecompositionSolver;
-import org.apache.commons.math3.linear.LUDecomposition;
-import org.apache.commons.math3.linear.RealMatrix;
-import org.apache.commons.math3.linear.RealVector;
-import org.apache.commons.math3.linear.SingularMatrixException;
 import org.polebench.InputProblem;
 
 /**
@@ -612,25 +605,27 @@ public final class BiasSolver {
         }
 
         private double[] linearSolve(double[][] matrix, double[] rhs) throws InputProblem {
-            // no copies: the decomposition copies the matrix itself and only reads the right-hand side
-            RealMatrix m = new Array2DRowRealMatrix(matrix, false);
-            try {
-                // an absolute pivot floor far below any conductance a stage holds (1 TΩ is 1e-12 S)
-                DecompositionSolver solver = new LUDecomposition(m, 1e-300).getSolver();
-                RealVector solution = solver.solve(new ArrayRealVector(rhs, false));
-                double[] x = solution.toArray();
-                for (double v : x) {
-                    if (!Double.isFinite(v)) {
-                        throw new SingularMatrixException();
-                    }
+            // an absolute pivot floor far below any conductance a stage holds (1 TΩ is 1e-12 S)
+            RealLu lu = new RealLu(matrix, 1e-300);
+            if (lu.isNonSingular()) {
+                double[] x = lu.solve(rhs);
+                if (allFinite(x)) {
+                    return x;
                 }
-                return x;
-            } catch (SingularMatrixException e) {
-                Transistor first = transistors.isEmpty() ? null : transistors.get(0);
-                throw new InputProblem(stage.sourceFile(), first == null ? 0 : first.line(),
-                        "the DC operating point cannot be solved: the DC network is singular",
-                        "look for a node fixed by two ideal sources or one with no DC path to ground");
             }
+            Transistor first = transistors.isEmpty() ? null : transistors.get(0);
+            throw new InputProblem(stage.sourceFile(), first == null ? 0 : first.line(),
+                    "the DC operating point cannot be solved: the DC network is singular",
+                    "look for a node fixed by two ideal sources or one with no DC path to ground");
+        }
+
+        private static boolean allFinite(double[] x) {
+            for (double v : x) {
+                if (!Double.isFinite(v)) {
+                    return false;
+                }
+            }
+            return true;
         }
 
         OperatingPoints points(double[] x) {

@@ -1,4 +1,4 @@
-package org.polebench.analysis;
+package org.polebench.circuit;
 
 /**
  * Real LU factorisation with partial pivoting, PA = LU, by right-looking Gaussian elimination
@@ -7,9 +7,10 @@ package org.polebench.analysis;
  * right-hand side has one non-zero, so most of the dense work is multiplying by zero. The pivot
  * rule and singularity test are those of Commons Math's {@code LUDecomposition}: the first
  * largest entry of the column, singular when its magnitude is below an absolute threshold; the
- * factors agree with that class's to round-off. Immutable after construction.
+ * factors agree with that class's to round-off. Shared by the DC bias solve here and the
+ * small-signal MNA solves of the analysis package. Immutable after construction.
  */
-final class RealLu {
+public final class RealLu {
     private final double[][] lu;
     private final int[] pivot;
     private final boolean singular;
@@ -18,7 +19,7 @@ final class RealLu {
      * @param matrix             square; not changed
      * @param singularThreshold  an absolute pivot magnitude below which the matrix is singular
      */
-    RealLu(double[][] matrix, double singularThreshold) {
+    public RealLu(double[][] matrix, double singularThreshold) {
         int m = matrix.length;
         lu = new double[m][];
         for (int i = 0; i < m; i++) {
@@ -79,12 +80,12 @@ final class RealLu {
         return true;
     }
 
-    boolean isNonSingular() {
+    public boolean isNonSingular() {
         return !singular;
     }
 
     /** @return x with A·x = b; b is not changed; only for a non-singular matrix */
-    double[] solve(double[] b) {
+    public double[] solve(double[] b) {
         if (singular) {
             throw new IllegalStateException("the matrix is singular");
         }
@@ -116,7 +117,7 @@ final class RealLu {
     }
 
     /** @return A⁻¹, column by column with {@link #solve}; only for a non-singular matrix */
-    double[][] inverse() {
+    public double[][] inverse() {
         int m = lu.length;
         double[][] inverse = new double[m][m];
         double[] unit = new double[m];
