@@ -6,6 +6,8 @@ import java.util.Optional;
 import java.util.OptionalDouble;
 import java.util.concurrent.CompletableFuture;
 import java.util.concurrent.CompletionException;
+import java.util.concurrent.Executor;
+import java.util.concurrent.ForkJoinPool;
 import org.apache.commons.math3.complex.Complex;
 import org.polebench.InputProblem;
 import org.polebench.analysis.ComplexFrequency;
@@ -35,6 +37,21 @@ public final class Reconciler {
     private final CornerApportionment apportionment = new CornerApportionment();
     private final LimitAssessment assessment = new LimitAssessment();
     private final ModelMeasurement measurement = new ModelMeasurement();
+    private final Executor fitExecutor;
+
+    /** Fits on the common fork-join pool while the back-solve runs on the calling thread. */
+    public Reconciler() {
+        this(ForkJoinPool.commonPool());
+    }
+
+    private Reconciler(Executor fitExecutor) {
+        this.fitExecutor = fitExecutor;
+    }
+
+    /** @return a reconciler that does everything on the calling thread (for one-core timing) */
+    public static Reconciler onOneThread() {
+        return new Reconciler(Runnable::run);
+    }
 
     /**
      * χ²/ν above which the rational fit is taken not to describe the sweep (its residuals over
@@ -64,7 +81,7 @@ public final class Reconciler {
             } catch (InputProblem problem) {
                 throw new CompletionException(problem);
             }
-        });
+        }, fitExecutor);
         Diagnosis diagnosis = ranking.rank(predicted.stage(), predicted.operatingPoints(), prediction.lowBand(), sweep);
         FitResult fit = join(fitting);
         ModelMeasurement.Measured model = measurement.measure(predicted.stage(), predicted.operatingPoints(),
