@@ -34,7 +34,7 @@ import org.polebench.circuit.Transistor;
 final class BoardModel {
     /** Forward-difference step in ln I: truncation ~1e-6 relative, round-off ~1e-10. */
     static final double BIAS_STEP = 1e-6;
-    private static final int CACHED_REDUCTIONS = 8;
+    private static final int CACHED_REDUCTIONS = 32;
     /** Bias move in ln I within which a high-band factor is reused between exact evaluations. */
     static final double HIGH_BAND_REFRESH = 0.02;
 

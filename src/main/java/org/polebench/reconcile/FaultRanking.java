@@ -230,7 +230,7 @@ public final class FaultRanking {
     private MapPoint screen(Misfit misfit, List<double[]> starts, boolean[] free, boolean biasMoves) {
         MapPoint best = null;
         for (double[] start : starts) {
-            Optional<MapPoint> point = screen.solve(misfit, start, free, biasMoves);
+            Optional<MapPoint> point = screen.solve(misfit, start, free, biasMoves, false);
             if (point.isPresent() && (best == null || point.get().objective() < best.objective())) {
                 best = point.get();
             }
@@ -238,7 +238,8 @@ public final class FaultRanking {
         if (best == null) {
             throw new IllegalStateException("the stage's model is undefined at every start of the back-solve");
         }
-        return best;
+        // the best start's Hessian exact, for the evidence of a hypothesis that stops here
+        return screen.at(misfit, best.theta()).orElse(best);
     }
 
     // bias held first (no reductions while the capacitors move), then everything free: the

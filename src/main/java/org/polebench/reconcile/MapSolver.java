@@ -42,6 +42,14 @@ final class MapSolver {
      * @return the point reached, its Hessian taken over every parameter
      */
     Optional<MapPoint> solve(Misfit misfit, double[] start, boolean[] free, boolean biasMoves) {
+        return solve(misfit, start, free, biasMoves, true);
+    }
+
+    /**
+     * @param exactHessian false to skip the final exact evaluation: the point's Hessian is then
+     *                     the last iteration's, with reused bias columns (for screening starts)
+     */
+    Optional<MapPoint> solve(Misfit misfit, double[] start, boolean[] free, boolean biasMoves, boolean exactHessian) {
         int p = misfit.parameters();
         int rows = misfit.rows();
         double[] theta = start.clone();
@@ -117,7 +125,7 @@ final class MapSolver {
             }
         }
         // the Hessian for the covariance and the evidence: every column fresh and exact
-        if (!misfit.evaluate(theta, r, jacobian, true, true)) {
+        if (exactHessian && !misfit.evaluate(theta, r, jacobian, true, true)) {
             return Optional.empty();
         }
         normalEquations(jacobian, r, normal, gradient);
@@ -155,6 +163,25 @@ final class MapSolver {
                 normal[i][j] = normal[j][i];
             }
         }
+    }
+
+    /** @return the point θ itself with its exact Hessian, no search; empty where the model is undefined */
+    Optional<MapPoint> at(Misfit misfit, double[] theta) {
+        int p = misfit.parameters();
+        double[] r = new double[misfit.rows()];
+        double[][] jacobian = new double[misfit.rows()][p];
+        if (!misfit.evaluate(theta, r, jacobian, true, true)) {
+            return Optional.empty();
+        }
+        double[][] normal = new double[p][p];
+        double[] gradient = new double[p];
+        normalEquations(jacobian, r, normal, gradient);
+        Optional<Cholesky> factor = Cholesky.of(normal);
+        if (factor.isEmpty()) {
+            return Optional.empty();
+        }
+        return Optional.of(new MapPoint(theta.clone(), misfit.dataChiSquared(r), misfit.priorMisfit(r), normal,
+                factor.get().inverse(), factor.get().lnDeterminant(), false, 0));
     }
 
     // a held parameter gets a unit row and column and no gradient, so its step is 0

@@ -39,6 +39,10 @@ final class Misfit {
         return model.responses();
     }
 
+    int reductions() {
+        return model.reductions();
+    }
+
     int parameters() {
         return priors.length;
     }
