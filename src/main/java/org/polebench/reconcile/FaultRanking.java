@@ -111,7 +111,7 @@ public final class FaultRanking {
             logPrior[h] = Math.log(alternative);
             Misfit misfit = new Misfit(model, measured, priorSets.get(h), 1);
             misfits.add(misfit);
-            List<double[]> starts = starts(none.theta(), mean, j, parameters.get(j));
+            List<double[]> starts = starts(none.theta(), mean, tolerance, j, parameters.get(j));
             boolean freedBias = parameters.get(j).kind() == ParameterKind.BIAS;
             boolean[] free = biasHeld;
             if (freedBias) {
@@ -213,11 +213,19 @@ public final class FaultRanking {
     // From the no-fault MAP, and from the tolerance means with the freed parameter at its mean
     // (and a decade either side for a capacitor): when one part is far off, the no-fault MAP
     // has bent the others to compensate, and the means are the better place to start them.
-    private static List<double[]> starts(double[] noFault, double[] mean, int j, ModelParameter parameter) {
+    // The means start is left out when the no-fault MAP lies within one prior σ of the means in
+    // every parameter: the two starts are then the same basin.
+    private static List<double[]> starts(double[] noFault, double[] mean, Prior[] tolerance, int j,
+                                         ModelParameter parameter) {
         List<double[]> starts = new ArrayList<>();
         starts.add(noFault.clone());
+        boolean bent = false;
+        for (int i = 0; i < mean.length; i++) {
+            bent |= Math.abs(noFault[i] - mean[i]) > tolerance[i].standardDeviation();
+        }
         double[] offsets = parameter.kind() == ParameterKind.CAPACITOR
-                ? new double[] {0, -Math.log(10), Math.log(10)} : new double[] {0};
+                ? (bent ? new double[] {0, -Math.log(10), Math.log(10)} : new double[] {-Math.log(10), Math.log(10)})
+                : (bent ? new double[] {0} : new double[0]);
         for (double offset : offsets) {
             double[] start = mean.clone();
             start[j] = mean[j] + offset;
