@@ -21,6 +21,7 @@ import picocli.CommandLine.Command;
                 ProfilesCommand.class,
                 FitCommand.class,
                 ReconcileCommand.class,
+                ReportCommand.class,
         },
         exitCodeListHeading = "%nExit codes:%n",
         exitCodeList = {
