@@ -311,7 +311,7 @@ public final class ReportHtml {
 
     private static void hypotheses(JsonNode root, StringBuilder h) {
         h.append("<h3>4.4 Ranked single-fault hypotheses</h3>\n<table id=\"hypotheses\" class=\"data\">\n<thead><tr>"
-                + "<th>Rank</th><th>Hypothesis</th><th>Prior</th><th>Posterior</th><th>Estimate</th><th>×nominal</th>"
+                + "<th>Rank</th><th>Hypothesis</th><th>Prior</th><th>Posterior</th><th>Estimate ± U (k = 2)</th><th>×nominal</th>"
                 + "<th>Nearest preferred value</th><th>Statement</th></tr></thead>\n<tbody>\n");
         int rank = 1;
         for (JsonNode y : root.path("hypotheses")) {
