@@ -90,8 +90,8 @@ class ReportChartsTest {
         String b = ReportCharts.svgElement(charts.capacitorBands(root), 720, 300, "pb-caps");
         assertEquals(a, b);
         assertTrue(a.startsWith("<svg"));
-        assertTrue(a.contains("id=\"pb-capsclip-"));
-        assertTrue(!a.contains("id=\"pbclip-"));
+        assertTrue(a.contains("id='pb-capsclip-"));
+        assertTrue(!a.contains("id='pbclip-"));
         assertTrue(!a.contains("<?xml"));
     }
 }
