@@ -22,6 +22,7 @@ import picocli.CommandLine.Command;
                 FitCommand.class,
                 ReconcileCommand.class,
                 ReportCommand.class,
+                SynthesizeCommand.class,
         },
         exitCodeListHeading = "%nExit codes:%n",
         exitCodeList = {

@@ -16,6 +16,7 @@ import org.polebench.circuit.StageReader;
 import org.polebench.measure.ImportedSweep;
 import org.polebench.measure.ProfileLibrary;
 import org.polebench.measure.SweepReader;
+import org.polebench.measure.SweepWriter;
 import org.polebench.reconcile.DecisionRule;
 import org.polebench.reconcile.ReconcileResult;
 import org.polebench.reconcile.Reconciler;
@@ -83,7 +84,7 @@ final class ReconcileCommand implements Callable<Integer> {
             description = "the board's id or serial number, for the report (default: the sweep's own, if it names one)")
     String board;
 
-    @Option(names = "--samples", paramLabel = "N", defaultValue = "2000",
+    @Option(names = "--samples", paramLabel = "N", defaultValue = "1000",
             description = "boards drawn for the predicted corner's tolerance spread (default ${DEFAULT-VALUE})")
     int samples;
 
@@ -110,7 +111,9 @@ final class ReconcileCommand implements Callable<Integer> {
         Path sweepFile = sweep != null ? sweep : BundledSamples.locate(DEMO_SWEEP);
         StagePrediction predicted = new StageAnalysis().withSpread(new ToleranceSpread(samples, seed))
                 .analyse(new StageReader().read(stageFile));
-        ImportedSweep imported = new SweepReader(ProfileLibrary.standard(Path.of(""))).read(sweepFile, profile);
+        // the bundled demo sweep is canonical: no need to sniff its layout
+        String profileName = sweep == null && profile.equals(SweepReader.AUTO) ? SweepWriter.CANONICAL : profile;
+        ImportedSweep imported = new SweepReader(ProfileLibrary.standard(Path.of(""))).read(sweepFile, profileName);
         ReconcileResult result = new Reconciler().reconcile(predicted, imported.sweep(), decisionRule);
         RunDetails run = RunDetails.of(stageFile, sweepFile, imported.profileName(), imported.warnings(),
                 Optional.ofNullable(operator), Optional.ofNullable(board), samples, seed);

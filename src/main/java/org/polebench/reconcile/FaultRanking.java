@@ -56,7 +56,7 @@ public final class FaultRanking {
     public static final double GAIN_FAULT_SIGMA_DB = 20;
     public static final double NO_FAULT_PRIOR = 0.5;
     static final double ZERO_BAND_SIGMA = 1e-3;
-    static final int SCREEN_ITERATIONS = 5;
+    static final int SCREEN_ITERATIONS = 4;
     static final int MAX_ITERATIONS = 60;
     /** Log-posterior lag after screening beyond which a hypothesis is not run to convergence. */
     static final double SKIP_NATS = 100;

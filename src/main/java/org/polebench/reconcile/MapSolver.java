@@ -53,6 +53,7 @@ final class MapSolver {
         double cost = squaredNorm(r);
         double lambda = INITIAL_LAMBDA;
         double[] trialR = new double[rows];
+        double[][] trialJacobian = new double[rows][p];
         boolean converged = false;
         int iteration = 0;
         double[][] normal = new double[p][p];
@@ -88,7 +89,9 @@ final class MapSolver {
                 for (int j = 0; j < p; j++) {
                     trial[j] = theta[j] + step[j];
                 }
-                if (misfit.evaluate(trial, trialR, null)) {
+                // the Jacobian comes with the trial: most trials are accepted, and one pass
+                // through the frequencies for both costs less than two
+                if (misfit.evaluate(trial, trialR, trialJacobian, false, biasMoves)) {
                     double trialCost = squaredNorm(trialR);
                     if (trialCost <= cost) {
                         accepted = true;
@@ -97,7 +100,12 @@ final class MapSolver {
                         converged = drop <= COST_TOLERANCE || Math.min(longest, MAX_STEP) < STEP_TOLERANCE;
                         cost = trialCost;
                         lambda = Math.max(lambda / 10, 1e-12);
-                        misfit.evaluate(theta, r, jacobian, false, biasMoves);
+                        double[] swapR = r;
+                        r = trialR;
+                        trialR = swapR;
+                        double[][] swapJ = jacobian;
+                        jacobian = trialJacobian;
+                        trialJacobian = swapJ;
                         continue;
                     }
                 }

@@ -4,6 +4,8 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Optional;
 import java.util.OptionalDouble;
+import java.util.concurrent.CompletableFuture;
+import java.util.concurrent.CompletionException;
 import org.apache.commons.math3.complex.Complex;
 import org.polebench.InputProblem;
 import org.polebench.analysis.ComplexFrequency;
@@ -54,9 +56,17 @@ public final class Reconciler {
         if (start.size() == order) {
             settings = settings.withStartPoles(start);
         }
-        FitResult fit = new SweepFitter(settings).fit(sweep);
-
+        // the fit and the back-solve are independent: the fit runs on another thread meanwhile
+        SweepFitter fitter = new SweepFitter(settings);
+        CompletableFuture<FitResult> fitting = CompletableFuture.supplyAsync(() -> {
+            try {
+                return fitter.fit(sweep);
+            } catch (InputProblem problem) {
+                throw new CompletionException(problem);
+            }
+        });
         Diagnosis diagnosis = ranking.rank(predicted.stage(), predicted.operatingPoints(), prediction.lowBand(), sweep);
+        FitResult fit = join(fitting);
         ModelMeasurement.Measured model = measurement.measure(predicted.stage(), predicted.operatingPoints(),
                 diagnosis.top().backSolve());
         boolean adequate = fit.quality().reducedChiSquare() <= FIT_ADEQUATE_CHI_SQUARE;
@@ -92,8 +102,8 @@ public final class Reconciler {
 
         Optional<Apportionment> shares = Optional.empty();
         if (corner.isPresent() && prediction.exactLowerCornerHz().isPresent()) {
-            shares = Optional.of(apportionment.apportion(prediction, capacitorParameters(diagnosis),
-                    corner.get().value(), corner.get().standardUncertainty()));
+            shares = apportionment.apportion(predicted.stage(), predicted.operatingPoints(), prediction,
+                    capacitorParameters(diagnosis), corner.get().value(), corner.get().standardUncertainty());
         }
         Optional<MeasuredQuantity> lower = corner.map(c -> new MeasuredQuantity(c.value(), c.expandedUncertainty(),
                 cornerSource));
@@ -109,6 +119,20 @@ public final class Reconciler {
         Conformity conformity = assessment.assess(predicted.stage().limits(), lower, gain, upper, rule);
         return new ReconcileResult(predicted, sweep, fit, sideBySide, shares, diagnosis, conformity,
                 gainSource, cornerSource);
+    }
+
+    private static FitResult join(CompletableFuture<FitResult> fitting) throws InputProblem {
+        try {
+            return fitting.join();
+        } catch (CompletionException failure) {
+            if (failure.getCause() instanceof InputProblem) {
+                throw (InputProblem) failure.getCause();
+            }
+            if (failure.getCause() instanceof RuntimeException) {
+                throw (RuntimeException) failure.getCause();
+            }
+            throw failure;
+        }
     }
 
     private static List<ModelParameter> capacitorParameters(Diagnosis diagnosis) {
