@@ -24,7 +24,7 @@ class ReportChartsTest {
         JFreeChart chart = charts.bode(root).chart();
         CombinedDomainXYPlot plot = (CombinedDomainXYPlot) chart.getPlot();
         LogAxis frequency = assertInstanceOf(LogAxis.class, plot.getDomainAxis());
-        XYPlot gain = (XYPlot) plot.getSubplots().get(0);
+        XYPlot gain = plot.getSubplots().get(0);
         XYDataset lines = gain.getDataset(0);
         List<String> labels = List.of("measured", "fitted model", "nominal stage, exact", "SCTC single-pole estimate");
         assertEquals(labels.size(), lines.getSeriesCount());
