@@ -164,7 +164,8 @@ public final class ToleranceSpread {
         return corner.isPresent() ? corner.getAsDouble() : 0;
     }
 
-    private static Stage draw(Stage nominal, SplittableRandom random) {
+    /** One board drawn across the tolerances (shared with {@link ResponseSpread}, so both draw alike). */
+    static Stage draw(Stage nominal, SplittableRandom random) {
         List<Part> drawn = new ArrayList<>(nominal.parts().size());
         for (Part part : nominal.parts()) {
             if (part instanceof Resistor) {
@@ -183,7 +184,7 @@ public final class ToleranceSpread {
         return nominal.withParts(drawn);
     }
 
-    private static List<Transistor> givenBiasTransistors(Stage stage) {
+    static List<Transistor> givenBiasTransistors(Stage stage) {
         List<Transistor> given = new ArrayList<>();
         for (Transistor transistor : stage.transistors()) {
             if (transistor.bias() instanceof Bias.Given) {
@@ -193,7 +194,7 @@ public final class ToleranceSpread {
         return given;
     }
 
-    private static double[] drawGivenBias(List<Transistor> given, SplittableRandom random) {
+    static double[] drawGivenBias(List<Transistor> given, SplittableRandom random) {
         double[] factors = new double[given.size()];
         for (int t = 0; t < factors.length; t++) {
             factors[t] = factor(given.get(t).biasTolerance(), random);

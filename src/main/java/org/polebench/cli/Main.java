@@ -21,6 +21,7 @@ import picocli.CommandLine.Command;
                 ProfilesCommand.class,
                 FitCommand.class,
                 ReconcileCommand.class,
+                ReportCommand.class,
                 SynthesizeCommand.class,
         },
         exitCodeListHeading = "%nExit codes:%n",
