@@ -35,9 +35,10 @@ final class PseudoTerminalPair implements AutoCloseable {
     }
 
     /** Starts socat and waits (up to 10 s, a loaded machine) until both links exist. */
-    static PseudoTerminalPair open(Path directory) throws IOException, InterruptedException {
+    static PseudoTerminalPair open(Path parent) throws IOException, InterruptedException {
         Assumptions.assumeTrue(socatInstalled(), "socat is not installed: serial-path tests skipped "
                 + "(.ci/run installs it; or apt-get install socat)");
+        Path directory = Files.createTempDirectory(parent, "pty");
         Path a = directory.resolve("pty-a");
         Path b = directory.resolve("pty-b");
         Process socat = new ProcessBuilder("socat", "-d", "-d", "pty,raw,echo=0,link=" + a,
