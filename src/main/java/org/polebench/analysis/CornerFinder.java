@@ -9,7 +9,9 @@ import org.apache.commons.math3.exception.MathIllegalStateException;
  * The exact −3 dB corners of a state-space model (DESIGN.md, "Numerics"): where |H(jω)|
  * crosses |midband gain|/√2, bracketed by a scan in steps of 1/{@value #STEPS_PER_DECADE}
  * decade and solved with Brent's method (Brent, Algorithms for Minimization without
- * Derivatives, 1973; Commons Math {@link BrentSolver}) on ln ω, to 1e-12 in ln ω.
+ * Derivatives, 1973; Commons Math {@link BrentSolver}) on ln ω, to 1e-12 in ln ω. The
+ * function is |H|²/target − 1: finite where |H| = 0, of the sign of |H| − |D|/√2, and
+ * evaluated through the model's Hessenberg form ({@link HessenbergResponse}), O(k²) per point.
  *
  * <p>Lower corner: the scan runs down from 10 times a bound on the largest pole
  * ({@link SpectralBound}; above every pole, where H ≈ D) and takes the first crossing, so with
@@ -30,15 +32,26 @@ public final class CornerFinder {
         if (lowBand.order() == 0 || d == 0) {
             return OptionalDouble.empty();
         }
-        ResponseEvaluator evaluator = new ResponseEvaluator(lowBand);
+        HessenbergResponse response = new HessenbergResponse(lowBand);
         double target = d * d / 2;
-        UnivariateFunction excess = lnOmega -> excess(evaluator, Math.exp(lnOmega), target);
+        UnivariateFunction excess = lnOmega -> response.magnitudeSquared(Math.exp(lnOmega)) / target - 1;
         double hi = 10 * lowBand.largestPoleBound();
         for (int tries = 0; tries < 6 && !(excess.value(Math.log(hi)) > 0); tries++) {
             hi *= 10;
         }
-        double floor = 1e-3 / lowBand.inverseSmallestPoleBound();
-        while (hi > floor) {
+        // floor = 1e-3/bound(A⁻¹) ≤ 1e-3·|smallest pole| ≤ 1e-3·bound(A): above half of that the
+        // scan is surely above the floor, which is then left uncomputed
+        double surelyAbove = 0.5e-3 * lowBand.largestPoleBound();
+        double floor = Double.NaN;
+        while (true) {
+            if (!(hi > surelyAbove)) {
+                if (Double.isNaN(floor)) {
+                    floor = 1e-3 / lowBand.inverseSmallestPoleBound();
+                }
+                if (!(hi > floor)) {
+                    break;
+                }
+            }
             double lo = hi / STEP;
             if (excess.value(Math.log(lo)) <= 0) {
                 return solve(excess, Math.log(lo), Math.log(hi));
@@ -57,9 +70,9 @@ public final class CornerFinder {
         if (highBand.order() == 0 || midbandGain == 0) {
             return OptionalDouble.empty();
         }
-        ResponseEvaluator evaluator = new ResponseEvaluator(highBand);
+        HessenbergResponse response = new HessenbergResponse(highBand);
         double target = midbandGain * midbandGain / 2;
-        UnivariateFunction excess = lnOmega -> excess(evaluator, Math.exp(lnOmega), target);
+        UnivariateFunction excess = lnOmega -> response.magnitudeSquared(Math.exp(lnOmega)) / target - 1;
         double lo = 0.1 / highBand.inverseSmallestPoleBound();
         for (int tries = 0; tries < 6 && !(excess.value(Math.log(lo)) > 0); tries++) {
             lo /= 10;
@@ -73,14 +86,6 @@ public final class CornerFinder {
             lo = hi;
         }
         return OptionalDouble.empty();
-    }
-
-    // |H|²/target − 1: finite where |H| = 0, and of the sign of |H| − |D|/√2.
-    private static double excess(ResponseEvaluator evaluator, double omega, double target) {
-        if (!evaluator.evaluate(omega)) {
-            return Double.NaN;
-        }
-        return evaluator.magnitudeSquared() / target - 1;
     }
 
     private static OptionalDouble solve(UnivariateFunction f, double lnLo, double lnHi) {

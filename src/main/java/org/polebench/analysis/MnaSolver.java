@@ -1,14 +1,11 @@
 package org.polebench.analysis;
 
 import java.util.Optional;
-import org.apache.commons.math3.linear.Array2DRowRealMatrix;
-import org.apache.commons.math3.linear.ArrayRealVector;
-import org.apache.commons.math3.linear.DecompositionSolver;
-import org.apache.commons.math3.linear.LUDecomposition;
+import org.polebench.circuit.RealLu;
 
 /**
- * Factors an {@link MnaSystem} once (Commons Math LU with partial pivoting) and solves it for
- * any excitation. The singularity test is relative: a pivot below {@code relativePivot} times
+ * Factors an {@link MnaSystem} once (LU with partial pivoting, {@link RealLu}: the arithmetic of
+ * Commons Math's LU without its wrappers) and solves it for any excitation. The singularity test is relative: a pivot below {@code relativePivot} times
  * the largest matrix entry counts as zero (Commons Math's own threshold is absolute).
  */
 public final class MnaSolver {
@@ -34,24 +31,23 @@ public final class MnaSolver {
                 largest = Math.max(largest, Math.abs(v));
             }
         }
-        LUDecomposition lu = new LUDecomposition(new Array2DRowRealMatrix(m, false), relativePivot * largest);
-        DecompositionSolver solver = lu.getSolver();
-        return solver.isNonSingular() ? Optional.of(new Factored(system, solver)) : Optional.empty();
+        RealLu lu = new RealLu(m, relativePivot * largest);
+        return lu.isNonSingular() ? Optional.of(new Factored(system, lu)) : Optional.empty();
     }
 
     /** One factorisation of one system. */
     public static final class Factored {
         private final MnaSystem system;
-        private final DecompositionSolver solver;
+        private final RealLu lu;
 
-        private Factored(MnaSystem system, DecompositionSolver solver) {
+        private Factored(MnaSystem system, RealLu lu) {
             this.system = system;
-            this.solver = solver;
+            this.lu = lu;
         }
 
         /** @return the unknowns (node voltages in volts, then scaled source currents) */
         public double[] solve(double[] rhs) {
-            return solver.solve(new ArrayRealVector(rhs, false)).toArray();
+            return lu.solve(rhs);
         }
 
         /** @return the solution with source {@code source} at 1 V and every other source at 0 V */

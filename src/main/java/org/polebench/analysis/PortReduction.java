@@ -6,13 +6,11 @@ import java.util.List;
 import java.util.Optional;
 import java.util.Set;
 import org.apache.commons.math3.linear.Array2DRowRealMatrix;
-import org.apache.commons.math3.linear.DecompositionSolver;
-import org.apache.commons.math3.linear.LUDecomposition;
-import org.apache.commons.math3.linear.RealMatrix;
 import org.apache.commons.math3.linear.SingularValueDecomposition;
 import org.polebench.circuit.Band;
 import org.polebench.circuit.NetworkElement;
 import org.polebench.circuit.SmallSignalNetwork;
+import org.polebench.circuit.RealLu;
 
 /**
  * Reduces the resistive network around one band's capacitors to the state-space model
@@ -155,15 +153,15 @@ public final class PortReduction {
                 scaled[i][j] = y[i][j] * rowScale[i];
             }
         }
-        DecompositionSolver lu = new LUDecomposition(new Array2DRowRealMatrix(scaled, false), admittancePivot).getSolver();
+        RealLu lu = new RealLu(scaled, admittancePivot);
         if (!lu.isNonSingular()) {
             return false;
         }
-        RealMatrix inv = lu.getInverse();
+        double[][] inv = lu.inverse();
         for (int i = 0; i < k; i++) {
             for (int j = 0; j < k; j++) {
                 // (R·Y)⁻¹ = Y⁻¹·R⁻¹, so Y⁻¹ = (R·Y)⁻¹·R
-                inverse[i][j] = inv.getEntry(i, j) * rowScale[j];
+                inverse[i][j] = inv[i][j] * rowScale[j];
             }
         }
         return true;

@@ -43,7 +43,6 @@ public final class StateModel {
     private final double[][] a;
     private final double[] bState;
     private final double largestPoleBound;
-    private final double inverseSmallestPoleBound;
 
     StateModel(Band band, List<String> capacitorNames, double[] farads, List<LinkCapacitor> links,
                double[][] y, double[][] yInverse, double[] b, double[] c, double directGain) {
@@ -89,18 +88,13 @@ public final class StateModel {
         this.d = dPrime;
         this.a = new double[k][k];
         this.bState = new double[k];
-        double[][] aInverse = new double[k][k];
         for (int i = 0; i < k; i++) {
             for (int j = 0; j < k; j++) {
                 double sum = 0;
-                double inverseSum = 0;
                 for (int m = 0; m < k; m++) {
                     sum += cInverse[i][m] * y[m][j];
-                    inverseSum += yInverse[i][m] * capacitance[m][j];
                 }
                 a[i][j] = -sum;
-                // A⁻¹ = −Y⁻¹·Cf
-                aInverse[i][j] = -inverseSum;
             }
             double bi = 0;
             for (int m = 0; m < k; m++) {
@@ -109,7 +103,6 @@ public final class StateModel {
             bState[i] = bi;
         }
         this.largestPoleBound = SpectralBound.of(a);
-        this.inverseSmallestPoleBound = SpectralBound.of(aInverse);
     }
 
     private static double[] multiply(double[][] m, double[] v) {
@@ -250,7 +243,20 @@ public final class StateModel {
 
     /** @return the same bound for A⁻¹, in s: no pole is smaller in magnitude than its reciprocal */
     double inverseSmallestPoleBound() {
-        return inverseSmallestPoleBound;
+        // computed on request: a lower-corner scan needs it only when it runs far below the poles
+        int k = order();
+        double[][] aInverse = new double[k][k];
+        for (int i = 0; i < k; i++) {
+            for (int j = 0; j < k; j++) {
+                double sum = 0;
+                for (int m = 0; m < k; m++) {
+                    sum += yInverse[i][m] * capacitance[m][j];
+                }
+                // A⁻¹ = −Y⁻¹·Cf
+                aInverse[i][j] = -sum;
+            }
+        }
+        return SpectralBound.of(aInverse);
     }
 
     /** @return H(jω) = C·(jωI − A)⁻¹·B + D at ω in rad/s, O(k³) */

@@ -67,23 +67,26 @@ public final class ToleranceSpread {
      *         be analysed (every draw left the active region or had no corner)
      */
     public CornerSpread lowerCorner(Stage nominal) {
+        BiasSolver.Prepared bias;
+        try {
+            bias = biasSolver.prepare(nominal);
+        } catch (InputProblem noDcPath) {
+            // a node without a DC path is one in every draw: each draw's bias solve would fail
+            return new CornerSpread(samples, seed, samples, List.of());
+        }
+        SmallSignalExpansion.Prepared small = expansion.prepare(nominal);
         SplittableRandom random = new SplittableRandom(seed);
         double[] corners = new double[samples];
         int used = 0;
         int biasFailures = 0;
         for (int n = 0; n < samples; n++) {
-            Stage drawn = draw(nominal, random);
-            OperatingPoints points;
-            try {
-                points = biasSolver.solve(drawn);
-            } catch (InputProblem outOfRegion) {
+            // one call per draw, so that the JIT compiles a draw as a method of its own rather
+            // than only as an on-stack replacement of this loop
+            double cornerHz = cornerOfOneDraw(nominal, bias, small, random);
+            if (Double.isNaN(cornerHz)) {
                 biasFailures++;
-                continue;
-            }
-            points = drawGivenBias(drawn, points, random);
-            OptionalDouble corner = predictor.exactLowerCornerHz(expansion.expand(drawn, points));
-            if (corner.isPresent()) {
-                corners[used++] = corner.getAsDouble();
+            } else if (cornerHz > 0) {
+                corners[used++] = cornerHz;
             }
         }
         double[] sorted = Arrays.copyOf(corners, used);
@@ -93,6 +96,24 @@ public final class ToleranceSpread {
             values.add(corner);
         }
         return new CornerSpread(samples, seed, biasFailures, values);
+    }
+
+    /**
+     * @return the exact lower corner of one draw in Hz; 0 when the draw has none; NaN when its
+     *         bias left the active region
+     */
+    private double cornerOfOneDraw(Stage nominal, BiasSolver.Prepared bias, SmallSignalExpansion.Prepared small,
+                                   SplittableRandom random) {
+        Stage drawn = draw(nominal, random);
+        OperatingPoints points;
+        try {
+            points = bias.solve(drawn);
+        } catch (InputProblem outOfRegion) {
+            return Double.NaN;
+        }
+        points = drawGivenBias(drawn, points, random);
+        OptionalDouble corner = predictor.exactLowerCornerHz(small.expand(drawn, points));
+        return corner.isPresent() ? corner.getAsDouble() : 0;
     }
 
     private static Stage draw(Stage nominal, SplittableRandom random) {

@@ -7,13 +7,6 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
-import org.apache.commons.math3.linear.Array2DRowRealMatrix;
-import org.apache.commons.math3.linear.ArrayRealVector;
-import org.apache.commons.math3.linear.DecompositionSolver;
-import org.apache.commons.math3.linear.LUDecomposition;
-import org.apache.commons.math3.linear.RealMatrix;
-import org.apache.commons.math3.linear.RealVector;
-import org.apache.commons.math3.linear.SingularMatrixException;
 import org.polebench.InputProblem;
 
 /**
@@ -53,6 +46,11 @@ public final class BiasSolver {
 
     /** @return the operating points of every transistor, or a problem naming the one that fails */
     public OperatingPoints solve(Stage stage) throws InputProblem {
+        requireDcPaths(stage);
+        return solveLaidOut(stage, new NodeIndex(stage));
+    }
+
+    private static void requireDcPaths(Stage stage) throws InputProblem {
         Optional<StageTopology.FloatingNode> floating = StageTopology.floatingNode(stage, false);
         if (floating.isPresent()) {
             StageTopology.FloatingNode f = floating.get();
@@ -64,13 +62,90 @@ public final class BiasSolver {
                     given.isEmpty() ? f.hint() : "give '" + f.node() + "' a resistor path to ground or a rail,"
                             + " or use 'bias: auto' for " + given);
         }
-        Circuit circuit = new Circuit(stage, null);
+    }
+
+    /**
+     * Runs the structural checks of {@link #solve} once, for many draws of one stage (a Monte
+     * Carlo tolerance spread): the draws keep the stage's parts, nodes, supplies, input and
+     * output and change only values, so a node with no DC path cannot appear in a draw.
+     *
+     * @return a solver for draws of {@code stage}
+     * @throws InputProblem when the stage has a node with no DC path ({@link #solve}'s first check)
+     */
+    public Prepared prepare(Stage stage) throws InputProblem {
+        requireDcPaths(stage);
+        return new Prepared(this, stage, new NodeIndex(stage));
+    }
+
+    private OperatingPoints solveLaidOut(Stage stage, NodeIndex nodes) throws InputProblem {
+        List<Transistor> transistors = stage.transistors();
+        Circuit circuit = new Circuit(stage, transistors, null, nodes);
         double[] x = circuit.solve();
         OperatingPoints points = circuit.points(x);
-        for (Transistor transistor : stage.transistors()) {
+        for (Transistor transistor : transistors) {
             check(stage, transistor, circuit, x);
         }
         return points;
+    }
+
+    /**
+     * {@link BiasSolver#solve} for draws of one checked stage: the same solve, region checks and
+     * problems, without the structural check and with the node numbering built once. Immutable;
+     * one instance serves any thread.
+     */
+    public static final class Prepared {
+        private final BiasSolver solver;
+        private final Stage nominal;
+        private final NodeIndex nodes;
+
+        private Prepared(BiasSolver solver, Stage nominal, NodeIndex nodes) {
+            this.solver = solver;
+            this.nominal = nominal;
+            this.nodes = nodes;
+        }
+
+        /**
+         * @param draw the prepared stage with other values: the same parts in the same order, on
+         *             the same nodes, with the same supplies, input, output and kinds of bias
+         * @return the operating points, as {@link BiasSolver#solve} gives them for {@code draw}
+         * @throws InputProblem when a transistor of the draw leaves its amplifying region
+         * @throws IllegalArgumentException when the draw is not laid out as the prepared stage
+         */
+        public OperatingPoints solve(Stage draw) throws InputProblem {
+            if (!StageLayout.isDrawOf(draw, nominal)) {
+                throw new IllegalArgumentException("stage " + draw.name() + " is not a draw of " + nominal.name());
+            }
+            return solver.solveLaidOut(draw, nodes);
+        }
+    }
+
+    /** The DC unknowns' numbering: every node but ground, in {@link Stage#nodes()} order. */
+    private static final class NodeIndex {
+        private final String ground;
+        private final Map<String, Integer> index = new LinkedHashMap<>();
+
+        NodeIndex(Stage stage) {
+            this.ground = stage.ground();
+            for (String node : stage.nodes()) {
+                if (!node.equals(ground)) {
+                    index.put(node, index.size());
+                }
+            }
+        }
+
+        int size() {
+            return index.size();
+        }
+
+        /** @return the nodes but ground, in row order */
+        Iterable<String> nodes() {
+            return index.keySet();
+        }
+
+        /** @return the node's row, −1 for ground */
+        int row(String node) {
+            return node.equals(ground) ? -1 : index.get(node);
+        }
     }
 
     private static String givenTransistorsAt(Stage stage, String node) {
@@ -207,7 +282,8 @@ public final class BiasSolver {
      */
     private static final class Circuit {
         private final Stage stage;
-        private final Map<String, Integer> index = new LinkedHashMap<>();
+        private final List<Transistor> transistors;
+        private final NodeIndex index;
         private final List<Source> sources = new ArrayList<>();
         private final List<Mosfet> nonlinear = new ArrayList<>();
         private final Map<String, Integer> junctionSource = new LinkedHashMap<>();
@@ -220,12 +296,14 @@ public final class BiasSolver {
 
         /** @param excluded a transistor left out (for a cut-off hint), or null */
         Circuit(Stage stage, String excluded) throws InputProblem {
+            this(stage, stage.transistors(), excluded, new NodeIndex(stage));
+        }
+
+        /** @param transistors the stage's transistors, {@link Stage#transistors()} */
+        Circuit(Stage stage, List<Transistor> transistors, String excluded, NodeIndex index) {
             this.stage = stage;
-            for (String node : stage.nodes()) {
-                if (!node.equals(stage.ground())) {
-                    index.put(node, index.size());
-                }
-            }
+            this.transistors = transistors;
+            this.index = index;
             nodeCount = index.size();
             for (Supply supply : stage.supplies()) {
                 sources.add(new Source(supply.node(), stage.ground(), supply.volts(), supply.node()));
@@ -233,7 +311,7 @@ public final class BiasSolver {
             if (stage.input().sourceOhms() == 0) {
                 sources.add(new Source(stage.input().node(), stage.ground(), 0, "generator"));
             }
-            for (Transistor transistor : stage.transistors()) {
+            for (Transistor transistor : transistors) {
                 if (transistor.name().equals(excluded)) {
                     continue;
                 }
@@ -266,7 +344,7 @@ public final class BiasSolver {
                 stamp(source.minus(), row, -1);
                 b[row] = source.volts();
             }
-            for (Transistor transistor : stage.transistors()) {
+            for (Transistor transistor : transistors) {
                 if (transistor.name().equals(excluded)) {
                     continue;
                 }
@@ -303,7 +381,7 @@ public final class BiasSolver {
         }
 
         private int row(String node) {
-            return node.equals(stage.ground()) ? -1 : index.get(node);
+            return index.row(node);
         }
 
         private void conductance(String a, String bNode, double siemens) {
@@ -527,34 +605,37 @@ public final class BiasSolver {
         }
 
         private double[] linearSolve(double[][] matrix, double[] rhs) throws InputProblem {
-            RealMatrix m = new Array2DRowRealMatrix(matrix, true);
-            try {
-                // an absolute pivot floor far below any conductance a stage holds (1 TΩ is 1e-12 S)
-                DecompositionSolver solver = new LUDecomposition(m, 1e-300).getSolver();
-                RealVector solution = solver.solve(new ArrayRealVector(rhs, true));
-                double[] x = solution.toArray();
-                for (double v : x) {
-                    if (!Double.isFinite(v)) {
-                        throw new SingularMatrixException();
-                    }
+            // an absolute pivot floor far below any conductance a stage holds (1 TΩ is 1e-12 S)
+            RealLu lu = new RealLu(matrix, 1e-300);
+            if (lu.isNonSingular()) {
+                double[] x = lu.solve(rhs);
+                if (allFinite(x)) {
+                    return x;
                 }
-                return x;
-            } catch (SingularMatrixException e) {
-                Transistor first = stage.transistors().isEmpty() ? null : stage.transistors().get(0);
-                throw new InputProblem(stage.sourceFile(), first == null ? 0 : first.line(),
-                        "the DC operating point cannot be solved: the DC network is singular",
-                        "look for a node fixed by two ideal sources or one with no DC path to ground");
             }
+            Transistor first = transistors.isEmpty() ? null : transistors.get(0);
+            throw new InputProblem(stage.sourceFile(), first == null ? 0 : first.line(),
+                    "the DC operating point cannot be solved: the DC network is singular",
+                    "look for a node fixed by two ideal sources or one with no DC path to ground");
+        }
+
+        private static boolean allFinite(double[] x) {
+            for (double v : x) {
+                if (!Double.isFinite(v)) {
+                    return false;
+                }
+            }
+            return true;
         }
 
         OperatingPoints points(double[] x) {
             Map<String, Double> nodeVolts = new LinkedHashMap<>();
             nodeVolts.put(stage.ground(), 0.0);
-            for (String node : index.keySet()) {
-                nodeVolts.put(node, x[index.get(node)]);
+            for (String node : index.nodes()) {
+                nodeVolts.put(node, x[index.row(node)]);
             }
             List<OperatingPoint> points = new ArrayList<>();
-            for (Transistor transistor : stage.transistors()) {
+            for (Transistor transistor : transistors) {
                 boolean given = transistor.bias() instanceof Bias.Given;
                 if (transistor instanceof Bjt) {
                     Bjt bjt = (Bjt) transistor;

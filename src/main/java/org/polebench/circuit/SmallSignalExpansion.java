@@ -46,7 +46,44 @@ public final class SmallSignalExpansion {
      *               ({@link OperatingPoints#withCurrentScaled}); one per transistor of the stage
      */
     public SmallSignalNetwork expand(Stage stage, OperatingPoints points) {
-        Nodes nodes = new Nodes(stage);
+        return expand(new Nodes(stage), stage, points);
+    }
+
+    /** @return an expansion for draws of {@code stage} that numbers the nodes once */
+    public Prepared prepare(Stage stage) {
+        return new Prepared(stage, new Nodes(stage));
+    }
+
+    /**
+     * {@link SmallSignalExpansion#expand(Stage, OperatingPoints)} for draws of one stage (a
+     * Monte Carlo tolerance spread), with the node numbering made once. Immutable; one instance
+     * serves any thread.
+     */
+    public static final class Prepared {
+        private final Stage nominal;
+        private final Nodes nodes;
+
+        private Prepared(Stage nominal, Nodes nodes) {
+            this.nominal = nominal;
+            this.nodes = nodes;
+        }
+
+        /**
+         * @param draw   the prepared stage with other values: the same parts in the same order, on
+         *               the same nodes, with the same supplies, input, output, bands and rx use
+         * @param points the draw's operating points
+         * @return the network {@link SmallSignalExpansion#expand(Stage, OperatingPoints)} gives
+         * @throws IllegalArgumentException when the draw is not laid out as the prepared stage
+         */
+        public SmallSignalNetwork expand(Stage draw, OperatingPoints points) {
+            if (!StageLayout.isDrawOf(draw, nominal)) {
+                throw new IllegalArgumentException("stage " + draw.name() + " is not a draw of " + nominal.name());
+            }
+            return SmallSignalExpansion.expand(nodes, draw, points);
+        }
+    }
+
+    private static SmallSignalNetwork expand(Nodes nodes, Stage stage, OperatingPoints points) {
         List<NetworkElement> elements = new ArrayList<>();
         double vt = ThermalVoltage.volts(stage.temperatureKelvin());
 
@@ -55,7 +92,7 @@ public final class SmallSignalExpansion {
         if (StageTopology.inputIsDriven(stage)) {
             driven = input;
         } else {
-            driven = nodes.internal(SOURCE_NODE);
+            driven = nodes.sourceNode();
             elements.add(new NetworkElement.Conductance("source-resistance", driven, input,
                     1 / stage.input().sourceOhms()));
         }
@@ -90,7 +127,7 @@ public final class SmallSignalExpansion {
         int e = nodes.of(bjt.emitter());
         int inner = base;
         if (bjt.rxOhms() > 0) {
-            inner = nodes.internal(bjt.name() + ".b'");
+            inner = nodes.innerBase(bjt.name());
             conductance(elements, bjt.name() + ".rx", base, inner, 1 / bjt.rxOhms());
         }
         conductance(elements, bjt.name() + ".rpi", inner, e, gpi);
@@ -151,11 +188,18 @@ public final class SmallSignalExpansion {
         }
     }
 
-    /** Node numbering: 0 for ground and rails, then the stage's nodes in order, then internal ones. */
+    /**
+     * Node numbering: 0 for ground and rails, then the stage's nodes in order, then the internal
+     * ones: {@value #SOURCE_NODE} when the source resistance is in the circuit, then each inner
+     * base node in part order. Complete after construction, so one instance serves every draw.
+     */
     private static final class Nodes {
         private final Stage stage;
         private final Map<String, Integer> index = new LinkedHashMap<>();
         private final List<String> names = new ArrayList<>();
+        private final Map<String, Integer> innerBases = new LinkedHashMap<>();
+        private final int sourceNode;
+        private final List<String> frozenNames;
 
         Nodes(Stage stage) {
             this.stage = stage;
@@ -170,6 +214,23 @@ public final class SmallSignalExpansion {
                     names.add(node);
                 }
             }
+            sourceNode = StageTopology.inputIsDriven(stage) ? -1 : internal(SOURCE_NODE);
+            for (Part part : stage.parts()) {
+                if (part instanceof Bjt && ((Bjt) part).rxOhms() > 0) {
+                    innerBases.put(part.name(), internal(part.name() + ".b'"));
+                }
+            }
+            frozenNames = List.copyOf(names);
+        }
+
+        /** @return the node behind the source resistance that the stimulus drives */
+        int sourceNode() {
+            return sourceNode;
+        }
+
+        /** @return the inner base node of a BJT with rx */
+        int innerBase(String bjt) {
+            return innerBases.get(bjt);
         }
 
         int of(String node) {
@@ -181,7 +242,7 @@ public final class SmallSignalExpansion {
         }
 
         /** @return a new internal node; a suffix keeps it apart from a user's node of the same name */
-        int internal(String wanted) {
+        private int internal(String wanted) {
             String name = wanted;
             while (index.containsKey(name)) {
                 name = name + "'";
@@ -192,7 +253,7 @@ public final class SmallSignalExpansion {
         }
 
         List<String> names() {
-            return names;
+            return frozenNames;
         }
     }
 }

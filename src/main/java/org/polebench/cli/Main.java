@@ -19,6 +19,7 @@ import picocli.CommandLine.Command;
                 PredictCommand.class,
                 InspectCommand.class,
                 ProfilesCommand.class,
+                FitCommand.class,
         },
         exitCodeListHeading = "%nExit codes:%n",
         exitCodeList = {

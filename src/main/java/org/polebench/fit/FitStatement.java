@@ -1,0 +1,285 @@
+package org.polebench.fit;
+
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.List;
+import java.util.Optional;
+import java.util.OptionalDouble;
+import org.apache.commons.math3.complex.Complex;
+import org.apache.commons.math3.distribution.ChiSquaredDistribution;
+import org.apache.commons.math3.distribution.TDistribution;
+import org.polebench.InputWarning;
+import org.polebench.units.Decibels;
+
+/**
+ * Turns the chosen fit into a {@link FitResult}: scales the covariance (see
+ * {@link UncertaintyBasis}), propagates it to every reported quantity to first order (GUM 5.1.2),
+ * finds both lower corners and flags what the data cannot support.
+ */
+final class FitStatement {
+    /** Two-sided coverage probability of k = 2 for a normal distribution (GUM G.1.3). */
+    private static final double COVERAGE = 0.9545;
+    private static final double CHI_SQUARE_PERCENTILE = 0.99;
+    private static final double DECADE = 10;
+
+    private final LowerCorner corner = new LowerCorner();
+
+    FitResult state(PreparedSweep data, RefinedFit fit, List<CandidateScore> scores, List<DroppedPoint> dropped,
+                    List<InputWarning> earlier) {
+        List<InputWarning> warnings = new ArrayList<>(earlier);
+        ModelStructure s = fit.structure();
+        double[] p = fit.parameters;
+        int nu = fit.degreesOfFreedom();
+        UncertaintyBasis basis;
+        double scale;
+        double k;
+        double reduced = fit.chiSquare / nu;
+        if (data.uncertaintiesStated) {
+            double limit = new ChiSquaredDistribution(null, nu).inverseCumulativeProbability(CHI_SQUARE_PERCENTILE);
+            if (fit.chiSquare <= limit) {
+                basis = UncertaintyBasis.STATED;
+                scale = 1;
+                k = 2;
+            } else {
+                basis = UncertaintyBasis.STATED_SCALED_BY_RESIDUALS;
+                scale = reduced;
+                k = studentK(nu);
+                warnings.add(InputWarning.general(String.format(
+                        "the residuals scatter more than the stated point uncertainties allow (chi-square/nu = %.3g);"
+                                + " uncertainties are scaled by sqrt(chi-square/nu)", reduced)));
+            }
+        } else {
+            basis = UncertaintyBasis.FROM_RESIDUALS;
+            scale = reduced;
+            k = studentK(nu);
+        }
+        double[][] cov = new double[p.length][p.length];
+        for (int i = 0; i < p.length; i++) {
+            for (int j = 0; j < p.length; j++) {
+                cov[i][j] = scale * fit.inverseInformation[i][j];
+            }
+        }
+        double omegaRef = 2 * Math.PI * data.referenceHz;
+        double lowestRad = 2 * Math.PI * data.lowestHz();
+        double highestRad = 2 * Math.PI * data.highestHz();
+
+        List<String> names = new ArrayList<>();
+        names.add("midband gain ln|K|");
+        List<FittedRoot> zeros = new ArrayList<>();
+        for (int i = 0; i < s.dcZeros(); i++) {
+            zeros.add(new FittedRoot("z0", Complex.ZERO, 0, 0, 0, RootStatus.STRUCTURAL));
+        }
+        Labels zeroLabels = new Labels("z");
+        Labels poleLabels = new Labels("p");
+        List<FittedRoot> poles = new ArrayList<>();
+        realRoots(p, cov, s.realZeroOffset(), s.realZeros(), omegaRef, lowestRad, zeroLabels, names, zeros);
+        pairs(p, cov, s.zeroPairOffset(), s.zeroPairs(), omegaRef, lowestRad, zeroLabels, names, zeros);
+        realRoots(p, cov, s.realPoleOffset(), s.realPoles(), omegaRef, lowestRad, poleLabels, names, poles);
+        pairs(p, cov, s.polePairOffset(), s.polePairs(), omegaRef, lowestRad, poleLabels, names, poles);
+        OptionalDouble high = OptionalDouble.empty();
+        if (s.highBandPole()) {
+            int i = s.highBandOffset();
+            double w = omegaRef * Math.exp(p[i]);
+            double u = w * Math.sqrt(cov[i][i]);
+            RootStatus status = w > DECADE * highestRad ? RootStatus.UNIDENTIFIABLE : RootStatus.FITTED;
+            poles.add(new FittedRoot("ph", new Complex(-w, 0), u, 0, u, status));
+            names.add("high-band pole ln(wh)");
+            warnings.add(InputWarning.general("the sweep reaches the upper rolloff: one high-band pole is part of "
+                    + "the model"));
+            high = OptionalDouble.of(w);
+        }
+        for (FittedRoot root : poles) {
+            if (root.status() == RootStatus.UNIDENTIFIABLE) {
+                warnings.add(InputWarning.general("pole " + root.label() + " lies more than a decade outside the swept "
+                        + "band; it is unidentifiable from these data and is not quoted"));
+            }
+        }
+        for (FittedRoot root : zeros) {
+            if (root.status() == RootStatus.UNIDENTIFIABLE) {
+                warnings.add(InputWarning.general("zero " + root.label() + " lies more than a decade below the swept "
+                        + "band; it is unidentifiable from these data and is not quoted"));
+            }
+        }
+        for (FittedRoot root : poles) {
+            if (!root.isReal() && root.status() == RootStatus.FITTED
+                    && Math.abs(root.radPerS().getImaginary()) < 0.05 * root.radPerS().abs()) {
+                warnings.add(InputWarning.general("poles " + root.label() + " are a complex pair with damping near 1;"
+                        + " their real and imaginary parts are poorly separated"));
+                break;
+            }
+        }
+
+        double signedK = (fit.model.inverting() ? -1 : 1) * Math.exp(p[0]);
+        List<FittedRoot> lowBandPoles = s.highBandPole() ? poles.subList(0, poles.size() - 1) : poles;
+        FittedModel model = new FittedModel(signedK, s.dcZeros(), values(zeros, true), values(lowBandPoles, false),
+                high);
+        Estimate gain = new Estimate(Decibels.fromNepers(p[0]), Math.sqrt(cov[0][0]) / Decibels.NEPERS_PER_DB, k);
+        if (!data.hasPhase) {
+            warnings.add(InputWarning.general("magnitude-only sweep: the zeros are taken in the left half-plane "
+                    + "(minimum phase) and the sign of the gain cannot be told"));
+        }
+
+        Optional<Estimate> modelCorner = modelCorner(data, fit, cov, k, warnings);
+        double[] dc = corner.dataCorner(data, p[0], Math.sqrt(cov[0][0]));
+        Optional<Estimate> dataCorner = dc == null ? Optional.empty() : Optional.of(new Estimate(dc[0], dc[1], k));
+        if (dc == null) {
+            warnings.add(InputWarning.general("the measured gain never falls 3 dB below midband inside the fitted band; "
+                    + "no corner can be read from the data"));
+        }
+        return new FitResult(model, s, gain, fit.model.inverting(), poles, zeros, names, correlation(cov),
+                quality(data, fit, basis), modelCorner, dataCorner, dropped, scores,
+                new FitBand(data.lowestHz(), data.highestHz()), warnings);
+    }
+
+    private Optional<Estimate> modelCorner(PreparedSweep data, RefinedFit fit, double[][] cov, double k,
+                                           List<InputWarning> warnings) {
+        ModelStructure s = fit.structure();
+        ModelStructure low = new ModelStructure(s.dcZeros(), s.realZeros(), s.zeroPairs(), s.realPoles(),
+                s.polePairs(), false);
+        RationalModel lowBand = new RationalModel(low, false);
+        double[] p = Arrays.copyOf(fit.parameters, low.parameterCount());
+        OptionalDouble x = corner.modelCorner(lowBand, p, data.x[0], data.x[data.size() - 1]);
+        if (x.isEmpty()) {
+            if (low.lowBandPoles() > 0) {
+                warnings.add(InputWarning.general("the fitted low band never falls 3 dB below midband; no corner"));
+            } else {
+                warnings.add(InputWarning.general("no low-band pole is supported by the data: the lower corner lies "
+                        + "below the swept band"));
+            }
+            return Optional.empty();
+        }
+        double cornerHz = x.getAsDouble() * data.referenceHz;
+        if (cornerHz < data.lowestHz() / DECADE) {
+            warnings.add(InputWarning.general("the fitted lower corner lies more than a decade below the lowest swept "
+                    + "frequency; it is not quoted"));
+            return Optional.empty();
+        }
+        if (cornerHz < data.lowestHz()) {
+            warnings.add(InputWarning.general("the fitted lower corner lies below the lowest swept frequency "
+                    + "(extrapolated by the model)"));
+        }
+        double[] g = corner.cornerGradient(lowBand, p, x.getAsDouble());
+        double var = 0;
+        for (int i = 0; i < g.length; i++) {
+            for (int j = 0; j < g.length; j++) {
+                var += g[i] * cov[i][j] * g[j];
+            }
+        }
+        return Optional.of(new Estimate(cornerHz, data.referenceHz * Math.sqrt(Math.max(var, 0)), k));
+    }
+
+    private static void realRoots(double[] p, double[][] cov, int offset, int count, double omegaRef,
+                                  double lowestRad, Labels labels, List<String> names, List<FittedRoot> out) {
+        for (int i = offset; i < offset + count; i++) {
+            double w = omegaRef * Math.exp(p[i]);
+            double u = w * Math.sqrt(cov[i][i]);
+            String label = labels.next();
+            names.add(label + " ln|" + label + "|");
+            out.add(new FittedRoot(label, new Complex(-w, 0), u, 0, u, status(w, lowestRad)));
+        }
+    }
+
+    /** A pair s² + 2ζω₀s + ω₀²: complex roots when ζ < 1, two real ones otherwise. */
+    private static void pairs(double[] p, double[][] cov, int offset, int count, double omegaRef, double lowestRad,
+                              Labels labels, List<String> names, List<FittedRoot> out) {
+        for (int j = 0; j < count; j++) {
+            int i = offset + 2 * j;
+            double w0 = omegaRef * Math.exp(p[i]);
+            double zeta = Math.exp(p[i + 1]);
+            double cuu = cov[i][i];
+            double cuv = cov[i][i + 1];
+            double cvv = cov[i + 1][i + 1];
+            String a = labels.next();
+            String b = labels.next();
+            names.add(a + "," + b + " ln w0");
+            names.add(a + "," + b + " ln zeta");
+            if (zeta < 1) {
+                double re = -zeta * w0;
+                double im = w0 * Math.sqrt(1 - zeta * zeta);
+                // ∂Re/∂u = ∂Re/∂v = Re; ∂Im/∂u = Im; ∂Im/∂v = −ω₀ζ²/√(1−ζ²)
+                double uRe = Math.sqrt(Math.max(0, re * re * (cuu + 2 * cuv + cvv)));
+                double dImDv = -w0 * zeta * zeta / Math.sqrt(1 - zeta * zeta);
+                double uIm = Math.sqrt(Math.max(0, im * im * cuu + 2 * im * dImDv * cuv + dImDv * dImDv * cvv));
+                double uMag = w0 * Math.sqrt(cuu);
+                RootStatus status = status(w0, lowestRad);
+                out.add(new FittedRoot(a + "," + b, new Complex(re, im), uRe, uIm, uMag, status));
+                out.add(new FittedRoot(a + "," + b, new Complex(re, -im), uRe, uIm, uMag, status));
+            } else {
+                double q = Math.sqrt(zeta * zeta - 1);
+                double[] roots = {-w0 / (zeta + q), -w0 * (zeta + q)};
+                double[] dZeta = {-w0 * (1 - zeta / q), -w0 * (1 + zeta / q)};
+                String[] label = {a, b};
+                for (int r = 0; r < 2; r++) {
+                    double du = roots[r];
+                    double dv = zeta * dZeta[r];
+                    double u = Math.sqrt(Math.max(0, du * du * cuu + 2 * du * dv * cuv + dv * dv * cvv));
+                    out.add(new FittedRoot(label[r], new Complex(roots[r], 0), u, 0, u,
+                            status(Math.abs(roots[r]), lowestRad)));
+                }
+            }
+        }
+    }
+
+    private static RootStatus status(double magnitudeRad, double lowestRad) {
+        return magnitudeRad < lowestRad / DECADE ? RootStatus.UNIDENTIFIABLE : RootStatus.FITTED;
+    }
+
+    private static List<Complex> values(List<FittedRoot> roots, boolean skipStructural) {
+        List<Complex> out = new ArrayList<>();
+        for (FittedRoot root : roots) {
+            if (!(skipStructural && root.status() == RootStatus.STRUCTURAL)) {
+                out.add(root.radPerS());
+            }
+        }
+        return out;
+    }
+
+    private static List<List<Double>> correlation(double[][] cov) {
+        List<List<Double>> rows = new ArrayList<>();
+        for (int i = 0; i < cov.length; i++) {
+            List<Double> row = new ArrayList<>();
+            for (int j = 0; j < cov.length; j++) {
+                row.add(i == j ? 1.0 : cov[i][j] / Math.sqrt(cov[i][i] * cov[j][j]));
+            }
+            rows.add(row);
+        }
+        return rows;
+    }
+
+    private static FitQuality quality(PreparedSweep data, RefinedFit fit, UncertaintyBasis basis) {
+        int n = data.size();
+        double[] value = new double[data.residualCount()];
+        LogResidualFit.evaluate(data, fit.model, fit.parameters, value, new double[value.length][]);
+        double gain = 0;
+        double phase = 0;
+        for (int k = 0; k < n; k++) {
+            gain += value[k] * value[k];
+            if (data.hasPhase) {
+                phase += value[n + k] * value[n + k];
+            }
+        }
+        double rmsDb = Decibels.fromNepers(Math.sqrt(gain / n));
+        OptionalDouble rmsDeg = data.hasPhase ? OptionalDouble.of(Math.toDegrees(Math.sqrt(phase / n)))
+                : OptionalDouble.empty();
+        return new FitQuality(fit.chiSquare, fit.degreesOfFreedom(), n, rmsDb, rmsDeg, basis);
+    }
+
+    /** k = t₉₅.₄₅(ν), Student's t for ν degrees of freedom (GUM G.3.4, table G.2). */
+    static double studentK(int nu) {
+        return new TDistribution(null, nu).inverseCumulativeProbability(0.5 + COVERAGE / 2);
+    }
+
+    /** Hands out p1, p2, … in order. */
+    private static final class Labels {
+        private final String prefix;
+        private int next = 1;
+
+        Labels(String prefix) {
+            this.prefix = prefix;
+        }
+
+        String next() {
+            return prefix + next++;
+        }
+    }
+}

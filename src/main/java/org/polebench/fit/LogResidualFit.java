@@ -1,0 +1,186 @@
+package org.polebench.fit;
+
+import org.apache.commons.math3.exception.MathIllegalStateException;
+import org.apache.commons.math3.fitting.leastsquares.LeastSquaresBuilder;
+import org.apache.commons.math3.fitting.leastsquares.LeastSquaresOptimizer;
+import org.apache.commons.math3.fitting.leastsquares.LeastSquaresProblem;
+import org.apache.commons.math3.fitting.leastsquares.LevenbergMarquardtOptimizer;
+import org.apache.commons.math3.fitting.leastsquares.MultivariateJacobianFunction;
+import org.apache.commons.math3.linear.Array2DRowRealMatrix;
+import org.apache.commons.math3.linear.ArrayRealVector;
+import org.apache.commons.math3.linear.CholeskyDecomposition;
+import org.apache.commons.math3.linear.NonPositiveDefiniteMatrixException;
+import org.apache.commons.math3.linear.NonSymmetricMatrixException;
+import org.apache.commons.math3.linear.RealMatrix;
+import org.apache.commons.math3.util.Pair;
+
+/**
+ * Weighted least squares on complex-log residuals rₖ = ln(H_meas,k / H_model,k): real part in
+ * nepers over σ_gain, imaginary part (principal value, so no phase unwrapping) in radians over
+ * σ_phase; a magnitude-only sweep uses the real part alone (DESIGN.md, "Measured model").
+ * Levenberg–Marquardt from Commons Math; its residual is target − model, so the target is zero
+ * and the model value is −r/σ (PITFALLS.md, "Least squares").
+ */
+final class LogResidualFit {
+    private static final int MAX_ITERATIONS = 60;
+    private static final int MAX_EVALUATIONS = 120;
+    // tight enough that a noise-free sweep is recovered to better than 1e-9 relative
+    private static final double TOLERANCE = 1e-13;
+
+    /**
+     * @param robustWeights per-point factors on the weights (IRLS), or null for plain weights
+     * @return the refined fit, or null when LM does not converge
+     */
+    RefinedFit refine(PreparedSweep data, RationalModel model, double[] start, double[] robustWeights) {
+        int n = data.size();
+        int rows = data.residualCount();
+        // √w per row folded into the model and Jacobian: an explicit weight matrix would make
+        // Commons Math multiply by it densely (rows² work per evaluation)
+        double[] root = new double[rows];
+        for (int k = 0; k < n; k++) {
+            double r = robustWeights == null ? 1 : Math.sqrt(robustWeights[k]);
+            root[k] = r / data.sigmaGain[k];
+            if (data.hasPhase) {
+                root[n + k] = r / data.sigmaPhase[k];
+            }
+        }
+        double[] box = rootBox(data);
+        MultivariateJacobianFunction function = point -> {
+            double[] p = point.toArray();
+            double[] value = new double[rows];
+            double[][] jacobian = new double[rows][];
+            evaluate(data, model, p, value, jacobian);
+            for (int r = 0; r < rows; r++) {
+                value[r] *= root[r];
+                double[] g = jacobian[r];
+                for (int i = 0; i < g.length; i++) {
+                    g[i] *= root[r];
+                }
+            }
+            return new Pair<>(new ArrayRealVector(value, false), new Array2DRowRealMatrix(jacobian, false));
+        };
+        LeastSquaresProblem problem = new LeastSquaresBuilder()
+                .start(start)
+                .model(function)
+                .target(new double[rows])
+                .maxIterations(MAX_ITERATIONS)
+                .maxEvaluations(MAX_EVALUATIONS)
+                .lazyEvaluation(false)
+                .checker((iteration, previous, current) -> {
+                    // called with each accepted point only (trial steps may roam further)
+                    double[] p = current.getPoint().toArray();
+                    for (int i = 1; i < p.length; i++) {
+                        if (!(p[i] > box[0] && p[i] < box[1])) {
+                            throw new RunawayRoot();
+                        }
+                    }
+                    return false;
+                })
+                .build();
+        LeastSquaresOptimizer.Optimum optimum;
+        try {
+            optimum = new LevenbergMarquardtOptimizer()
+                    .withCostRelativeTolerance(TOLERANCE)
+                    .withParameterRelativeTolerance(TOLERANCE)
+                    .withOrthoTolerance(TOLERANCE)
+                    .optimize(problem);
+        } catch (MathIllegalStateException | RunawayRoot notConverged) {
+            // too many iterations, or a root heading for DC or infinity (a zero that wants to be a
+            // DC zero, a pole–zero pair cancelling): this structure is not what the data hold
+            return null;
+        }
+        double[] p = optimum.getPoint().toArray();
+        for (double v : p) {
+            if (!Double.isFinite(v)) {
+                return null;
+            }
+        }
+        return assess(data, model, p);
+    }
+
+    /**
+     * Bounds on every log-parameter but ln|K|: a root more than 10⁶ beyond either end of the band
+     * has left anything the data can say (ln ζ gets the same, far wider than any real damping).
+     */
+    private static double[] rootBox(PreparedSweep data) {
+        double reach = Math.log(1e6);
+        return new double[]{Math.log(data.x[0]) - reach, Math.log(data.x[data.size() - 1]) + reach};
+    }
+
+    /** Thrown from inside the optimiser to stop a candidate whose root has run away. */
+    private static final class RunawayRoot extends RuntimeException {
+        private static final long serialVersionUID = 1L;
+
+        RunawayRoot() {
+            super(null, null, false, false);
+        }
+    }
+
+    /** χ² and (JᵀWJ)⁻¹ with the points' own (not robust) weights at the given parameters. */
+    RefinedFit assess(PreparedSweep data, RationalModel model, double[] p) {
+        int n = data.size();
+        int rows = data.residualCount();
+        double[] value = new double[rows];
+        double[][] jacobian = new double[rows][];
+        evaluate(data, model, p, value, jacobian);
+        int np = p.length;
+        double chi2 = 0;
+        double[][] info = new double[np][np];
+        for (int r = 0; r < rows; r++) {
+            double sigma = r < n ? data.sigmaGain[r] : data.sigmaPhase[r - n];
+            double w = 1 / (sigma * sigma);
+            chi2 += w * value[r] * value[r];
+            double[] g = jacobian[r];
+            for (int i = 0; i < np; i++) {
+                double wg = w * g[i];
+                for (int j = 0; j <= i; j++) {
+                    info[i][j] += wg * g[j];
+                }
+            }
+        }
+        for (int i = 0; i < np; i++) {
+            for (int j = 0; j < i; j++) {
+                info[j][i] = info[i][j];
+            }
+        }
+        return new RefinedFit(model, p, chi2, invert(info), rows);
+    }
+
+    /** Model value −r and its Jacobian ∂ ln H_model/∂p, gain rows first, then phase rows. */
+    static void evaluate(PreparedSweep data, RationalModel model, double[] p, double[] value, double[][] jacobian) {
+        int n = data.size();
+        int np = p.length;
+        double[] out = new double[2];
+        double[] e = RationalModel.exponentials(p);
+        for (int k = 0; k < n; k++) {
+            double[] gRe = new double[np];
+            double[] gIm = new double[np];
+            model.logAt(p, e, data.x[k], out, gRe, gIm);
+            value[k] = out[0] - data.lnGain[k];
+            jacobian[k] = gRe;
+            if (data.hasPhase) {
+                value[n + k] = Math.IEEEremainder(out[1] - data.phaseRad[k], 2 * Math.PI);
+                jacobian[n + k] = gIm;
+            }
+        }
+    }
+
+    private static double[][] invert(double[][] info) {
+        try {
+            // relative symmetry 1e-9 and absolute positivity 1e-300: only a truly singular
+            // information matrix (a parameter the data do not touch) is refused here; a poorly
+            // determined one gives large, honest uncertainties
+            RealMatrix inverse = new CholeskyDecomposition(new Array2DRowRealMatrix(info, false), 1e-9, 1e-300)
+                    .getSolver().getInverse();
+            double[][] cov = inverse.getData();
+            for (int i = 0; i < cov.length; i++) {
+                if (!(cov[i][i] > 0) || !Double.isFinite(cov[i][i])) {
+                    return null;
+                }
+            }
+            return cov;
+        } catch (NonPositiveDefiniteMatrixException | NonSymmetricMatrixException singular) {
+            return null;
+        }
+    }
+}

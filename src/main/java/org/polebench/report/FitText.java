@@ -1,0 +1,166 @@
+package org.polebench.report;
+
+import java.util.List;
+import java.util.Locale;
+import org.polebench.InputWarning;
+import org.polebench.fit.CandidateScore;
+import org.polebench.fit.Estimate;
+import org.polebench.fit.FitQuality;
+import org.polebench.fit.FitResult;
+import org.polebench.fit.FittedRoot;
+import org.polebench.fit.RootStatus;
+import org.polebench.fit.UncertaintyBasis;
+
+/**
+ * The fit as a plain-text summary for a terminal: model, every pole and zero with u and U,
+ * both lower corners labelled for what they are, fit quality, the parameter correlations and
+ * the warnings. Uncertainties are rounded to two significant figures and values to match
+ * (GUM, JCGM 100:2008, 7.2.6).
+ */
+public final class FitText {
+    private static final String NL = System.lineSeparator();
+
+    public String format(FitResult result) {
+        StringBuilder out = new StringBuilder();
+        long tried = result.candidates().size();
+        out.append("Fitted low-frequency model: ").append(result.structure().describe()).append(NL);
+        out.append("  order chosen by BIC from ").append(tried).append(tried == 1 ? " candidate" : " candidates")
+                .append("; every expanded uncertainty U = k·u with k = ")
+                .append(MeasuredValueFormat.fixed(result.coverageFactor(), 2)).append(NL);
+        out.append("  fitted band        ").append(hz(result.band().lowHz())).append(" to ")
+                .append(hz(result.band().highHz())).append(", ").append(result.quality().pointsUsed()).append(" points");
+        if (!result.droppedPoints().isEmpty()) {
+            out.append(" (").append(result.droppedPoints().size()).append(" dropped as outliers)");
+        }
+        out.append(NL);
+        Estimate gain = result.midbandGainDb();
+        out.append("  midband gain       ").append(estimate(gain, "dB"));
+        if (result.inverting()) {
+            out.append("  (inverting: K < 0)");
+        }
+        out.append(NL);
+        out.append(NL).append("Poles").append(NL);
+        roots(out, result.poles(), result.coverageFactor());
+        out.append(NL).append("Zeros").append(NL);
+        if (result.zeros().isEmpty()) {
+            out.append("  none").append(NL);
+        }
+        roots(out, result.zeros(), result.coverageFactor());
+        out.append(NL).append("Lower -3 dB corner").append(NL);
+        out.append("  of the fitted model (exact)        ")
+                .append(result.lowerCornerModelHz().map(e -> estimate(e, "Hz")).orElse("not quoted (see warnings)"))
+                .append(NL);
+        out.append("  interpolated between data points   ")
+                .append(result.lowerCornerDataHz().map(e -> estimate(e, "Hz")).orElse("not available (see warnings)"))
+                .append(NL);
+        out.append("    (both at midband - 3.01 dB, the midband taken from the fit)").append(NL);
+        quality(out, result.quality());
+        correlation(out, result);
+        out.append(NL).append("Warnings").append(NL);
+        if (result.warnings().isEmpty()) {
+            out.append("  none").append(NL);
+        }
+        for (InputWarning warning : result.warnings()) {
+            out.append("  - ").append(warning.describe()).append(NL);
+        }
+        return out.toString();
+    }
+
+    private static void roots(StringBuilder out, List<FittedRoot> roots, double k) {
+        int dc = 0;
+        for (FittedRoot r : roots) {
+            dc += r.status() == RootStatus.STRUCTURAL ? 1 : 0;
+        }
+        if (dc > 0) {
+            out.append(String.format(Locale.ROOT, "  %-8s at DC, %d (structural: fixed by the model)%n", "z0", dc));
+        }
+        for (FittedRoot r : roots) {
+            if (r.status() == RootStatus.STRUCTURAL || (!r.isReal() && r.imaginaryHz() < 0)) {
+                continue;
+            }
+            out.append(String.format(Locale.ROOT, "  %-8s ", r.label()));
+            if (r.status() == RootStatus.UNIDENTIFIABLE) {
+                out.append("unidentifiable: more than a decade outside the swept band").append(NL);
+                continue;
+            }
+            if (r.isReal()) {
+                out.append(withU(r.realHz(), r.uRealHz(), k, "Hz"));
+            } else {
+                String[] re = MeasuredValueFormat.withUncertainty(r.realHz(), k * r.uRealHz());
+                String[] im = MeasuredValueFormat.withUncertainty(r.imaginaryHz(), k * r.uImaginaryHz());
+                out.append(re[0]).append(" ± j").append(im[0]).append(" Hz (U ").append(re[1]).append(", ")
+                        .append(im[1]).append(" Hz); |p| ").append(withU(r.magnitudeHz(), r.uMagnitudeHz(), k, "Hz"));
+            }
+            out.append(NL);
+        }
+    }
+
+    /** Below this relative uncertainty the digits are round-off: the data fit the model exactly. */
+    private static final double EXACT = 1e-9;
+
+    private static String withU(double value, double u, double k, String unit) {
+        if (!(u > EXACT * Math.abs(value))) {
+            return MeasuredValueFormat.sixFigures(value) + " " + unit + "  (u below 1e-9 relative: an exact fit)";
+        }
+        return MeasuredValueFormat.value(value, k * u) + " " + unit + "  u = " + MeasuredValueFormat.uncertainty(u)
+                + "  U = " + MeasuredValueFormat.uncertainty(k * u) + " " + unit;
+    }
+
+    private static String estimate(Estimate e, String unit) {
+        return withU(e.value(), e.standardUncertainty(), e.coverageFactor(), unit);
+    }
+
+    private static void quality(StringBuilder out, FitQuality q) {
+        out.append(NL).append("Fit quality").append(NL);
+        out.append("  residual RMS       ").append(MeasuredValueFormat.sixFigures(q.residualRmsDb())).append(" dB");
+        if (q.residualRmsDeg().isPresent()) {
+            out.append(", ").append(MeasuredValueFormat.sixFigures(q.residualRmsDeg().getAsDouble())).append("°");
+        } else {
+            out.append(" (magnitude only)");
+        }
+        out.append(NL);
+        out.append(String.format(Locale.ROOT, "  chi-square         %s for nu = %d (chi-square/nu = %s)%n",
+                MeasuredValueFormat.sixFigures(q.chiSquare()), q.degreesOfFreedom(),
+                MeasuredValueFormat.fixed(q.reducedChiSquare(), 3)));
+        out.append("  uncertainty basis  ").append(basis(q.basis())).append(NL);
+    }
+
+    private static String basis(UncertaintyBasis basis) {
+        switch (basis) {
+            case STATED:
+                return "the sweep's stated point uncertainties (residuals consistent with them)";
+            case STATED_SCALED_BY_RESIDUALS:
+                return "stated point uncertainties scaled up by sqrt(chi-square/nu) (residuals exceed them)";
+            default:
+                return "Type A: scale from the residuals (the sweep states no point uncertainties)";
+        }
+    }
+
+    private static void correlation(StringBuilder out, FitResult result) {
+        out.append(NL).append("Correlation of the fit parameters").append(NL);
+        List<String> names = result.parameterNames();
+        for (int i = 0; i < names.size(); i++) {
+            out.append(String.format(Locale.ROOT, "  %-22s", names.get(i)));
+            for (int j = 0; j <= i; j++) {
+                out.append(String.format(Locale.ROOT, " %6.3f", result.correlation().get(i).get(j)));
+            }
+            out.append(NL);
+        }
+    }
+
+    private static String hz(double value) {
+        return MeasuredValueFormat.sixFigures(value) + " Hz";
+    }
+
+    /** One line per candidate order, for a verbose listing. */
+    public String candidates(FitResult result) {
+        StringBuilder out = new StringBuilder();
+        for (CandidateScore c : result.candidates()) {
+            out.append(String.format(Locale.ROOT, "  %s %-50s k = %d  chi-square = %s  BIC = %s%n", c.chosen() ? "*" : " ",
+                    c.structure().describe(), c.parameters(),
+                    Double.isNaN(c.chiSquare()) ? "did not converge" : MeasuredValueFormat.sixFigures(c.chiSquare()),
+                    Double.isNaN(c.criterion()) ? "not eligible" : MeasuredValueFormat.fixed(c.criterion(), 2)));
+        }
+        return out.toString();
+    }
+}
