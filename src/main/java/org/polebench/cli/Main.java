@@ -20,6 +20,8 @@ import picocli.CommandLine.Command;
                 InspectCommand.class,
                 ProfilesCommand.class,
                 FitCommand.class,
+                CaptureCommand.class,
+                SimulateCommand.class,
         },
         exitCodeListHeading = "%nExit codes:%n",
         exitCodeList = {

@@ -28,8 +28,9 @@ import org.polebench.units.Decibels;
  * command sets the level unless it is above the profile's maximum, which queues the error
  * {@code -222,"Data out of range"} (SCPI-99 error numbers, from memory); {@code *OPC?} answers
  * 1; {@code *CLS} empties the error queue; readings answer in the profile's units (amplitudes in
- * its kind, phase in its unit and sign, folded into one turn when it says so); an unknown
- * command queues {@code -113,"Undefined header"}.
+ * its kind, phase in its unit and sign, folded into one turn when it says so), an amplitude at or
+ * above the profile's full scale as SCPI's overrange value 9.9E37; an unknown command queues
+ * {@code -113,"Undefined header"}.
  *
  * <p>Streaming profiles: the simulator answers the identity query and, on the start command,
  * streams {@code BEGIN <n>}, then {@code PT <i> <Hz> <dB> <deg>} per log-spaced point and
@@ -84,9 +85,12 @@ public final class InstrumentSimulator {
         }
     }
 
-    /** @return the identity the simulator gives for an instrument of the profile */
+    /**
+     * @return the identity the simulator gives, in the four fields of IEEE 488.2 {@code *IDN?}:
+     *         one for every instrument, since instruments sharing a line cannot be told apart
+     */
     public String identity(String instrument) {
-        return "polebench,simulated " + instrument + " (no real instrument),SIM-0001,1.0";
+        return "polebench,simulated bench (no real instrument),SIM-0001,1.0";
     }
 
     /** @return a fresh bench: frequency, level, error queue, misbehaviour counters */
@@ -225,10 +229,10 @@ public final class InstrumentSimulator {
                     return Optional.empty();
                 }
                 case SETTING:
+                    // the setup sets the level after any *RST; resetting it here would let the
+                    // meter's *RST undo the generator's level, since the bench shares one state
                     if (text.equalsIgnoreCase("*CLS")) {
                         errors.clear();
-                    } else if (text.equalsIgnoreCase("*RST")) {
-                        level = scpi.amplitude();
                     }
                     return Optional.empty();
                 case IDENTIFIES:
@@ -238,9 +242,9 @@ public final class InstrumentSimulator {
                 case READS_ERROR_QUEUE:
                     return Optional.of(errors.isEmpty() ? NO_ERROR : errors.poll());
                 case READS_INPUT_AMPLITUDE:
-                    return Optional.of(ScpiCommand.nr3(level));
+                    return Optional.of(amplitude(level));
                 case READS_OUTPUT_AMPLITUDE:
-                    return Optional.of(ScpiCommand.nr3(level * Decibels.toRatio(measuredGainDb(frequencyHz))));
+                    return Optional.of(amplitude(level * Decibels.toRatio(measuredGainDb(frequencyHz))));
                 case READS_GAIN:
                     return Optional.of(ScpiCommand.nr3(scale.gainForm() == GainForm.RATIO
                             ? Decibels.toRatio(measuredGainDb(frequencyHz)) : measuredGainDb(frequencyHz)));
@@ -249,6 +253,14 @@ public final class InstrumentSimulator {
                 default:
                     throw new IllegalStateException("no answer for role " + known.command.role());
             }
+        }
+
+        /** @return the reading, or SCPI's overrange value 9.9E37 at or above the profile's full scale */
+        private String amplitude(double volts) {
+            if (profile.limits().fullScale().isPresent() && volts >= profile.limits().fullScale().getAsDouble()) {
+                return "9.9E37";
+            }
+            return ScpiCommand.nr3(volts);
         }
 
         private double argument(Known known, String text) {

@@ -38,6 +38,10 @@ import org.polebench.units.Decibels;
  * (turning the generator off), and can be continued with a resumed request, which skips every
  * planned point up to the last one on file.
  *
+ * <p>A saturated reading (the overrange value, or an amplitude at or above the profile's full
+ * scale) or one at the profile's floor leaves its point out with a warning, without a repeat:
+ * the same level at the same frequency would read the same.
+ *
  * <p>Levels. A level above the profile's {@code max-amplitude} is refused before anything is
  * sent, and no command carrying a level is rendered above it.
  *
@@ -234,7 +238,7 @@ public final class SweepCapture {
 
     /** How one attempt at a step went wrong. */
     private enum Failure {
-        NO_ANSWER(true), UNREADABLE(true), ERROR(true), SATURATED(true), AT_FLOOR(false);
+        NO_ANSWER(true), UNREADABLE(true), ERROR(true), SATURATED(false), AT_FLOOR(false);
 
         final boolean worthRepeating;
 
@@ -308,6 +312,7 @@ public final class SweepCapture {
             transcript.note((sweep == null ? "capture starts: " : "capture resumes: ") + "profile " + profile.name()
                     + ", " + plan.describe() + ", amplitude " + amplitude + " " + kind() + ", " + describeLinks());
             try {
+                drainStaleLines();
                 identify();
                 if (sweep == null) {
                     sweep = AppendedSweep.create(request.sweepFile(), provenance(), hasPhase, uGain.isPresent(),
@@ -420,6 +425,28 @@ public final class SweepCapture {
         }
 
         // ---- identification -------------------------------------------------------------
+
+        /**
+         * Reads, logs and sets aside whatever waits on each link before anything is sent:
+         * answers to queries of an earlier session that stopped (a queue the instrument still
+         * held), which would otherwise be taken for answers to this one.
+         */
+        private void drainStaleLines() throws IOException, Halt {
+            Map<LineTransport, String> seen = new IdentityHashMap<>();
+            for (Map.Entry<String, LineTransport> link : links.entrySet()) {
+                if (seen.put(link.getValue(), link.getKey()) != null) {
+                    continue;
+                }
+                int stale = 0;
+                while (await(link.getKey(), QUIET_MS).isPresent()) {
+                    stale++;
+                }
+                if (stale > 0) {
+                    transcript.note(stale + " line(s) were waiting on " + link.getValue().describe()
+                            + " before anything was sent (left from an earlier session); set aside");
+                }
+            }
+        }
 
         private void identify() throws IOException, Halt {
             int retries;
@@ -572,9 +599,6 @@ public final class SweepCapture {
                     return attempt;
                 }
                 transcript.note("step for " + SweepAssembly.format(hz) + " Hz failed: " + attempt.reason);
-            }
-            if (attempt.failure == Failure.SATURATED) {
-                return attempt;   // a reading that stays at full scale: leave the point out, keep sweeping
             }
             CaptureOutcome.StopReason reason = attempt.failure == Failure.NO_ANSWER
                     ? CaptureOutcome.StopReason.NO_ANSWER : CaptureOutcome.StopReason.BAD_ANSWERS;

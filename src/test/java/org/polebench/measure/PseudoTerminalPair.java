@@ -14,7 +14,7 @@ import org.junit.jupiter.api.Assumptions;
  * with no mock. Tests are skipped, with a message, where socat is not installed
  * ({@code .ci/run} installs it).
  */
-final class PseudoTerminalPair implements AutoCloseable {
+public final class PseudoTerminalPair implements AutoCloseable {
     private final Process socat;
     private final Path a;
     private final Path b;
@@ -35,7 +35,7 @@ final class PseudoTerminalPair implements AutoCloseable {
     }
 
     /** Starts socat and waits (up to 10 s, a loaded machine) until both links exist. */
-    static PseudoTerminalPair open(Path parent) throws IOException, InterruptedException {
+    public static PseudoTerminalPair open(Path parent) throws IOException, InterruptedException {
         Assumptions.assumeTrue(socatInstalled(), "socat is not installed: serial-path tests skipped "
                 + "(.ci/run installs it; or apt-get install socat)");
         Path directory = Files.createTempDirectory(parent, "pty");
@@ -59,12 +59,12 @@ final class PseudoTerminalPair implements AutoCloseable {
     }
 
     /** The end the simulator takes. */
-    Path instrumentEnd() {
+    public Path instrumentEnd() {
         return a;
     }
 
     /** The end the capture takes. */
-    Path benchEnd() {
+    public Path benchEnd() {
         return b;
     }
 

@@ -120,7 +120,7 @@ class SweepCaptureTest {
         assertEquals(16, done.points());
         Sweep sweep = read(done.sweepFile());
         assertClosedForm(sweep, CaptureBench.FARADS);
-        assertTrue(sweep.source().instrument().contains("simulated generator"), sweep.source().instrument());
+        assertTrue(sweep.source().instrument().contains("simulated bench"), sweep.source().instrument());
         // the profile states ±0.1 dB and ±0.5°: standard uncertainties half-width/√3 (GUM 4.3.7)
         assertEquals(0.1 / Math.sqrt(3), sweep.points().get(0).gainUncertaintyDb().getAsDouble(), 1e-15);
         assertEquals(0.5 / Math.sqrt(3), sweep.points().get(0).phaseUncertaintyDeg().getAsDouble(), 1e-15);
