@@ -340,15 +340,20 @@ public final class InstrumentSimulator {
             return Pattern.compile(regex.toString());
         }
 
+        /** @return the text as a pattern in which each run of blanks matches any run of blanks */
         private String quoteLoosely(String text) {
             StringBuilder b = new StringBuilder();
-            for (String part : text.split("\\s+", -1)) {
-                if (b.length() > 0 || part.isEmpty() && b.length() == 0 && text.startsWith(" ")) {
-                    b.append("\\s+");
+            Matcher blanks = Pattern.compile("\\s+").matcher(text);
+            int last = 0;
+            while (blanks.find()) {
+                if (blanks.start() > last) {
+                    b.append(Pattern.quote(text.substring(last, blanks.start())));
                 }
-                if (!part.isEmpty()) {
-                    b.append(Pattern.quote(part));
-                }
+                b.append("\\s+");
+                last = blanks.end();
+            }
+            if (last < text.length()) {
+                b.append(Pattern.quote(text.substring(last)));
             }
             return b.toString();
         }
