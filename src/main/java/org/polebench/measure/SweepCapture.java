@@ -288,6 +288,8 @@ public final class SweepCapture {
         int skipped;
         long overheadNanos;
         int timedPoints;
+        double[] recordedHz;
+        long[] settleAfterMs;
 
         Run(CaptureRequest request, SweepPlan plan, double amplitude, Map<String, LineTransport> links,
             CaptureListener listener, BooleanSupplier stopRequested, AppendedSweep sweep) {
@@ -531,12 +533,15 @@ public final class SweepCapture {
         }
 
         private Duration timeLeft(LineProtocol.Settling settle, int done) {
-            double meanOverheadMs = timedPoints == 0 ? 0 : overheadNanos / 1e6 / timedPoints;
-            double ms = 0;
-            for (int j = done + 1; j < plan.points(); j++) {
-                ms += settle.millisAt(recordedHz(j)) + meanOverheadMs;
+            if (settleAfterMs == null) {
+                // the settling still to come after each point, summed from the top once
+                settleAfterMs = new long[plan.points()];
+                for (int j = plan.points() - 2; j >= 0; j--) {
+                    settleAfterMs[j] = settleAfterMs[j + 1] + settle.millisAt(recordedHz(j + 1));
+                }
             }
-            return Duration.ofMillis(Math.round(ms));
+            double meanOverheadMs = timedPoints == 0 ? 0 : overheadNanos / 1e6 / timedPoints;
+            return Duration.ofMillis(Math.round(settleAfterMs[done] + (plan.points() - 1 - done) * meanOverheadMs));
         }
 
         /** @return the index of the first planned point above the last one on file */
@@ -555,8 +560,14 @@ public final class SweepCapture {
 
         /** @return the frequency a point is recorded at: what the instrument is told, in Hz */
         private double recordedHz(int i) {
-            ReadingScale scale = profile.scale();
-            return scale.hertz(Double.parseDouble(ScpiCommand.nr3(scale.rawFrequency(plan.frequencyHz(i)))));
+            if (recordedHz == null) {
+                ReadingScale scale = profile.scale();
+                recordedHz = new double[plan.points()];
+                for (int j = 0; j < recordedHz.length; j++) {
+                    recordedHz[j] = scale.hertz(Double.parseDouble(ScpiCommand.nr3(scale.rawFrequency(plan.frequencyHz(j)))));
+                }
+            }
+            return recordedHz[i];
         }
 
         private String render(ScpiCommand command, double frequencyHz) {
