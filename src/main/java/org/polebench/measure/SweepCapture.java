@@ -942,7 +942,7 @@ public final class SweepCapture {
             long deadline = System.nanoTime() + timeoutMs * 1_000_000L;
             while (true) {
                 if (stopRequested.getAsBoolean()) {
-                    throw new Halt(CaptureOutcome.StopReason.INTERRUPTED, "stopped on request");
+                    throw new Halt(CaptureOutcome.StopReason.INTERRUPTED, "stopped on request (Ctrl-C)");
                 }
                 long leftMs = (deadline - System.nanoTime() + 999_999L) / 1_000_000L;
                 if (leftMs <= 0) {
@@ -960,7 +960,7 @@ public final class SweepCapture {
             long deadline = System.nanoTime() + settle.millisAt(frequencyHz) * 1_000_000L;
             while (true) {
                 if (stopRequested.getAsBoolean()) {
-                    throw new Halt(CaptureOutcome.StopReason.INTERRUPTED, "stopped on request");
+                    throw new Halt(CaptureOutcome.StopReason.INTERRUPTED, "stopped on request (Ctrl-C)");
                 }
                 long leftNanos = deadline - System.nanoTime();
                 if (leftNanos <= 0) {
