@@ -47,6 +47,8 @@ import org.polebench.units.Decibels;
 public final class InstrumentSimulator {
     private static final Pattern NUMBER_GROUP = Pattern.compile("\\{(start_hz_nr3|stop_hz_nr3|points|amplitude_nr3)\\}");
     private static final String NO_ERROR = "0,\"No error\"";
+    /** How long a closing simulator lets its last lines travel before it closes, in ms. */
+    private static final long LINGER_MS = 500;
 
     private final SerialProfile profile;
     private final BoardResponse board;
@@ -161,6 +163,10 @@ public final class InstrumentSimulator {
                             ? scpiLine(line, received.get().strip(), sent)
                             : streamLine(line, received.get().strip(), stop, sent);
                     if (!open) {
+                        // lines written just before are still on their way through the port;
+                        // closing at once could discard them, which the misbehaviour is not
+                        // meant to do
+                        pause(LINGER_MS);
                         line.close();
                         return End.CLOSED_ON_PURPOSE;
                     }
@@ -392,11 +398,7 @@ public final class InstrumentSimulator {
                 return;
             }
             if (stall.isPresent()) {
-                try {
-                    Thread.sleep(stall.get().stallMs());
-                } catch (InterruptedException e) {
-                    Thread.currentThread().interrupt();
-                }
+                pause(stall.get().stallMs());
             }
             String out = garbage.isPresent() ? garbage(text) : text;
             line.send(out);
@@ -410,6 +412,14 @@ public final class InstrumentSimulator {
                 b.append((char) ('!' + random.nextInt(14)));
             }
             return b.toString();
+        }
+    }
+
+    private static void pause(long millis) {
+        try {
+            Thread.sleep(millis);
+        } catch (InterruptedException e) {
+            Thread.currentThread().interrupt();
         }
     }
 

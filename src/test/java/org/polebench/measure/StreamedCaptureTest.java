@@ -21,6 +21,9 @@ class StreamedCaptureTest {
     @TempDir
     Path dir;
 
+    /** How the last simulator ended, for failure messages. */
+    private Object simulatorEnd;
+
     private CaptureOutcome capture(List<Misbehaviour> faults, CaptureRequest request) throws Exception {
         SerialProfile profile = CaptureBench.streamingProfile();
         InstrumentSimulator simulator = new InstrumentSimulator(profile, StageBoard.of(CaptureBench.rcStage(), ""),
@@ -33,8 +36,17 @@ class StreamedCaptureTest {
                 return new SweepCapture(profile).run(request, Map.of(profile.name(), bench), CaptureListener.silent(),
                         () -> false);
             } finally {
+                simulatorEnd = sim.end();
                 sim.close();
             }
+        }
+    }
+
+    private static String transcript(Path file) {
+        try {
+            return java.nio.file.Files.readString(file);
+        } catch (java.io.IOException e) {
+            return e.toString();
         }
     }
 
@@ -68,7 +80,7 @@ class StreamedCaptureTest {
         CaptureOutcome cut = capture(List.of(new Misbehaviour(Misbehaviour.Kind.CLOSE, 6, 0)),
                 CaptureRequest.of(PLAN, dir.resolve("cut")));
         CaptureOutcome.Stopped stopped = assertInstanceOf(CaptureOutcome.Stopped.class, cut);
-        assertEquals(5, stopped.points());
+        assertEquals(5, stopped.points(), () -> simulatorEnd + "\n" + transcript(stopped.transcript()));
 
         CaptureOutcome resumed = capture(List.of(), new CaptureRequest(Optional.empty(), OptionalDouble.empty(),
                 dir.resolve("cut"), true, Optional.empty()));
