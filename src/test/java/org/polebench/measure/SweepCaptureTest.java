@@ -17,6 +17,13 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.Timeout;
 import org.junit.jupiter.api.io.TempDir;
 import org.polebench.InputProblem;
+import org.polebench.analysis.PortReduction;
+import org.polebench.analysis.Reduction;
+import org.polebench.analysis.StateModel;
+import org.polebench.circuit.Band;
+import org.polebench.circuit.SmallSignalExpansion;
+import org.polebench.circuit.Stage;
+import org.polebench.circuit.StageReader;
 
 /**
  * Live capture over a real pseudo-terminal pair (socat), against the instrument simulator
@@ -156,6 +163,35 @@ class SweepCaptureTest {
                 List.of());
         Run run = capture(faulty, "fault");
         assertClosedForm(read(run.outcome().sweepFile()), fitted);
+    }
+
+    @Test
+    void aTransistorStageWithABypassFaultIsCapturedAsItsStateSpaceModel() throws Exception {
+        Stage designed = new StageReader().read(CaptureBench.resource("ce-no-device-caps.stage.yaml")).stage();
+        InstrumentSimulator faulty = new InstrumentSimulator(CaptureBench.scpiProfile(),
+                StageBoard.asBuilt(designed, List.of("C3=47u")), 0, 0, 7, List.of());
+        // 10 mV keeps the 43 dB stage's output below the test profile's 7 V full scale
+        CaptureRequest request = new CaptureRequest(Optional.of(PLAN), OptionalDouble.of(0.01), dir.resolve("ce"),
+                false, Optional.empty());
+        Run run = capture(faulty, request, () -> false);
+
+        // the independent reference: the port-reduced state-space model of the stage as built,
+        // H = C(jωI − A)⁻¹B + D (DESIGN.md "Port reduction"), where the simulator solves the full
+        // complex MNA system
+        Stage built = designed.withCapacitance("C3", 47e-6);
+        Reduction reduction = new PortReduction().reduce(new SmallSignalExpansion().expand(built), Band.LOW);
+        StateModel model = ((Reduction.StateSpace) reduction).model();
+        Sweep sweep = read(run.outcome().sweepFile());
+        assertEquals(PLAN.points(), sweep.size());
+        for (SweepPoint p : sweep.points()) {
+            org.apache.commons.math3.complex.Complex h = model.responseAtHz(p.frequencyHz());
+            // 7-digit NR3 answers: 2e-5 dB (see assertClosedForm), and a phase of 100° to 999°
+            // sent with 7 digits is within ±5e-5°; compared modulo a turn, since the file keeps
+            // the midband in (−180°, 180°]
+            assertEquals(20 * Math.log10(h.abs()), p.gainDb(), 2e-5, "gain at " + p.frequencyHz() + " Hz");
+            double phaseError = PhaseUnwrap.fold(p.phaseDeg().getAsDouble() - Math.toDegrees(h.getArgument()));
+            assertEquals(0, phaseError, 6e-5, "phase at " + p.frequencyHz() + " Hz");
+        }
     }
 
     @Test
