@@ -91,7 +91,7 @@ public final class InstrumentSimulator {
      * @return the identity the simulator gives, in the four fields of IEEE 488.2 {@code *IDN?}:
      *         one for every instrument, since instruments sharing a line cannot be told apart
      */
-    public String identity(String instrument) {
+    public String identity() {
         return "polebench,simulated bench (no real instrument),SIM-0001,1.0";
     }
 
@@ -242,7 +242,7 @@ public final class InstrumentSimulator {
                     }
                     return Optional.empty();
                 case IDENTIFIES:
-                    return Optional.of(identity(known.command.instrument()));
+                    return Optional.of(identity());
                 case WAITS_FOR_COMPLETION:
                     return Optional.of("1");
                 case READS_ERROR_QUEUE:
@@ -280,7 +280,7 @@ public final class InstrumentSimulator {
                 throws IOException {
             LineProtocol.StreamedLines stream = (LineProtocol.StreamedLines) profile.protocol();
             if (!stream.identify().isBlank() && text.equalsIgnoreCase(stream.identify())) {
-                send(line, identity(profile.name()), sent);
+                send(line, identity(), sent);
                 return true;
             }
             Matcher start = startPattern(stream.start()).matcher(text);

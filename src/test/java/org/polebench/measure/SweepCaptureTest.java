@@ -274,6 +274,35 @@ class SweepCaptureTest {
     }
 
     @Test
+    void overTcpAClosedConnectionIsAPortLostAtOnce() throws Exception {
+        InstrumentSimulator.Session session = simulator(0, 0,
+                List.of(new Misbehaviour(Misbehaviour.Kind.CLOSE, 6, 0))).session();
+        CaptureOutcome outcome;
+        try (java.net.ServerSocket server = new java.net.ServerSocket(0, 1, java.net.InetAddress.getLoopbackAddress())) {
+            Thread serving = new Thread(() -> {
+                try (java.net.Socket socket = server.accept();
+                     TcpLine line = TcpLine.accepted(socket, PortSettings.LineEnding.LF)) {
+                    session.serve(line, () -> false, sent -> { });
+                } catch (java.io.IOException e) {
+                    // the test's assertions say what went wrong
+                }
+            }, "tcp simulator");
+            serving.setDaemon(true);
+            serving.start();
+            try (TcpLine bench = TcpLine.connect("127.0.0.1", server.getLocalPort(), PortSettings.LineEnding.LF, 5000)) {
+                assertTrue(bench.local());
+                outcome = new SweepCapture(CaptureBench.scpiProfile()).run(CaptureRequest.of(PLAN, dir.resolve("tcp")),
+                        CaptureBench.oneLine(bench), CaptureListener.silent(), () -> false);
+            }
+            serving.join(10_000);
+        }
+        CaptureOutcome.Stopped stopped = assertInstanceOf(CaptureOutcome.Stopped.class, outcome);
+        assertEquals(CaptureOutcome.StopReason.PORT_LOST, stopped.reason());
+        assertEquals(5, stopped.points());
+        assertEquals(5, AppendedSweep.reopen(stopped.sweepFile()).points().size());
+    }
+
+    @Test
     void aStopRequestEndsCleanlyWithTheCompletedPointsOnDiskAndTheGeneratorOff() throws Exception {
         AtomicInteger points = new AtomicInteger();
         CaptureListener counter = new CaptureListener() {
