@@ -25,7 +25,7 @@ import org.polebench.circuit.StageReader;
 @OutputTimeUnit(TimeUnit.MILLISECONDS)
 @Threads(1)
 public class ToleranceSpreadBenchmark {
-    private final ToleranceSpread spread = new ToleranceSpread();
+    private final ToleranceSpread spread = new ToleranceSpread().withThreads(1);
     private Stage demo;
 
     @Setup

@@ -5,6 +5,9 @@ import java.util.Arrays;
 import java.util.List;
 import java.util.OptionalDouble;
 import java.util.SplittableRandom;
+import java.util.concurrent.ExecutionException;
+import java.util.concurrent.ForkJoinPool;
+import java.util.stream.IntStream;
 import org.polebench.InputProblem;
 import org.polebench.circuit.Bias;
 import org.polebench.circuit.BiasSolver;
@@ -27,7 +30,9 @@ import org.polebench.circuit.Transistor;
  * and the priors describe the same population. Resistors and β change the bias, which is solved
  * again for every sample; a sample whose bias leaves the active region is counted, not used.
  * Draws come from one {@link SplittableRandom} with the given seed, in part order, so a run is
- * repeatable.
+ * repeatable: every board is drawn before any is analysed, and each draw takes its values in
+ * the same order whether or not its bias then solves, so the spread does not depend on the
+ * number of threads that analyse the draws.
  */
 public final class ToleranceSpread {
     /** Samples when the user does not say (issue 2). */
@@ -37,6 +42,7 @@ public final class ToleranceSpread {
 
     private final int samples;
     private final long seed;
+    private final int threads;
     private final BiasSolver biasSolver = new BiasSolver();
     private final SmallSignalExpansion expansion = new SmallSignalExpansion();
     private final StagePredictor predictor = new StagePredictor();
@@ -45,21 +51,38 @@ public final class ToleranceSpread {
         this(DEFAULT_SAMPLES, DEFAULT_SEED);
     }
 
-    /** @param samples at least 20, so that the 5 % and 95 % points are not the extremes */
+    /**
+     * Analyses the draws on every available processor; the result does not depend on how many.
+     *
+     * @param samples at least 20, so that the 5 % and 95 % points are not the extremes
+     */
     public ToleranceSpread(int samples, long seed) {
+        this(samples, seed, Runtime.getRuntime().availableProcessors());
+    }
+
+    private ToleranceSpread(int samples, long seed, int threads) {
         if (samples < 20) {
             throw new IllegalArgumentException("a tolerance spread needs at least 20 samples, was " + samples);
         }
+        if (threads < 1) {
+            throw new IllegalArgumentException("a tolerance spread needs at least one thread, was " + threads);
+        }
         this.samples = samples;
         this.seed = seed;
+        this.threads = threads;
     }
 
     public ToleranceSpread withSamples(int newSamples) {
-        return new ToleranceSpread(newSamples, seed);
+        return new ToleranceSpread(newSamples, seed, threads);
     }
 
     public ToleranceSpread withSeed(long newSeed) {
-        return new ToleranceSpread(samples, newSeed);
+        return new ToleranceSpread(samples, newSeed, threads);
+    }
+
+    /** @param newThreads how many threads analyse the draws (1 for the single-core benchmark) */
+    public ToleranceSpread withThreads(int newThreads) {
+        return new ToleranceSpread(samples, seed, newThreads);
     }
 
     /**
@@ -75,21 +98,45 @@ public final class ToleranceSpread {
             return new CornerSpread(samples, seed, samples, List.of());
         }
         SmallSignalExpansion.Prepared small = expansion.prepare(nominal);
+        // Every draw is made first, in order, from one generator, so the boards drawn do not
+        // depend on how many threads then analyse them: the spread is the same on any machine.
         SplittableRandom random = new SplittableRandom(seed);
-        double[] corners = new double[samples];
-        int used = 0;
-        int biasFailures = 0;
+        List<Transistor> given = givenBiasTransistors(nominal);
+        Stage[] stages = new Stage[samples];
+        double[][] biasFactors = new double[samples][];
         for (int n = 0; n < samples; n++) {
-            // one call per draw, so that the JIT compiles a draw as a method of its own rather
-            // than only as an on-stack replacement of this loop
-            double cornerHz = cornerOfOneDraw(nominal, bias, small, random);
+            stages[n] = draw(nominal, random);
+            biasFactors[n] = drawGivenBias(given, random);
+        }
+        double[] corners = new double[samples];
+        IntStream draws = IntStream.range(0, samples);
+        if (threads > 1) {
+            ForkJoinPool pool = new ForkJoinPool(threads);
+            try {
+                pool.submit(() -> draws.parallel().forEach(n ->
+                        corners[n] = cornerOfOneDraw(stages[n], given, biasFactors[n], bias, small))).get();
+            } catch (InterruptedException e) {
+                Thread.currentThread().interrupt();
+                throw new IllegalStateException("the tolerance spread was interrupted", e);
+            } catch (ExecutionException e) {
+                throw new IllegalStateException("a tolerance draw failed", e.getCause());
+            } finally {
+                pool.shutdown();
+            }
+        } else {
+            draws.forEach(n -> corners[n] = cornerOfOneDraw(stages[n], given, biasFactors[n], bias, small));
+        }
+        int biasFailures = 0;
+        double[] usable = new double[samples];
+        int used = 0;
+        for (double cornerHz : corners) {
             if (Double.isNaN(cornerHz)) {
                 biasFailures++;
             } else if (cornerHz > 0) {
-                corners[used++] = cornerHz;
+                usable[used++] = cornerHz;
             }
         }
-        double[] sorted = Arrays.copyOf(corners, used);
+        double[] sorted = Arrays.copyOf(usable, used);
         Arrays.sort(sorted);
         List<Double> values = new ArrayList<>(used);
         for (double corner : sorted) {
@@ -102,21 +149,23 @@ public final class ToleranceSpread {
      * @return the exact lower corner of one draw in Hz; 0 when the draw has none; NaN when its
      *         bias left the active region
      */
-    private double cornerOfOneDraw(Stage nominal, BiasSolver.Prepared bias, SmallSignalExpansion.Prepared small,
-                                   SplittableRandom random) {
-        Stage drawn = draw(nominal, random);
+    private double cornerOfOneDraw(Stage drawn, List<Transistor> given, double[] biasFactors,
+                                   BiasSolver.Prepared bias, SmallSignalExpansion.Prepared small) {
         OperatingPoints points;
         try {
             points = bias.solve(drawn);
         } catch (InputProblem outOfRegion) {
             return Double.NaN;
         }
-        points = drawGivenBias(drawn, points, random);
+        for (int t = 0; t < given.size(); t++) {
+            points = points.withCurrentScaled(given.get(t).name(), biasFactors[t]);
+        }
         OptionalDouble corner = predictor.exactLowerCornerHz(small.expand(drawn, points));
         return corner.isPresent() ? corner.getAsDouble() : 0;
     }
 
-    private static Stage draw(Stage nominal, SplittableRandom random) {
+    /** One board drawn across the tolerances (shared with {@link ResponseSpread}, so both draw alike). */
+    static Stage draw(Stage nominal, SplittableRandom random) {
         List<Part> drawn = new ArrayList<>(nominal.parts().size());
         for (Part part : nominal.parts()) {
             if (part instanceof Resistor) {
@@ -135,14 +184,22 @@ public final class ToleranceSpread {
         return nominal.withParts(drawn);
     }
 
-    private static OperatingPoints drawGivenBias(Stage stage, OperatingPoints points, SplittableRandom random) {
-        OperatingPoints drawn = points;
+    static List<Transistor> givenBiasTransistors(Stage stage) {
+        List<Transistor> given = new ArrayList<>();
         for (Transistor transistor : stage.transistors()) {
             if (transistor.bias() instanceof Bias.Given) {
-                drawn = drawn.withCurrentScaled(transistor.name(), factor(transistor.biasTolerance(), random));
+                given.add(transistor);
             }
         }
-        return drawn;
+        return given;
+    }
+
+    static double[] drawGivenBias(List<Transistor> given, SplittableRandom random) {
+        double[] factors = new double[given.size()];
+        for (int t = 0; t < factors.length; t++) {
+            factors[t] = factor(given.get(t).biasTolerance(), random);
+        }
+        return factors;
     }
 
     private static double factor(Tolerance tolerance, SplittableRandom random) {

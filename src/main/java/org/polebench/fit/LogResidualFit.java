@@ -24,8 +24,8 @@ import org.apache.commons.math3.util.Pair;
 final class LogResidualFit {
     private static final int MAX_ITERATIONS = 60;
     private static final int MAX_EVALUATIONS = 120;
-    // tight enough that a noise-free sweep is recovered to better than 1e-9 relative
-    private static final double TOLERANCE = 1e-13;
+    // Commons Math's default; a noise-free sweep is still recovered far inside 1e-6 relative (tests)
+    private static final double TOLERANCE = 1e-10;
 
     /**
      * @param robustWeights per-point factors on the weights (IRLS), or null for plain weights

@@ -13,6 +13,11 @@ import org.apache.commons.math3.exception.MathIllegalStateException;
  */
 final class PolynomialRoots {
     private static final double REAL_TOLERANCE = 1e-7;
+    /**
+     * Bound on Laguerre iterations: the default is unbounded, and a degenerate polynomial (a
+     * linearised estimate gone wrong) can then keep the solver turning for ever.
+     */
+    private static final int MAX_EVALUATIONS = 10_000;
 
     final List<Double> real = new ArrayList<>();
     /** One member of each pair, the one with positive imaginary part. */
@@ -22,8 +27,9 @@ final class PolynomialRoots {
     }
 
     /**
-     * @param ascending coefficients c₀ + c₁v + …, leading one non-zero
-     * @return the roots, or null when the solver fails (a degenerate polynomial)
+     * @param ascending coefficients c₀ + c₁v + …
+     * @return the roots, or null when the polynomial is degenerate (a non-finite coefficient, a
+     *         zero leading one) or the solver does not converge
      */
     static PolynomialRoots of(double[] ascending) {
         PolynomialRoots roots = new PolynomialRoots();
@@ -31,13 +37,22 @@ final class PolynomialRoots {
         if (degree == 0) {
             return roots;
         }
+        if (ascending[degree] == 0) {
+            // a root at infinity: the estimate is degenerate (and Laguerre's method would not stop)
+            return null;
+        }
         if (degree == 1) {
             roots.real.add(-ascending[0] / ascending[1]);
             return roots;
         }
+        for (double c : ascending) {
+            if (!Double.isFinite(c)) {
+                return null;
+            }
+        }
         Complex[] all;
         try {
-            all = new LaguerreSolver().solveAllComplex(ascending, 0);
+            all = new LaguerreSolver().solveAllComplex(ascending, 0, MAX_EVALUATIONS);
         } catch (MathIllegalStateException | IllegalArgumentException failed) {
             return null;
         }

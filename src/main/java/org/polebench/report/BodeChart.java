@@ -40,9 +40,11 @@ import org.polebench.measure.SweepPoint;
  * A Bode plot: gain (dB) above phase (°) on a shared logarithmic frequency axis, with any number
  * of measured series, computed curves and shaded gain bands ({@link BodeSeries}). Immutable: each
  * {@code with…} returns a new chart. Phases are drawn continuous: each curve is unwrapped along
- * frequency and placed so its top-frequency phase lies in (−180°, 180°]; each measured point is
- * moved by whole turns to lie nearest the first curve (or unwrapped on its own when there is none),
- * since a phase reading is only known modulo 360°.
+ * frequency and placed so its top-frequency phase lies in (−180°, 180°]; a measured series is
+ * unwrapped along frequency too (a phase reading is only known modulo 360°), then moved as a whole
+ * by the whole turns that bring it nearest, on average, to the first curve. Moving each point on
+ * its own would tear a sweep apart wherever that curve strays more than 180° from it (a poor fit,
+ * or the nominal stage beside a faulty board).
  *
  * <p>SVG output goes through JFreeSVG with a fixed defs-key prefix, so the same chart gives the
  * same bytes on every run (PITFALLS.md, "JFreeChart"); the frequency axis gets an explicit
@@ -138,24 +140,14 @@ public final class BodeChart {
             XYSeries gain = new XYSeries(s.label(), false, true);
             XYSeries phase = new XYSeries(s.label(), false, true);
             double[][] curvePhase = isCurve ? unwrappedPhases(points) : null;
-            double previous = Double.NaN;
+            double[] measuredPhase = isCurve ? null : measuredPhases(points, reference);
             for (int i = 0; i < points.size(); i++) {
                 ResponsePoint p = points.get(i);
                 gain.add(p.frequencyHz(), p.gainDb());
                 low = Math.min(low, p.frequencyHz());
                 high = Math.max(high, p.frequencyHz());
                 if (p.phaseDeg().isPresent()) {
-                    double deg;
-                    if (curvePhase != null) {
-                        deg = curvePhase[1][i];
-                    } else if (reference != null) {
-                        deg = nearest(p.phaseDeg().getAsDouble(), interpolate(reference, p.frequencyHz()));
-                    } else {
-                        deg = Double.isNaN(previous) ? p.phaseDeg().getAsDouble()
-                                : nearest(p.phaseDeg().getAsDouble(), previous);
-                    }
-                    phase.add(p.frequencyHz(), deg);
-                    previous = deg;
+                    phase.add(p.frequencyHz(), curvePhase != null ? curvePhase[1][i] : measuredPhase[i]);
                 }
             }
             gainLines.addSeries(gain);
@@ -275,6 +267,38 @@ public final class BodeChart {
             deg[i] -= shift;
         }
         return new double[][]{f, deg};
+    }
+
+    /**
+     * A measured series' phases unwrapped along frequency, then shifted by the whole turns that
+     * bring their mean nearest the reference curve's at the same frequencies; NaN where a point
+     * has no phase.
+     */
+    private static double[] measuredPhases(List<ResponsePoint> points, double[][] reference) {
+        double[] deg = new double[points.size()];
+        double previous = Double.NaN;
+        double offset = 0;
+        int counted = 0;
+        for (int i = 0; i < points.size(); i++) {
+            if (points.get(i).phaseDeg().isEmpty()) {
+                deg[i] = Double.NaN;
+                continue;
+            }
+            double raw = points.get(i).phaseDeg().getAsDouble();
+            deg[i] = Double.isNaN(previous) ? raw : nearest(raw, previous);
+            previous = deg[i];
+            if (reference != null) {
+                offset += interpolate(reference, points.get(i).frequencyHz()) - deg[i];
+                counted++;
+            }
+        }
+        if (counted > 0) {
+            double turns = 360 * Math.rint(offset / counted / 360);
+            for (int i = 0; i < deg.length; i++) {
+                deg[i] += turns;
+            }
+        }
+        return deg;
     }
 
     /** The angle congruent to {@code deg} modulo 360° nearest {@code target}. */

@@ -1,6 +1,6 @@
 /**
  * What polebench writes for people and programs: plain-text summaries, JSON objects, CSV
  * tables, Bode plots (JFreeChart, as SVG through JFreeSVG or as PNG) and the HTML test
- * report. Uses every package below it; computes nothing that the library does not already hold.
+ * report (ReportHtml, from the result JSON of ResultJson). Uses every package below it; computes nothing that the library does not already hold.
  */
 package org.polebench.report;

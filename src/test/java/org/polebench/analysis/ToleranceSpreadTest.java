@@ -52,6 +52,16 @@ class ToleranceSpreadTest {
     }
 
     @Test
+    void theSpreadDoesNotDependOnTheNumberOfThreads() throws InputProblem {
+        // every board is drawn before analysis, so one thread and three give the same order
+        // statistics bit for bit (a property of the method, DESIGN.md "Tolerance spread")
+        Stage stage = demo("geophone-two-stage.stage.yaml").withResistance("RC1", 8.1e3);
+        CornerSpread one = new ToleranceSpread(1_000, 99L).withThreads(1).lowerCorner(stage);
+        CornerSpread three = new ToleranceSpread(1_000, 99L).withThreads(3).lowerCorner(stage);
+        assertEquals(one, three);
+    }
+
+    @Test
     void preparedSpreadCountsTheSameSaturatedDrawsAsThePerDrawComputation() throws InputProblem {
         // RC1 raised from 5.6k until Q1 sits near VCE(sat): a share of the draws saturate
         Stage stage = demo("geophone-two-stage.stage.yaml").withResistance("RC1", 8.1e3);

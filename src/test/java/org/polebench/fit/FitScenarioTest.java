@@ -69,20 +69,23 @@ class FitScenarioTest {
         }
     }
 
-    // three points spoiled by +3 dB and −20° (a relay click, a range change): a synthetic fault
-    // placed by construction; the screen must drop exactly those and the fit must stay on truth
-    @Test
-    void threeOutliersAreDroppedAndReported() throws InputProblem {
-        double[] f = KnownResponse.logSpaced(1, 50_000, 100);
-        Sweep clean = STAGE.noisySweep(f, 0.05, 0.5, new Random(11), true);
+    /** The stage with noise (seed 11) and points 17, 45 and 80 spoiled by +3 dB and −20°. */
+    private static Sweep spoiledSweep() {
+        Sweep clean = STAGE.noisySweep(KnownResponse.logSpaced(1, 50_000, 100), 0.05, 0.5, new Random(11), true);
         List<SweepPoint> points = new ArrayList<>(clean.points());
-        int[] bad = {17, 45, 80};
-        for (int i : bad) {
+        for (int i : new int[]{17, 45, 80}) {
             SweepPoint p = points.get(i);
             points.set(i, new SweepPoint(p.frequencyHz(), p.gainDb() + 3, OptionalDouble.of(p.phaseDeg().getAsDouble() - 20),
                     p.gainUncertaintyDb(), p.phaseUncertaintyDeg()));
         }
-        FitResult result = new SweepFitter(FitSettings.defaults()).fit(new Sweep(clean.source(), points));
+        return new Sweep(clean.source(), points);
+    }
+
+    // three points spoiled by +3 dB and −20° (a relay click, a range change): a synthetic fault
+    // placed by construction; the screen must drop exactly those and the fit must stay on truth
+    @Test
+    void threeOutliersAreDroppedAndReported() throws InputProblem {
+        FitResult result = new SweepFitter(FitSettings.defaults()).fit(spoiledSweep());
         assertEquals(List.of(17, 45, 80),
                 result.droppedPoints().stream().map(DroppedPoint::sweepIndex).sorted().collect(Collectors.toList()));
         assertEquals(97, result.quality().pointsUsed());
@@ -101,16 +104,7 @@ class FitScenarioTest {
     // without the screen the same faults pull the fit: the check above is not vacuous
     @Test
     void withoutTheScreenOutliersInflateTheResiduals() throws InputProblem {
-        double[] f = KnownResponse.logSpaced(1, 50_000, 100);
-        Sweep clean = STAGE.noisySweep(f, 0.05, 0.5, new Random(11), true);
-        List<SweepPoint> points = new ArrayList<>(clean.points());
-        for (int i : new int[]{17, 45, 80}) {
-            SweepPoint p = points.get(i);
-            points.set(i, new SweepPoint(p.frequencyHz(), p.gainDb() + 3, OptionalDouble.of(p.phaseDeg().getAsDouble() - 20),
-                    p.gainUncertaintyDb(), p.phaseUncertaintyDeg()));
-        }
-        FitResult result = new SweepFitter(FitSettings.defaults().withLoss(RobustLoss.NONE))
-                .fit(new Sweep(clean.source(), points));
+        FitResult result = new SweepFitter(FitSettings.defaults().withLoss(RobustLoss.NONE)).fit(spoiledSweep());
         assertTrue(result.droppedPoints().isEmpty());
         // 3 dB on 3 of 100 points alone gives an RMS of 3·√(3/100) = 0.52 dB, ten times the noise
         assertTrue(result.quality().residualRmsDb() > 0.3, "rms " + result.quality().residualRmsDb());

@@ -1,0 +1,138 @@
+package org.polebench.cli;
+
+import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.concurrent.Callable;
+import org.polebench.InputProblem;
+import org.polebench.analysis.Prediction;
+import org.polebench.analysis.StageAnalysis;
+import org.polebench.circuit.BiasSolver;
+import org.polebench.circuit.SmallSignalExpansion;
+import org.polebench.circuit.Stage;
+import org.polebench.circuit.StageReader;
+import org.polebench.measure.BoardSynthesizer;
+import org.polebench.measure.Fault;
+import org.polebench.measure.FaultText;
+import org.polebench.measure.InstrumentProfile;
+import org.polebench.measure.ProfileLibrary;
+import org.polebench.measure.Sweep;
+import org.polebench.measure.SweepNoise;
+import org.polebench.measure.SweepWriter;
+import org.polebench.measure.TableProfile;
+import org.polebench.units.EngineeringValue;
+import org.polebench.units.Quantity;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+
+/** {@code polebench synthesize}: an invented sweep of a board built from a stage, with stated faults. */
+@Command(name = "synthesize", mixinStandardHelpOptions = true,
+        description = {"Writes the sweep a board built from the stage would give: the stage's full small-signal "
+                + "response with the stated faults and seeded Gaussian noise, at log-spaced frequencies. "
+                + "The file says in its notes that it is invented demo data, with the fault, noise and seed."},
+        footer = {"", "Examples:", "  polebench synthesize --stage s.stage.yaml --fault C3=4.7u --out board.csv",
+                "  polebench synthesize --stage s.stage.yaml --fault bias:Q1=0.6 --fault gain=10 --seed 7 --out b.csv"})
+final class SynthesizeCommand implements Callable<Integer> {
+    @Spec
+    CommandSpec spec;
+
+    @Option(names = "--stage", paramLabel = "S", required = true, description = "the stage file (*.stage.yaml)")
+    Path stageFile;
+
+    @Option(names = "--fault", paramLabel = "F", description = "C3=4.7u, bias:Q1=0.6 or gain=10; may be repeated")
+    List<String> faults = new ArrayList<>();
+
+    @Option(names = "--noise", paramLabel = "N", defaultValue = "0.05dB,0.5deg",
+            description = "gain and phase standard deviations (default ${DEFAULT-VALUE})")
+    String noise;
+
+    @Option(names = "--seed", paramLabel = "SEED", defaultValue = "1", description = "noise seed (default ${DEFAULT-VALUE})")
+    long seed;
+
+    @Option(names = "--points", paramLabel = "N", defaultValue = "61", description = "points (default ${DEFAULT-VALUE})")
+    int points;
+
+    @Option(names = "--from", paramLabel = "F", description = "lowest frequency (default: a thirtieth of the exact lower corner)")
+    String fromHz;
+
+    @Option(names = "--to", paramLabel = "F", description = "highest frequency (default: 300 times the exact lower corner)")
+    String toHz;
+
+    @Option(names = "--layout", paramLabel = "PROFILE", defaultValue = SweepWriter.CANONICAL,
+            description = "write in this table profile's layout (default ${DEFAULT-VALUE})")
+    String layout;
+
+    @Option(names = "--out", paramLabel = "FILE", required = true, description = "the sweep file to write")
+    Path out;
+
+    @Option(names = "--force", description = "replace an existing output file")
+    boolean force;
+
+    @Override
+    public Integer call() throws InputProblem, IOException {
+        if (Files.exists(out) && !force) {
+            throw new InputProblem(out, 0, "the output file exists already and is kept",
+                    "name another file, or add --force to replace it");
+        }
+        if (points < 2) {
+            throw new InputProblem(null, 0, "--points " + points + " is too few for a sweep", "use 2 or more");
+        }
+        Stage stage = new StageReader().read(stageFile).stage();
+        List<Fault> parsed = new ArrayList<>();
+        for (String fault : faults) {
+            parsed.add(FaultText.parse(fault, stage));
+        }
+        SweepNoise sweepNoise = FaultText.noise(noise);
+        double corner = Double.NaN;
+        if (fromHz == null || toHz == null) {
+            Prediction prediction = new StageAnalysis().predictNetwork(stage,
+                    new SmallSignalExpansion().expand(stage, new BiasSolver().solve(stage)));
+            if (prediction.exactLowerCornerHz().isEmpty()) {
+                throw new InputProblem(stageFile, 0, "the stage has no lower corner to centre a default band on",
+                        "give --from and --to");
+            }
+            corner = prediction.exactLowerCornerHz().getAsDouble();
+        }
+        double low = fromHz == null ? corner / 30 : frequency(fromHz, "--from");
+        double high = toHz == null ? corner * 300 : frequency(toHz, "--to");
+        if (!(high > low)) {
+            throw new InputProblem(null, 0, "--to must lie above --from", "swap or widen the band");
+        }
+        Sweep sweep = new BoardSynthesizer().synthesize(stage, parsed, sweepNoise,
+                BoardSynthesizer.logSpaced(low, high, points), true, seed);
+        SweepWriter writer = new SweepWriter();
+        if (layout.equals(SweepWriter.CANONICAL)) {
+            writer.writeCanonical(sweep, out, force);
+        } else {
+            InstrumentProfile profile = ProfileLibrary.standard(Path.of("")).resolve(layout);
+            if (!(profile instanceof TableProfile)) {
+                throw new InputProblem(null, 0, "--layout " + layout + " is not a table profile",
+                        "name a table profile (polebench profiles lists them)");
+            }
+            writer.write(sweep, out, (TableProfile) profile, force);
+        }
+        spec.commandLine().getOut().println("wrote " + out + ": " + points + " points, "
+                + EngineeringValue.format(low, "Hz") + " to " + EngineeringValue.format(high, "Hz")
+                + " (invented demo data)");
+        for (String note : sweep.source().notes()) {
+            spec.commandLine().getOut().println("  " + note);
+        }
+        return ExitCodes.OK;
+    }
+
+    private static double frequency(String text, String option) throws InputProblem {
+        try {
+            double hz = EngineeringValue.parse(text, Quantity.HERTZ);
+            if (hz > 0) {
+                return hz;
+            }
+        } catch (IllegalArgumentException e) {
+            // refused below with the option named
+        }
+        throw new InputProblem(null, 0, option + " " + text + " is not a positive frequency", "write e.g. 1Hz or 20k");
+    }
+}

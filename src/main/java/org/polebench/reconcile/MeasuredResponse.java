@@ -1,0 +1,80 @@
+package org.polebench.reconcile;
+
+import org.polebench.measure.Sweep;
+import org.polebench.measure.SweepPoint;
+import org.polebench.units.Decibels;
+
+/**
+ * A sweep as the back-solve reads it: ln|H| in nepers and arg H in radians per point, with
+ * their standard uncertainties. Residuals are complex logarithms, so a 1 dB error (0.115 Np)
+ * weighs as a 6.6° one (0.115 rad) and no phase unwrapping is needed (DESIGN.md "Measured
+ * model"); σ of ln|H| in nepers is 0.1151 × σ in dB (PITFALLS.md "Fitting").
+ */
+final class MeasuredResponse {
+    private final double[] frequenciesHz;
+    private final double[] lnMagnitude;
+    private final double[] phaseRad;
+    private final double[] sigmaMagnitude;
+    private final double[] sigmaPhase;
+    private final boolean withPhase;
+
+    /**
+     * @param defaultGainDb  σ of the gain where the sweep states none, in dB, positive
+     * @param defaultPhaseDeg σ of the phase where the sweep states none, in degrees, positive
+     */
+    MeasuredResponse(Sweep sweep, double defaultGainDb, double defaultPhaseDeg) {
+        int n = sweep.size();
+        this.withPhase = sweep.hasPhase();
+        this.frequenciesHz = new double[n];
+        this.lnMagnitude = new double[n];
+        this.phaseRad = new double[n];
+        this.sigmaMagnitude = new double[n];
+        this.sigmaPhase = new double[n];
+        for (int i = 0; i < n; i++) {
+            SweepPoint point = sweep.points().get(i);
+            frequenciesHz[i] = point.frequencyHz();
+            lnMagnitude[i] = Decibels.toNepers(point.gainDb());
+            double gainSigma = point.gainUncertaintyDb().orElse(defaultGainDb);
+            // a stated zero uncertainty would give infinite weight: take the default instead
+            sigmaMagnitude[i] = Decibels.toNepers(gainSigma > 0 ? gainSigma : defaultGainDb);
+            if (withPhase) {
+                phaseRad[i] = Math.toRadians(point.phaseDeg().getAsDouble());
+                double phaseSigma = point.phaseUncertaintyDeg().orElse(defaultPhaseDeg);
+                sigmaPhase[i] = Math.toRadians(phaseSigma > 0 ? phaseSigma : defaultPhaseDeg);
+            }
+        }
+    }
+
+    int size() {
+        return frequenciesHz.length;
+    }
+
+    boolean withPhase() {
+        return withPhase;
+    }
+
+    /** @return residual rows: one per point, two with phase */
+    int rows() {
+        return withPhase ? 2 * size() : size();
+    }
+
+    double[] frequenciesHz() {
+        return frequenciesHz.clone();
+    }
+
+    double lnMagnitude(int i) {
+        return lnMagnitude[i];
+    }
+
+    double phaseRad(int i) {
+        return phaseRad[i];
+    }
+
+    double sigmaMagnitude(int i) {
+        return sigmaMagnitude[i];
+    }
+
+    double sigmaPhase(int i) {
+        return sigmaPhase[i];
+    }
+}

@@ -1,0 +1,228 @@
+package org.polebench.reconcile;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Optional;
+import java.util.OptionalDouble;
+import java.util.concurrent.CompletableFuture;
+import java.util.concurrent.CompletionException;
+import org.apache.commons.math3.complex.Complex;
+import org.polebench.InputProblem;
+import org.polebench.analysis.ComplexFrequency;
+import org.polebench.analysis.CornerSpread;
+import org.polebench.analysis.Prediction;
+import org.polebench.analysis.StagePrediction;
+import org.polebench.fit.Estimate;
+import org.polebench.fit.FitResult;
+import org.polebench.fit.FitSettings;
+import org.polebench.fit.FittedRoot;
+import org.polebench.fit.RootStatus;
+import org.polebench.fit.SweepFitter;
+import org.polebench.measure.Sweep;
+
+/**
+ * The whole reconcile job for one stage and one sweep (issue 5): fit the sweep starting from
+ * the stage's predicted poles, set prediction and measurement side by side, apportion the
+ * corner error to first order, rank the single-fault hypotheses on the stage's exact model,
+ * and decide the limits. The verdict takes the midband gain and the lower corner from the fit
+ * (the quantities the fit measures directly, with their uncertainties) when the fit describes
+ * the sweep, else from the stage's model at the back-solve's MAP ({@link ModelMeasurement});
+ * the upper corner only when an adequate fit has a fitted high-band pole (a one-pole roll-off
+ * puts the −3 dB point at the pole). Immutable.
+ */
+public final class Reconciler {
+    private final FaultRanking ranking = new FaultRanking();
+    private final CornerApportionment apportionment = new CornerApportionment();
+    private final LimitAssessment assessment = new LimitAssessment();
+    private final ModelMeasurement measurement = new ModelMeasurement();
+
+    /**
+     * χ²/ν above which the rational fit is taken not to describe the sweep (its residuals over
+     * twice the point σ): then the verdict's gain and corner come from the back-solved model.
+     */
+    public static final double FIT_ADEQUATE_CHI_SQUARE = 4;
+
+    /** @throws InputProblem when the sweep cannot be fitted (too few points, no low band) */
+    public ReconcileResult reconcile(StagePrediction predicted, Sweep sweep, DecisionRule rule) throws InputProblem {
+        Prediction prediction = predicted.prediction();
+        int order = prediction.lowBand().order();
+        List<Complex> start = new ArrayList<>();
+        for (ComplexFrequency pole : prediction.poles().roots()) {
+            if (pole.realRadPerS() < 0) {
+                start.add(new Complex(pole.realRadPerS(), pole.imaginaryRadPerS()));
+            }
+        }
+        FitSettings settings = FitSettings.defaults().withMaxPoles(Math.max(1, Math.min(8, order)));
+        if (start.size() == order) {
+            settings = settings.withStartPoles(start);
+        }
+        // the fit and the back-solve are independent: the fit runs on another thread meanwhile
+        SweepFitter fitter = new SweepFitter(settings);
+        CompletableFuture<FitResult> fitting = CompletableFuture.supplyAsync(() -> {
+            try {
+                return fitter.fit(sweep);
+            } catch (InputProblem problem) {
+                throw new CompletionException(problem);
+            }
+        });
+        Diagnosis diagnosis = ranking.rank(predicted.stage(), predicted.operatingPoints(), prediction.lowBand(), sweep);
+        FitResult fit = join(fitting);
+        ModelMeasurement.Measured model = measurement.measure(predicted.stage(), predicted.operatingPoints(),
+                diagnosis.top().backSolve());
+        boolean adequate = fit.quality().reducedChiSquare() <= FIT_ADEQUATE_CHI_SQUARE;
+        Optional<Estimate> fitCorner = fit.lowerCornerModelHz().isPresent() ? fit.lowerCornerModelHz()
+                : fit.lowerCornerDataHz();
+        Optional<Estimate> corner;
+        String cornerSource;
+        if (adequate && fitCorner.isPresent()) {
+            corner = fitCorner;
+            cornerSource = fit.lowerCornerModelHz().isPresent() ? "the fitted model's exact −3 dB corner"
+                    : "the −3 dB point read between measured points";
+        } else {
+            corner = model.lowerCornerHz();
+            cornerSource = "the back-solved stage model's exact −3 dB corner ("
+                    + (adequate ? "the fit quotes no corner" : "the rational fit does not describe the sweep") + ")";
+        }
+        Estimate gainEstimate = fit.midbandGainDb();
+        String gainSource = "the fitted midband gain";
+        if (!adequate && model.midbandGainDb().isPresent()) {
+            gainEstimate = model.midbandGainDb().get();
+            gainSource = "the back-solved stage model's midband gain (the rational fit does not describe the sweep)";
+        }
+        OptionalDouble percentile = OptionalDouble.empty();
+        CornerSpread spread = predicted.spread();
+        if (corner.isPresent() && spread.analysed() > 0) {
+            percentile = spread.fractionAtOrBelow(corner.get().value());
+        }
+        boolean inside = percentile.isPresent() && percentile.getAsDouble() >= SideBySide.SPREAD_LOW
+                && percentile.getAsDouble() <= SideBySide.SPREAD_HIGH;
+        SideBySide sideBySide = new SideBySide(prediction.midbandGainDb(), fit.midbandGainDb(),
+                prediction.sctcLowerCornerHz(), prediction.exactLowerCornerHz(), fitCorner, percentile, inside,
+                matches(prediction, fit), model.midbandGainDb(), model.lowerCornerHz(), adequate);
+
+        Optional<Apportionment> shares = Optional.empty();
+        if (corner.isPresent() && prediction.exactLowerCornerHz().isPresent()) {
+            shares = apportionment.apportion(predicted.stage(), predicted.operatingPoints(), prediction,
+                    capacitorParameters(diagnosis), corner.get().value(), corner.get().standardUncertainty());
+        }
+        Optional<MeasuredQuantity> lower = corner.map(c -> new MeasuredQuantity(c.value(), c.expandedUncertainty(),
+                cornerSource));
+        Optional<MeasuredQuantity> gain = Optional.of(new MeasuredQuantity(gainEstimate.value(),
+                gainEstimate.expandedUncertainty(), gainSource));
+        Optional<MeasuredQuantity> upper = Optional.empty();
+        for (FittedRoot pole : fit.poles()) {
+            if (adequate && pole.label().equals("ph") && pole.status() == RootStatus.FITTED) {
+                upper = Optional.of(new MeasuredQuantity(pole.magnitudeHz(), fit.coverageFactor() * pole.uMagnitudeHz(),
+                        "the fitted high-band pole"));
+            }
+        }
+        Conformity conformity = assessment.assess(predicted.stage().limits(), lower, gain, upper, rule);
+        return new ReconcileResult(predicted, sweep, fit, sideBySide, shares, diagnosis, conformity,
+                gainSource, cornerSource);
+    }
+
+    private static FitResult join(CompletableFuture<FitResult> fitting) throws InputProblem {
+        try {
+            return fitting.join();
+        } catch (CompletionException failure) {
+            if (failure.getCause() instanceof InputProblem) {
+                throw (InputProblem) failure.getCause();
+            }
+            if (failure.getCause() instanceof RuntimeException) {
+                throw (RuntimeException) failure.getCause();
+            }
+            throw failure;
+        }
+    }
+
+    private static List<ModelParameter> capacitorParameters(Diagnosis diagnosis) {
+        List<ModelParameter> result = new ArrayList<>();
+        for (ParameterEstimate estimate : diagnosis.top().backSolve().of(ParameterKind.CAPACITOR)) {
+            result.add(estimate.parameter());
+        }
+        return result;
+    }
+
+    /**
+     * Each predicted root beside the measured root nearest in ln|s| not yet taken (greedy, in
+     * order of distance), DC zeros with DC zeros; the high-band pole is left out (the low-band
+     * prediction has none) and unmatched roots of either side are listed alone.
+     */
+    static List<RootMatch> matches(Prediction prediction, FitResult fit) {
+        List<RootMatch> result = new ArrayList<>();
+        List<FittedRoot> measuredPoles = new ArrayList<>();
+        for (FittedRoot pole : fit.poles()) {
+            if (!pole.label().equals("ph")) {
+                measuredPoles.add(pole);
+            }
+        }
+        match(false, prediction.poles().roots(), measuredPoles, result);
+        List<ComplexFrequency> zeros = prediction.zeros().isPresent() ? prediction.zeros().get().roots() : List.of();
+        match(true, zeros, fit.zeros(), result);
+        return result;
+    }
+
+    private static void match(boolean zero, List<ComplexFrequency> predicted, List<FittedRoot> measured,
+                              List<RootMatch> out) {
+        boolean[] taken = new boolean[measured.size()];
+        List<RootMatch> matched = new ArrayList<>();
+        boolean[] placed = new boolean[predicted.size()];
+        while (true) {
+            int bestP = -1;
+            int bestM = -1;
+            double best = Double.POSITIVE_INFINITY;
+            for (int p = 0; p < predicted.size(); p++) {
+                if (placed[p]) {
+                    continue;
+                }
+                for (int m = 0; m < measured.size(); m++) {
+                    if (taken[m]) {
+                        continue;
+                    }
+                    double distance = distance(predicted.get(p), measured.get(m));
+                    if (distance < best) {
+                        best = distance;
+                        bestP = p;
+                        bestM = m;
+                    }
+                }
+            }
+            if (bestP < 0) {
+                break;
+            }
+            placed[bestP] = true;
+            taken[bestM] = true;
+            matched.add(new RootMatch(zero, Optional.of(predicted.get(bestP)), Optional.of(measured.get(bestM))));
+        }
+        for (int p = 0; p < predicted.size(); p++) {
+            if (!placed[p]) {
+                matched.add(new RootMatch(zero, Optional.of(predicted.get(p)), Optional.empty()));
+            }
+        }
+        for (int m = 0; m < measured.size(); m++) {
+            if (!taken[m]) {
+                matched.add(new RootMatch(zero, Optional.empty(), Optional.of(measured.get(m))));
+            }
+        }
+        matched.sort((a, b) -> Double.compare(magnitude(a), magnitude(b)));
+        out.addAll(matched);
+    }
+
+    private static double magnitude(RootMatch match) {
+        return match.predicted().isPresent() ? match.predicted().get().magnitudeRadPerS()
+                : match.measured().get().radPerS().abs();
+    }
+
+    // DC meets DC at distance 0; DC against a finite root is never preferred to a finite match
+    private static double distance(ComplexFrequency predicted, FittedRoot measured) {
+        double a = predicted.magnitudeRadPerS();
+        double b = measured.radPerS().abs();
+        if (a == 0 && b == 0) {
+            return 0;
+        }
+        if (a == 0 || b == 0) {
+            return 1e6;
+        }
+        return Math.abs(Math.log(a / b));
+    }
+}

@@ -1,0 +1,229 @@
+package org.polebench.report;
+
+import com.fasterxml.jackson.databind.node.ArrayNode;
+import com.fasterxml.jackson.databind.node.JsonNodeFactory;
+import com.fasterxml.jackson.databind.node.ObjectNode;
+import java.util.List;
+import java.util.Optional;
+import java.util.OptionalDouble;
+import org.polebench.fit.Estimate;
+import org.polebench.reconcile.Apportionment;
+import org.polebench.reconcile.BackSolve;
+import org.polebench.reconcile.CapacitorShare;
+import org.polebench.reconcile.Hypothesis;
+import org.polebench.reconcile.LimitCheck;
+import org.polebench.reconcile.ParameterEstimate;
+import org.polebench.reconcile.ParameterKind;
+import org.polebench.reconcile.ReconcileResult;
+import org.polebench.reconcile.RootMatch;
+import org.polebench.reconcile.SideBySide;
+import org.polebench.reconcile.Verdict;
+
+/**
+ * The JSON object of {@code polebench reconcile --json} (issue 5): {@code predicted} as
+ * {@code predict --json}, {@code measured} as {@code fit --json}, {@code capacitors},
+ * {@code nuisance}, {@code hypotheses} (most probable first), {@code verdict}; and beside them
+ * {@code side_by_side}, {@code apportionment}, {@code correlation} and {@code noise}. Keys are
+ * snake_case and carry their unit; a value that does not exist is {@code null}.
+ */
+public final class ReconcileJson {
+    private final JsonNodeFactory nodes = JsonNodeFactory.instance;
+
+    public ObjectNode of(ReconcileResult result) {
+        ObjectNode root = nodes.objectNode();
+        root.set("predicted", new PredictionJson().of(result.predicted()));
+        root.set("measured", new FitJson().toJson(result.measured()));
+        root.set("side_by_side", sideBySide(result.sideBySide()));
+        root.set("apportionment", result.apportionment().isPresent()
+                ? apportionment(result.apportionment().get()) : nodes.nullNode());
+        BackSolve backSolve = result.backSolve();
+        root.put("back_solve_hypothesis", result.diagnosis().top().label());
+        ArrayNode capacitors = root.putArray("capacitors");
+        for (ParameterEstimate estimate : backSolve.of(ParameterKind.CAPACITOR)) {
+            ObjectNode row = capacitors.addObject();
+            row.put("id", estimate.parameter().label());
+            row.put("nominal_farads", estimate.parameter().nominal());
+            row.put("estimated_farads", estimate.value());
+            row.put("u_farads", estimate.uncertainty());
+            row.put("identifiable", estimate.identifiable());
+        }
+        ObjectNode nuisance = root.putObject("nuisance");
+        ArrayNode bias = nuisance.putArray("bias");
+        for (ParameterEstimate estimate : backSolve.of(ParameterKind.BIAS)) {
+            ObjectNode row = bias.addObject();
+            row.put("id", estimate.parameter().label());
+            row.put("nominal_a", estimate.parameter().nominal());
+            row.put("estimated_a", estimate.value());
+            row.put("u_a", estimate.uncertainty());
+            row.put("identifiable", estimate.identifiable());
+        }
+        ParameterEstimate gain = backSolve.gain();
+        ObjectNode gainNode = nuisance.putObject("gain");
+        gainNode.put("estimated_db", gain.value());
+        gainNode.put("u_db", gain.uncertainty());
+        gainNode.put("identifiable", gain.identifiable());
+        ArrayNode correlation = root.putArray("correlation");
+        for (List<Double> row : backSolve.correlation()) {
+            ArrayNode line = correlation.addArray();
+            row.forEach(line::add);
+        }
+        ObjectNode noise = root.putObject("noise");
+        noise.put("default_gain_sigma_db", result.diagnosis().defaultGainSigmaDb());
+        noise.put("default_phase_sigma_deg", result.diagnosis().defaultPhaseSigmaDeg());
+        noise.put("scale", result.diagnosis().noiseScale());
+        noise.put("chi_squared", backSolve.chiSquared());
+        noise.put("data_rows", backSolve.dataRows());
+        ArrayNode hypotheses = root.putArray("hypotheses");
+        for (Hypothesis hypothesis : result.diagnosis().hypotheses()) {
+            hypotheses.add(hypothesis(hypothesis));
+        }
+        root.set("verdict", verdict(result.conformity().verdict(), result.conformity().notChecked(),
+                result.cornerSource(), result.midbandSource()));
+        return root;
+    }
+
+    private ObjectNode hypothesis(Hypothesis hypothesis) {
+        ObjectNode row = nodes.objectNode();
+        row.put("kind", hypothesis.kind().word());
+        if (hypothesis.part().isPresent()) {
+            row.put("part", hypothesis.part().get());
+        } else {
+            row.putNull("part");
+        }
+        row.put("probability", hypothesis.probability());
+        row.put("prior_probability", hypothesis.priorProbability());
+        if (hypothesis.culprit().isPresent()) {
+            ParameterEstimate culprit = hypothesis.culprit().get();
+            row.put("estimated_value", culprit.value());
+            row.put("u_value", culprit.uncertainty());
+            row.put("unit", culprit.parameter().kind().unit());
+            row.put("estimated_factor", culprit.factor());
+            row.put("identifiable", culprit.identifiable());
+        } else {
+            row.putNull("estimated_value");
+            row.putNull("u_value");
+            row.putNull("unit");
+            row.putNull("estimated_factor");
+            row.putNull("identifiable");
+        }
+        putOptional(row, "nearest_preferred", hypothesis.nearestPreferred());
+        row.put("decade_slip", hypothesis.decadeSlip());
+        row.put("statement", hypothesis.statement());
+        return row;
+    }
+
+    private ObjectNode sideBySide(SideBySide side) {
+        ObjectNode node = nodes.objectNode();
+        ObjectNode gain = node.putObject("midband_gain_db");
+        gain.put("predicted", side.predictedMidbandGainDb());
+        putEstimate(gain, Optional.of(side.measuredMidbandGainDb()));
+        ObjectNode corner = node.putObject("lower_corner_hz");
+        corner.put("sctc", side.sctcLowerCornerHz());
+        putOptional(corner, "exact", side.exactLowerCornerHz());
+        putEstimate(corner, side.measuredLowerCornerHz());
+        putOptional(corner, "spread_percentile", side.cornerPercentile());
+        putBackSolved(corner, side.backSolvedLowerCornerHz());
+        putBackSolved(gain, side.backSolvedMidbandGainDb());
+        node.put("fit_adequate", side.fitAdequate());
+        corner.put("inside_design_spread", side.insideDesignSpread());
+        ArrayNode roots = node.putArray("roots_hz");
+        for (RootMatch match : side.roots()) {
+            ObjectNode row = roots.addObject();
+            row.put("kind", match.zero() ? "zero" : "pole");
+            if (match.predicted().isPresent()) {
+                row.put("predicted_re", match.predicted().get().realHz());
+                row.put("predicted_im", match.predicted().get().imaginaryHz());
+            } else {
+                row.putNull("predicted_re");
+                row.putNull("predicted_im");
+            }
+            if (match.measured().isPresent()) {
+                row.put("measured_re", match.measured().get().realHz());
+                row.put("measured_im", match.measured().get().imaginaryHz());
+                row.put("measured_u", match.measured().get().uMagnitudeHz());
+                row.put("measured_status", match.measured().get().status().name().toLowerCase());
+            } else {
+                row.putNull("measured_re");
+                row.putNull("measured_im");
+                row.putNull("measured_u");
+                row.putNull("measured_status");
+            }
+        }
+        return node;
+    }
+
+    private ObjectNode apportionment(Apportionment apportionment) {
+        ObjectNode node = nodes.objectNode();
+        node.put("ln_corner_ratio", apportionment.lnCornerRatio());
+        node.put("u_ln_corner_ratio", apportionment.uLnCorner());
+        ArrayNode shares = node.putArray("shares");
+        for (CapacitorShare share : apportionment.shares()) {
+            ObjectNode row = shares.addObject();
+            row.put("id", share.capacitor());
+            row.put("corner_sensitivity", share.cornerSensitivity());
+            row.put("estimated_farads", share.estimatedFarads());
+            row.put("corner_contribution", share.cornerContribution());
+            if (Double.isFinite(share.share())) {
+                row.put("share", share.share());
+            } else {
+                row.putNull("share");
+            }
+        }
+        return node;
+    }
+
+    private ObjectNode verdict(Verdict verdict, List<String> notChecked, String cornerSource, String gainSource) {
+        ObjectNode node = nodes.objectNode();
+        node.put("overall", verdict.overall());
+        node.put("lower_corner_source", cornerSource);
+        node.put("midband_gain_source", gainSource);
+        node.put("rule", verdict.rule().name().toLowerCase());
+        node.put("rule_statement", verdict.rule().statement());
+        ArrayNode checks = node.putArray("checks");
+        for (LimitCheck check : verdict.checks()) {
+            ObjectNode row = checks.addObject();
+            row.put("quantity", check.quantity());
+            row.put("unit", check.unit());
+            row.put("value", check.value());
+            row.put("expanded_uncertainty", check.expandedUncertainty());
+            putOptional(row, "min", check.min());
+            putOptional(row, "max", check.max());
+            row.put("margin", check.marginToLimit());
+            row.put("guard_band", check.rule().guardBand(check.expandedUncertainty()));
+            row.put("pass", check.pass());
+        }
+        ArrayNode unchecked = node.putArray("not_checked");
+        notChecked.forEach(unchecked::add);
+        return node;
+    }
+
+    private static void putEstimate(ObjectNode node, Optional<Estimate> estimate) {
+        if (estimate.isPresent()) {
+            node.put("measured", estimate.get().value());
+            node.put("u_measured", estimate.get().standardUncertainty());
+            node.put("coverage_factor", estimate.get().coverageFactor());
+        } else {
+            node.putNull("measured");
+            node.putNull("u_measured");
+            node.putNull("coverage_factor");
+        }
+    }
+
+    private static void putBackSolved(ObjectNode node, Optional<Estimate> estimate) {
+        if (estimate.isPresent()) {
+            node.put("back_solved", estimate.get().value());
+            node.put("u_back_solved", estimate.get().standardUncertainty());
+        } else {
+            node.putNull("back_solved");
+            node.putNull("u_back_solved");
+        }
+    }
+
+    private static void putOptional(ObjectNode node, String key, OptionalDouble value) {
+        if (value.isPresent()) {
+            node.put(key, value.getAsDouble());
+        } else {
+            node.putNull(key);
+        }
+    }
+}

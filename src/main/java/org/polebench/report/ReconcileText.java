@@ -1,0 +1,198 @@
+package org.polebench.report;
+
+import java.io.PrintWriter;
+import java.util.Locale;
+import java.util.OptionalDouble;
+import org.polebench.analysis.ComplexFrequency;
+import org.polebench.fit.Estimate;
+import org.polebench.fit.FittedRoot;
+import org.polebench.fit.RootStatus;
+import org.polebench.reconcile.Apportionment;
+import org.polebench.reconcile.BackSolve;
+import org.polebench.reconcile.CapacitorShare;
+import org.polebench.reconcile.Hypothesis;
+import org.polebench.reconcile.LimitCheck;
+import org.polebench.reconcile.ParameterEstimate;
+import org.polebench.reconcile.ParameterKind;
+import org.polebench.reconcile.ReconcileResult;
+import org.polebench.reconcile.RootMatch;
+import org.polebench.reconcile.SideBySide;
+import org.polebench.reconcile.Verdict;
+import org.polebench.units.EngineeringValue;
+
+/**
+ * The readable summary {@code polebench reconcile} prints: predicted beside measured, the
+ * first-order apportionment, the capacitor back-solve, the ranked hypotheses and the verdict
+ * with its decision rule stated (ISO/IEC 17025:2017 7.8.6). Uncertainties to two significant
+ * figures (GUM 7.2.6).
+ */
+public final class ReconcileText {
+
+    public void write(ReconcileResult result, PrintWriter out) {
+        out.println("Stage: " + result.predicted().stage().name());
+        out.println("Sweep: " + result.sweep().size() + " points, " + hz(result.sweep().lowestHz()) + " to "
+                + hz(result.sweep().highestHz()) + (result.sweep().hasPhase() ? ", gain and phase" : ", gain only"));
+        for (String note : result.sweep().source().notes()) {
+            out.println("  " + note);
+        }
+        out.println();
+        sideBySide(result.sideBySide(), out);
+        if (result.apportionment().isPresent()) {
+            apportionment(result.apportionment().get(), out);
+        }
+        backSolve(result, out);
+        hypotheses(result, out);
+        verdict(result, out);
+    }
+
+    private static void sideBySide(SideBySide side, PrintWriter out) {
+        out.println("Predicted against measured");
+        out.println(String.format(Locale.ROOT, "  %-26s %14s %24s", "", "predicted", "measured (± U, k = "
+                + MeasuredValueFormat.fixed(side.measuredMidbandGainDb().coverageFactor(), 2) + ")"));
+        Estimate gain = side.measuredMidbandGainDb();
+        out.println(String.format(Locale.ROOT, "  %-26s %14s %24s", "midband gain",
+                MeasuredValueFormat.fixed(side.predictedMidbandGainDb(), 2) + " dB", estimate(gain, "dB")));
+        out.println(String.format(Locale.ROOT, "  %-26s %14s", "lower corner, SCTC", hz(side.sctcLowerCornerHz())));
+        out.println(String.format(Locale.ROOT, "  %-26s %14s %24s", "lower corner, exact",
+                side.exactLowerCornerHz().isPresent() ? hz(side.exactLowerCornerHz().getAsDouble()) : "none",
+                side.measuredLowerCornerHz().isPresent() ? estimate(side.measuredLowerCornerHz().get(), "Hz")
+                        : "not quoted by the fit"));
+        if (side.backSolvedMidbandGainDb().isPresent()) {
+            out.println(String.format(Locale.ROOT, "  %-26s %14s %24s", "midband gain, back-solved", "",
+                    estimate(side.backSolvedMidbandGainDb().get(), "dB")));
+        }
+        if (side.backSolvedLowerCornerHz().isPresent()) {
+            out.println(String.format(Locale.ROOT, "  %-26s %14s %24s", "lower corner, back-solved", "",
+                    estimate(side.backSolvedLowerCornerHz().get(), "Hz")));
+        }
+        if (!side.fitAdequate()) {
+            out.println("  the rational fit does not describe this sweep (χ²/ν above "
+                    + MeasuredValueFormat.sixFigures(org.polebench.reconcile.Reconciler.FIT_ADEQUATE_CHI_SQUARE)
+                    + "): the verdict uses the back-solved values");
+        }
+        if (side.cornerPercentile().isPresent()) {
+            out.println(String.format(Locale.ROOT, "  measured corner at the %.1f %% point of the design spread: %s",
+                    100 * side.cornerPercentile().getAsDouble(), side.insideDesignSpread()
+                            ? "inside the design spread (central 95 %)" : "OUTSIDE the design spread (central 95 %)"));
+        }
+        out.println("  poles and zeros (Hz, s/2π)       predicted              measured ± u");
+        for (RootMatch match : side.roots()) {
+            String predicted = match.predicted().isPresent() ? root(match.predicted().get()) : "-";
+            String measured = "not resolved";
+            if (match.measured().isPresent()) {
+                FittedRoot root = match.measured().get();
+                if (root.status() == RootStatus.UNIDENTIFIABLE) {
+                    measured = "unidentifiable (outside the band)";
+                } else if (root.status() == RootStatus.STRUCTURAL) {
+                    measured = "0 (at DC, structural)";
+                } else {
+                    String[] re = MeasuredValueFormat.withUncertainty(root.realHz(), root.uMagnitudeHz());
+                    measured = re[0] + (root.isReal() ? "" : String.format(Locale.ROOT, " ± j%.4g", Math.abs(root.imaginaryHz())))
+                            + " ± " + re[1];
+                }
+            }
+            out.println(String.format(Locale.ROOT, "    %-6s %30s   %s", match.zero() ? "zero" : "pole", predicted, measured));
+        }
+        out.println();
+    }
+
+    private static void apportionment(Apportionment apportionment, PrintWriter out) {
+        out.println(String.format(Locale.ROOT, "First-order apportionment of the corner error (ln f_meas/f_pred = %+.4f ± %.4f)",
+                apportionment.lnCornerRatio(), apportionment.uLnCorner()));
+        out.println(String.format(Locale.ROOT, "  %-8s %10s %12s %14s %8s", "part", "dlnf/dlnC", "estimate", "Δln f", "share"));
+        for (CapacitorShare share : apportionment.shares()) {
+            out.println(String.format(Locale.ROOT, "  %-8s %10.3f %12s %+14.4f %7s", share.capacitor(),
+                    share.cornerSensitivity(), EngineeringValue.format(share.estimatedFarads(), "F", 3),
+                    share.cornerContribution(),
+                    Double.isFinite(share.share()) ? String.format(Locale.ROOT, "%.0f%%", 100 * share.share()) : "-"));
+        }
+        out.println();
+    }
+
+    private static void backSolve(ReconcileResult result, PrintWriter out) {
+        BackSolve backSolve = result.backSolve();
+        out.println("Capacitor back-solve (MAP on the stage's exact model, under \"" + result.diagnosis().top().label()
+                + "\"; ± standard uncertainty)");
+        out.println(String.format(Locale.ROOT, "  %-8s %10s %12s %22s %8s  %s", "part", "nominal", "tolerance",
+                "estimate", "×nominal", "identifiable"));
+        for (ParameterEstimate estimate : backSolve.of(ParameterKind.CAPACITOR)) {
+            out.println(String.format(Locale.ROOT, "  %-8s %10s %12s %22s %8.3f  %s", estimate.parameter().label(),
+                    EngineeringValue.format(estimate.parameter().nominal(), "F", 3),
+                    estimate.parameter().tolerance().get().describe(),
+                    EngineeringValue.format(estimate.value(), "F", 3) + " ± "
+                            + EngineeringValue.format(estimate.uncertainty(), "F", 2),
+                    estimate.factor(), estimate.identifiable() ? "yes" : "no (the sweep barely sees it; not blamed)"));
+        }
+        for (ParameterEstimate estimate : backSolve.of(ParameterKind.BIAS)) {
+            out.println(String.format(Locale.ROOT, "  %-8s bias current %s ± %s against %s (×%.3f)%s",
+                    estimate.parameter().label(), EngineeringValue.format(estimate.value(), "A", 3),
+                    EngineeringValue.format(estimate.uncertainty(), "A", 2),
+                    EngineeringValue.format(estimate.parameter().nominal(), "A", 3), estimate.factor(),
+                    estimate.identifiable() ? "" : "  (not identifiable)"));
+        }
+        ParameterEstimate gain = backSolve.gain();
+        out.println(String.format(Locale.ROOT, "  gain calibration %+.3f dB ± %.3f dB%s", gain.value(), gain.uncertainty(),
+                gain.identifiable() ? "" : "  (not identifiable)"));
+        out.println(String.format(Locale.ROOT, "  χ² = %.1f over %d residuals; point σ %s dB and %s° where the sweep "
+                        + "states none, times %.3f (residual scale of the best hypothesis)", backSolve.chiSquared(),
+                backSolve.dataRows(), MeasuredValueFormat.sixFigures(result.diagnosis().defaultGainSigmaDb()),
+                MeasuredValueFormat.sixFigures(result.diagnosis().defaultPhaseSigmaDeg()), result.diagnosis().noiseScale()));
+        out.println();
+    }
+
+    private static void hypotheses(ReconcileResult result, PrintWriter out) {
+        out.println("Single-fault hypotheses (Laplace evidence; prior: no fault 0.5, the rest share 0.5)");
+        for (Hypothesis hypothesis : result.diagnosis().hypotheses()) {
+            out.println(String.format(Locale.ROOT, "  %7.3f %%  %-20s %s", 100 * hypothesis.probability(),
+                    hypothesis.label(), hypothesis.kind().word().equals("none") && hypothesis.probability() < 0.5
+                            ? "" : hypothesis.statement()));
+        }
+        out.println("  Most likely: " + result.diagnosis().top().statement());
+        out.println();
+    }
+
+    private static void verdict(ReconcileResult result, PrintWriter out) {
+        Verdict verdict = result.conformity().verdict();
+        out.println("Verdict against the stage's limits");
+        out.println("  rule: " + verdict.rule().statement());
+        out.println("  lower corner from " + result.cornerSource() + "; midband gain from " + result.midbandSource());
+        for (LimitCheck check : verdict.checks()) {
+            out.println(String.format(Locale.ROOT, "  %-14s %12s  U %-10s limit %-20s margin %-12s %s", check.quantity(),
+                    value(check.value(), check.unit()), value(check.expandedUncertainty(), check.unit()),
+                    limit(check.min(), check.max(), check.unit()), value(check.marginToLimit(), check.unit()),
+                    check.pass() ? "pass" : "FAIL"));
+        }
+        for (String line : result.conformity().notChecked()) {
+            out.println("  " + line);
+        }
+        out.println("  overall: " + verdict.overall().toUpperCase(Locale.ROOT));
+    }
+
+    private static String limit(OptionalDouble min, OptionalDouble max, String unit) {
+        if (min.isPresent() && max.isPresent()) {
+            return value(min.getAsDouble(), unit) + " to " + value(max.getAsDouble(), unit);
+        }
+        return min.isPresent() ? "≥ " + value(min.getAsDouble(), unit) : "≤ " + value(max.getAsDouble(), unit);
+    }
+
+    private static String value(double value, String unit) {
+        return unit.equals("dB") ? MeasuredValueFormat.fixed(value, 2) + " dB" : EngineeringValue.format(value, unit, 4);
+    }
+
+    private static String estimate(Estimate estimate, String unit) {
+        String[] text = MeasuredValueFormat.withUncertainty(estimate.value(), estimate.expandedUncertainty());
+        return text[0] + " ± " + text[1] + " " + unit;
+    }
+
+    private static String root(ComplexFrequency root) {
+        if (root.magnitudeRadPerS() == 0) {
+            return "0 (at DC)";
+        }
+        return root.isReal() ? String.format(Locale.ROOT, "%.4g", root.realHz())
+                : String.format(Locale.ROOT, "%.4g ± j%.4g", root.realHz(), Math.abs(root.imaginaryHz()));
+    }
+
+    private static String hz(double hz) {
+        return EngineeringValue.format(hz, "Hz", 4);
+    }
+}

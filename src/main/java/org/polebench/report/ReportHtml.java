@@ -1,0 +1,640 @@
+package org.polebench.report;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import java.util.Locale;
+import org.polebench.units.EngineeringValue;
+
+/**
+ * The test report as one self-contained HTML page, rendered from a result's JSON object
+ * ({@link ResultJson}) alone, so that {@code reconcile --report} and {@code polebench report
+ * RESULT.json} share one renderer and give the same page for the same result. It carries the
+ * items of ISO/IEC 17025:2017 7.8.2.1 that polebench can know (title, unique id on every page,
+ * dates of test and issue, the item, the method, the instrument, results with units and
+ * expanded uncertainties, the decision rule (7.8.6), the scope statement, a clear end) and
+ * leaves blanks to fill by hand for those it cannot (laboratory, customer, date of receipt,
+ * signatures).
+ *
+ * <p>No script, no network: the CSS sits in a {@code <style>} element and the charts are inline
+ * SVG. The id and the title run in a table header group and the footer in a table footer group,
+ * which a browser repeats on every printed page. Every string that came from a user's file or
+ * option (stage name, part ids, operator, board, notes, warnings) is HTML-escaped. For the same
+ * result and stamp the page is byte-identical.
+ */
+public final class ReportHtml {
+    private static final String NONE = "—";
+
+    private final ReportCharts charts = new ReportCharts();
+
+    /**
+     * @param root          the result, as {@link ResultJson} writes it
+     * @param resultSha256  hex SHA-256 of the {@code result.json} bytes the page is rendered from
+     * @param stamp         the report's id and date of issue
+     */
+    public String render(JsonNode root, String resultSha256, ReportStamp stamp) {
+        StringBuilder h = new StringBuilder(400_000);
+        String stage = root.path("predicted").path("stage").asText();
+        String id = stamp.reportId();
+        h.append("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n");
+        h.append("<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n");
+        h.append("<meta name=\"generator\" content=\"polebench ").append(esc(root.path("polebench_version").asText()))
+                .append("\">\n");
+        h.append("<title>Test report ").append(esc(id)).append(" — ").append(esc(stage)).append("</title>\n");
+        h.append("<style>\n").append(CSS).append("</style>\n</head>\n<body>\n");
+        h.append("<table class=\"sheet\">\n<thead><tr><td><div class=\"running-head\">")
+                .append("<span>Test report <b class=\"report-id\">").append(esc(id)).append("</b></span>")
+                .append("<span>").append(esc(stage)).append("</span>")
+                .append("<span>issued ").append(esc(stamp.issuedText())).append("</span>")
+                .append("</div></td></tr></thead>\n");
+        h.append("<tfoot><tr><td><div class=\"running-foot\">")
+                .append("<span>").append(esc(id)).append("</span>")
+                .append("<span>polebench ").append(esc(root.path("polebench_version").asText())).append("</span>")
+                .append("<span>The results relate only to the item tested.</span>")
+                .append("</div></td></tr></tfoot>\n<tbody><tr><td>\n");
+
+        h.append("<header class=\"title\">\n<h1>Test report</h1>\n<p class=\"subtitle\">Low-frequency response of an "
+                + "amplifier stage: design prediction, bench sweep, capacitor back-solve and verdict</p>\n");
+        h.append("<p class=\"ids\">Report <b id=\"report-id\">").append(esc(id)).append("</b> · issued <time id=\"date-of-issue\">")
+                .append(esc(stamp.issuedText())).append("</time></p>\n</header>\n");
+        summary(root, h);
+        identification(root, stamp, h);
+        method(root, h);
+        instrument(root, h);
+        results(root, h);
+        traceability(root, resultSha256, h);
+        cautions(h);
+        statement(root, h);
+        h.append("<p id=\"end-of-report\" class=\"end\">End of test report ").append(esc(id)).append("</p>\n");
+        h.append("</td></tr></tbody>\n</table>\n</body>\n</html>\n");
+        return h.toString();
+    }
+
+    private static void summary(JsonNode root, StringBuilder h) {
+        JsonNode verdict = root.path("verdict");
+        String overall = verdict.path("overall").asText();
+        String css = overall.equals("pass") ? "pass" : overall.equals("fail") ? "fail" : "none";
+        h.append("<section id=\"summary\" class=\"summary ").append(css).append("\">\n");
+        h.append("<p class=\"verdict-word\">Verdict: <b id=\"verdict-overall\">").append(esc(overall.toUpperCase(Locale.ROOT)))
+                .append("</b></p>\n");
+        h.append("<p>").append(esc(verdict.path("rule_statement").asText())).append(".</p>\n");
+        JsonNode hypotheses = root.path("hypotheses");
+        if (hypotheses.size() > 0) {
+            JsonNode top = hypotheses.get(0);
+            h.append("<p>Most probable explanation of the sweep: ").append(esc(top.path("statement").asText()))
+                    .append(" (posterior probability ").append(percent(top.path("probability").asDouble())).append(").</p>\n");
+        }
+        h.append("</section>\n");
+    }
+
+    private static void identification(JsonNode root, ReportStamp stamp, StringBuilder h) {
+        JsonNode run = root.path("run");
+        JsonNode sweep = root.path("sweep");
+        h.append("<section id=\"identification\">\n<h2>1 Identification</h2>\n<table class=\"fields\">\n");
+        field(h, "Title", "Test report: low-frequency response of an amplifier stage", null);
+        field(h, "Report id", esc(stamp.reportId()), null);
+        field(h, "Date of issue (UTC)", esc(stamp.issuedText()), null);
+        field(h, "Date of test (UTC)", sweep.path("captured_utc").isTextual() ? esc(sweep.path("captured_utc").asText())
+                : "not recorded in the sweep file", "date-of-test");
+        field(h, "Item tested: stage", esc(root.path("predicted").path("stage").asText())
+                + " <span class=\"note\">(name and revision as the stage file gives them; the file's SHA-256 in "
+                + "section 5 fixes the revision exactly)</span>", "item");
+        String from = run.path("board_from").asText();
+        field(h, "Item tested: board", run.path("board").isTextual() ? esc(run.path("board").asText())
+                + " <span class=\"note\">(from the " + esc(from) + ")</span>" : "not recorded", "board");
+        field(h, "Operator (tested by)", run.path("operator").isTextual() ? esc(run.path("operator").asText())
+                : "not given (use --operator)", "operator");
+        field(h, "Instrument", sweep.path("instrument").asText().isEmpty() ? "not recorded in the sweep file"
+                : esc(sweep.path("instrument").asText()), "instrument");
+        field(h, "Laboratory and location", "<span class=\"blank\"></span>", null);
+        field(h, "Customer", "<span class=\"blank\"></span>", null);
+        field(h, "Date item received", "<span class=\"blank\"></span>", null);
+        h.append("</table>\n</section>\n");
+    }
+
+    private static void method(JsonNode root, StringBuilder h) {
+        JsonNode verdict = root.path("verdict");
+        h.append("<section id=\"method\">\n<h2>2 Method</h2>\n<ol class=\"method\">\n");
+        h.append("<li><b>Prediction.</b> The DC operating point of the stage file is solved, the stage is linearised "
+                + "about it, and the low-band capacitors become ports of a state-space model. The short-circuit "
+                + "time-constant (SCTC) estimate of the lower corner is Σ 1/(2πτᵢ), each τᵢ = CᵢRᵢ with every other "
+                + "capacitor shorted; it is an estimate and can overstate the corner.</li>\n");
+        h.append("<li><b>Exact analysis.</b> The exact lower corner is where the nominal model's gain falls 3.01 dB "
+                + "below midband; poles and zeros are the eigenvalues of the state matrix. The design spread is the "
+                + "exact corner of ").append(root.path("predicted").path("tolerance_spread").path("samples").asInt())
+                .append(" boards drawn uniformly in ln(value) across every part tolerance (seed ")
+                .append(root.path("predicted").path("tolerance_spread").path("seed").asLong()).append(").</li>\n");
+        h.append("<li><b>Fit.</b> A rational model (").append(esc(root.path("fit_model").asText()))
+                .append(") is fitted to the sweep by weighted least squares on complex-log residuals, started from "
+                        + "the predicted poles; its uncertainties come from the fit's covariance.</li>\n");
+        h.append("<li><b>Back-solve.</b> Every low-band capacitor, each transistor's bias current and a flat gain "
+                + "calibration are estimated (maximum a posteriori) on the stage's own exact model, each within its "
+                + "tolerance prior; the single-fault hypotheses (no fault, one capacitor freed, one bias freed, the "
+                + "gain freed) are ranked by their Laplace evidence.</li>\n");
+        h.append("<li><b>Decision rule.</b> ").append(esc(verdict.path("rule_statement").asText()))
+                .append(". Expanded uncertainties U are at k = 2. The lower corner checked comes from ")
+                .append(esc(verdict.path("lower_corner_source").asText())).append("; the midband gain from ")
+                .append(esc(verdict.path("midband_gain_source").asText())).append(".</li>\n");
+        h.append("</ol>\n");
+        if (!root.path("side_by_side").path("fit_adequate").asBoolean(true)) {
+            h.append("<p class=\"deviation\"><b>Deviation from the method:</b> the rational fit does not describe this "
+                    + "sweep (χ²/ν above its threshold), so the verdict uses the back-solved stage model's values "
+                    + "instead of the fit's.</p>\n");
+        }
+        h.append("</section>\n");
+    }
+
+    private static void instrument(JsonNode root, StringBuilder h) {
+        JsonNode sweep = root.path("sweep");
+        JsonNode points = sweep.path("points");
+        h.append("<section id=\"data\">\n<h2>3 Measurement data</h2>\n<table class=\"fields\">\n");
+        field(h, "Sweep file", "<code>" + esc(root.path("sweep_file").asText()) + "</code>", null);
+        field(h, "Read with profile", esc(profile(root)), null);
+        if (points.size() > 0) {
+            field(h, "Points", points.size() + ", " + hz(points.get(0).path("frequency_hz").asDouble()) + " to "
+                    + hz(points.get(points.size() - 1).path("frequency_hz").asDouble())
+                    + (sweep.path("has_phase").asBoolean() ? ", gain and phase" : ", gain only"), null);
+        }
+        h.append("</table>\n");
+        if (sweep.path("notes").size() > 0) {
+            h.append("<p class=\"caption\">Notes in the sweep file</p>\n<ul class=\"notes\">\n");
+            for (JsonNode note : sweep.path("notes")) {
+                h.append("<li>").append(esc(note.asText())).append("</li>\n");
+            }
+            h.append("</ul>\n");
+        }
+        h.append("</section>\n");
+    }
+
+    private void results(JsonNode root, StringBuilder h) {
+        h.append("<section id=\"results\">\n<h2>4 Results</h2>\n");
+        sideBySide(root, h);
+        h.append("<figure id=\"chart-bode\" class=\"chart\">\n")
+                .append(ReportCharts.svgElement(charts.bode(root).chart(), ReportCharts.WIDTH, ReportCharts.BODE_HEIGHT,
+                        "pb-bode"))
+                .append("\n<figcaption>Figure 1. Measured gain and phase (points), the fitted model, the nominal stage's "
+                        + "exact response and the SCTC single-pole estimate D·s/(s + 2π·")
+                .append(hz(root.path("curves").path("sctc_corner_hz").asDouble()))
+                .append("). The shading holds, at each frequency, the central ")
+                .append(Math.round(100 * root.path("curves").path("band_coverage").asDouble()))
+                .append(" % of the gains of ").append(root.path("curves").path("band_boards").asInt())
+                .append(" boards drawn across the part tolerances (a pointwise band, not one board's curve).")
+                .append("</figcaption>\n</figure>\n");
+        apportionment(root, h);
+        capacitors(root, h);
+        hypotheses(root, h);
+        verdict(root, h);
+        h.append("</section>\n");
+    }
+
+    private static void sideBySide(JsonNode root, StringBuilder h) {
+        JsonNode side = root.path("side_by_side");
+        JsonNode gain = side.path("midband_gain_db");
+        JsonNode corner = side.path("lower_corner_hz");
+        JsonNode spread = root.path("predicted").path("tolerance_spread");
+        h.append("<h3>4.1 Predicted beside measured</h3>\n<table id=\"side-by-side\" class=\"data\">\n");
+        h.append("<thead><tr><th>Quantity</th><th>SCTC estimate</th><th>Exact, nominal stage</th>"
+                + "<th>Design spread 5 % / 50 % / 95 %</th><th>Measured (fit) ± U</th><th>Back-solved model ± U</th>"
+                + "</tr></thead>\n<tbody>\n");
+        h.append("<tr><th>Midband gain</th><td>").append(NONE).append("</td><td>")
+                .append(db(gain.path("predicted"))).append("</td><td>").append(NONE).append("</td><td>")
+                .append(withU(gain, "measured", "u_measured", gain.path("coverage_factor").asDouble(2), "dB"))
+                .append("</td><td>").append(withU(gain, "back_solved", "u_back_solved", 2, "dB")).append("</td></tr>\n");
+        h.append("<tr><th>Lower corner</th><td>").append(hzOrNone(corner.path("sctc"))).append("</td><td>")
+                .append(hzOrNone(corner.path("exact"))).append("</td><td>").append(hzOrNone(spread.path("p05_hz")))
+                .append(" / ").append(hzOrNone(spread.path("p50_hz"))).append(" / ").append(hzOrNone(spread.path("p95_hz")))
+                .append("</td><td>").append(withU(corner, "measured", "u_measured", corner.path("coverage_factor").asDouble(2), "Hz"))
+                .append("</td><td>").append(withU(corner, "back_solved", "u_back_solved", 2, "Hz")).append("</td></tr>\n");
+        h.append("</tbody>\n</table>\n");
+        if (corner.path("spread_percentile").isNumber()) {
+            h.append("<p>The corner the verdict uses lies at the ")
+                    .append(String.format(Locale.ROOT, "%.1f", 100 * corner.path("spread_percentile").asDouble()))
+                    .append(" % point of the design spread: ")
+                    .append(corner.path("inside_design_spread").asBoolean() ? "inside" : "<b>outside</b>")
+                    .append(" its central 95 %.</p>\n");
+        }
+        h.append("<table id=\"roots\" class=\"data compact\">\n<thead><tr><th>Root</th><th>Predicted (Hz, s/2π)</th>"
+                + "<th>Measured (Hz, s/2π)</th><th>u of |root| (Hz)</th><th>Status</th></tr></thead>\n<tbody>\n");
+        for (JsonNode r : side.path("roots_hz")) {
+            h.append("<tr><td>").append(esc(r.path("kind").asText())).append("</td><td>")
+                    .append(root(r.path("predicted_re"), r.path("predicted_im"))).append("</td><td>")
+                    .append(root(r.path("measured_re"), r.path("measured_im"))).append("</td><td>")
+                    .append(r.path("measured_u").isNumber() ? MeasuredValueFormat.sixFigures(r.path("measured_u").asDouble())
+                            : NONE)
+                    .append("</td><td>").append(r.path("measured_status").isTextual()
+                            ? esc(r.path("measured_status").asText()) : "not resolved").append("</td></tr>\n");
+        }
+        h.append("</tbody>\n</table>\n");
+    }
+
+    private void apportionment(JsonNode root, StringBuilder h) {
+        h.append("<h3>4.2 The capacitors' parts in the lower corner</h3>\n");
+        h.append("<table id=\"sctc-shares\" class=\"data\">\n<thead><tr><th>Capacitor</th><th>Nominal</th>"
+                + "<th>SCTC resistance</th><th>τ</th><th>Share of the SCTC corner</th><th>∂ln f_L/∂ln C (exact)</th>"
+                + "</tr></thead>\n<tbody>\n");
+        for (JsonNode c : root.path("predicted").path("capacitors")) {
+            h.append("<tr><td>").append(esc(c.path("id").asText())).append("</td><td>")
+                    .append(eng(c.path("farads").asDouble(), "F")).append("</td><td>")
+                    .append(eng(c.path("sctc_resistance_ohm").asDouble(), "Ω")).append("</td><td>")
+                    .append(eng(c.path("sctc_time_constant_s").asDouble(), "s")).append("</td><td>")
+                    .append(percent(c.path("share").asDouble())).append("</td><td>")
+                    .append(c.path("corner_sensitivity").isNumber() ? MeasuredValueFormat.fixed(c.path("corner_sensitivity").asDouble(), 3) : NONE)
+                    .append("</td></tr>\n");
+        }
+        h.append("</tbody>\n</table>\n");
+        h.append("<figure id=\"chart-shares\" class=\"chart bar\">\n")
+                .append(ReportCharts.svgElement(charts.cornerShares(root), ReportCharts.WIDTH, ReportCharts.BAR_HEIGHT,
+                        "pb-shares"))
+                .append("\n<figcaption>Figure 2. Each capacitor's share (1/τᵢ)/Σ(1/τ) of the SCTC lower corner.</figcaption>\n"
+                        + "</figure>\n");
+        JsonNode apportionment = root.path("apportionment");
+        if (apportionment.isObject()) {
+            h.append("<p>First-order apportionment of the corner error: ln(f_measured/f_predicted) = ")
+                    .append(MeasuredValueFormat.fixed(apportionment.path("ln_corner_ratio").asDouble(), 4)).append(" ± ")
+                    .append(MeasuredValueFormat.fixed(apportionment.path("u_ln_corner_ratio").asDouble(), 4))
+                    .append(" (standard uncertainty).</p>\n");
+            h.append("<table id=\"apportionment\" class=\"data compact\">\n<thead><tr><th>Capacitor</th>"
+                    + "<th>Estimate (linearised)</th><th>Δln f contribution</th><th>Share of the error</th></tr></thead>\n<tbody>\n");
+            for (JsonNode s : apportionment.path("shares")) {
+                h.append("<tr><td>").append(esc(s.path("id").asText())).append("</td><td>")
+                        .append(eng(s.path("estimated_farads").asDouble(), "F")).append("</td><td>")
+                        .append(MeasuredValueFormat.fixed(s.path("corner_contribution").asDouble(), 4)).append("</td><td>")
+                        .append(s.path("share").isNumber() ? percent(s.path("share").asDouble()) : NONE).append("</td></tr>\n");
+            }
+            h.append("</tbody>\n</table>\n");
+        }
+    }
+
+    private void capacitors(JsonNode root, StringBuilder h) {
+        h.append("<h3>4.3 Capacitor back-solve</h3>\n<p>Maximum a posteriori values on the stage's exact model under the "
+                + "most probable hypothesis (<i>").append(esc(root.path("back_solve_hypothesis").asText()))
+                .append("</i>); u is the standard uncertainty, U = 2u.</p>\n");
+        h.append("<table id=\"capacitors\" class=\"data\">\n<thead><tr><th>Capacitor</th><th>Nominal</th><th>Tolerance</th>"
+                + "<th>Band</th><th>Back-solved ± U</th><th>C/C_nom</th><th>Within tolerance</th><th>Identifiable</th>"
+                + "</tr></thead>\n<tbody>\n");
+        for (JsonNode c : root.path("capacitors")) {
+            boolean within = c.path("within_tolerance").asBoolean(true);
+            h.append("<tr").append(within ? "" : " class=\"outside\"").append("><td>").append(esc(c.path("id").asText()))
+                    .append("</td><td>").append(eng(c.path("nominal_farads").asDouble(), "F")).append("</td><td>")
+                    .append(c.path("tolerance").isTextual() ? esc(c.path("tolerance").asText()) : NONE).append("</td><td>")
+                    .append(c.path("min_farads").isNumber() ? eng(c.path("min_farads").asDouble(), "F") + " to "
+                            + eng(c.path("max_farads").asDouble(), "F") : NONE)
+                    .append("</td><td>").append(eng(c.path("estimated_farads").asDouble(), "F")).append(" ± ")
+                    .append(EngineeringValue.format(2 * c.path("u_farads").asDouble(), "F", 2)).append("</td><td>")
+                    .append(MeasuredValueFormat.fixed(c.path("factor").asDouble(), 3)).append("</td><td>")
+                    .append(c.path("within_tolerance").isBoolean() ? (within ? "yes" : "<b>no</b>") : NONE).append("</td><td>")
+                    .append(c.path("identifiable").asBoolean() ? "yes" : "no (the sweep barely sees it; not blamed)")
+                    .append("</td></tr>\n");
+        }
+        h.append("</tbody>\n</table>\n");
+        h.append("<figure id=\"chart-capacitors\" class=\"chart bar\">\n")
+                .append(ReportCharts.svgElement(charts.capacitorBands(root), ReportCharts.WIDTH, ReportCharts.BAR_HEIGHT,
+                        "pb-caps"))
+                .append("\n<figcaption>Figure 3. Each back-solved capacitor over its nominal value with ± U (k = 2), "
+                        + "against its tolerance band (shaded).</figcaption>\n</figure>\n");
+        JsonNode nuisance = root.path("nuisance");
+        if (nuisance.path("bias").size() > 0 || nuisance.path("gain").isObject()) {
+            h.append("<table id=\"nuisance\" class=\"data compact\">\n<thead><tr><th>Nuisance parameter</th>"
+                    + "<th>Nominal</th><th>Back-solved ± U</th><th>Identifiable</th></tr></thead>\n<tbody>\n");
+            for (JsonNode b : nuisance.path("bias")) {
+                h.append("<tr><td>").append(esc(b.path("id").asText())).append(" bias current</td><td>")
+                        .append(eng(b.path("nominal_a").asDouble(), "A")).append("</td><td>")
+                        .append(eng(b.path("estimated_a").asDouble(), "A")).append(" ± ")
+                        .append(EngineeringValue.format(2 * b.path("u_a").asDouble(), "A", 2)).append("</td><td>")
+                        .append(b.path("identifiable").asBoolean() ? "yes" : "no").append("</td></tr>\n");
+            }
+            JsonNode g = nuisance.path("gain");
+            h.append("<tr><td>flat gain calibration</td><td>0 dB</td><td>")
+                    .append(withU(g, "estimated_db", "u_db", 2, "dB")).append("</td><td>")
+                    .append(g.path("identifiable").asBoolean() ? "yes" : "no").append("</td></tr>\n");
+            h.append("</tbody>\n</table>\n");
+        }
+    }
+
+    private static void hypotheses(JsonNode root, StringBuilder h) {
+        h.append("<h3>4.4 Ranked single-fault hypotheses</h3>\n<table id=\"hypotheses\" class=\"data\">\n<thead><tr>"
+                + "<th>Rank</th><th>Hypothesis</th><th>Prior</th><th>Posterior</th><th>Estimate ± U (k = 2)</th><th>×nominal</th>"
+                + "<th>Nearest preferred value</th><th>Statement</th></tr></thead>\n<tbody>\n");
+        int rank = 1;
+        for (JsonNode y : root.path("hypotheses")) {
+            String unit = y.path("unit").isTextual() ? y.path("unit").asText() : "";
+            h.append("<tr><td>").append(rank++).append("</td><td>").append(esc(label(y))).append("</td><td>")
+                    .append(percent(y.path("prior_probability").asDouble())).append("</td><td>")
+                    .append(percent(y.path("probability").asDouble())).append("</td><td>")
+                    .append(y.path("estimated_value").isNumber() ? estimateText(y.path("estimated_value").asDouble(),
+                            y.path("u_value").asDouble(), unit) : NONE)
+                    .append("</td><td>").append(y.path("estimated_factor").isNumber()
+                            ? MeasuredValueFormat.fixed(y.path("estimated_factor").asDouble(), 3) : NONE)
+                    .append("</td><td>").append(y.path("nearest_preferred").isNumber()
+                            ? eng(y.path("nearest_preferred").asDouble(), "F")
+                            + (y.path("decade_slip").asBoolean() ? " <b>(decade slip)</b>" : "") : NONE)
+                    .append("</td><td>").append(esc(y.path("statement").asText())).append("</td></tr>\n");
+        }
+        h.append("</tbody>\n</table>\n");
+        JsonNode noise = root.path("noise");
+        h.append("<p class=\"note\">Probabilities from the Laplace evidence of each hypothesis with the priors shown; point σ ")
+                .append(MeasuredValueFormat.sixFigures(noise.path("default_gain_sigma_db").asDouble())).append(" dB and ")
+                .append(MeasuredValueFormat.sixFigures(noise.path("default_phase_sigma_deg").asDouble()))
+                .append("° where the sweep states none, scaled by ")
+                .append(MeasuredValueFormat.fixed(noise.path("scale").asDouble(), 3))
+                .append(" (the best hypothesis' residual scale); χ² = ")
+                .append(MeasuredValueFormat.fixed(noise.path("chi_squared").asDouble(), 1)).append(" over ")
+                .append(noise.path("data_rows").asInt()).append(" residuals.</p>\n");
+    }
+
+    private static void verdict(JsonNode root, StringBuilder h) {
+        JsonNode verdict = root.path("verdict");
+        h.append("<h3>4.5 Verdict against the stage's limits</h3>\n<table id=\"verdict\" class=\"data\">\n<thead><tr>"
+                + "<th>Check</th><th>Value</th><th>U (k = 2)</th><th>Limit</th><th>Margin to limit</th><th>Guard band</th>"
+                + "<th>Decision</th></tr></thead>\n<tbody>\n");
+        for (JsonNode c : verdict.path("checks")) {
+            String unit = c.path("unit").asText();
+            boolean pass = c.path("pass").asBoolean();
+            h.append("<tr class=\"").append(pass ? "pass" : "fail").append("\"><td>").append(esc(c.path("quantity").asText()))
+                    .append("</td><td>").append(quantity(c.path("value").asDouble(), c.path("expanded_uncertainty").asDouble(), unit))
+                    .append("</td><td>").append(uncertainty(c.path("expanded_uncertainty").asDouble(), unit))
+                    .append("</td><td>").append(limit(c.path("min"), c.path("max"), unit))
+                    .append("</td><td>").append(quantity(c.path("margin").asDouble(), c.path("expanded_uncertainty").asDouble(), unit))
+                    .append("</td><td>").append(c.path("guard_band").asDouble() == 0 ? "none"
+                            : uncertainty(c.path("guard_band").asDouble(), unit))
+                    .append("</td><td><b>").append(pass ? "pass" : "FAIL").append("</b></td></tr>\n");
+        }
+        if (verdict.path("checks").size() == 0) {
+            h.append("<tr><td colspan=\"7\">The stage file names no limits: nothing was checked.</td></tr>\n");
+        }
+        h.append("</tbody>\n</table>\n");
+        for (JsonNode line : verdict.path("not_checked")) {
+            h.append("<p class=\"note\">").append(esc(line.asText())).append(".</p>\n");
+        }
+        h.append("<p>Rule: ").append(esc(verdict.path("rule_statement").asText()))
+                .append(". Margin is the distance from the value to the nearest limit, positive inside. Overall: <b>")
+                .append(esc(verdict.path("overall").asText().toUpperCase(Locale.ROOT))).append("</b>.</p>\n");
+    }
+
+    private static void traceability(JsonNode root, String resultSha256, StringBuilder h) {
+        JsonNode run = root.path("run");
+        JsonNode curves = root.path("curves");
+        h.append("<section id=\"traceability\">\n<h2>5 Traceability</h2>\n<table class=\"fields\">\n");
+        field(h, "Stage file", "<code>" + esc(root.path("stage_file").asText()) + "</code>", null);
+        field(h, "Stage file SHA-256", "<code id=\"stage-sha256\">" + esc(root.path("stage_sha256").asText()) + "</code>", null);
+        field(h, "Sweep file", "<code>" + esc(root.path("sweep_file").asText()) + "</code>", null);
+        field(h, "Sweep file SHA-256", "<code id=\"sweep-sha256\">" + (root.path("sweep_sha256").asText().isEmpty()
+                ? "none (no file)" : esc(root.path("sweep_sha256").asText())) + "</code>", null);
+        field(h, "result.json SHA-256", "<code id=\"result-sha256\">" + esc(resultSha256) + "</code>", null);
+        field(h, "polebench version", "<span id=\"polebench-version\">" + esc(root.path("polebench_version").asText())
+                + "</span>", null);
+        field(h, "Profile", "<span id=\"profile\">" + esc(profile(root)) + "</span>", null);
+        field(h, "Decision rule", esc(root.path("verdict").path("rule").asText()), null);
+        field(h, "Design spread", run.path("spread_samples").asInt() + " boards, seed " + run.path("spread_seed").asLong(), null);
+        field(h, "Tolerance band of Figure 1", curves.path("band_boards").asInt() + " boards, seed "
+                + curves.path("band_seed").asLong() + ", " + curves.path("band_boards_out_of_active_region").asInt()
+                + " out of the active region", null);
+        h.append("</table>\n<h3>Warnings</h3>\n<ul id=\"warnings\" class=\"warnings\">\n");
+        int count = 0;
+        count += warnings(h, "stage file", root.path("predicted").path("warnings"));
+        count += warnings(h, "import", root.path("import_warnings"));
+        count += warnings(h, "fit", root.path("measured").path("warnings"));
+        count += warnings(h, "report", root.path("report_warnings"));
+        if (count == 0) {
+            h.append("<li>none from the stage file, the import or the fit</li>\n");
+        }
+        h.append("</ul>\n</section>\n");
+    }
+
+    /** The profile that read the sweep, and the name asked for when that was "auto". */
+    private static String profile(JsonNode root) {
+        String asked = root.path("profile").asText();
+        String used = root.path("sweep").path("profile_used").asText("");
+        if (used.isEmpty() || used.equals(asked)) {
+            return asked;
+        }
+        return used + " (asked: " + asked + ")";
+    }
+
+    private static int warnings(StringBuilder h, String from, JsonNode list) {
+        for (JsonNode w : list) {
+            h.append("<li><span class=\"from\">").append(esc(from)).append(":</span> ").append(esc(w.asText())).append("</li>\n");
+        }
+        return list.size();
+    }
+
+    private static void cautions(StringBuilder h) {
+        h.append("<section id=\"cautions\">\n<h2>6 Cautions for bench work</h2>\n<ul>\n");
+        for (String caution : CAUTIONS) {
+            h.append("<li>").append(caution).append("</li>\n");
+        }
+        h.append("</ul>\n</section>\n");
+    }
+
+    private static void statement(JsonNode root, StringBuilder h) {
+        JsonNode run = root.path("run");
+        h.append("<section id=\"scope-statement\" class=\"statement\">\n<h2>7 Scope of the results and sign-off</h2>\n");
+        h.append("<p>The results and the verdict in this report relate only to the item identified in section 1, as "
+                + "tested, with the sweep identified in section 5. They do not cover other boards of the same design, "
+                + "nor this board after any repair, rework or change of conditions. Back-solved part values are "
+                + "inferences from the stage's model, not measurements of the parts.</p>\n");
+        h.append("<table class=\"signatures\">\n<tr><th>Tested by</th><td>")
+                .append(run.path("operator").isTextual() ? esc(run.path("operator").asText()) : "")
+                .append("</td><th>Signature</th><td class=\"line\"></td><th>Date</th><td class=\"line\"></td></tr>\n");
+        h.append("<tr><th>Checked by</th><td class=\"line\"></td><th>Signature</th><td class=\"line\"></td><th>Date</th>"
+                + "<td class=\"line\"></td></tr>\n</table>\n</section>\n");
+    }
+
+    private static void field(StringBuilder h, String name, String valueHtml, String id) {
+        h.append("<tr><th>").append(esc(name)).append("</th><td").append(id == null ? "" : " id=\"" + id + "\"").append(">")
+                .append(valueHtml).append("</td></tr>\n");
+    }
+
+    /** The hypothesis label as the text summary gives it. */
+    private static String label(JsonNode y) {
+        String kind = y.path("kind").asText();
+        if (kind.equals("none")) {
+            return "no fault";
+        }
+        if (kind.equals("gain")) {
+            return "gain calibration";
+        }
+        return y.path("part").asText("?") + (kind.equals("bias") ? " bias current" : "");
+    }
+
+    private static String estimateText(double value, double u, String unit) {
+        if (unit.equals("dB")) {
+            String[] text = MeasuredValueFormat.withUncertainty(value, 2 * u);
+            return text[0] + " ± " + text[1] + " dB";
+        }
+        return eng(value, unit) + " ± " + EngineeringValue.format(2 * u, unit, 2);
+    }
+
+    private static String withU(JsonNode node, String valueKey, String uKey, double k, String unit) {
+        if (!node.path(valueKey).isNumber()) {
+            return NONE;
+        }
+        double u = node.path(uKey).asDouble(0);
+        return quantity(node.path(valueKey).asDouble(), k * u, unit) + " ± " + uncertainty(k * u, unit);
+    }
+
+    /** A value rounded to its uncertainty's last digit (GUM 7.2.6), with unit. */
+    private static String quantity(double value, double expanded, String unit) {
+        return MeasuredValueFormat.value(value, expanded) + " " + esc(unit);
+    }
+
+    private static String uncertainty(double expanded, String unit) {
+        return MeasuredValueFormat.uncertainty(expanded) + " " + esc(unit);
+    }
+
+    private static String limit(JsonNode min, JsonNode max, String unit) {
+        if (min.isNumber() && max.isNumber()) {
+            return MeasuredValueFormat.sixFigures(min.asDouble()) + " to " + MeasuredValueFormat.sixFigures(max.asDouble())
+                    + " " + esc(unit);
+        }
+        return min.isNumber() ? "≥ " + MeasuredValueFormat.sixFigures(min.asDouble()) + " " + esc(unit)
+                : "≤ " + MeasuredValueFormat.sixFigures(max.asDouble()) + " " + esc(unit);
+    }
+
+    private static String root(JsonNode re, JsonNode im) {
+        if (!re.isNumber()) {
+            return NONE;
+        }
+        double r = re.asDouble();
+        double i = im.asDouble();
+        if (r == 0 && i == 0) {
+            return "0 (at DC)";
+        }
+        String text = String.format(Locale.ROOT, "%.4g", r);
+        if (i != 0) {
+            text += String.format(Locale.ROOT, " ± j%.4g", Math.abs(i));
+        }
+        return text.replace("-", "−");
+    }
+
+    private static String db(JsonNode value) {
+        return value.isNumber() ? MeasuredValueFormat.fixed(value.asDouble(), 2) + " dB" : NONE;
+    }
+
+    private static String hzOrNone(JsonNode value) {
+        return value.isNumber() ? hz(value.asDouble()) : NONE;
+    }
+
+    private static String hz(double hz) {
+        return eng(hz, "Hz");
+    }
+
+    private static String eng(double value, String unit) {
+        return esc(EngineeringValue.format(value, unit, 4));
+    }
+
+    private static String percent(double fraction) {
+        return String.format(Locale.ROOT, "%.1f %%", 100 * fraction);
+    }
+
+    /** Escapes text for HTML element content and double-quoted attributes. */
+    static String esc(String text) {
+        StringBuilder out = new StringBuilder(text.length() + 16);
+        for (int i = 0; i < text.length(); i++) {
+            char c = text.charAt(i);
+            switch (c) {
+                case '&':
+                    out.append("&amp;");
+                    break;
+                case '<':
+                    out.append("&lt;");
+                    break;
+                case '>':
+                    out.append("&gt;");
+                    break;
+                case '"':
+                    out.append("&quot;");
+                    break;
+                case '\'':
+                    out.append("&#39;");
+                    break;
+                default:
+                    // control characters other than tab and newline have no place in a report
+                    out.append(c < 0x20 && c != '\t' && c != '\n' ? '\uFFFD' : c);
+            }
+        }
+        return out.toString();
+    }
+
+    private static final String[] CAUTIONS = {
+        "Check that the instrument's inputs are DC-coupled, or that their own AC-coupling corner lies well below the "
+                + "stage's lower corner: an AC-coupled input adds a pole of its own to every low-frequency point.",
+        "The generator's output resistance and the load on the output must be those the stage file states; a probe, "
+                + "meter or cable loads the stage and moves both corners.",
+        "Keep the output well inside its swing and the input well above the noise floor at every point: clipping "
+                + "flattens the gain, noise biases the fit near the stopband.",
+        "Give each low-frequency point time to settle (several periods, and longer after power-up while electrolytic "
+                + "capacitors form and the bias warms): an unsettled point reads low and lags.",
+        "Mains pickup and ground loops disturb points near the mains frequency and its harmonics; a single wild "
+                + "point there is more likely pickup than the stage.",
+        "Electrolytic capacitance changes with temperature and age; a back-solved value holds at the bench "
+                + "temperature of this test.",
+        "A back-solved value is an inference from the stage's model: confirm a suspect part out of circuit with a "
+                + "capacitance meter before rework.",
+        "Under simple acceptance a value close to a limit can pass with up to a 50 % chance that the true value lies "
+                + "outside it (ILAC-G8:09/2019); the guarded rule bounds that risk at about 2.5 % per limit.",
+    };
+
+    private static final String CSS = String.join("\n",
+            ":root { --ink: #1b2430; --muted: #5a6573; --rule: #c9d1db; --band: #e8eef6; --pass: #1f7a3e; "
+                    + "--fail: #b02a2a; --accent: #2d5d9f; }",
+            "* { box-sizing: border-box; }",
+            "html { font-family: 'DejaVu Sans', 'Liberation Sans', Arial, sans-serif; font-size: 10.5pt; color: var(--ink); "
+                    + "background: #fff; }",
+            "body { margin: 0 auto; max-width: 190mm; padding: 0 4mm; line-height: 1.4; }",
+            "table.sheet { width: 100%; border-collapse: collapse; }",
+            "table.sheet > thead { display: table-header-group; }",
+            "table.sheet > tfoot { display: table-footer-group; }",
+            "table.sheet > * > tr > td { padding: 0; }",
+            ".running-head, .running-foot { display: flex; justify-content: space-between; gap: 1em; font-size: 8.5pt; "
+                    + "color: var(--muted); }",
+            ".running-head { border-bottom: 1px solid var(--rule); padding: 2mm 0 1.5mm; margin-bottom: 3mm; }",
+            ".running-foot { border-top: 1px solid var(--rule); padding: 1.5mm 0 2mm; margin-top: 3mm; }",
+            ".running-head .report-id { color: var(--ink); }",
+            "h1 { font-size: 20pt; margin: 2mm 0 0; letter-spacing: 0.02em; color: var(--accent); }",
+            ".subtitle { margin: 1mm 0; color: var(--muted); }",
+            ".ids { margin: 1mm 0 4mm; }",
+            "h2 { font-size: 13pt; border-bottom: 2px solid var(--accent); padding-bottom: 1mm; margin: 7mm 0 2.5mm; "
+                    + "break-after: avoid; }",
+            "h3 { font-size: 11pt; margin: 5mm 0 2mm; break-after: avoid; }",
+            "section.summary { border: 2px solid var(--rule); border-left-width: 8px; padding: 2mm 4mm; margin: 3mm 0; "
+                    + "break-inside: avoid; }",
+            "section.summary.pass { border-color: var(--pass); }",
+            "section.summary.fail { border-color: var(--fail); }",
+            ".verdict-word { font-size: 14pt; margin: 1mm 0; }",
+            ".pass .verdict-word b, tr.pass td:last-child { color: var(--pass); }",
+            ".fail .verdict-word b, tr.fail td:last-child { color: var(--fail); }",
+            "table.fields, table.data, table.signatures { border-collapse: collapse; width: 100%; break-inside: avoid; }",
+            "table.fields th { text-align: left; width: 32%; font-weight: 600; vertical-align: top; }",
+            "table.fields th, table.fields td { padding: 1mm 2mm; border-bottom: 1px solid var(--rule); }",
+            "table.data { font-size: 9pt; margin: 2mm 0; }",
+            "table.data th, table.data td { border: 1px solid var(--rule); padding: 0.8mm 1.5mm; text-align: left; "
+                    + "vertical-align: top; }",
+            "table.data thead th { background: var(--band); }",
+            "table.data tr { break-inside: avoid; }",
+            "table.data tr.outside td { background: #fbeaea; }",
+            "table.compact { font-size: 8.5pt; }",
+            "code { font-family: 'DejaVu Sans Mono', 'Liberation Mono', monospace; font-size: 8.5pt; word-break: break-all; }",
+            ".note { color: var(--muted); font-size: 9pt; }",
+            ".deviation { border-left: 4px solid var(--fail); padding-left: 3mm; }",
+            ".blank { display: inline-block; min-width: 70mm; border-bottom: 1px solid var(--ink); height: 1.1em; }",
+            "figure.chart { margin: 3mm 0; break-inside: avoid; }",
+            "figure.chart svg { display: block; width: 100%; height: auto; }",
+                        "figcaption { font-size: 9pt; color: var(--muted); margin-top: 1mm; }",
+            "ol.method li, #cautions li { margin-bottom: 1.2mm; }",
+            "ul.warnings .from { font-weight: 600; }",
+            "table.signatures { margin-top: 4mm; }",
+            "table.signatures th { text-align: left; width: 12%; padding: 4mm 2mm 1mm 0; font-weight: 600; }",
+            "table.signatures td { padding: 4mm 2mm 1mm; }",
+            "table.signatures td.line { border-bottom: 1px solid var(--ink); width: 22%; }",
+            ".statement { break-inside: avoid; }",
+            ".end { text-align: center; margin: 8mm 0 2mm; font-weight: 600; letter-spacing: 0.05em; }",
+            ".end::before, .end::after { content: ' ■ '; color: var(--accent); }",
+            "@page { size: auto; margin: 15mm; }",
+            "@media print {",
+            "  html { font-size: 9.5pt; }",
+            "  body { max-width: none; padding: 0; }",
+            "  figure, table.data, table.fields, section.summary, section.statement { break-inside: avoid; }",
+            "  h2, h3 { break-after: avoid; }",
+            "  a { color: inherit; text-decoration: none; }",
+            "}",
+            "");
+}
