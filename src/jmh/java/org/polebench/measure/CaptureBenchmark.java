@@ -116,7 +116,8 @@ public class CaptureBenchmark {
             Files.copy(in, stage);
         }
         simulator = new InstrumentSimulator(profile,
-                StageBoard.asBuilt(new StageReader().read(stage).stage(), List.of("C3=47u")), 0.05, 0.5, 1, List.of());
+                StageBoard.asBuilt(new StageReader().read(stage).stage(), List.of(new Fault.CapacitorValue("C3", 47e-6))),
+                SweepNoise.BENCH, 1, List.of());
         PortSettings settings = new SweepCapture(profile).portSettings("generator");
         if (link.equals("tcp")) {
             socket = new ServerSocket(0, 4, InetAddress.getLoopbackAddress());

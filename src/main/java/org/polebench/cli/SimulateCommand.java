@@ -17,7 +17,10 @@ import java.util.concurrent.CountDownLatch;
 import java.util.concurrent.atomic.AtomicBoolean;
 import java.util.concurrent.atomic.AtomicReference;
 import org.polebench.InputProblem;
+import org.polebench.circuit.Stage;
 import org.polebench.circuit.StageReader;
+import org.polebench.measure.Fault;
+import org.polebench.measure.FaultText;
 import org.polebench.measure.InstrumentProfile;
 import org.polebench.measure.InstrumentSimulator;
 import org.polebench.measure.LineTransport;
@@ -26,9 +29,8 @@ import org.polebench.measure.ProfileLibrary;
 import org.polebench.measure.SerialProfile;
 import org.polebench.measure.StageBoard;
 import org.polebench.measure.SweepCapture;
+import org.polebench.measure.SweepNoise;
 import org.polebench.measure.TcpLine;
-import org.polebench.units.EngineeringValue;
-import org.polebench.units.Quantity;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
@@ -65,7 +67,7 @@ final class SimulateCommand implements Callable<Integer> {
     Path stage;
 
     @Option(names = "--fault", paramLabel = "PART=VALUE",
-            description = "how the board differs: C3=4.7u, Q1.bias=0.8 or gain=10 (repeatable)")
+            description = "how the board differs: C3=4.7u, bias:Q1=0.6 or gain=10 (repeatable)")
     List<String> faults = new ArrayList<>();
 
     @Option(names = "--noise", paramLabel = "GAIN,PHASE", defaultValue = "0dB,0deg",
@@ -99,18 +101,23 @@ final class SimulateCommand implements Callable<Integer> {
         for (String text : misbehave) {
             faultsOfLine.add(Misbehaviour.parse(text));
         }
-        double[] sigma = noise(noise);
-        StageBoard board = StageBoard.asBuilt(new StageReader().read(StageChoice.resolve(null, stage)).stage(), faults);
+        SweepNoise sigma = FaultText.noise(noise);
+        Stage designed = new StageReader().read(StageChoice.resolve(null, stage)).stage();
+        List<Fault> asBuilt = new ArrayList<>();
+        for (String text : faults) {
+            asBuilt.add(FaultText.parse(text, designed));
+        }
+        StageBoard board = StageBoard.asBuilt(designed, asBuilt);
         InstrumentSimulator simulator;
         try {
-            simulator = new InstrumentSimulator(profile, board, sigma[0], sigma[1], seed, faultsOfLine);
+            simulator = new InstrumentSimulator(profile, board, sigma, seed, faultsOfLine);
         } catch (IllegalArgumentException e) {
             throw new InputProblem(profile.source().orElse(null), 0, e.getMessage(),
                     "simulate a profile in the line format of streaming-sweeper, or a SCPI profile");
         }
         PrintWriter out = spec.commandLine().getOut();
         out.println("simulating " + profile.name() + " measuring " + board.describe()
-                + (sigma[0] > 0 || sigma[1] > 0 ? ", noise " + sigma[0] + " dB and " + sigma[1] + "°" : ", no noise")
+                + ", noise: " + sigma.describe()
                 + (faultsOfLine.isEmpty() ? "" : ", misbehaving " + faultsOfLine) + " (invented data)");
         out.flush();
         AtomicBoolean stop = new AtomicBoolean();
@@ -217,34 +224,5 @@ final class SimulateCommand implements Callable<Integer> {
             }
         }
         return ExitCodes.OK;
-    }
-
-    /** @return {gain σ in dB, phase σ in degrees} from text such as {@code 0.05dB,0.5deg} */
-    private static double[] noise(String text) throws InputProblem {
-        String[] parts = text.split(",");
-        String usage = "write the gain and phase deviations as 0.05dB,0.5deg";
-        if (parts.length > 2) {
-            throw new InputProblem(null, 0, "--noise " + text + " has more than two parts", usage);
-        }
-        try {
-            double gain = EngineeringValue.parse(parts[0].strip(), Quantity.DECIBELS);
-            double phase = 0;
-            if (parts.length == 2) {
-                String p = parts[1].strip();
-                for (String unit : List.of("degrees", "deg", "°")) {
-                    if (p.endsWith(unit)) {
-                        p = p.substring(0, p.length() - unit.length()).strip();
-                        break;
-                    }
-                }
-                phase = EngineeringValue.parseNumber(p);
-            }
-            if (!(gain >= 0) || !(phase >= 0)) {
-                throw new IllegalArgumentException("a deviation cannot be negative");
-            }
-            return new double[] {gain, phase};
-        } catch (IllegalArgumentException e) {
-            throw new InputProblem(null, 0, "--noise " + text + ": " + e.getMessage(), usage);
-        }
     }
 }

@@ -52,27 +52,21 @@ public final class InstrumentSimulator {
 
     private final SerialProfile profile;
     private final BoardResponse board;
-    private final double gainSigmaDb;
-    private final double phaseSigmaDeg;
+    private final SweepNoise noise;
     private final long seed;
     private final List<Misbehaviour> misbehaviours;
 
     /**
-     * @param gainSigmaDb   standard deviation of the gain noise, in dB, at least 0
-     * @param phaseSigmaDeg standard deviation of the phase noise, in degrees, at least 0
-     * @param seed          seed of the noise
+     * @param noise the Gaussian noise on gain and phase
+     * @param seed  seed of the noise
      * @throws IllegalArgumentException for a streaming profile whose point pattern does not
      *                                  read the simulator's point lines
      */
-    public InstrumentSimulator(SerialProfile profile, BoardResponse board, double gainSigmaDb, double phaseSigmaDeg,
-                               long seed, List<Misbehaviour> misbehaviours) {
-        if (!(gainSigmaDb >= 0) || !(phaseSigmaDeg >= 0) || !Double.isFinite(gainSigmaDb + phaseSigmaDeg)) {
-            throw new IllegalArgumentException("noise deviations must be finite and at least 0");
-        }
+    public InstrumentSimulator(SerialProfile profile, BoardResponse board, SweepNoise noise, long seed,
+                               List<Misbehaviour> misbehaviours) {
         this.profile = profile;
         this.board = board;
-        this.gainSigmaDb = gainSigmaDb;
-        this.phaseSigmaDeg = phaseSigmaDeg;
+        this.noise = noise;
         this.seed = seed;
         this.misbehaviours = List.copyOf(misbehaviours);
         if (profile.protocol() instanceof LineProtocol.StreamedLines) {
@@ -425,16 +419,16 @@ public final class InstrumentSimulator {
 
     private double measuredGainDb(double frequencyHz) {
         Complex h = board.atHz(frequencyHz);
-        return Decibels.fromRatio(h.abs()) + gainSigmaDb * noise(frequencyHz)[0];
+        return Decibels.fromRatio(h.abs()) + noise.gainSigmaDb() * draws(frequencyHz)[0];
     }
 
     private double measuredPhaseDeg(double frequencyHz) {
         Complex h = board.atHz(frequencyHz);
-        return Math.toDegrees(h.getArgument()) + phaseSigmaDeg * noise(frequencyHz)[1];
+        return Math.toDegrees(h.getArgument()) + noise.phaseSigmaDeg() * draws(frequencyHz)[1];
     }
 
     /** @return two standard normal draws for this frequency: gain's, then phase's */
-    private double[] noise(double frequencyHz) {
+    private double[] draws(double frequencyHz) {
         SplittableRandom random = new SplittableRandom(seed * 0x9E3779B97F4A7C15L ^ Double.doubleToLongBits(frequencyHz));
         double gain = random.nextGaussian();
         double phase = random.nextGaussian();

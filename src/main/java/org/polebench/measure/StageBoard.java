@@ -1,10 +1,7 @@
 package org.polebench.measure;
 
 import java.util.ArrayList;
-import java.util.LinkedHashMap;
 import java.util.List;
-import java.util.Locale;
-import java.util.Map;
 import java.util.Optional;
 import org.apache.commons.math3.complex.Complex;
 import org.polebench.InputProblem;
@@ -13,9 +10,6 @@ import org.polebench.circuit.BiasSolver;
 import org.polebench.circuit.OperatingPoints;
 import org.polebench.circuit.SmallSignalExpansion;
 import org.polebench.circuit.Stage;
-import org.polebench.units.Decibels;
-import org.polebench.units.EngineeringValue;
-import org.polebench.units.Quantity;
 
 /**
  * A board built from a stage file: its response is the complex MNA solve of the stage's
@@ -59,68 +53,29 @@ public final class StageBoard implements BoardResponse {
     }
 
     /**
-     * The board as built from the stage as designed and faults written as on the command
-     * line: {@code C3=4.7u} (a capacitor of that value), {@code Q1.bias=0.8} (a transistor's
-     * bias current times 0.8) or {@code gain=10} / {@code gain=20dB} (a flat gain error, such
-     * as a ×10 probe read as ×1). The bias is solved for the board with its capacitors as built
-     * (a capacitor does not move it), then scaled.
+     * The board as built from the stage as designed and its faults, as the board synthesizer
+     * builds it: capacitor faults change the parts, the bias is solved for the board as built
+     * (a capacitor does not move it), then bias faults scale their transistors' currents and
+     * gain faults multiply the response.
      *
-     * @throws InputProblem when a fault names no such part or its value does not read, or the
-     *                      board as built cannot be biased
+     * @throws InputProblem when the board as built cannot be biased
      */
-    public static StageBoard asBuilt(Stage designed, List<String> faults) throws InputProblem {
+    public static StageBoard asBuilt(Stage designed, List<Fault> faults) throws InputProblem {
         Stage built = designed;
-        Map<String, Double> biasFactors = new LinkedHashMap<>();
-        double gainFactor = 1;
-        List<String> described = new ArrayList<>();
-        for (String fault : faults) {
-            int eq = fault.indexOf('=');
-            if (eq <= 0 || eq == fault.length() - 1) {
-                throw new InputProblem(null, 0, "fault '" + fault + "' is not PART=VALUE", USAGE);
-            }
-            String what = fault.substring(0, eq).strip();
-            String value = fault.substring(eq + 1).strip();
-            try {
-                if (what.equalsIgnoreCase("gain")) {
-                    double factor = value.toLowerCase(Locale.ROOT).endsWith("db")
-                            ? Decibels.toRatio(EngineeringValue.parse(value, Quantity.DECIBELS))
-                            : EngineeringValue.parseNumber(value);
-                    if (!(factor > 0)) {
-                        throw new IllegalArgumentException("a gain factor must be positive");
-                    }
-                    gainFactor *= factor;
-                    described.add(String.format(Locale.ROOT, "flat gain ×%.4g", factor));
-                } else if (what.toLowerCase(Locale.ROOT).endsWith(".bias")) {
-                    String transistor = what.substring(0, what.length() - 5);
-                    designed.transistor(transistor);
-                    double factor = EngineeringValue.parseNumber(value);
-                    if (!(factor > 0)) {
-                        throw new IllegalArgumentException("a bias factor must be positive");
-                    }
-                    biasFactors.merge(transistor, factor, (a, b) -> a * b);
-                    described.add(transistor + " bias current ×" + String.format(Locale.ROOT, "%.4g", factor));
-                } else {
-                    designed.capacitor(what);
-                    double farads = EngineeringValue.parse(value, Quantity.FARADS);
-                    if (!(farads > 0)) {
-                        throw new IllegalArgumentException("a capacitor value must be positive");
-                    }
-                    built = built.withCapacitance(what, farads);
-                    described.add(what + " fitted as " + EngineeringValue.format(farads, "F"));
-                }
-            } catch (IllegalArgumentException e) {
-                throw new InputProblem(designed.sourceFile(), 0, "fault '" + fault + "': " + e.getMessage(), USAGE);
-            }
+        for (Fault fault : faults) {
+            built = fault.applyTo(built);
         }
         OperatingPoints points = new BiasSolver().solve(built);
-        for (Map.Entry<String, Double> bias : biasFactors.entrySet()) {
-            points = points.withCurrentScaled(bias.getKey(), bias.getValue());
+        double gainFactor = 1;
+        List<String> described = new ArrayList<>();
+        for (Fault fault : faults) {
+            points = fault.applyTo(points);
+            gainFactor *= fault.gainFactor();
+            described.add(fault.describe());
         }
-        return of(built, points, gainFactor, described.isEmpty() ? "no fault" : String.join("; ", described));
+        return of(built, points, gainFactor, described.isEmpty() ? new Fault.None().describe()
+                : String.join("; ", described));
     }
-
-    private static final String USAGE = "write C3=4.7u (a capacitor's value as built), Q1.bias=0.8 (a bias current "
-            + "factor) or gain=10 (a flat gain factor, also gain=20dB), naming parts of the stage file";
 
     @Override
     public Complex atHz(double frequencyHz) {

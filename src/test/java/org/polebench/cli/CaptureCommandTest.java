@@ -150,6 +150,39 @@ class CaptureCommandTest {
     }
 
     @Test
+    void aCapturedSweepOfAFaultyBoardIsDiagnosedByReconcile() throws Exception {
+        // the demo hydrophone preamp (invented) built with a 47 µF emitter bypass instead of 470 µF
+        String stage = Path.of("sample-measurements", "hydrophone-preamp-ce.stage.yaml").toString();
+        String profile = resource("scpi-test-bench.yaml");
+        Path name = dir.resolve("hp12");
+        Result capture;
+        try (PseudoTerminalPair pty = PseudoTerminalPair.open(dir)) {
+            Background simulator = new Background("simulate", "--port", pty.instrumentEnd().toString(),
+                    "--profile", profile, "--stage", stage, "--fault", "C3=47u", "--noise", "0.05dB,0.5deg",
+                    "--seed", "11");
+            simulator.awaitOutput(Pattern.compile("(answering)"), 30_000);
+            // 10 mV keeps the 43 dB stage's output below the test profile's 7 V full scale
+            capture = run("capture", "--port", pty.benchEnd().toString(), "--profile", profile, "--from", "2Hz",
+                    "--to", "20kHz", "--points", "31", "--amplitude", "10mV", "--out", name.toString());
+            pty.close();
+            assertEquals(0, simulator.join(10_000));
+        }
+        assertEquals(0, capture.code(), capture.err());
+
+        Result reconcile = run("reconcile", "--stage", stage, "--sweep", dir.resolve("hp12.sweep.csv").toString(),
+                "--json", "--samples", "200");
+        assertTrue(reconcile.code() == 0 || reconcile.code() == 1, reconcile.err());
+        com.fasterxml.jackson.databind.JsonNode top = new com.fasterxml.jackson.databind.ObjectMapper()
+                .readTree(reconcile.out()).get("hypotheses").get(0);
+        // the injected fault (synthetic case with known truth) is the most probable hypothesis
+        assertEquals("capacitor", top.get("kind").asText(), reconcile.out());
+        assertEquals("C3", top.get("part").asText(), reconcile.out());
+        // 47 µF back-solved within 10 %: wide against what 0.05 dB and 0.5° of noise leave on
+        // 31 points, narrow against the 470 µF designed, so a wrong diagnosis fails
+        assertEquals(47e-6, top.get("estimated_value").asDouble(), 0.1 * 47e-6, reconcile.out());
+    }
+
+    @Test
     void aLevelAboveTheProfileMaximumIsRefusedWithExitCode2() {
         Result r = run("capture", "--port", dir.resolve("no-such-port").toString(), "--profile",
                 resource("scpi-test-bench.yaml"), "--from", "2Hz", "--to", "20kHz", "--points", "12",

@@ -27,7 +27,7 @@ class StreamedCaptureTest {
     private CaptureOutcome capture(List<Misbehaviour> faults, CaptureRequest request) throws Exception {
         SerialProfile profile = CaptureBench.streamingProfile();
         InstrumentSimulator simulator = new InstrumentSimulator(profile, StageBoard.of(CaptureBench.rcStage(), ""),
-                0.05, 0.5, 3, faults);
+                SweepNoise.BENCH, 3, faults);
         PortSettings settings = new SweepCapture(profile).portSettings(profile.name());
         try (PseudoTerminalPair pty = PseudoTerminalPair.open(dir)) {
             SimulatorThread sim = new SimulatorThread(simulator.session(),

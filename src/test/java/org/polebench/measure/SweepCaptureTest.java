@@ -47,7 +47,7 @@ class SweepCaptureTest {
     private InstrumentSimulator simulator(double gainSigmaDb, double phaseSigmaDeg, List<Misbehaviour> faults)
             throws InputProblem {
         return new InstrumentSimulator(CaptureBench.scpiProfile(), StageBoard.of(CaptureBench.rcStage(), ""),
-                gainSigmaDb, phaseSigmaDeg, 7, faults);
+                new SweepNoise(gainSigmaDb, phaseSigmaDeg), 7, faults);
     }
 
     private Run capture(InstrumentSimulator simulator, CaptureRequest request, BooleanSupplier stop) throws Exception {
@@ -159,8 +159,8 @@ class SweepCaptureTest {
     void aWrongCapacitorShowsItsOwnCorner() throws Exception {
         double fitted = 0.47e-6;
         InstrumentSimulator faulty = new InstrumentSimulator(CaptureBench.scpiProfile(),
-                StageBoard.of(CaptureBench.rcStage().withCapacitance("C1", fitted), "C1 fitted as 470 nF"), 0, 0, 7,
-                List.of());
+                StageBoard.asBuilt(CaptureBench.rcStage(), List.of(new Fault.CapacitorValue("C1", fitted))),
+                SweepNoise.NONE, 7, List.of());
         Run run = capture(faulty, "fault");
         assertClosedForm(read(run.outcome().sweepFile()), fitted);
     }
@@ -169,7 +169,8 @@ class SweepCaptureTest {
     void aTransistorStageWithABypassFaultIsCapturedAsItsStateSpaceModel() throws Exception {
         Stage designed = new StageReader().read(CaptureBench.resource("ce-no-device-caps.stage.yaml")).stage();
         InstrumentSimulator faulty = new InstrumentSimulator(CaptureBench.scpiProfile(),
-                StageBoard.asBuilt(designed, List.of("C3=47u")), 0, 0, 7, List.of());
+                StageBoard.asBuilt(designed, List.of(new Fault.CapacitorValue("C3", 47e-6))), SweepNoise.NONE, 7,
+                List.of());
         // 10 mV keeps the 43 dB stage's output below the test profile's 7 V full scale
         CaptureRequest request = new CaptureRequest(Optional.of(PLAN), OptionalDouble.of(0.01), dir.resolve("ce"),
                 false, Optional.empty());
