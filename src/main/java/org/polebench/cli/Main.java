@@ -23,6 +23,8 @@ import picocli.CommandLine.Command;
                 ReconcileCommand.class,
                 ReportCommand.class,
                 SynthesizeCommand.class,
+                CaptureCommand.class,
+                SimulateCommand.class,
         },
         exitCodeListHeading = "%nExit codes:%n",
         exitCodeList = {

@@ -80,29 +80,42 @@ public final class SweepWriter {
 
     /** Writes the canonical layout to a writer (the caller closes it). */
     public void canonical(Sweep sweep, Writer out) throws IOException {
-        Provenance source = sweep.source();
-        out.write("# " + MARKER + "\n");
-        provenance(source, "# ", out);
-        out.write("# units: " + UNITS + "\n");
         boolean phase = sweep.hasPhase();
         boolean uGain = sweep.points().stream().allMatch(p -> p.gainUncertaintyDb().isPresent());
         boolean uPhase = phase && sweep.points().stream().allMatch(p -> p.phaseUncertaintyDeg().isPresent());
-        out.write("frequency_hz,gain_db" + (phase ? ",phase_deg" : "") + (uGain ? ",u_gain_db" : "")
-                + (uPhase ? ",u_phase_deg" : "") + "\n");
+        canonicalHeader(sweep.source(), phase, uGain, uPhase, out);
         StringBuilder row = new StringBuilder(96);
         for (SweepPoint p : sweep.points()) {
             row.setLength(0);
-            row.append(p.frequencyHz()).append(',').append(p.gainDb());
-            if (phase) {
-                row.append(',').append(p.phaseDeg().getAsDouble());
-            }
-            if (uGain) {
-                row.append(',').append(p.gainUncertaintyDb().getAsDouble());
-            }
-            if (uPhase) {
-                row.append(',').append(p.phaseUncertaintyDeg().getAsDouble());
-            }
+            canonicalRow(p, phase, uGain, uPhase, row);
             out.append(row).append('\n');
+        }
+    }
+
+    /**
+     * Writes the canonical file's comment lines and column header, for a file that is then
+     * filled row by row ({@link AppendedSweep}).
+     */
+    static void canonicalHeader(Provenance source, boolean phase, boolean uGain, boolean uPhase, Writer out)
+            throws IOException {
+        out.write("# " + MARKER + "\n");
+        provenance(source, "# ", out);
+        out.write("# units: " + UNITS + "\n");
+        out.write("frequency_hz,gain_db" + (phase ? ",phase_deg" : "") + (uGain ? ",u_gain_db" : "")
+                + (uPhase ? ",u_phase_deg" : "") + "\n");
+    }
+
+    /** Appends one canonical row without its line ending; the columns must exist in the point. */
+    static void canonicalRow(SweepPoint p, boolean phase, boolean uGain, boolean uPhase, StringBuilder row) {
+        row.append(p.frequencyHz()).append(',').append(p.gainDb());
+        if (phase) {
+            row.append(',').append(p.phaseDeg().getAsDouble());
+        }
+        if (uGain) {
+            row.append(',').append(p.gainUncertaintyDb().getAsDouble());
+        }
+        if (uPhase) {
+            row.append(',').append(p.phaseUncertaintyDeg().getAsDouble());
         }
     }
 

@@ -1,0 +1,228 @@
+package org.polebench.cli;
+
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.net.InetAddress;
+import java.net.InetSocketAddress;
+import java.net.ServerSocket;
+import java.net.Socket;
+import java.net.SocketTimeoutException;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.IdentityHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.concurrent.Callable;
+import java.util.concurrent.CountDownLatch;
+import java.util.concurrent.atomic.AtomicBoolean;
+import java.util.concurrent.atomic.AtomicReference;
+import org.polebench.InputProblem;
+import org.polebench.circuit.Stage;
+import org.polebench.circuit.StageReader;
+import org.polebench.measure.Fault;
+import org.polebench.measure.FaultText;
+import org.polebench.measure.InstrumentProfile;
+import org.polebench.measure.InstrumentSimulator;
+import org.polebench.measure.LineTransport;
+import org.polebench.measure.Misbehaviour;
+import org.polebench.measure.ProfileLibrary;
+import org.polebench.measure.SerialProfile;
+import org.polebench.measure.StageBoard;
+import org.polebench.measure.SweepCapture;
+import org.polebench.measure.SweepNoise;
+import org.polebench.measure.TcpLine;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+
+/** {@code polebench simulate}: plays a profile's instruments measuring a stage, for tests and demos. */
+@Command(name = "simulate", mixinStandardHelpOptions = true,
+        description = {"Plays the instruments of a serial profile on a port, measuring the stage's exact small-signal "
+                + "response with the faults and noise given, so that capture can be tried without a bench. It "
+                + "identifies itself as a simulation; its data are invented.",
+                "On request it misbehaves: drops an answer, sends garbage, stalls, or closes the port "
+                        + "(--misbehave drop@5,garbage@9,stall@12=4s,close@20; N counts frequency commands)."},
+        footer = {"", "Examples:",
+                "  socat -d -d pty,raw,echo=0,link=/tmp/bench pty,raw,echo=0,link=/tmp/instr &",
+                "  polebench simulate --port /tmp/instr --stage sample-measurements/hydrophone-preamp-ce.stage.yaml "
+                        + "--fault C3=4.7u --noise 0.05dB,0.5deg",
+                "  polebench simulate --tcp 127.0.0.1:5025 --profile scpi-generator-meter --once"})
+final class SimulateCommand implements Callable<Integer> {
+    @Spec
+    CommandSpec spec;
+
+    @Option(names = "--port", paramLabel = "[NAME=]PATH",
+            description = "serial port to answer on, for all instruments or one named instrument (repeatable)")
+    List<String> ports = new ArrayList<>();
+
+    @Option(names = "--tcp", paramLabel = "[HOST:]PORT",
+            description = "listen for raw-socket connections instead (default host 127.0.0.1; port 0 picks a free one)")
+    String tcp;
+
+    @Option(names = "--once", description = "with --tcp: serve one connection, then stop")
+    boolean once;
+
+    @Option(names = "--stage", paramLabel = "STAGE", description = "the stage file (default: the bundled demo stage)")
+    Path stage;
+
+    @Option(names = "--fault", paramLabel = "PART=VALUE",
+            description = "how the board differs: C3=4.7u, bias:Q1=0.6 or gain=10 (repeatable)")
+    List<String> faults = new ArrayList<>();
+
+    @Option(names = "--noise", paramLabel = "GAIN,PHASE", defaultValue = "0dB,0deg",
+            description = "Gaussian noise per point, such as 0.05dB,0.5deg (default none)")
+    String noise;
+
+    @Option(names = "--seed", paramLabel = "SEED", defaultValue = "1", description = "seed of the noise (default 1)")
+    long seed;
+
+    @Option(names = "--profile", paramLabel = "P", defaultValue = "scpi-generator-meter",
+            description = "serial profile to play (default ${DEFAULT-VALUE})")
+    String profileName;
+
+    @Option(names = "--misbehave", paramLabel = "LIST", split = ",",
+            description = "faults of the line: drop@N, garbage@N, stall@N=TIME, close@N")
+    List<String> misbehave = new ArrayList<>();
+
+    @Override
+    public Integer call() throws InputProblem, IOException {
+        InstrumentProfile found = ProfileLibrary.standard(Path.of("")).resolve(profileName);
+        if (!(found instanceof SerialProfile)) {
+            throw new InputProblem(found.source().orElse(null), 0, "profile '" + found.name() + "' is a table layout",
+                    "simulate a serial profile, such as scpi-generator-meter or streaming-sweeper");
+        }
+        SerialProfile profile = (SerialProfile) found;
+        if (ports.isEmpty() == (tcp == null)) {
+            throw new InputProblem(null, 0, tcp == null ? "no port given" : "both --port and --tcp given",
+                    "give --port PATH, or --tcp [HOST:]PORT to listen on");
+        }
+        List<Misbehaviour> faultsOfLine = new ArrayList<>();
+        for (String text : misbehave) {
+            faultsOfLine.add(Misbehaviour.parse(text));
+        }
+        SweepNoise sigma = FaultText.noise(noise);
+        Stage designed = new StageReader().read(StageChoice.resolve(null, stage)).stage();
+        List<Fault> asBuilt = new ArrayList<>();
+        for (String text : faults) {
+            asBuilt.add(FaultText.parse(text, designed));
+        }
+        StageBoard board = StageBoard.asBuilt(designed, asBuilt);
+        InstrumentSimulator simulator;
+        try {
+            simulator = new InstrumentSimulator(profile, board, sigma, seed, faultsOfLine);
+        } catch (IllegalArgumentException e) {
+            throw new InputProblem(profile.source().orElse(null), 0, e.getMessage(),
+                    "simulate a profile in the line format of streaming-sweeper, or a SCPI profile");
+        }
+        PrintWriter out = spec.commandLine().getOut();
+        out.println("simulating " + profile.name() + " measuring " + board.describe()
+                + ", noise: " + sigma.describe()
+                + (faultsOfLine.isEmpty() ? "" : ", misbehaving " + faultsOfLine) + " (invented data)");
+        out.flush();
+        AtomicBoolean stop = new AtomicBoolean();
+        Thread onCtrlC = new Thread(() -> stop.set(true), "polebench-stop");
+        Runtime.getRuntime().addShutdownHook(onCtrlC);
+        try {
+            return tcp != null ? serveTcp(profile, simulator, stop) : serveSerial(profile, simulator, stop);
+        } finally {
+            try {
+                Runtime.getRuntime().removeShutdownHook(onCtrlC);
+            } catch (IllegalStateException shuttingDown) {
+                // Ctrl-C: the JVM is stopping anyway
+            }
+        }
+    }
+
+    private int serveSerial(SerialProfile profile, InstrumentSimulator simulator, AtomicBoolean stop)
+            throws InputProblem, IOException {
+        SweepCapture names = new SweepCapture(profile);
+        InstrumentSimulator.Session session = simulator.session();
+        PrintWriter out = spec.commandLine().getOut();
+        try (BenchLinks links = BenchLinks.open(ports, List.of(), names.linkNames(), names::portSettings, 0)) {
+            Map<LineTransport, Boolean> started = new IdentityHashMap<>();
+            List<Thread> threads = new ArrayList<>();
+            AtomicReference<IOException> failure = new AtomicReference<>();
+            CountDownLatch ended = new CountDownLatch(1);
+            for (String line : links.describe()) {
+                out.println("answering " + line);
+            }
+            out.flush();
+            for (LineTransport link : links.byName().values()) {
+                if (started.put(link, Boolean.TRUE) != null) {
+                    continue;
+                }
+                Thread thread = new Thread(() -> {
+                    try {
+                        InstrumentSimulator.End end = session.serve(link, stop::get, sent -> { });
+                        out.println("line " + link.describe() + ": " + end.name().toLowerCase(java.util.Locale.ROOT)
+                                .replace('_', ' '));
+                        out.flush();
+                    } catch (IOException e) {
+                        failure.set(e);
+                    } finally {
+                        ended.countDown();
+                    }
+                }, "simulate " + link.describe());
+                thread.start();
+                threads.add(thread);
+            }
+            try {
+                // the bench is gone when any of its lines is: stop the others too
+                ended.await();
+                stop.set(true);
+                for (Thread thread : threads) {
+                    thread.join(5_000);
+                }
+            } catch (InterruptedException e) {
+                Thread.currentThread().interrupt();
+            }
+            if (failure.get() != null) {
+                throw failure.get();
+            }
+        }
+        return ExitCodes.OK;
+    }
+
+    private int serveTcp(SerialProfile profile, InstrumentSimulator simulator, AtomicBoolean stop)
+            throws InputProblem, IOException {
+        int colon = tcp.lastIndexOf(':');
+        String host = colon > 0 ? tcp.substring(0, colon) : "127.0.0.1";
+        int port;
+        try {
+            port = Integer.parseInt(colon >= 0 ? tcp.substring(colon + 1) : tcp);
+        } catch (NumberFormatException e) {
+            port = -1;
+        }
+        if (port < 0 || port > 65535) {
+            throw new InputProblem(null, 0, "--tcp " + tcp + " has no port number 0 to 65535", "write it as 127.0.0.1:5025");
+        }
+        SweepCapture names = new SweepCapture(profile);
+        InstrumentSimulator.Session session = simulator.session();
+        PrintWriter out = spec.commandLine().getOut();
+        try (ServerSocket server = new ServerSocket()) {
+            server.bind(new InetSocketAddress(InetAddress.getByName(host), port), 1);
+            server.setSoTimeout(200);
+            out.println("listening on " + server.getInetAddress().getHostAddress() + ":" + server.getLocalPort());
+            out.flush();
+            while (!stop.get()) {
+                Socket socket;
+                try {
+                    socket = server.accept();
+                } catch (SocketTimeoutException e) {
+                    continue;
+                }
+                try (TcpLine line = TcpLine.accepted(socket, names.portSettings(names.linkNames().get(0)).lineEnding())) {
+                    InstrumentSimulator.End end = session.serve(line, stop::get, sent -> { });
+                    out.println("connection " + line.describe() + ": " + end.name().toLowerCase(java.util.Locale.ROOT)
+                            .replace('_', ' '));
+                    out.flush();
+                }
+                if (once) {
+                    break;
+                }
+            }
+        }
+        return ExitCodes.OK;
+    }
+}
