@@ -55,37 +55,6 @@ final class CandidateFitter {
     }
 
     /**
-     * Which DC-zero counts to try, read off the unconstrained linearised estimate: its zeros more
-     * than a factor 3 below the lowest swept frequency are indistinguishable from DC zeros there;
-     * a zero within a factor 3 of that edge is ambiguous, so the count with it at DC is tried too.
-     *
-     * @param high whether the candidates carry a high-band pole (divided out of the data first)
-     * @return {fewest, most}, or null when the estimate fails
-     */
-    int[] dcZeroRange(PreparedSweep data, int poles, boolean high) {
-        RationalEstimate estimate = linearised.estimate(data, 0, poles, poles, high ? highBandStart(data) : Double.NaN);
-        PolynomialRoots zeros = estimate == null ? null : PolynomialRoots.of(estimate.numerator);
-        if (zeros == null) {
-            return null;
-        }
-        double below = data.x[0] / 3;
-        double above = data.x[0] * 3;
-        int dc = 0;
-        int ambiguous = 0;
-        for (double z : zeros.real) {
-            double magnitude = estimate.squaredMagnitude ? Math.sqrt(Math.abs(z)) : Math.abs(z);
-            dc += magnitude < below ? 1 : 0;
-            ambiguous += magnitude >= below && magnitude < above ? 1 : 0;
-        }
-        for (Complex z : zeros.pairs) {
-            double magnitude = estimate.squaredMagnitude ? Math.sqrt(z.abs()) : z.abs();
-            dc += magnitude < below ? 2 : 0;
-            ambiguous += magnitude >= below && magnitude < above ? 2 : 0;
-        }
-        return new int[]{Math.min(dc, poles), Math.min(dc + Math.min(ambiguous, 1), poles)};
-    }
-
-    /**
      * Whether χ² lies above ν + 3√(2ν), three standard deviations of a χ² with ν degrees of
      * freedom above its mean: only then do the data demand more than real poles can give.
      */

@@ -13,7 +13,7 @@ import org.polebench.units.Decibels;
  * <ol>
  * <li>Keep the points inside the band; normalise frequency by f_ref, the band's geometric mean.</li>
  * <li>For every candidate order (0 to the maximum number of low-band poles; every count of DC
- *     zeros, or the one the settings fix; with and without a high-band pole when the sweep's top
+ *     zeros from 0 to the pole count, or the one the settings fix; with and without a high-band pole when the sweep's top
  *     falls away), start from the predicted poles or a Sanathanan–Koerner estimate and refine by
  *     Levenberg–Marquardt on complex-log residuals ({@link CandidateFitter}).</li>
  * <li>Choose by BIC ({@link OrderSelection}).</li>
@@ -89,6 +89,10 @@ public final class SweepFitter {
         int highest = settings.poleCount().orElse(settings.maxPoles());
         for (int poles = lowest; poles <= highest; poles++) {
             for (boolean high : highOptions) {
+                // every count of DC zeros: the linearised estimate never puts a zero exactly at DC,
+                // and finite zeros low in the band look much like DC zeros to it, so a count read
+                // off its zeros can miss the true one (PITFALLS.md, "Fitting"); a wrong count ends
+                // quickly, its zero running to DC or its root out of the box
                 int fewest = 0;
                 int most = poles;
                 if (settings.dcZeros().isPresent()) {
@@ -96,13 +100,6 @@ public final class SweepFitter {
                     // cancels against its DC zero there, and the data cannot see either
                     fewest = Math.min(settings.dcZeros().getAsInt(), poles);
                     most = fewest;
-                } else if (poles > 0) {
-                    // fewer DC zeros than the estimate shows would force a finite zero to run to DC
-                    int[] range = fitter.dcZeroRange(data, poles, high);
-                    if (range != null) {
-                        fewest = range[0];
-                        most = range[1];
-                    }
                 }
                 for (int dc = fewest; dc <= most; dc++) {
                     ModelStructure shape = new ModelStructure(dc, poles - dc, 0, poles, 0, high);
