@@ -72,9 +72,9 @@ class ManyCornerStageFitTest {
         // χ² with ν ≈ 150 has relative spread √(2/ν) ≈ 0.12, so χ²/ν < 2 holds for a model within
         // the noise and fails by orders of magnitude for a wrong one (41 000 before the fix)
         assertTrue(result.quality().reducedChiSquare() < 2, "chi-square/nu " + result.quality().reducedChiSquare());
-        // three DC zeros are structural (three coupling capacitors); the data's slope demands them
+        // synthetic truth: three DC zeros (the closed form's s³), exact, as DC zeros are structural
         assertEquals(DC_ZEROS, result.structure().dcZeros());
-        // 3 U: the fitted corner's expanded uncertainty covers ≈ 95 %; 3 U leaves room for the
+        // synthetic truth: the closed form's corner (Brent root above); 3 U: the fitted corner's expanded uncertainty covers ≈ 95 %; 3 U leaves room for the
         // bias of merging close poles when BIC picks fewer than five
         Estimate corner = result.lowerCornerModelHz().orElseThrow();
         assertEquals(trueCornerHz(), corner.value(), 3 * corner.expandedUncertainty());
