@@ -1,6 +1,7 @@
 package org.polebench.fit;
 
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.List;
 import org.apache.commons.math3.complex.Complex;
 import org.polebench.units.Decibels;
@@ -55,18 +56,37 @@ final class CandidateFitter {
     }
 
     /**
-     * Which DC-zero counts to try, read off the unconstrained linearised estimate: its zeros more
-     * than a factor 3 below the lowest swept frequency are indistinguishable from DC zeros there;
-     * a zero within a factor 3 of that edge is ambiguous, so the count with it at DC is tried too.
+     * Which DC-zero counts to try. From the unconstrained linearised estimate: its zeros more than
+     * a factor 3 below the lowest swept frequency are indistinguishable from DC zeros there, and a
+     * zero within a factor 3 of that edge is ambiguous, so the count with it at DC is tried too.
+     * That estimate never puts a zero exactly at DC and can hide DC zeros in finite zeros low in
+     * the band (PITFALLS.md, "Fitting"), so the counts the data's own slope implies are added:
+     * m DC zeros rise at 20·m dB per decade below every other root, finite zeros low in the band
+     * steepen that and poles below it flatten it, so the integer nearest the slope over the
+     * lowest decade of the sweep is tried, and both integers beside it when it lies between
+     * n + 0.25 and n + 0.75.
      *
      * @param high whether the candidates carry a high-band pole (divided out of the data first)
-     * @return {fewest, most}, or null when the estimate fails
+     * @return for each count 0…poles, whether to try it
      */
-    int[] dcZeroRange(PreparedSweep data, int poles, boolean high) {
+    boolean[] dcZeroCounts(PreparedSweep data, int poles, boolean high) {
+        boolean[] counts = new boolean[poles + 1];
+        double slope = lowDecadeSlope(data);
+        if (Double.isFinite(slope)) {
+            counts[clampCount(Math.rint(slope), poles)] = true;
+            // a slope midway between two integers speaks for both
+            double fraction = slope - Math.floor(slope);
+            if (Math.abs(fraction - 0.5) < 0.25) {
+                counts[clampCount(Math.floor(slope), poles)] = true;
+                counts[clampCount(Math.ceil(slope), poles)] = true;
+            }
+        }
         RationalEstimate estimate = linearised.estimate(data, 0, poles, poles, high ? highBandStart(data) : Double.NaN);
         PolynomialRoots zeros = estimate == null ? null : PolynomialRoots.of(estimate.numerator);
         if (zeros == null) {
-            return null;
+            // no estimate to vote: try them all, as before the slope was consulted
+            Arrays.fill(counts, true);
+            return counts;
         }
         double below = data.x[0] / 3;
         double above = data.x[0] * 3;
@@ -82,7 +102,41 @@ final class CandidateFitter {
             dc += magnitude < below ? 2 : 0;
             ambiguous += magnitude >= below && magnitude < above ? 2 : 0;
         }
-        return new int[]{Math.min(dc, poles), Math.min(dc + Math.min(ambiguous, 1), poles)};
+        for (int m = Math.min(dc, poles); m <= Math.min(dc + Math.min(ambiguous, 1), poles); m++) {
+            counts[m] = true;
+        }
+        return counts;
+    }
+
+    /**
+     * The least-squares slope of ln|H| against ln f over the sweep's lowest decade (at least its
+     * lowest three points), in units of 20 dB per decade; NaN when those points span no frequency.
+     */
+    static double lowDecadeSlope(PreparedSweep data) {
+        int n = 0;
+        while (n < data.size() && (n < 3 || data.x[n] <= 10 * data.x[0])) {
+            n++;
+        }
+        double sx = 0;
+        double sy = 0;
+        for (int k = 0; k < n; k++) {
+            sx += Math.log(data.x[k]);
+            sy += data.lnGain[k];
+        }
+        double mx = sx / n;
+        double my = sy / n;
+        double sxx = 0;
+        double sxy = 0;
+        for (int k = 0; k < n; k++) {
+            double dx = Math.log(data.x[k]) - mx;
+            sxx += dx * dx;
+            sxy += dx * (data.lnGain[k] - my);
+        }
+        return sxx > 0 ? sxy / sxx : Double.NaN;
+    }
+
+    private static int clampCount(double count, int poles) {
+        return (int) Math.max(0, Math.min(poles, count));
     }
 
     /**

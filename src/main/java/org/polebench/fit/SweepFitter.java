@@ -12,8 +12,9 @@ import org.polebench.units.Decibels;
  *
  * <ol>
  * <li>Keep the points inside the band; normalise frequency by f_ref, the band's geometric mean.</li>
- * <li>For every candidate order (0 to the maximum number of low-band poles; every count of DC
- *     zeros, or the one the settings fix; with and without a high-band pole when the sweep's top
+ * <li>For every candidate order (0 to the maximum number of low-band poles; the counts of DC
+ *     zeros that the linearised estimate and the low-frequency slope imply, or the one the
+ *     settings fix; with and without a high-band pole when the sweep's top
  *     falls away), start from the predicted poles or a Sanathanan–Koerner estimate and refine by
  *     Levenberg–Marquardt on complex-log residuals ({@link CandidateFitter}).</li>
  * <li>Choose by BIC ({@link OrderSelection}).</li>
@@ -89,22 +90,21 @@ public final class SweepFitter {
         int highest = settings.poleCount().orElse(settings.maxPoles());
         for (int poles = lowest; poles <= highest; poles++) {
             for (boolean high : highOptions) {
-                int fewest = 0;
-                int most = poles;
+                boolean[] counts = new boolean[poles + 1];
                 if (settings.dcZeros().isPresent()) {
                     // a fixed DC-zero count still allows fewer poles: a coupling pole far below the band
                     // cancels against its DC zero there, and the data cannot see either
-                    fewest = Math.min(settings.dcZeros().getAsInt(), poles);
-                    most = fewest;
+                    counts[Math.min(settings.dcZeros().getAsInt(), poles)] = true;
                 } else if (poles > 0) {
-                    // fewer DC zeros than the estimate shows would force a finite zero to run to DC
-                    int[] range = fitter.dcZeroRange(data, poles, high);
-                    if (range != null) {
-                        fewest = range[0];
-                        most = range[1];
-                    }
+                    // the linearised estimate's zeros and the data's low-frequency slope both vote
+                    counts = fitter.dcZeroCounts(data, poles, high);
+                } else {
+                    counts[0] = true;
                 }
-                for (int dc = fewest; dc <= most; dc++) {
+                for (int dc = 0; dc <= poles; dc++) {
+                    if (!counts[dc]) {
+                        continue;
+                    }
                     ModelStructure shape = new ModelStructure(dc, poles - dc, 0, poles, 0, high);
                     if (shape.parameterCount() >= data.residualCount()) {
                         continue;

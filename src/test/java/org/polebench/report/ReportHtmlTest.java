@@ -70,9 +70,11 @@ class ReportHtmlTest {
         assertFalse(page.getElementById("profile").text().isBlank());
         int warnings = root.path("measured").path("warnings").size() + root.path("import_warnings").size()
                 + root.path("predicted").path("warnings").size() + root.path("report_warnings").size();
-        // the demo fit drops its six lowest points as outliers, and says so
-        assertTrue(warnings > 0);
-        assertEquals(warnings, page.select("#warnings li").size());
+        // one list item per warning of the result; the demo fit once dropped its six lowest points
+        // as "outliers" (a wrong 1-pole model, chi-square/nu 32 000); since the fitter tries the
+        // DC-zero count the low-frequency slope implies it fits within the noise and may warn of
+        // nothing, which the page states in one item of its own (ReportHtml's "none" line)
+        assertEquals(Math.max(warnings, 1), page.select("#warnings li").size());
         assertTrue(page.select("#cautions li").size() >= 5);
         assertTrue(page.getElementById("scope-statement").text().contains("relate only to the item"));
     }
