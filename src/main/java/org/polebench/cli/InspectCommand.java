@@ -1,7 +1,5 @@
 package org.polebench.cli;
 
-import com.fasterxml.jackson.databind.ObjectMapper;
-import com.fasterxml.jackson.databind.SerializationFeature;
 import java.io.IOException;
 import java.io.PrintWriter;
 import java.nio.file.Path;
@@ -61,8 +59,7 @@ public final class InspectCommand implements Callable<Integer> {
         }
         PrintWriter out = spec.commandLine().getOut();
         if (json) {
-            ObjectMapper mapper = new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT);
-            out.println(mapper.writeValueAsString(asJson(imported, corner)));
+            new JsonOutput().printValue(asJson(imported, corner), out);
         } else {
             printText(out, imported, corner);
         }

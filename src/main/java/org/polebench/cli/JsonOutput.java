@@ -11,10 +11,15 @@ final class JsonOutput {
     private final ObjectMapper mapper = new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT);
 
     void print(JsonNode node, PrintWriter out) {
+        printValue(node, out);
+    }
+
+    /** @param value a tree, or plain maps, lists, strings and numbers */
+    void printValue(Object value, PrintWriter out) {
         try {
-            out.println(mapper.writeValueAsString(node));
+            out.println(mapper.writeValueAsString(value));
         } catch (JsonProcessingException e) {
-            // a tree built from our own nodes always serialises; this is a defect, not input
+            // plain values and our own trees always serialise; this is a defect, not input
             throw new IllegalStateException("could not write JSON", e);
         }
     }
