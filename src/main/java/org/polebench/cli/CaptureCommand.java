@@ -16,7 +16,6 @@ import org.polebench.measure.AmplitudeKind;
 import org.polebench.measure.CaptureOutcome;
 import org.polebench.measure.CaptureRequest;
 import org.polebench.measure.InstrumentProfile;
-import org.polebench.measure.ProfileLibrary;
 import org.polebench.measure.SerialProfile;
 import org.polebench.measure.SweepCapture;
 import org.polebench.measure.SweepPlan;
@@ -133,7 +132,7 @@ final class CaptureCommand implements Callable<Integer> {
     }
 
     private SerialProfile serialProfile() throws InputProblem {
-        InstrumentProfile profile = ProfileLibrary.standard(Path.of("")).resolve(profileName);
+        InstrumentProfile profile = SweepLayoutOption.profiles().resolve(profileName);
         if (!(profile instanceof SerialProfile)) {
             throw new InputProblem(profile.source().orElse(null), 0, "profile '" + profile.name()
                     + "' reads table files; capture needs a serial profile",

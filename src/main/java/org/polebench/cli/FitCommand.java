@@ -14,13 +14,12 @@ import org.polebench.fit.FitResult;
 import org.polebench.fit.FitSettings;
 import org.polebench.fit.SweepFitter;
 import org.polebench.measure.ImportedSweep;
-import org.polebench.measure.ProfileLibrary;
-import org.polebench.measure.SweepReader;
 import org.polebench.report.BodeChart;
 import org.polebench.report.FitJson;
 import org.polebench.report.FitText;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
@@ -39,9 +38,8 @@ final class FitCommand implements Callable<Integer> {
     @Parameters(index = "0", paramLabel = "SWEEP", description = "the sweep file: CSV or other table, or a serial log")
     Path sweepFile;
 
-    @Option(names = "--profile", paramLabel = "P", defaultValue = SweepReader.AUTO,
-            description = "profile name, path of a .yaml profile, or auto (default: sniff the layout)")
-    String profile;
+    @Mixin
+    SweepLayoutOption layout = new SweepLayoutOption();
 
     @Option(names = "--max-poles", paramLabel = "N", defaultValue = "" + FitSettings.DEFAULT_MAX_POLES,
             description = "highest number of low-band poles tried (default ${DEFAULT-VALUE})")
@@ -68,7 +66,7 @@ final class FitCommand implements Callable<Integer> {
             throw new InputProblem(plot, 0, "the plot file exists already and is kept",
                     "name another file, or add --force to replace it");
         }
-        ImportedSweep imported = new SweepReader(ProfileLibrary.standard(Path.of(""))).read(sweepFile, profile);
+        ImportedSweep imported = layout.read(sweepFile);
         FitSettings settings = FitSettings.defaults().withMaxPoles(maxPoles);
         if (band != null) {
             settings = settings.withBand(FitBand.parse(band));

@@ -13,14 +13,13 @@ import org.polebench.InputProblem;
 import org.polebench.InputWarning;
 import org.polebench.measure.ImportedSweep;
 import org.polebench.measure.LowerCornerEstimate;
-import org.polebench.measure.ProfileLibrary;
 import org.polebench.measure.RoughLowerCorner;
 import org.polebench.measure.Sweep;
-import org.polebench.measure.SweepReader;
 import org.polebench.measure.SweepWriter;
 import org.polebench.units.EngineeringValue;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
@@ -36,9 +35,8 @@ public final class InspectCommand implements Callable<Integer> {
     @Parameters(index = "0", paramLabel = "SWEEP", description = "the sweep file: CSV or other table, or a serial log")
     Path sweepFile;
 
-    @Option(names = "--profile", paramLabel = "P", defaultValue = SweepReader.AUTO,
-            description = "profile name, path of a .yaml profile, or auto (default: sniff the layout)")
-    String profile;
+    @Mixin
+    SweepLayoutOption layout = new SweepLayoutOption();
 
     @Option(names = "--json", description = "print the result as JSON")
     boolean json;
@@ -51,8 +49,7 @@ public final class InspectCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws InputProblem, IOException {
-        ProfileLibrary library = ProfileLibrary.standard(Path.of(""));
-        ImportedSweep imported = new SweepReader(library).read(sweepFile, profile);
+        ImportedSweep imported = layout.read(sweepFile);
         LowerCornerEstimate corner = new RoughLowerCorner().estimate(imported.sweep());
         if (export != null) {
             new SweepWriter().writeCanonical(imported.sweep(), export, force);

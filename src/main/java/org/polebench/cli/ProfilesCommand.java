@@ -1,11 +1,9 @@
 package org.polebench.cli;
 
 import java.io.PrintWriter;
-import java.nio.file.Path;
 import java.util.concurrent.Callable;
 import org.polebench.InputProblem;
 import org.polebench.measure.InstrumentProfile;
-import org.polebench.measure.ProfileLibrary;
 import org.polebench.measure.TableProfile;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
@@ -22,7 +20,7 @@ public final class ProfilesCommand implements Callable<Integer> {
     public Integer call() throws InputProblem {
         PrintWriter out = spec.commandLine().getOut();
         out.printf("%-26s %-7s %s%n", "auto", "table", "sniff the layout from the header's words (the default)");
-        for (InstrumentProfile profile : ProfileLibrary.standard(Path.of("")).profiles()) {
+        for (InstrumentProfile profile : SweepLayoutOption.profiles().profiles()) {
             out.printf("%-26s %-7s %s%n", profile.name(), profile instanceof TableProfile ? "table" : "serial",
                     profile.description());
         }

@@ -14,8 +14,6 @@ import org.polebench.analysis.StagePrediction;
 import org.polebench.analysis.ToleranceSpread;
 import org.polebench.circuit.StageReader;
 import org.polebench.measure.ImportedSweep;
-import org.polebench.measure.ProfileLibrary;
-import org.polebench.measure.SweepReader;
 import org.polebench.measure.SweepWriter;
 import org.polebench.reconcile.DecisionRule;
 import org.polebench.reconcile.ReconcileResult;
@@ -27,6 +25,7 @@ import org.polebench.report.TestReportWriter;
 import org.polebench.report.ReconcileText;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 
@@ -54,9 +53,8 @@ final class ReconcileCommand implements Callable<Integer> {
     @Option(names = "--sweep", paramLabel = "W", description = "the sweep file: CSV or other table, or a serial log")
     Path sweep;
 
-    @Option(names = "--profile", paramLabel = "P", defaultValue = SweepReader.AUTO,
-            description = "profile name, path of a .yaml profile, or auto (default: sniff the layout)")
-    String profile;
+    @Mixin
+    SweepLayoutOption layout = new SweepLayoutOption();
 
     @Option(names = "--decision-rule", paramLabel = "RULE", defaultValue = "simple",
             description = "simple (default) or guarded: pass only inside each limit by the expanded uncertainty U "
@@ -112,8 +110,8 @@ final class ReconcileCommand implements Callable<Integer> {
         StagePrediction predicted = new StageAnalysis().withSpread(new ToleranceSpread(samples, seed))
                 .analyse(new StageReader().read(stageFile));
         // the bundled demo sweep is canonical: no need to sniff its layout
-        String profileName = sweep == null && profile.equals(SweepReader.AUTO) ? SweepWriter.CANONICAL : profile;
-        ImportedSweep imported = new SweepReader(ProfileLibrary.standard(Path.of(""))).read(sweepFile, profileName);
+        ImportedSweep imported = sweep == null && layout.isAuto()
+                ? layout.read(sweepFile, SweepWriter.CANONICAL) : layout.read(sweepFile);
         ReconcileResult result = new Reconciler().reconcile(predicted, imported.sweep(), decisionRule);
         RunDetails run = RunDetails.of(stageFile, sweepFile, imported.profileName(), imported.warnings(),
                 Optional.ofNullable(operator), Optional.ofNullable(board), samples, seed);

@@ -25,7 +25,6 @@ import org.polebench.measure.InstrumentProfile;
 import org.polebench.measure.InstrumentSimulator;
 import org.polebench.measure.LineTransport;
 import org.polebench.measure.Misbehaviour;
-import org.polebench.measure.ProfileLibrary;
 import org.polebench.measure.SerialProfile;
 import org.polebench.measure.StageBoard;
 import org.polebench.measure.SweepCapture;
@@ -87,7 +86,7 @@ final class SimulateCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws InputProblem, IOException {
-        InstrumentProfile found = ProfileLibrary.standard(Path.of("")).resolve(profileName);
+        InstrumentProfile found = SweepLayoutOption.profiles().resolve(profileName);
         if (!(found instanceof SerialProfile)) {
             throw new InputProblem(found.source().orElse(null), 0, "profile '" + found.name() + "' is a table layout",
                     "simulate a serial profile, such as scpi-generator-meter or streaming-sweeper");

@@ -17,7 +17,6 @@ import org.polebench.measure.BoardSynthesizer;
 import org.polebench.measure.Fault;
 import org.polebench.measure.FaultText;
 import org.polebench.measure.InstrumentProfile;
-import org.polebench.measure.ProfileLibrary;
 import org.polebench.measure.Sweep;
 import org.polebench.measure.SweepNoise;
 import org.polebench.measure.SweepWriter;
@@ -108,7 +107,7 @@ final class SynthesizeCommand implements Callable<Integer> {
         if (layout.equals(SweepWriter.CANONICAL)) {
             writer.writeCanonical(sweep, out, force);
         } else {
-            InstrumentProfile profile = ProfileLibrary.standard(Path.of("")).resolve(layout);
+            InstrumentProfile profile = SweepLayoutOption.profiles().resolve(layout);
             if (!(profile instanceof TableProfile)) {
                 throw new InputProblem(null, 0, "--layout " + layout + " is not a table profile",
                         "name a table profile (polebench profiles lists them)");
