@@ -35,6 +35,7 @@ final class BoardModel {
     /** Forward-difference step in ln I: truncation ~1e-6 relative, round-off ~1e-10. */
     static final double BIAS_STEP = 1e-6;
     private static final int CACHED_REDUCTIONS = 32;
+    private static final int CACHED_HIGH_FACTORS = 8;
     /** Bias move in ln I within which a high-band factor is reused between exact evaluations. */
     static final double HIGH_BAND_REFRESH = 0.02;
 
@@ -46,22 +47,40 @@ final class BoardModel {
     private final double[] omegas;
     private final PortReduction reduction = new PortReduction();
     private final SmallSignalExpansion expansion = new SmallSignalExpansion();
-    private final Map<String, Reduced> cache = new LinkedHashMap<>(16, 0.75f, true) {
+    private final Map<BiasPoint, Reduced> cache = new LinkedHashMap<>(16, 0.75f, true) {
         private static final long serialVersionUID = 1L;
 
         @Override
-        protected boolean removeEldestEntry(Map.Entry<String, Reduced> eldest) {
+        protected boolean removeEldestEntry(Map.Entry<BiasPoint, Reduced> eldest) {
             return size() > CACHED_REDUCTIONS;
         }
     };
-    private final SmallComplexLu lowLu;
+    // hypotheses alternate between a few bias points (the no-fault MAP's, the priors' means)
+    private final Map<BiasPoint, HighFactor> highCache = new LinkedHashMap<>(16, 0.75f, true) {
+        private static final long serialVersionUID = 1L;
+
+        @Override
+        protected boolean removeEldestEntry(Map.Entry<BiasPoint, HighFactor> eldest) {
+            return size() > CACHED_HIGH_FACTORS;
+        }
+    };
+    private BiasPoint lastExpanded;
+    private SmallSignalNetwork lastNetwork;
+    private final SweptPortEquations ports;
     private int reductions;
     private HighFactor lastHigh;
     private int responses;
-    private final double[] xr;
-    private final double[] xi;
-    private final double[] ur;
-    private final double[] ui;
+    private final double[] farads;
+    /** x = −(Y + jωCd)⁻¹·b and u = (Y + jωCd)⁻ᵀ·c, [port][frequency]. */
+    private final double[][] xr;
+    private final double[][] xi;
+    private final double[][] ur;
+    private final double[][] ui;
+    /** The low band times the gain of the last evaluation with its high band: a bias difference's base. */
+    private final double[] lowRe;
+    private final double[] lowIm;
+    private final double[] steppedRe;
+    private final double[] steppedIm;
 
     /**
      * @param nominalModel  the nominal low-band model (its port order is the parameter order)
@@ -85,11 +104,16 @@ final class BoardModel {
         for (int n = 0; n < omegas.length; n++) {
             omegas[n] = 2 * Math.PI * frequenciesHz[n];
         }
-        this.lowLu = new SmallComplexLu(k);
-        this.xr = new double[k];
-        this.xi = new double[k];
-        this.ur = new double[k];
-        this.ui = new double[k];
+        this.ports = new SweptPortEquations(k, omegas);
+        this.farads = new double[k];
+        this.lowRe = new double[omegas.length];
+        this.lowIm = new double[omegas.length];
+        this.steppedRe = new double[omegas.length];
+        this.steppedIm = new double[omegas.length];
+        this.xr = new double[k][omegas.length];
+        this.xi = new double[k][omegas.length];
+        this.ur = new double[k][omegas.length];
+        this.ui = new double[k][omegas.length];
     }
 
     List<String> capacitors() {
@@ -121,21 +145,15 @@ final class BoardModel {
      * @param hIm   out: Im H per frequency
      * @param dRe   out, or null: [frequency][parameter] real part of ∂ln H/∂θ
      * @param dIm   out, or null: imaginary part
-     * @param biasColumns whether to compute the bias columns of {@code dRe, dIm} (by forward
-     *                    difference); when false they are left as they were
+     * @param biasColumns per transistor, whether to compute its bias column of {@code dRe, dIm}
+     *                    (by forward difference, one reduction each); null for none. Columns not
+     *                    computed are left as they were.
+     * @param exactHighBand false lets the high-band factor of a bias point within
+     *                      {@value #HIGH_BAND_REFRESH} in ln I of the last one used be reused
      * @return false when the network is singular at these bias currents or H vanishes
      */
     boolean evaluate(double[] theta, double[] hRe, double[] hIm, double[][] dRe, double[][] dIm,
-                     boolean biasColumns) {
-        return evaluate(theta, hRe, hIm, dRe, dIm, biasColumns, true);
-    }
-
-    /**
-     * @param exactHighBand false lets the high-band factor of a bias point within
-     *                      {@value #HIGH_BAND_REFRESH} in ln I of the last one computed be reused
-     */
-    boolean evaluate(double[] theta, double[] hRe, double[] hIm, double[][] dRe, double[][] dIm,
-                     boolean biasColumns, boolean exactHighBand) {
+                     boolean[] biasColumns, boolean exactHighBand) {
         int k = capacitors.size();
         int m = transistors.size();
         double[] lnBias = Arrays.copyOfRange(theta, k, k + m);
@@ -144,30 +162,27 @@ final class BoardModel {
         if (reduced == null || high == null || !response(reduced, high, theta, hRe, hIm, dRe, dIm)) {
             return false;
         }
-        if (dRe == null || !biasColumns || m == 0) {
+        if (dRe == null || biasColumns == null) {
             return true;
         }
-        double[] pr = new double[omegas.length];
-        double[] pi = new double[omegas.length];
-        double[] br = new double[omegas.length];
-        double[] bi = new double[omegas.length];
-        if (!response(reduced, null, theta, br, bi, null, null)) {
-            return false;
-        }
         for (int j = 0; j < m; j++) {
+            if (!biasColumns[j]) {
+                continue;
+            }
             double[] stepped = lnBias.clone();
             stepped[j] += BIAS_STEP;
             // the derivative leaves out the high band's small bias dependence (its value is kept):
             // a Jacobian only steers the search, the residuals fix where it ends
             Reduced other = reduced(stepped);
-            if (other == null || !response(other, null, theta, pr, pi, null, null)) {
+            if (other == null || !response(other, null, theta, steppedRe, steppedIm, null, null)) {
                 return false;
             }
             for (int n = 0; n < omegas.length; n++) {
-                // ln(H'/H)/h: a ratio, so no branch cut of the logarithm is crossed
-                double size = br[n] * br[n] + bi[n] * bi[n];
-                double qr = (pr[n] * br[n] + pi[n] * bi[n]) / size;
-                double qi = (pi[n] * br[n] - pr[n] * bi[n]) / size;
+                // ln(H'/H)/h against the low band of this very call: a ratio, so no branch cut of
+                // the logarithm is crossed
+                double size = lowRe[n] * lowRe[n] + lowIm[n] * lowIm[n];
+                double qr = (steppedRe[n] * lowRe[n] + steppedIm[n] * lowIm[n]) / size;
+                double qi = (steppedIm[n] * lowRe[n] - steppedRe[n] * lowIm[n]) / size;
                 dRe[n][k + j] = 0.5 * Math.log(qr * qr + qi * qi) / BIAS_STEP;
                 dIm[n][k + j] = Math.atan2(qi, qr) / BIAS_STEP;
             }
@@ -204,36 +219,33 @@ final class BoardModel {
         responses++;
         int k = capacitors.size();
         double gain = Math.exp(theta[theta.length - 1]);
-        double[] farads = new double[k];
         for (int i = 0; i < k; i++) {
             farads[i] = nominalFarads[i] * Math.exp(theta[i]);
+        }
+        if (k > 0) {
+            if (!ports.factor(reduced.yFlat, farads)) {
+                return false;
+            }
+            ports.solve(reduced.negativeB, xr, xi);
+            if (dRe != null) {
+                ports.solveTransposed(reduced.c, ur, ui);
+            }
         }
         for (int n = 0; n < omegas.length; n++) {
             double omega = omegas[n];
             double lr = reduced.d;
             double li = 0;
-            if (k > 0) {
-                double[] mr = lowLu.real();
-                double[] mi = lowLu.imaginary();
-                System.arraycopy(reduced.yFlat, 0, mr, 0, k * k);
-                Arrays.fill(mi, 0);
-                for (int i = 0; i < k; i++) {
-                    mi[i * k + i] = omega * farads[i];
-                    xr[i] = -reduced.b[i];
-                    xi[i] = 0;
-                }
-                if (!lowLu.factor()) {
-                    return false;
-                }
-                lowLu.solve(xr, xi);
-                for (int i = 0; i < k; i++) {
-                    lr += reduced.c[i] * xr[i];
-                    li += reduced.c[i] * xi[i];
-                }
+            for (int i = 0; i < k; i++) {
+                lr += reduced.c[i] * xr[i][n];
+                li += reduced.c[i] * xi[i][n];
             }
             double lowSize = lr * lr + li * li;
             if (!(lowSize > 0) || !Double.isFinite(lowSize)) {
                 return false;
+            }
+            if (high != null) {
+                lowRe[n] = gain * lr;
+                lowIm[n] = gain * li;
             }
             double fr = high == null ? 1 : high.re[n];
             double fi = high == null ? 0 : high.im[n];
@@ -242,21 +254,16 @@ final class BoardModel {
             if (dRe == null) {
                 continue;
             }
-            if (k > 0) {
-                for (int i = 0; i < k; i++) {
-                    ur[i] = reduced.c[i];
-                    ui[i] = 0;
-                }
-                lowLu.solveTransposed(ur, ui);
-            }
+            // ∂H_low/∂φ_i = −jω·C_i·u_i·x_i; times conj(H_low)/|H_low|² for ∂ln H/∂φ_i
+            double wr = omega * lr / lowSize;
+            double wi = omega * li / lowSize;
+            double[] rowRe = dRe[n];
+            double[] rowIm = dIm[n];
             for (int i = 0; i < k; i++) {
-                // ∂H_low/∂φ_i = −jω·C_i·u_i·x_i; divided by H_low for ∂ln H/∂φ_i
-                double pr = ur[i] * xr[i] - ui[i] * xi[i];
-                double pi = ur[i] * xi[i] + ui[i] * xr[i];
-                double dr = omega * farads[i] * pi;
-                double di = -omega * farads[i] * pr;
-                dRe[n][i] = (dr * lr + di * li) / lowSize;
-                dIm[n][i] = (di * lr - dr * li) / lowSize;
+                double pr = ur[i][n] * xr[i][n] - ui[i][n] * xi[i][n];
+                double pi = ur[i][n] * xi[i][n] + ui[i][n] * xr[i][n];
+                rowRe[i] = farads[i] * (pi * wr - pr * wi);
+                rowIm[i] = -farads[i] * (pr * wr + pi * wi);
             }
             int g = theta.length - 1;
             dRe[n][g] = 1;
@@ -266,7 +273,7 @@ final class BoardModel {
     }
 
     private Reduced reduced(double[] lnBias) {
-        String key = Arrays.toString(lnBias);
+        BiasPoint key = new BiasPoint(lnBias);
         Reduced hit = cache.get(key);
         if (hit != null) {
             return hit;
@@ -290,7 +297,7 @@ final class BoardModel {
 
     private Reduced reduce(double[] lnBias) {
         reductions++;
-        Reduction low = reduction.reduce(expansion.expand(stage, points(lnBias)), Band.LOW);
+        Reduction low = reduction.reduce(expanded(lnBias), Band.LOW);
         if (!(low instanceof Reduction.StateSpace)) {
             return null;
         }
@@ -317,20 +324,23 @@ final class BoardModel {
     // bias point within HIGH_BAND_REFRESH in ln I is reused (its change there is about 1e-2 of
     // the point noise); the MAP's final evaluation, which fixes χ² and the evidence, is exact.
     private HighFactor highFactor(double[] lnBias, boolean exact, double midbandGain) {
-        if (lastHigh != null) {
+        BiasPoint key = new BiasPoint(lnBias);
+        HighFactor hit = highCache.get(key);
+        if (hit == null && !exact && lastHigh != null) {
             boolean near = true;
             for (int j = 0; j < lnBias.length && near; j++) {
-                near = exact ? lnBias[j] == lastHigh.lnBias[j]
-                        : Math.abs(lnBias[j] - lastHigh.lnBias[j]) <= HIGH_BAND_REFRESH;
+                near = Math.abs(lnBias[j] - lastHigh.lnBias[j]) <= HIGH_BAND_REFRESH;
             }
-            if (near) {
-                return lastHigh;
-            }
+            hit = near ? lastHigh : null;
+        }
+        if (hit != null) {
+            lastHigh = hit;
+            return hit;
         }
         double[] re = new double[omegas.length];
         double[] im = new double[omegas.length];
         Arrays.fill(re, 1);
-        SmallSignalNetwork network = expansion.expand(stage, points(lnBias));
+        SmallSignalNetwork network = expanded(lnBias);
         if (!network.capacitances(Band.HIGH).isEmpty()) {
             reductions++;
             Reduction high = reduction.reduce(network, Band.HIGH);
@@ -342,7 +352,18 @@ final class BoardModel {
             }
         }
         lastHigh = new HighFactor(lnBias.clone(), re, im);
+        highCache.put(key, lastHigh);
         return lastHigh;
+    }
+
+    // the low and the high band of one bias point come from one expansion
+    private SmallSignalNetwork expanded(double[] lnBias) {
+        BiasPoint key = new BiasPoint(lnBias);
+        if (!key.equals(lastExpanded)) {
+            lastNetwork = expansion.expand(stage, points(lnBias));
+            lastExpanded = key;
+        }
+        return lastNetwork;
     }
 
     // H_high(jω)/D with H_high = C·(jωI − A)⁻¹·B + D_high, from the high-band model's matrices
@@ -392,6 +413,7 @@ final class BoardModel {
         final double[][] y;
         final double[] yFlat;
         final double[] b;
+        final double[] negativeB;
         final double[] c;
         final double d;
 
@@ -403,8 +425,31 @@ final class BoardModel {
                 System.arraycopy(y[i], 0, yFlat, i * k, k);
             }
             this.b = b;
+            this.negativeB = new double[k];
+            for (int i = 0; i < k; i++) {
+                negativeB[i] = -b[i];
+            }
             this.c = c;
             this.d = d;
+        }
+    }
+
+    /** ln I/I_nom per transistor as a map key, compared by value (an array compares by identity). */
+    private static final class BiasPoint {
+        private final double[] lnBias;
+
+        BiasPoint(double[] lnBias) {
+            this.lnBias = lnBias.clone();
+        }
+
+        @Override
+        public boolean equals(Object other) {
+            return other instanceof BiasPoint && Arrays.equals(lnBias, ((BiasPoint) other).lnBias);
+        }
+
+        @Override
+        public int hashCode() {
+            return Arrays.hashCode(lnBias);
         }
     }
 

@@ -31,31 +31,24 @@ final class MapSolver {
 
     /** @return the MAP point, or empty when the model is undefined at the start */
     Optional<MapPoint> solve(Misfit misfit, double[] start) {
-        boolean[] free = new boolean[start.length];
-        java.util.Arrays.fill(free, true);
-        return solve(misfit, start, free, true);
+        return solve(misfit, start, null, true);
     }
 
     /**
-     * @param free       which parameters move; the others stay at their start
-     * @param biasMoves  whether any bias parameter is free (else its Jacobian columns are skipped)
+     * @param free         which parameters move, the others staying at their start; null for all.
+     *                     A held bias current needs no Jacobian column, so no reductions.
+     * @param exactHessian false to skip the final exact evaluation: the point's Hessian is then
+     *                     the last iteration's, with reused bias columns (for screening starts,
+     *                     and for a phase whose end only starts another)
      * @return the point reached, its Hessian taken over every parameter
      */
-    Optional<MapPoint> solve(Misfit misfit, double[] start, boolean[] free, boolean biasMoves) {
-        return solve(misfit, start, free, biasMoves, true);
-    }
-
-    /**
-     * @param exactHessian false to skip the final exact evaluation: the point's Hessian is then
-     *                     the last iteration's, with reused bias columns (for screening starts)
-     */
-    Optional<MapPoint> solve(Misfit misfit, double[] start, boolean[] free, boolean biasMoves, boolean exactHessian) {
+    Optional<MapPoint> solve(Misfit misfit, double[] start, boolean[] free, boolean exactHessian) {
         int p = misfit.parameters();
         int rows = misfit.rows();
         double[] theta = start.clone();
         double[] r = new double[rows];
         double[][] jacobian = new double[rows][p];
-        if (!misfit.evaluate(theta, r, jacobian, false, biasMoves)) {
+        if (!misfit.evaluate(theta, r, jacobian, false, free)) {
             return Optional.empty();
         }
         double cost = squaredNorm(r);
@@ -69,7 +62,9 @@ final class MapSolver {
         while (iteration < maxIterations && !converged) {
             iteration++;
             normalEquations(jacobian, r, normal, gradient);
-            hold(free, normal, gradient);
+            if (free != null) {
+                hold(free, normal, gradient);
+            }
             boolean accepted = false;
             while (!accepted && lambda <= MAX_LAMBDA) {
                 double[][] damped = new double[p][p];
@@ -99,7 +94,7 @@ final class MapSolver {
                 }
                 // the Jacobian comes with the trial: most trials are accepted, and one pass
                 // through the frequencies for both costs less than two
-                if (misfit.evaluate(trial, trialR, trialJacobian, false, biasMoves)) {
+                if (misfit.evaluate(trial, trialR, trialJacobian, false, free)) {
                     double trialCost = squaredNorm(trialR);
                     if (trialCost <= cost) {
                         accepted = true;
@@ -125,7 +120,7 @@ final class MapSolver {
             }
         }
         // the Hessian for the covariance and the evidence: every column fresh and exact
-        if (exactHessian && !misfit.evaluate(theta, r, jacobian, true, true)) {
+        if (exactHessian && !misfit.evaluate(theta, r, jacobian, true, null)) {
             return Optional.empty();
         }
         normalEquations(jacobian, r, normal, gradient);
@@ -170,7 +165,7 @@ final class MapSolver {
         int p = misfit.parameters();
         double[] r = new double[misfit.rows()];
         double[][] jacobian = new double[misfit.rows()][p];
-        if (!misfit.evaluate(theta, r, jacobian, true, true)) {
+        if (!misfit.evaluate(theta, r, jacobian, true, null)) {
             return Optional.empty();
         }
         double[][] normal = new double[p][p];

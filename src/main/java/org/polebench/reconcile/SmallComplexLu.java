@@ -13,12 +13,17 @@ final class SmallComplexLu {
     private final double[] re;
     private final double[] im;
     private final int[] pivot;
+    /** 1/U_ii: one division per pivot, so the elimination and both solves only multiply. */
+    private final double[] inverseRe;
+    private final double[] inverseIm;
 
     SmallComplexLu(int n) {
         this.n = n;
         this.re = new double[n * n];
         this.im = new double[n * n];
         this.pivot = new int[n];
+        this.inverseRe = new double[n];
+        this.inverseIm = new double[n];
     }
 
     /** @return the real part, row-major, to fill before {@link #factor()} */
@@ -62,18 +67,22 @@ final class SmallComplexLu {
                 }
             }
             int diagonal = col * n + col;
-            double pr = re[diagonal];
-            double pi = im[diagonal];
+            // 1/p = conj(p)/|p|²: divisions are the slowest operation in these small kernels
+            double scale = 1 / bestSize;
+            double qr = re[diagonal] * scale;
+            double qi = -im[diagonal] * scale;
+            inverseRe[col] = qr;
+            inverseIm[col] = qi;
+            int c = col * n;
             for (int row = col + 1; row < n; row++) {
                 int e = row * n + col;
                 double ar = re[e];
                 double ai = im[e];
-                double lr = (ar * pr + ai * pi) / bestSize;
-                double li = (ai * pr - ar * pi) / bestSize;
+                double lr = ar * qr - ai * qi;
+                double li = ar * qi + ai * qr;
                 re[e] = lr;
                 im[e] = li;
                 int r = row * n;
-                int c = col * n;
                 for (int j = col + 1; j < n; j++) {
                     double cr = re[c + j];
                     double ci = im[c + j];
@@ -117,7 +126,8 @@ final class SmallComplexLu {
                 sr -= re[r + j] * xr[j] - im[r + j] * xi[j];
                 si -= re[r + j] * xi[j] + im[r + j] * xr[j];
             }
-            divide(sr, si, re[r + i], im[r + i], xr, xi, i);
+            xr[i] = sr * inverseRe[i] - si * inverseIm[i];
+            xi[i] = sr * inverseIm[i] + si * inverseRe[i];
         }
     }
 
@@ -132,7 +142,8 @@ final class SmallComplexLu {
                 sr -= re[e] * xr[j] - im[e] * xi[j];
                 si -= re[e] * xi[j] + im[e] * xr[j];
             }
-            divide(sr, si, re[i * n + i], im[i * n + i], xr, xi, i);
+            xr[i] = sr * inverseRe[i] - si * inverseIm[i];
+            xi[i] = sr * inverseIm[i] + si * inverseRe[i];
         }
         for (int i = n - 2; i >= 0; i--) {
             double sr = xr[i];
@@ -156,11 +167,5 @@ final class SmallComplexLu {
                 xi[col] = s;
             }
         }
-    }
-
-    private static void divide(double ar, double ai, double br, double bi, double[] xr, double[] xi, int i) {
-        double size = br * br + bi * bi;
-        xr[i] = (ar * br + ai * bi) / size;
-        xi[i] = (ai * br - ar * bi) / size;
     }
 }
