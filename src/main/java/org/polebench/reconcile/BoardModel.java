@@ -67,6 +67,7 @@ final class BoardModel {
     private BiasPoint lastExpanded;
     private SmallSignalNetwork lastNetwork;
     private final SweptPortEquations ports;
+    private SweptPortEquations highEquations;
     private int reductions;
     private HighFactor lastHigh;
     private int responses;
@@ -81,6 +82,11 @@ final class BoardModel {
     private final double[] lowIm;
     private final double[] steppedRe;
     private final double[] steppedIm;
+    /** Work per frequency: the low band, and jω·conj(H_low)/|H_low|² (as ω·H_low/|H_low|²). */
+    private final double[] responseRe;
+    private final double[] responseIm;
+    private final double[] weightRe;
+    private final double[] weightIm;
 
     /**
      * @param nominalModel  the nominal low-band model (its port order is the parameter order)
@@ -110,6 +116,10 @@ final class BoardModel {
         this.lowIm = new double[omegas.length];
         this.steppedRe = new double[omegas.length];
         this.steppedIm = new double[omegas.length];
+        this.responseRe = new double[omegas.length];
+        this.responseIm = new double[omegas.length];
+        this.weightRe = new double[omegas.length];
+        this.weightIm = new double[omegas.length];
         this.xr = new double[k][omegas.length];
         this.xi = new double[k][omegas.length];
         this.ur = new double[k][omegas.length];
@@ -231,14 +241,21 @@ final class BoardModel {
                 ports.solveTransposed(reduced.c, ur, ui);
             }
         }
-        for (int n = 0; n < omegas.length; n++) {
-            double omega = omegas[n];
-            double lr = reduced.d;
-            double li = 0;
-            for (int i = 0; i < k; i++) {
-                lr += reduced.c[i] * xr[i][n];
-                li += reduced.c[i] * xi[i][n];
+        int f = omegas.length;
+        Arrays.fill(responseRe, reduced.d);
+        Arrays.fill(responseIm, 0);
+        for (int i = 0; i < k; i++) {
+            double ci = reduced.c[i];
+            double[] pr = xr[i];
+            double[] pi = xi[i];
+            for (int n = 0; n < f; n++) {
+                responseRe[n] += ci * pr[n];
+                responseIm[n] += ci * pi[n];
             }
+        }
+        for (int n = 0; n < f; n++) {
+            double lr = responseRe[n];
+            double li = responseIm[n];
             double lowSize = lr * lr + li * li;
             if (!(lowSize > 0) || !Double.isFinite(lowSize)) {
                 return false;
@@ -251,21 +268,28 @@ final class BoardModel {
             double fi = high == null ? 0 : high.im[n];
             hRe[n] = gain * (lr * fr - li * fi);
             hIm[n] = gain * (lr * fi + li * fr);
-            if (dRe == null) {
-                continue;
-            }
             // ∂H_low/∂φ_i = −jω·C_i·u_i·x_i; times conj(H_low)/|H_low|² for ∂ln H/∂φ_i
-            double wr = omega * lr / lowSize;
-            double wi = omega * li / lowSize;
-            double[] rowRe = dRe[n];
-            double[] rowIm = dIm[n];
-            for (int i = 0; i < k; i++) {
-                double pr = ur[i][n] * xr[i][n] - ui[i][n] * xi[i][n];
-                double pi = ur[i][n] * xi[i][n] + ui[i][n] * xr[i][n];
-                rowRe[i] = farads[i] * (pi * wr - pr * wi);
-                rowIm[i] = -farads[i] * (pr * wr + pi * wi);
+            weightRe[n] = omegas[n] * lr / lowSize;
+            weightIm[n] = omegas[n] * li / lowSize;
+        }
+        if (dRe == null) {
+            return true;
+        }
+        for (int i = 0; i < k; i++) {
+            double[] uiRe = ur[i];
+            double[] uiIm = ui[i];
+            double[] xiRe = xr[i];
+            double[] xiIm = xi[i];
+            double ci = farads[i];
+            for (int n = 0; n < f; n++) {
+                double pr = uiRe[n] * xiRe[n] - uiIm[n] * xiIm[n];
+                double pi = uiRe[n] * xiIm[n] + uiIm[n] * xiRe[n];
+                dRe[n][i] = ci * (pi * weightRe[n] - pr * weightIm[n]);
+                dIm[n][i] = -ci * (pr * weightRe[n] + pi * weightIm[n]);
             }
-            int g = theta.length - 1;
+        }
+        int g = theta.length - 1;
+        for (int n = 0; n < f; n++) {
             dRe[n][g] = 1;
             dIm[n][g] = 0;
         }
@@ -375,32 +399,31 @@ final class BoardModel {
             return true;
         }
         double[][] a = high.a();
-        double[] bState = high.b();
         double[] c = high.c();
-        SmallComplexLu lu = new SmallComplexLu(k);
-        double[] vr = new double[k];
-        double[] vi = new double[k];
+        // jωI − A is the port form Y + jω·Cd with Y = −A and every "capacitance" 1
+        double[] minusA = new double[k * k];
+        double[] unit = new double[k];
+        for (int i = 0; i < k; i++) {
+            for (int j = 0; j < k; j++) {
+                minusA[i * k + j] = -a[i][j];
+            }
+            unit[i] = 1;
+        }
+        if (highEquations == null || highEquations.order() != k) {
+            highEquations = new SweptPortEquations(k, omegas);
+        }
+        double[][] vr = new double[k][omegas.length];
+        double[][] vi = new double[k][omegas.length];
+        if (!highEquations.factor(minusA, unit)) {
+            return false;
+        }
+        highEquations.solve(high.b(), vr, vi);
         for (int n = 0; n < omegas.length; n++) {
-            double[] mr = lu.real();
-            double[] mi = lu.imaginary();
-            for (int i = 0; i < k; i++) {
-                for (int j = 0; j < k; j++) {
-                    mr[i * k + j] = -a[i][j];
-                    mi[i * k + j] = 0;
-                }
-                mi[i * k + i] = omegas[n];
-                vr[i] = bState[i];
-                vi[i] = 0;
-            }
-            if (!lu.factor()) {
-                return false;
-            }
-            lu.solve(vr, vi);
             double hr = high.directGain();
             double hi = 0;
             for (int i = 0; i < k; i++) {
-                hr += c[i] * vr[i];
-                hi += c[i] * vi[i];
+                hr += c[i] * vr[i][n];
+                hi += c[i] * vi[i][n];
             }
             outRe[n] = hr / midbandGain;
             outIm[n] = hi / midbandGain;

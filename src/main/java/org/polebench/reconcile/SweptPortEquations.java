@@ -3,17 +3,18 @@ package org.polebench.reconcile;
 import java.util.Arrays;
 
 /**
- * The low-band port equations (Y + jω·Cd)·x = r (DESIGN.md "Port reduction"; Y in siemens, C
- * in farads, ω in rad/s) factored and solved at every frequency of a sweep at once: the
- * elimination runs with the frequency as the innermost loop, so long, branch-free loops over
- * flat arrays replace thousands of k×k ones, and the compiler can vectorise them.
+ * The port equations (Y + jω·Cd)·x = r of a reduced model (DESIGN.md "Port reduction"; Y in
+ * siemens, C in farads, ω in rad/s) factored and solved at every frequency of a sweep at once.
+ * The elimination runs with the frequency as the innermost loop: long, branch-free loops over
+ * flat arrays replace thousands of k×k ones, and the compiler can vectorise them. The same form
+ * serves a state-space model's jωI − A (Y = −A, every C = 1).
  *
  * <p>Gaussian elimination with partial pivoting (Golub and Van Loan, Matrix Computations, 3rd
- * ed., algorithm 3.4.1), the pivot chosen frequency by frequency: each frequency gets exactly
- * the operations, and so the rounding, of {@link SmallComplexLu} on its own matrix. The row
- * exchanges are needed: a transistor's transconductance puts entries far larger than the
- * diagonal below it at the low end of a sweep. One instance per thread and task: it holds the
- * factors.
+ * ed., algorithm 3.4.1), the pivot chosen frequency by frequency, so each frequency gets the
+ * operations of a k×k pivoted LU of its own matrix. The exchanges are needed: a transistor's
+ * transconductance puts entries far larger than the diagonal below it at the low end of a
+ * sweep. Singular case: an exactly zero column below the diagonal at some frequency, reported by
+ * {@link #factor}. One instance per thread and task: it holds the factors.
  */
 final class SweptPortEquations {
     private final int k;
@@ -24,8 +25,15 @@ final class SweptPortEquations {
     /** 1/U_ii per frequency: [i][n]. */
     private final double[][] inverseRe;
     private final double[][] inverseIm;
-    /** The row brought up for each column at each frequency: [column][n]. */
-    private final int[][] pivot;
+    /** Work: the row brought up for the current column, per frequency. */
+    private final int[] chosen;
+    /** The row of M that sits at each row of the factors, per frequency: [row][n]. */
+    private final int[][] origin;
+    private final int[] votes;
+    private final double[][] workRe;
+    private final double[][] workIm;
+    /** Work: the largest |entry|² found so far in the pivot search, per frequency. */
+    private final double[] largest;
 
     /** @param omegas the sweep's angular frequencies, rad/s */
     SweptPortEquations(int k, double[] omegas) {
@@ -36,11 +44,21 @@ final class SweptPortEquations {
         this.im = new double[k * k][f];
         this.inverseRe = new double[k][f];
         this.inverseIm = new double[k][f];
-        this.pivot = new int[k][f];
+        this.chosen = new int[f];
+        this.origin = new int[k][f];
+        this.votes = new int[k];
+        this.workRe = new double[k][f];
+        this.workIm = new double[k][f];
+        this.largest = new double[f];
     }
 
     int frequencies() {
         return omegas.length;
+    }
+
+    /** @return k, the number of ports */
+    int order() {
+        return k;
     }
 
     /**
@@ -61,6 +79,9 @@ final class SweptPortEquations {
             for (int n = 0; n < f; n++) {
                 diagonal[n] = omegas[n] * farads[i];
             }
+        }
+        for (int i = 0; i < k; i++) {
+            Arrays.fill(origin[i], i);
         }
         for (int col = 0; col < k; col++) {
             if (!exchangeRows(col)) {
@@ -101,35 +122,90 @@ final class SweptPortEquations {
     }
 
     // partial pivoting, frequency by frequency: the row of the largest |entry| in this column
-    // (the first of equals) comes up; false when the whole column below is zero
+    // (the first of equals) comes up; false when the whole column below is zero. The search runs
+    // along each row's frequencies; only the frequencies that need an exchange are touched then.
     private boolean exchangeRows(int col) {
-        int[] chosen = pivot[col];
-        for (int n = 0; n < omegas.length; n++) {
-            int best = col;
-            double[] ar = re[col * k + col];
-            double[] ai = im[col * k + col];
-            double bestSize = ar[n] * ar[n] + ai[n] * ai[n];
-            for (int row = col + 1; row < k; row++) {
-                ar = re[row * k + col];
-                ai = im[row * k + col];
+        int f = omegas.length;
+        double[] ar = re[col * k + col];
+        double[] ai = im[col * k + col];
+        for (int n = 0; n < f; n++) {
+            largest[n] = ar[n] * ar[n] + ai[n] * ai[n];
+            chosen[n] = col;
+        }
+        boolean exchange = false;
+        for (int row = col + 1; row < k; row++) {
+            ar = re[row * k + col];
+            ai = im[row * k + col];
+            for (int n = 0; n < f; n++) {
                 double size = ar[n] * ar[n] + ai[n] * ai[n];
-                if (size > bestSize) {
-                    best = row;
-                    bestSize = size;
-                }
-            }
-            if (bestSize == 0) {
-                return false;
-            }
-            chosen[n] = best;
-            if (best != col) {
-                for (int j = 0; j < k; j++) {
-                    swap(re[best * k + j], re[col * k + j], n);
-                    swap(im[best * k + j], im[col * k + j], n);
+                if (size > largest[n]) {
+                    largest[n] = size;
+                    chosen[n] = row;
+                    exchange = true;
                 }
             }
         }
+        for (int n = 0; n < f; n++) {
+            if (largest[n] == 0) {
+                return false;
+            }
+        }
+        if (!exchange) {
+            return true;
+        }
+        // across a sweep one row usually wins at most frequencies: exchanging the row arrays
+        // themselves serves all of those at once, and the others are put right one by one
+        int common = commonest(chosen, col);
+        if (common != col) {
+            for (int j = 0; j < k; j++) {
+                exchange(re, common * k + j, col * k + j);
+                exchange(im, common * k + j, col * k + j);
+            }
+            exchange(origin, common, col);
+        }
+        for (int n = 0; n < f; n++) {
+            int best = chosen[n];
+            if (best == common) {
+                continue;
+            }
+            if (common != col) {
+                swapRows(common, col, n);
+            }
+            if (best != col) {
+                swapRows(best, col, n);
+            }
+        }
         return true;
+    }
+
+    private int commonest(int[] chosen, int col) {
+        Arrays.fill(votes, 0);
+        for (int row : chosen) {
+            votes[row]++;
+        }
+        int common = col;
+        for (int row = col + 1; row < k; row++) {
+            if (votes[row] > votes[common]) {
+                common = row;
+            }
+        }
+        return common;
+    }
+
+    private void swapRows(int a, int b, int n) {
+        for (int j = 0; j < k; j++) {
+            swap(re[a * k + j], re[b * k + j], n);
+            swap(im[a * k + j], im[b * k + j], n);
+        }
+        int kept = origin[a][n];
+        origin[a][n] = origin[b][n];
+        origin[b][n] = kept;
+    }
+
+    private static <T> void exchange(T[] rows, int a, int b) {
+        T kept = rows[a];
+        rows[a] = rows[b];
+        rows[b] = kept;
     }
 
     private static void swap(double[] a, double[] b, int n) {
@@ -147,9 +223,14 @@ final class SweptPortEquations {
      */
     void solve(double[] r, double[][] xr, double[][] xi) {
         int f = omegas.length;
-        fill(r, xr, xi);
-        for (int col = 0; col < k; col++) {
-            permute(col, xr, xi);
+        // P·M = L·U, so L·U·x = P·r
+        for (int i = 0; i < k; i++) {
+            int[] from = origin[i];
+            double[] to = xr[i];
+            for (int n = 0; n < f; n++) {
+                to[n] = r[from[n]];
+            }
+            Arrays.fill(xi[i], 0);
         }
         for (int i = 1; i < k; i++) {
             for (int j = 0; j < i; j++) {
@@ -180,20 +261,18 @@ final class SweptPortEquations {
                 subtractProduct(re[j * k + i], im[j * k + i], xr[j], xi[j], xr[i], xi[i], f);
             }
         }
-        for (int col = k - 1; col >= 0; col--) {
-            permute(col, xr, xi);
-        }
-    }
-
-    // the row exchange chosen for this column, frequency by frequency
-    private void permute(int col, double[][] xr, double[][] xi) {
-        int[] chosen = pivot[col];
-        for (int n = 0; n < omegas.length; n++) {
-            int p = chosen[n];
-            if (p != col) {
-                swap(xr[p], xr[col], n);
-                swap(xi[p], xi[col], n);
+        for (int i = 0; i < k; i++) {
+            int[] to = origin[i];
+            double[] wr = xr[i];
+            double[] wi = xi[i];
+            for (int n = 0; n < f; n++) {
+                workRe[to[n]][n] = wr[n];
+                workIm[to[n]][n] = wi[n];
             }
+        }
+        for (int i = 0; i < k; i++) {
+            System.arraycopy(workRe[i], 0, xr[i], 0, f);
+            System.arraycopy(workIm[i], 0, xi[i], 0, f);
         }
     }
 
