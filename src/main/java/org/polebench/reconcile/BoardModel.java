@@ -47,6 +47,8 @@ final class BoardModel {
     private final double[] omegas;
     private final PortReduction reduction = new PortReduction();
     private final SmallSignalExpansion expansion = new SmallSignalExpansion();
+    /** The stage's nodes numbered once: every bias point is expanded on the same layout. */
+    private final SmallSignalExpansion.Prepared prepared;
     private final Map<BiasPoint, Reduced> cache = new LinkedHashMap<>(16, 0.75f, true) {
         private static final long serialVersionUID = 1L;
 
@@ -94,6 +96,7 @@ final class BoardModel {
      */
     BoardModel(Stage stage, OperatingPoints nominalPoints, StateModel nominalModel, double[] frequenciesHz) {
         this.stage = stage;
+        this.prepared = expansion.prepare(stage);
         this.nominalPoints = nominalPoints;
         this.capacitors = nominalModel.capacitorNames();
         int k = capacitors.size();
@@ -384,7 +387,7 @@ final class BoardModel {
     private SmallSignalNetwork expanded(double[] lnBias) {
         BiasPoint key = new BiasPoint(lnBias);
         if (!key.equals(lastExpanded)) {
-            lastNetwork = expansion.expand(stage, points(lnBias));
+            lastNetwork = prepared.expand(stage, points(lnBias));
             lastExpanded = key;
         }
         return lastNetwork;
