@@ -156,7 +156,7 @@ final class BoardModel {
      * @param theta parameters in the order of {@link #parameterCount()}
      * @param hRe   out: Re H per frequency
      * @param hIm   out: Im H per frequency
-     * @param dRe   out, or null: [frequency][parameter] real part of ∂ln H/∂θ
+     * @param dRe   out, or null: [parameter][frequency] real part of ∂ln H/∂θ
      * @param dIm   out, or null: imaginary part
      * @param biasColumns per transistor, whether to compute its bias column of {@code dRe, dIm}
      *                    (by forward difference, one reduction each); null for none. Columns not
@@ -196,8 +196,8 @@ final class BoardModel {
                 double size = lowRe[n] * lowRe[n] + lowIm[n] * lowIm[n];
                 double qr = (steppedRe[n] * lowRe[n] + steppedIm[n] * lowIm[n]) / size;
                 double qi = (steppedIm[n] * lowRe[n] - steppedRe[n] * lowIm[n]) / size;
-                dRe[n][k + j] = 0.5 * Math.log(qr * qr + qi * qi) / BIAS_STEP;
-                dIm[n][k + j] = Math.atan2(qi, qr) / BIAS_STEP;
+                dRe[k + j][n] = 0.5 * Math.log(qr * qr + qi * qi) / BIAS_STEP;
+                dIm[k + j][n] = Math.atan2(qi, qr) / BIAS_STEP;
             }
         }
         return true;
@@ -284,18 +284,18 @@ final class BoardModel {
             double[] xiRe = xr[i];
             double[] xiIm = xi[i];
             double ci = farads[i];
+            double[] outRe = dRe[i];
+            double[] outIm = dIm[i];
             for (int n = 0; n < f; n++) {
                 double pr = uiRe[n] * xiRe[n] - uiIm[n] * xiIm[n];
                 double pi = uiRe[n] * xiIm[n] + uiIm[n] * xiRe[n];
-                dRe[n][i] = ci * (pi * weightRe[n] - pr * weightIm[n]);
-                dIm[n][i] = -ci * (pr * weightRe[n] + pi * weightIm[n]);
+                outRe[n] = ci * (pi * weightRe[n] - pr * weightIm[n]);
+                outIm[n] = -ci * (pr * weightRe[n] + pi * weightIm[n]);
             }
         }
         int g = theta.length - 1;
-        for (int n = 0; n < f; n++) {
-            dRe[n][g] = 1;
-            dIm[n][g] = 0;
-        }
+        Arrays.fill(dRe[g], 0, f, 1);
+        Arrays.fill(dIm[g], 0, f, 0);
         return true;
     }
 

@@ -47,14 +47,14 @@ final class MapSolver {
         int rows = misfit.rows();
         double[] theta = start.clone();
         double[] r = new double[rows];
-        double[][] jacobian = new double[rows][p];
+        double[][] jacobian = new double[p][rows];
         if (!misfit.evaluate(theta, r, jacobian, false, free)) {
             return Optional.empty();
         }
         double cost = squaredNorm(r);
         double lambda = INITIAL_LAMBDA;
         double[] trialR = new double[rows];
-        double[][] trialJacobian = new double[rows][p];
+        double[][] trialJacobian = new double[p][rows];
         boolean converged = false;
         int iteration = 0;
         double[][] normal = new double[p][p];
@@ -132,39 +132,44 @@ final class MapSolver {
                 factor.get().inverse(), factor.get().lnDeterminant(), converged, iteration));
     }
 
+    // JᵀJ and Jᵀr from the Jacobian's columns: each entry one contiguous dot product
     private static void normalEquations(double[][] jacobian, double[] r, double[][] normal, double[] gradient) {
         int p = gradient.length;
         for (int i = 0; i < p; i++) {
-            gradient[i] = 0;
-            for (int j = 0; j < p; j++) {
-                normal[i][j] = 0;
+            double[] column = jacobian[i];
+            gradient[i] = dot(column, r);
+            for (int j = 0; j <= i; j++) {
+                normal[i][j] = dot(column, jacobian[j]);
+                normal[j][i] = normal[i][j];
             }
         }
-        for (int row = 0; row < r.length; row++) {
-            double[] jr = jacobian[row];
-            for (int i = 0; i < p; i++) {
-                double ji = jr[i];
-                if (ji == 0) {
-                    continue;
-                }
-                gradient[i] += ji * r[row];
-                for (int j = 0; j <= i; j++) {
-                    normal[i][j] += ji * jr[j];
-                }
-            }
+    }
+
+    // four partial sums: independent additions the processor can overlap
+    private static double dot(double[] a, double[] b) {
+        int n = a.length;
+        double s0 = 0;
+        double s1 = 0;
+        double s2 = 0;
+        double s3 = 0;
+        int i = 0;
+        for (; i + 3 < n; i += 4) {
+            s0 += a[i] * b[i];
+            s1 += a[i + 1] * b[i + 1];
+            s2 += a[i + 2] * b[i + 2];
+            s3 += a[i + 3] * b[i + 3];
         }
-        for (int i = 0; i < p; i++) {
-            for (int j = i + 1; j < p; j++) {
-                normal[i][j] = normal[j][i];
-            }
+        for (; i < n; i++) {
+            s0 += a[i] * b[i];
         }
+        return (s0 + s1) + (s2 + s3);
     }
 
     /** @return the point θ itself with its exact Hessian, no search; empty where the model is undefined */
     Optional<MapPoint> at(Misfit misfit, double[] theta) {
         int p = misfit.parameters();
         double[] r = new double[misfit.rows()];
-        double[][] jacobian = new double[misfit.rows()][p];
+        double[][] jacobian = new double[p][misfit.rows()];
         if (!misfit.evaluate(theta, r, jacobian, true, null)) {
             return Optional.empty();
         }

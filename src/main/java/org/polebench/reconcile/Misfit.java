@@ -2,8 +2,8 @@ package org.polebench.reconcile;
 
 /**
  * The stacked, weighted residual vector of one hypothesis: the measured response against the
- * board model (real part ln|H_meas/H_model|/σ, then the wrapped imaginary part arg/σ, per point),
- * then one prior row (θ_j − μ_j)/σ_j per parameter. Minimising half its squared norm is the
+ * board model, the real parts ln|H_meas/H_model|/σ of every point, then the wrapped imaginary
+ * parts arg(H_meas/H_model)/σ (with phase), then one prior row (θ_j − μ_j)/σ_j per parameter. Minimising half its squared norm is the
  * MAP of a Gaussian likelihood with Gaussian priors. {@code noiseScale} multiplies every
  * data σ (a residual scale estimated from the best hypothesis; 1 to take the sweep's σ as
  * stated). One instance per task and thread: it keeps work arrays.
@@ -35,8 +35,8 @@ final class Misfit {
         int n = measured.size();
         this.hr = new double[n];
         this.hi = new double[n];
-        this.dr = new double[n][model.parameterCount()];
-        this.di = new double[n][model.parameterCount()];
+        this.dr = new double[model.parameterCount()][n];
+        this.di = new double[model.parameterCount()][n];
         this.magnitudeWeight = new double[n];
         this.phaseWeight = new double[n];
         for (int k = 0; k < n; k++) {
@@ -76,7 +76,7 @@ final class Misfit {
 
     /**
      * @param residuals out, {@link #rows()} long
-     * @param jacobian  out, or null: ∂residual/∂θ, rows × parameters
+     * @param jacobian  out, or null: ∂residual/∂θ by columns, [parameter][row]
      * @param exact     true forces every bias column of the Jacobian fresh, and the high band
      *                  exact; otherwise a bias column is reused until the bias has moved by
      *                  {@value #BIAS_REFRESH} in ln I since it was made (bias columns change
@@ -113,38 +113,36 @@ final class Misfit {
         }
         int n = measured.size();
         int p = priors.length;
-        int row = 0;
         for (int k = 0; k < n; k++) {
-            double weight = magnitudeWeight[k];
-            residuals[row] = (measured.lnMagnitude(k) - 0.5 * Math.log(hr[k] * hr[k] + hi[k] * hi[k])) * weight;
-            if (jacobian != null) {
-                double[] out = jacobian[row];
-                double[] in = dr[k];
-                for (int j = 0; j < p; j++) {
-                    out[j] = -in[j] * weight;
-                }
-            }
-            row++;
-            if (measured.withPhase()) {
-                double phaseScale = phaseWeight[k];
-                residuals[row] = wrap(measured.phaseRad(k) - Math.atan2(hi[k], hr[k])) * phaseScale;
-                if (jacobian != null) {
-                    double[] out = jacobian[row];
-                    double[] in = di[k];
-                    for (int j = 0; j < p; j++) {
-                        out[j] = -in[j] * phaseScale;
-                    }
-                }
-                row++;
+            residuals[k] = (measured.lnMagnitude(k) - 0.5 * Math.log(hr[k] * hr[k] + hi[k] * hi[k]))
+                    * magnitudeWeight[k];
+        }
+        if (measured.withPhase()) {
+            for (int k = 0; k < n; k++) {
+                residuals[n + k] = wrap(measured.phaseRad(k) - Math.atan2(hi[k], hr[k])) * phaseWeight[k];
             }
         }
+        int priorRow = measured.rows();
         for (int j = 0; j < p; j++) {
-            residuals[row] = (theta[j] - priors[j].mean()) / priors[j].standardDeviation();
-            if (jacobian != null) {
-                java.util.Arrays.fill(jacobian[row], 0);
-                jacobian[row][j] = 1 / priors[j].standardDeviation();
+            residuals[priorRow + j] = (theta[j] - priors[j].mean()) / priors[j].standardDeviation();
+        }
+        if (jacobian == null) {
+            return true;
+        }
+        for (int j = 0; j < p; j++) {
+            double[] column = jacobian[j];
+            double[] magnitude = dr[j];
+            for (int k = 0; k < n; k++) {
+                column[k] = -magnitude[k] * magnitudeWeight[k];
             }
-            row++;
+            if (measured.withPhase()) {
+                double[] phase = di[j];
+                for (int k = 0; k < n; k++) {
+                    column[n + k] = -phase[k] * phaseWeight[k];
+                }
+            }
+            java.util.Arrays.fill(column, priorRow, priorRow + p, 0);
+            column[priorRow + j] = 1 / priors[j].standardDeviation();
         }
         return true;
     }
