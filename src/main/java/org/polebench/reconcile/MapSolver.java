@@ -61,7 +61,7 @@ final class MapSolver {
         double[] gradient = new double[p];
         while (iteration < maxIterations && !converged) {
             iteration++;
-            normalEquations(jacobian, r, normal, gradient);
+            normalEquations(jacobian, r, free, normal, gradient);
             if (free != null) {
                 hold(free, normal, gradient);
             }
@@ -123,7 +123,7 @@ final class MapSolver {
         if (exactHessian && !misfit.evaluate(theta, r, jacobian, true, null)) {
             return Optional.empty();
         }
-        normalEquations(jacobian, r, normal, gradient);
+        normalEquations(jacobian, r, null, normal, gradient);
         Optional<Cholesky> factor = Cholesky.of(normal);
         if (factor.isEmpty()) {
             return Optional.empty();
@@ -132,14 +132,17 @@ final class MapSolver {
                 factor.get().inverse(), factor.get().lnDeterminant(), converged, iteration));
     }
 
-    // JᵀJ and Jᵀr from the Jacobian's columns: each entry one contiguous dot product
-    private static void normalEquations(double[][] jacobian, double[] r, double[][] normal, double[] gradient) {
+    // JᵀJ and Jᵀr from the Jacobian's columns, each entry one contiguous dot product; the rows
+    // and columns of held parameters are left zero, for hold() to finish
+    private static void normalEquations(double[][] jacobian, double[] r, boolean[] free, double[][] normal,
+                                        double[] gradient) {
         int p = gradient.length;
         for (int i = 0; i < p; i++) {
+            boolean moves = free == null || free[i];
             double[] column = jacobian[i];
-            gradient[i] = dot(column, r);
+            gradient[i] = moves ? dot(column, r) : 0;
             for (int j = 0; j <= i; j++) {
-                normal[i][j] = dot(column, jacobian[j]);
+                normal[i][j] = moves && (free == null || free[j]) ? dot(column, jacobian[j]) : 0;
                 normal[j][i] = normal[i][j];
             }
         }
@@ -175,7 +178,7 @@ final class MapSolver {
         }
         double[][] normal = new double[p][p];
         double[] gradient = new double[p];
-        normalEquations(jacobian, r, normal, gradient);
+        normalEquations(jacobian, r, null, normal, gradient);
         Optional<Cholesky> factor = Cholesky.of(normal);
         if (factor.isEmpty()) {
             return Optional.empty();
