@@ -29,7 +29,10 @@ import org.polebench.circuit.Transistor;
  * sweep assumes. Only the bias parameters need a new small-signal expansion and reduction
  * ({@link OperatingPoints#withCurrentScaled}); their derivative is a forward difference.
  *
- * <p>Keeps the last few reductions, so one instance belongs to one task and thread.
+ * <p>Every evaluation solves the port equations at all the sweep's frequencies at once
+ * ({@link SweptPortEquations}) into preallocated arrays: nothing is allocated per frequency.
+ * Keeps the last few reductions and high-band factors, by bias point, and its work arrays, so
+ * one instance belongs to one task and thread.
  */
 final class BoardModel {
     /** Forward-difference step in ln I: truncation ~1e-6 relative, round-off ~1e-10. */
@@ -49,23 +52,9 @@ final class BoardModel {
     private final SmallSignalExpansion expansion = new SmallSignalExpansion();
     /** The stage's nodes numbered once: every bias point is expanded on the same layout. */
     private final SmallSignalExpansion.Prepared prepared;
-    private final Map<BiasPoint, Reduced> cache = new LinkedHashMap<>(16, 0.75f, true) {
-        private static final long serialVersionUID = 1L;
-
-        @Override
-        protected boolean removeEldestEntry(Map.Entry<BiasPoint, Reduced> eldest) {
-            return size() > CACHED_REDUCTIONS;
-        }
-    };
+    private final Map<BiasPoint, Reduced> cache = leastRecentlyUsed(CACHED_REDUCTIONS);
     // hypotheses alternate between a few bias points (the no-fault MAP's, the priors' means)
-    private final Map<BiasPoint, HighFactor> highCache = new LinkedHashMap<>(16, 0.75f, true) {
-        private static final long serialVersionUID = 1L;
-
-        @Override
-        protected boolean removeEldestEntry(Map.Entry<BiasPoint, HighFactor> eldest) {
-            return size() > CACHED_HIGH_FACTORS;
-        }
-    };
+    private final Map<BiasPoint, HighFactor> highCache = leastRecentlyUsed(CACHED_HIGH_FACTORS);
     private BiasPoint lastExpanded;
     private SmallSignalNetwork lastNetwork;
     private final SweptPortEquations ports;
@@ -79,7 +68,7 @@ final class BoardModel {
     private final double[][] xi;
     private final double[][] ur;
     private final double[][] ui;
-    /** The low band times the gain of the last evaluation with its high band: a bias difference's base. */
+    /** The low band times the gain, of the last evaluation with its high band: a bias difference's base. */
     private final double[] lowRe;
     private final double[] lowIm;
     private final double[] steppedRe;
@@ -458,6 +447,18 @@ final class BoardModel {
             this.c = c;
             this.d = d;
         }
+    }
+
+    /** @return a map in access order that forgets its least recently used entry beyond {@code capacity} */
+    private static <V> Map<BiasPoint, V> leastRecentlyUsed(int capacity) {
+        return new LinkedHashMap<>(16, 0.75f, true) {
+            private static final long serialVersionUID = 1L;
+
+            @Override
+            protected boolean removeEldestEntry(Map.Entry<BiasPoint, V> eldest) {
+                return size() > capacity;
+            }
+        };
     }
 
     /** ln I/I_nom per transistor as a map key, compared by value (an array compares by identity). */
