@@ -113,9 +113,14 @@ final class ReconcileCommand implements Callable<Integer> {
         ImportedSweep imported = sweep == null && layout.isAuto()
                 ? layout.read(sweepFile, SweepWriter.CANONICAL) : layout.read(sweepFile);
         ReconcileResult result = new Reconciler().reconcile(predicted, imported.sweep(), decisionRule);
-        RunDetails run = RunDetails.of(stageFile, sweepFile, imported.profileName(), imported.warnings(),
-                Optional.ofNullable(operator), Optional.ofNullable(board), samples, seed);
-        ObjectNode root = new ResultJson().of(result, run);
+        // the result document (with its Bode curves and their tolerance band) only for --json
+        // and --report: the summary does not need it, and it costs as much as the reconcile
+        ObjectNode root = null;
+        if (json || report != null) {
+            RunDetails run = RunDetails.of(stageFile, sweepFile, imported.profileName(), imported.warnings(),
+                    Optional.ofNullable(operator), Optional.ofNullable(board), samples, seed);
+            root = new ResultJson().of(result, run);
+        }
         var out = spec.commandLine().getOut();
         if (json) {
             out.print(new ResultJson().text(root));

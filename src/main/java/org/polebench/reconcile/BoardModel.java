@@ -29,12 +29,16 @@ import org.polebench.circuit.Transistor;
  * sweep assumes. Only the bias parameters need a new small-signal expansion and reduction
  * ({@link OperatingPoints#withCurrentScaled}); their derivative is a forward difference.
  *
- * <p>Keeps the last few reductions, so one instance belongs to one task and thread.
+ * <p>Every evaluation solves the port equations at all the sweep's frequencies at once
+ * ({@link SweptPortEquations}) into preallocated arrays: nothing is allocated per frequency.
+ * Keeps the last few reductions and high-band factors, by bias point, and its work arrays, so
+ * one instance belongs to one task and thread.
  */
 final class BoardModel {
     /** Forward-difference step in ln I: truncation ~1e-6 relative, round-off ~1e-10. */
     static final double BIAS_STEP = 1e-6;
     private static final int CACHED_REDUCTIONS = 32;
+    private static final int CACHED_HIGH_FACTORS = 8;
     /** Bias move in ln I within which a high-band factor is reused between exact evaluations. */
     static final double HIGH_BAND_REFRESH = 0.02;
 
@@ -46,22 +50,34 @@ final class BoardModel {
     private final double[] omegas;
     private final PortReduction reduction = new PortReduction();
     private final SmallSignalExpansion expansion = new SmallSignalExpansion();
-    private final Map<String, Reduced> cache = new LinkedHashMap<>(16, 0.75f, true) {
-        private static final long serialVersionUID = 1L;
-
-        @Override
-        protected boolean removeEldestEntry(Map.Entry<String, Reduced> eldest) {
-            return size() > CACHED_REDUCTIONS;
-        }
-    };
-    private final SmallComplexLu lowLu;
+    /** The stage's nodes numbered once: every bias point is expanded on the same layout. */
+    private final SmallSignalExpansion.Prepared prepared;
+    private final Map<BiasPoint, Reduced> cache = leastRecentlyUsed(CACHED_REDUCTIONS);
+    // hypotheses alternate between a few bias points (the no-fault MAP's, the priors' means)
+    private final Map<BiasPoint, HighFactor> highCache = leastRecentlyUsed(CACHED_HIGH_FACTORS);
+    private BiasPoint lastExpanded;
+    private SmallSignalNetwork lastNetwork;
+    private final SweptPortEquations ports;
+    private SweptPortEquations highEquations;
     private int reductions;
     private HighFactor lastHigh;
     private int responses;
-    private final double[] xr;
-    private final double[] xi;
-    private final double[] ur;
-    private final double[] ui;
+    private final double[] farads;
+    /** x = −(Y + jωCd)⁻¹·b and u = (Y + jωCd)⁻ᵀ·c, [port][frequency]. */
+    private final double[][] xr;
+    private final double[][] xi;
+    private final double[][] ur;
+    private final double[][] ui;
+    /** The low band times the gain, of the last evaluation with its high band: a bias difference's base. */
+    private final double[] lowRe;
+    private final double[] lowIm;
+    private final double[] steppedRe;
+    private final double[] steppedIm;
+    /** Work per frequency: the low band, and jω·conj(H_low)/|H_low|² (as ω·H_low/|H_low|²). */
+    private final double[] responseRe;
+    private final double[] responseIm;
+    private final double[] weightRe;
+    private final double[] weightIm;
 
     /**
      * @param nominalModel  the nominal low-band model (its port order is the parameter order)
@@ -69,6 +85,7 @@ final class BoardModel {
      */
     BoardModel(Stage stage, OperatingPoints nominalPoints, StateModel nominalModel, double[] frequenciesHz) {
         this.stage = stage;
+        this.prepared = expansion.prepare(stage);
         this.nominalPoints = nominalPoints;
         this.capacitors = nominalModel.capacitorNames();
         int k = capacitors.size();
@@ -85,11 +102,20 @@ final class BoardModel {
         for (int n = 0; n < omegas.length; n++) {
             omegas[n] = 2 * Math.PI * frequenciesHz[n];
         }
-        this.lowLu = new SmallComplexLu(k);
-        this.xr = new double[k];
-        this.xi = new double[k];
-        this.ur = new double[k];
-        this.ui = new double[k];
+        this.ports = new SweptPortEquations(k, omegas);
+        this.farads = new double[k];
+        this.lowRe = new double[omegas.length];
+        this.lowIm = new double[omegas.length];
+        this.steppedRe = new double[omegas.length];
+        this.steppedIm = new double[omegas.length];
+        this.responseRe = new double[omegas.length];
+        this.responseIm = new double[omegas.length];
+        this.weightRe = new double[omegas.length];
+        this.weightIm = new double[omegas.length];
+        this.xr = new double[k][omegas.length];
+        this.xi = new double[k][omegas.length];
+        this.ur = new double[k][omegas.length];
+        this.ui = new double[k][omegas.length];
     }
 
     List<String> capacitors() {
@@ -119,23 +145,17 @@ final class BoardModel {
      * @param theta parameters in the order of {@link #parameterCount()}
      * @param hRe   out: Re H per frequency
      * @param hIm   out: Im H per frequency
-     * @param dRe   out, or null: [frequency][parameter] real part of ∂ln H/∂θ
+     * @param dRe   out, or null: [parameter][frequency] real part of ∂ln H/∂θ
      * @param dIm   out, or null: imaginary part
-     * @param biasColumns whether to compute the bias columns of {@code dRe, dIm} (by forward
-     *                    difference); when false they are left as they were
+     * @param biasColumns per transistor, whether to compute its bias column of {@code dRe, dIm}
+     *                    (by forward difference, one reduction each); null for none. Columns not
+     *                    computed are left as they were.
+     * @param exactHighBand false lets the high-band factor of a bias point within
+     *                      {@value #HIGH_BAND_REFRESH} in ln I of the last one used be reused
      * @return false when the network is singular at these bias currents or H vanishes
      */
     boolean evaluate(double[] theta, double[] hRe, double[] hIm, double[][] dRe, double[][] dIm,
-                     boolean biasColumns) {
-        return evaluate(theta, hRe, hIm, dRe, dIm, biasColumns, true);
-    }
-
-    /**
-     * @param exactHighBand false lets the high-band factor of a bias point within
-     *                      {@value #HIGH_BAND_REFRESH} in ln I of the last one computed be reused
-     */
-    boolean evaluate(double[] theta, double[] hRe, double[] hIm, double[][] dRe, double[][] dIm,
-                     boolean biasColumns, boolean exactHighBand) {
+                     boolean[] biasColumns, boolean exactHighBand) {
         int k = capacitors.size();
         int m = transistors.size();
         double[] lnBias = Arrays.copyOfRange(theta, k, k + m);
@@ -144,32 +164,29 @@ final class BoardModel {
         if (reduced == null || high == null || !response(reduced, high, theta, hRe, hIm, dRe, dIm)) {
             return false;
         }
-        if (dRe == null || !biasColumns || m == 0) {
+        if (dRe == null || biasColumns == null) {
             return true;
         }
-        double[] pr = new double[omegas.length];
-        double[] pi = new double[omegas.length];
-        double[] br = new double[omegas.length];
-        double[] bi = new double[omegas.length];
-        if (!response(reduced, null, theta, br, bi, null, null)) {
-            return false;
-        }
         for (int j = 0; j < m; j++) {
+            if (!biasColumns[j]) {
+                continue;
+            }
             double[] stepped = lnBias.clone();
             stepped[j] += BIAS_STEP;
             // the derivative leaves out the high band's small bias dependence (its value is kept):
             // a Jacobian only steers the search, the residuals fix where it ends
             Reduced other = reduced(stepped);
-            if (other == null || !response(other, null, theta, pr, pi, null, null)) {
+            if (other == null || !response(other, null, theta, steppedRe, steppedIm, null, null)) {
                 return false;
             }
             for (int n = 0; n < omegas.length; n++) {
-                // ln(H'/H)/h: a ratio, so no branch cut of the logarithm is crossed
-                double size = br[n] * br[n] + bi[n] * bi[n];
-                double qr = (pr[n] * br[n] + pi[n] * bi[n]) / size;
-                double qi = (pi[n] * br[n] - pr[n] * bi[n]) / size;
-                dRe[n][k + j] = 0.5 * Math.log(qr * qr + qi * qi) / BIAS_STEP;
-                dIm[n][k + j] = Math.atan2(qi, qr) / BIAS_STEP;
+                // ln(H'/H)/h against the low band of this very call: a ratio, so no branch cut of
+                // the logarithm is crossed
+                double size = lowRe[n] * lowRe[n] + lowIm[n] * lowIm[n];
+                double qr = (steppedRe[n] * lowRe[n] + steppedIm[n] * lowIm[n]) / size;
+                double qi = (steppedIm[n] * lowRe[n] - steppedRe[n] * lowIm[n]) / size;
+                dRe[k + j][n] = 0.5 * Math.log(qr * qr + qi * qi) / BIAS_STEP;
+                dIm[k + j][n] = Math.atan2(qi, qr) / BIAS_STEP;
             }
         }
         return true;
@@ -204,69 +221,75 @@ final class BoardModel {
         responses++;
         int k = capacitors.size();
         double gain = Math.exp(theta[theta.length - 1]);
-        double[] farads = new double[k];
         for (int i = 0; i < k; i++) {
             farads[i] = nominalFarads[i] * Math.exp(theta[i]);
         }
-        for (int n = 0; n < omegas.length; n++) {
-            double omega = omegas[n];
-            double lr = reduced.d;
-            double li = 0;
-            if (k > 0) {
-                double[] mr = lowLu.real();
-                double[] mi = lowLu.imaginary();
-                System.arraycopy(reduced.yFlat, 0, mr, 0, k * k);
-                Arrays.fill(mi, 0);
-                for (int i = 0; i < k; i++) {
-                    mi[i * k + i] = omega * farads[i];
-                    xr[i] = -reduced.b[i];
-                    xi[i] = 0;
-                }
-                if (!lowLu.factor()) {
-                    return false;
-                }
-                lowLu.solve(xr, xi);
-                for (int i = 0; i < k; i++) {
-                    lr += reduced.c[i] * xr[i];
-                    li += reduced.c[i] * xi[i];
-                }
+        if (k > 0) {
+            if (!ports.factor(reduced.yFlat, farads)) {
+                return false;
             }
+            ports.solve(reduced.negativeB, xr, xi);
+            if (dRe != null) {
+                ports.solveTransposed(reduced.c, ur, ui);
+            }
+        }
+        int f = omegas.length;
+        Arrays.fill(responseRe, reduced.d);
+        Arrays.fill(responseIm, 0);
+        for (int i = 0; i < k; i++) {
+            double ci = reduced.c[i];
+            double[] pr = xr[i];
+            double[] pi = xi[i];
+            for (int n = 0; n < f; n++) {
+                responseRe[n] += ci * pr[n];
+                responseIm[n] += ci * pi[n];
+            }
+        }
+        for (int n = 0; n < f; n++) {
+            double lr = responseRe[n];
+            double li = responseIm[n];
             double lowSize = lr * lr + li * li;
             if (!(lowSize > 0) || !Double.isFinite(lowSize)) {
                 return false;
+            }
+            if (high != null) {
+                lowRe[n] = gain * lr;
+                lowIm[n] = gain * li;
             }
             double fr = high == null ? 1 : high.re[n];
             double fi = high == null ? 0 : high.im[n];
             hRe[n] = gain * (lr * fr - li * fi);
             hIm[n] = gain * (lr * fi + li * fr);
-            if (dRe == null) {
-                continue;
-            }
-            if (k > 0) {
-                for (int i = 0; i < k; i++) {
-                    ur[i] = reduced.c[i];
-                    ui[i] = 0;
-                }
-                lowLu.solveTransposed(ur, ui);
-            }
-            for (int i = 0; i < k; i++) {
-                // ∂H_low/∂φ_i = −jω·C_i·u_i·x_i; divided by H_low for ∂ln H/∂φ_i
-                double pr = ur[i] * xr[i] - ui[i] * xi[i];
-                double pi = ur[i] * xi[i] + ui[i] * xr[i];
-                double dr = omega * farads[i] * pi;
-                double di = -omega * farads[i] * pr;
-                dRe[n][i] = (dr * lr + di * li) / lowSize;
-                dIm[n][i] = (di * lr - dr * li) / lowSize;
-            }
-            int g = theta.length - 1;
-            dRe[n][g] = 1;
-            dIm[n][g] = 0;
+            // ∂H_low/∂φ_i = −jω·C_i·u_i·x_i; times conj(H_low)/|H_low|² for ∂ln H/∂φ_i
+            weightRe[n] = omegas[n] * lr / lowSize;
+            weightIm[n] = omegas[n] * li / lowSize;
         }
+        if (dRe == null) {
+            return true;
+        }
+        for (int i = 0; i < k; i++) {
+            double[] uiRe = ur[i];
+            double[] uiIm = ui[i];
+            double[] xiRe = xr[i];
+            double[] xiIm = xi[i];
+            double ci = farads[i];
+            double[] outRe = dRe[i];
+            double[] outIm = dIm[i];
+            for (int n = 0; n < f; n++) {
+                double pr = uiRe[n] * xiRe[n] - uiIm[n] * xiIm[n];
+                double pi = uiRe[n] * xiIm[n] + uiIm[n] * xiRe[n];
+                outRe[n] = ci * (pi * weightRe[n] - pr * weightIm[n]);
+                outIm[n] = -ci * (pr * weightRe[n] + pi * weightIm[n]);
+            }
+        }
+        int g = theta.length - 1;
+        Arrays.fill(dRe[g], 0, f, 1);
+        Arrays.fill(dIm[g], 0, f, 0);
         return true;
     }
 
     private Reduced reduced(double[] lnBias) {
-        String key = Arrays.toString(lnBias);
+        BiasPoint key = new BiasPoint(lnBias);
         Reduced hit = cache.get(key);
         if (hit != null) {
             return hit;
@@ -290,7 +313,7 @@ final class BoardModel {
 
     private Reduced reduce(double[] lnBias) {
         reductions++;
-        Reduction low = reduction.reduce(expansion.expand(stage, points(lnBias)), Band.LOW);
+        Reduction low = reduction.reduce(expanded(lnBias), Band.LOW);
         if (!(low instanceof Reduction.StateSpace)) {
             return null;
         }
@@ -317,20 +340,23 @@ final class BoardModel {
     // bias point within HIGH_BAND_REFRESH in ln I is reused (its change there is about 1e-2 of
     // the point noise); the MAP's final evaluation, which fixes χ² and the evidence, is exact.
     private HighFactor highFactor(double[] lnBias, boolean exact, double midbandGain) {
-        if (lastHigh != null) {
+        BiasPoint key = new BiasPoint(lnBias);
+        HighFactor hit = highCache.get(key);
+        if (hit == null && !exact && lastHigh != null) {
             boolean near = true;
             for (int j = 0; j < lnBias.length && near; j++) {
-                near = exact ? lnBias[j] == lastHigh.lnBias[j]
-                        : Math.abs(lnBias[j] - lastHigh.lnBias[j]) <= HIGH_BAND_REFRESH;
+                near = Math.abs(lnBias[j] - lastHigh.lnBias[j]) <= HIGH_BAND_REFRESH;
             }
-            if (near) {
-                return lastHigh;
-            }
+            hit = near ? lastHigh : null;
+        }
+        if (hit != null) {
+            lastHigh = hit;
+            return hit;
         }
         double[] re = new double[omegas.length];
         double[] im = new double[omegas.length];
         Arrays.fill(re, 1);
-        SmallSignalNetwork network = expansion.expand(stage, points(lnBias));
+        SmallSignalNetwork network = expanded(lnBias);
         if (!network.capacitances(Band.HIGH).isEmpty()) {
             reductions++;
             Reduction high = reduction.reduce(network, Band.HIGH);
@@ -342,7 +368,18 @@ final class BoardModel {
             }
         }
         lastHigh = new HighFactor(lnBias.clone(), re, im);
+        highCache.put(key, lastHigh);
         return lastHigh;
+    }
+
+    // the low and the high band of one bias point come from one expansion
+    private SmallSignalNetwork expanded(double[] lnBias) {
+        BiasPoint key = new BiasPoint(lnBias);
+        if (!key.equals(lastExpanded)) {
+            lastNetwork = prepared.expand(stage, points(lnBias));
+            lastExpanded = key;
+        }
+        return lastNetwork;
     }
 
     // H_high(jω)/D with H_high = C·(jωI − A)⁻¹·B + D_high, from the high-band model's matrices
@@ -354,32 +391,31 @@ final class BoardModel {
             return true;
         }
         double[][] a = high.a();
-        double[] bState = high.b();
         double[] c = high.c();
-        SmallComplexLu lu = new SmallComplexLu(k);
-        double[] vr = new double[k];
-        double[] vi = new double[k];
+        // jωI − A is the port form Y + jω·Cd with Y = −A and every "capacitance" 1
+        double[] minusA = new double[k * k];
+        double[] unit = new double[k];
+        for (int i = 0; i < k; i++) {
+            for (int j = 0; j < k; j++) {
+                minusA[i * k + j] = -a[i][j];
+            }
+            unit[i] = 1;
+        }
+        if (highEquations == null || highEquations.order() != k) {
+            highEquations = new SweptPortEquations(k, omegas);
+        }
+        double[][] vr = new double[k][omegas.length];
+        double[][] vi = new double[k][omegas.length];
+        if (!highEquations.factor(minusA, unit)) {
+            return false;
+        }
+        highEquations.solve(high.b(), vr, vi);
         for (int n = 0; n < omegas.length; n++) {
-            double[] mr = lu.real();
-            double[] mi = lu.imaginary();
-            for (int i = 0; i < k; i++) {
-                for (int j = 0; j < k; j++) {
-                    mr[i * k + j] = -a[i][j];
-                    mi[i * k + j] = 0;
-                }
-                mi[i * k + i] = omegas[n];
-                vr[i] = bState[i];
-                vi[i] = 0;
-            }
-            if (!lu.factor()) {
-                return false;
-            }
-            lu.solve(vr, vi);
             double hr = high.directGain();
             double hi = 0;
             for (int i = 0; i < k; i++) {
-                hr += c[i] * vr[i];
-                hi += c[i] * vi[i];
+                hr += c[i] * vr[i][n];
+                hi += c[i] * vi[i][n];
             }
             outRe[n] = hr / midbandGain;
             outIm[n] = hi / midbandGain;
@@ -392,6 +428,7 @@ final class BoardModel {
         final double[][] y;
         final double[] yFlat;
         final double[] b;
+        final double[] negativeB;
         final double[] c;
         final double d;
 
@@ -403,8 +440,43 @@ final class BoardModel {
                 System.arraycopy(y[i], 0, yFlat, i * k, k);
             }
             this.b = b;
+            this.negativeB = new double[k];
+            for (int i = 0; i < k; i++) {
+                negativeB[i] = -b[i];
+            }
             this.c = c;
             this.d = d;
+        }
+    }
+
+    /** @return a map in access order that forgets its least recently used entry beyond {@code capacity} */
+    private static <V> Map<BiasPoint, V> leastRecentlyUsed(int capacity) {
+        return new LinkedHashMap<>(16, 0.75f, true) {
+            private static final long serialVersionUID = 1L;
+
+            @Override
+            protected boolean removeEldestEntry(Map.Entry<BiasPoint, V> eldest) {
+                return size() > capacity;
+            }
+        };
+    }
+
+    /** ln I/I_nom per transistor as a map key, compared by value (an array compares by identity). */
+    private static final class BiasPoint {
+        private final double[] lnBias;
+
+        BiasPoint(double[] lnBias) {
+            this.lnBias = lnBias.clone();
+        }
+
+        @Override
+        public boolean equals(Object other) {
+            return other instanceof BiasPoint && Arrays.equals(lnBias, ((BiasPoint) other).lnBias);
+        }
+
+        @Override
+        public int hashCode() {
+            return Arrays.hashCode(lnBias);
         }
     }
 

@@ -119,7 +119,7 @@ public final class FaultRanking {
                 free = biasHeld.clone();
                 free[j] = true;
             }
-            points.add(screen(misfit, starts, free, freedBias));
+            points.add(screen(misfit, starts, free));
         }
         double[] lnZ = evidence(points, priorSets);
         double bestScreened = Double.NEGATIVE_INFINITY;
@@ -235,10 +235,10 @@ public final class FaultRanking {
     }
 
     // every start with the bias held (no reductions needed), the best one kept
-    private MapPoint screen(Misfit misfit, List<double[]> starts, boolean[] free, boolean biasMoves) {
+    private MapPoint screen(Misfit misfit, List<double[]> starts, boolean[] free) {
         MapPoint best = null;
         for (double[] start : starts) {
-            Optional<MapPoint> point = screen.solve(misfit, start, free, biasMoves, false);
+            Optional<MapPoint> point = screen.solve(misfit, start, free, false);
             if (point.isPresent() && (best == null || point.get().objective() < best.objective())) {
                 best = point.get();
             }
@@ -257,6 +257,7 @@ public final class FaultRanking {
         for (double[] start : starts) {
             double[] from = start;
             if (biasHeld != null) {
+                // only a start for the next phase: its Hessian is not wanted
                 Optional<MapPoint> held = solver.solve(misfit, start, biasHeld, false);
                 if (held.isPresent()) {
                     from = held.get().theta();

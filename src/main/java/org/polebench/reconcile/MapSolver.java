@@ -31,45 +31,40 @@ final class MapSolver {
 
     /** @return the MAP point, or empty when the model is undefined at the start */
     Optional<MapPoint> solve(Misfit misfit, double[] start) {
-        boolean[] free = new boolean[start.length];
-        java.util.Arrays.fill(free, true);
-        return solve(misfit, start, free, true);
+        return solve(misfit, start, null, true);
     }
 
     /**
-     * @param free       which parameters move; the others stay at their start
-     * @param biasMoves  whether any bias parameter is free (else its Jacobian columns are skipped)
+     * @param free         which parameters move, the others staying at their start; null for all.
+     *                     A held bias current needs no Jacobian column, so no reductions.
+     * @param exactHessian false to skip the final exact evaluation: the point's Hessian is then
+     *                     the last iteration's, with reused bias columns (for screening starts,
+     *                     and for a phase whose end only starts another)
      * @return the point reached, its Hessian taken over every parameter
      */
-    Optional<MapPoint> solve(Misfit misfit, double[] start, boolean[] free, boolean biasMoves) {
-        return solve(misfit, start, free, biasMoves, true);
-    }
-
-    /**
-     * @param exactHessian false to skip the final exact evaluation: the point's Hessian is then
-     *                     the last iteration's, with reused bias columns (for screening starts)
-     */
-    Optional<MapPoint> solve(Misfit misfit, double[] start, boolean[] free, boolean biasMoves, boolean exactHessian) {
+    Optional<MapPoint> solve(Misfit misfit, double[] start, boolean[] free, boolean exactHessian) {
         int p = misfit.parameters();
         int rows = misfit.rows();
         double[] theta = start.clone();
         double[] r = new double[rows];
-        double[][] jacobian = new double[rows][p];
-        if (!misfit.evaluate(theta, r, jacobian, false, biasMoves)) {
+        double[][] jacobian = new double[p][rows];
+        if (!misfit.evaluate(theta, r, jacobian, false, free)) {
             return Optional.empty();
         }
         double cost = squaredNorm(r);
         double lambda = INITIAL_LAMBDA;
         double[] trialR = new double[rows];
-        double[][] trialJacobian = new double[rows][p];
+        double[][] trialJacobian = new double[p][rows];
         boolean converged = false;
         int iteration = 0;
         double[][] normal = new double[p][p];
         double[] gradient = new double[p];
         while (iteration < maxIterations && !converged) {
             iteration++;
-            normalEquations(jacobian, r, normal, gradient);
-            hold(free, normal, gradient);
+            normalEquations(jacobian, r, free, normal, gradient);
+            if (free != null) {
+                hold(free, normal, gradient);
+            }
             boolean accepted = false;
             while (!accepted && lambda <= MAX_LAMBDA) {
                 double[][] damped = new double[p][p];
@@ -99,7 +94,7 @@ final class MapSolver {
                 }
                 // the Jacobian comes with the trial: most trials are accepted, and one pass
                 // through the frequencies for both costs less than two
-                if (misfit.evaluate(trial, trialR, trialJacobian, false, biasMoves)) {
+                if (misfit.evaluate(trial, trialR, trialJacobian, false, free)) {
                     double trialCost = squaredNorm(trialR);
                     if (trialCost <= cost) {
                         accepted = true;
@@ -125,10 +120,10 @@ final class MapSolver {
             }
         }
         // the Hessian for the covariance and the evidence: every column fresh and exact
-        if (exactHessian && !misfit.evaluate(theta, r, jacobian, true, true)) {
+        if (exactHessian && !misfit.evaluate(theta, r, jacobian, true, null)) {
             return Optional.empty();
         }
-        normalEquations(jacobian, r, normal, gradient);
+        normalEquations(jacobian, r, null, normal, gradient);
         Optional<Cholesky> factor = Cholesky.of(normal);
         if (factor.isEmpty()) {
             return Optional.empty();
@@ -137,45 +132,53 @@ final class MapSolver {
                 factor.get().inverse(), factor.get().lnDeterminant(), converged, iteration));
     }
 
-    private static void normalEquations(double[][] jacobian, double[] r, double[][] normal, double[] gradient) {
+    // JᵀJ and Jᵀr from the Jacobian's columns, each entry one contiguous dot product; the rows
+    // and columns of held parameters are left zero, for hold() to finish
+    private static void normalEquations(double[][] jacobian, double[] r, boolean[] free, double[][] normal,
+                                        double[] gradient) {
         int p = gradient.length;
         for (int i = 0; i < p; i++) {
-            gradient[i] = 0;
-            for (int j = 0; j < p; j++) {
-                normal[i][j] = 0;
+            boolean moves = free == null || free[i];
+            double[] column = jacobian[i];
+            gradient[i] = moves ? dot(column, r) : 0;
+            for (int j = 0; j <= i; j++) {
+                normal[i][j] = moves && (free == null || free[j]) ? dot(column, jacobian[j]) : 0;
+                normal[j][i] = normal[i][j];
             }
         }
-        for (int row = 0; row < r.length; row++) {
-            double[] jr = jacobian[row];
-            for (int i = 0; i < p; i++) {
-                double ji = jr[i];
-                if (ji == 0) {
-                    continue;
-                }
-                gradient[i] += ji * r[row];
-                for (int j = 0; j <= i; j++) {
-                    normal[i][j] += ji * jr[j];
-                }
-            }
+    }
+
+    // four partial sums: independent additions the processor can overlap
+    private static double dot(double[] a, double[] b) {
+        int n = a.length;
+        double s0 = 0;
+        double s1 = 0;
+        double s2 = 0;
+        double s3 = 0;
+        int i = 0;
+        for (; i + 3 < n; i += 4) {
+            s0 += a[i] * b[i];
+            s1 += a[i + 1] * b[i + 1];
+            s2 += a[i + 2] * b[i + 2];
+            s3 += a[i + 3] * b[i + 3];
         }
-        for (int i = 0; i < p; i++) {
-            for (int j = i + 1; j < p; j++) {
-                normal[i][j] = normal[j][i];
-            }
+        for (; i < n; i++) {
+            s0 += a[i] * b[i];
         }
+        return (s0 + s1) + (s2 + s3);
     }
 
     /** @return the point θ itself with its exact Hessian, no search; empty where the model is undefined */
     Optional<MapPoint> at(Misfit misfit, double[] theta) {
         int p = misfit.parameters();
         double[] r = new double[misfit.rows()];
-        double[][] jacobian = new double[misfit.rows()][p];
-        if (!misfit.evaluate(theta, r, jacobian, true, true)) {
+        double[][] jacobian = new double[p][misfit.rows()];
+        if (!misfit.evaluate(theta, r, jacobian, true, null)) {
             return Optional.empty();
         }
         double[][] normal = new double[p][p];
         double[] gradient = new double[p];
-        normalEquations(jacobian, r, normal, gradient);
+        normalEquations(jacobian, r, null, normal, gradient);
         Optional<Cholesky> factor = Cholesky.of(normal);
         if (factor.isEmpty()) {
             return Optional.empty();

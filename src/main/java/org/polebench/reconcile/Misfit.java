@@ -2,8 +2,8 @@ package org.polebench.reconcile;
 
 /**
  * The stacked, weighted residual vector of one hypothesis: the measured response against the
- * board model (real part ln|H_meas/H_model|/σ, then the wrapped imaginary part arg/σ, per point),
- * then one prior row (θ_j − μ_j)/σ_j per parameter. Minimising half its squared norm is the
+ * board model, the real parts ln|H_meas/H_model|/σ of every point, then the wrapped imaginary
+ * parts arg(H_meas/H_model)/σ (with phase), then one prior row (θ_j − μ_j)/σ_j per parameter. Minimising half its squared norm is the
  * MAP of a Gaussian likelihood with Gaussian priors. {@code noiseScale} multiplies every
  * data σ (a residual scale estimated from the best hypothesis; 1 to take the sweep's σ as
  * stated). One instance per task and thread: it keeps work arrays.
@@ -17,7 +17,11 @@ final class Misfit {
     private final double[] hi;
     private final double[][] dr;
     private final double[][] di;
-    private double[] biasAtColumns;
+    /** 1/σ per point (the stated σ times the scale): weights multiply, divisions are slow. */
+    private final double[] magnitudeWeight;
+    private final double[] phaseWeight;
+    /** Per transistor, the bias at which its Jacobian column was last made; null before. */
+    private final double[][] columnBias;
     static final double BIAS_REFRESH = 0.1;
 
     Misfit(BoardModel model, MeasuredResponse measured, Prior[] priors, double noiseScale) {
@@ -31,8 +35,15 @@ final class Misfit {
         int n = measured.size();
         this.hr = new double[n];
         this.hi = new double[n];
-        this.dr = new double[n][model.parameterCount()];
-        this.di = new double[n][model.parameterCount()];
+        this.dr = new double[model.parameterCount()][n];
+        this.di = new double[model.parameterCount()][n];
+        this.magnitudeWeight = new double[n];
+        this.phaseWeight = new double[n];
+        for (int k = 0; k < n; k++) {
+            magnitudeWeight[k] = 1 / (measured.sigmaMagnitude(k) * noiseScale);
+            phaseWeight[k] = measured.withPhase() ? 1 / (measured.sigmaPhase(k) * noiseScale) : 0;
+        }
+        this.columnBias = new double[model.transistors().size()][];
     }
 
     int responses() {
@@ -65,31 +76,29 @@ final class Misfit {
 
     /**
      * @param residuals out, {@link #rows()} long
-     * @param jacobian  out, or null: ∂residual/∂θ, rows × parameters
+     * @param jacobian  out, or null: ∂residual/∂θ by columns, [parameter][row]
+     * @param exact     true forces every bias column of the Jacobian fresh, and the high band
+     *                  exact; otherwise a bias column is reused until the bias has moved by
+     *                  {@value #BIAS_REFRESH} in ln I since it was made (bias columns change
+     *                  slowly, and each costs a reduction)
+     * @param free      which parameters move, or null for all: a held bias needs no column
+     *                  (unless {@code exact})
      * @return false where the model is undefined (singular network, H = 0)
      */
-    boolean evaluate(double[] theta, double[] residuals, double[][] jacobian) {
-        return evaluate(theta, residuals, jacobian, false);
-    }
-
-    /**
-     * As {@link #evaluate(double[], double[], double[][])}; {@code exact} forces fresh bias
-     * columns of the Jacobian, which are otherwise reused until the bias has moved by
-     * {@value #BIAS_REFRESH} in ln I (they change slowly, and each costs a reduction).
-     */
-    boolean evaluate(double[] theta, double[] residuals, double[][] jacobian, boolean exact) {
-        return evaluate(theta, residuals, jacobian, exact, true);
-    }
-
-    /** @param biasWanted false when the bias parameters are held, so their columns are not needed */
-    boolean evaluate(double[] theta, double[] residuals, double[][] jacobian, boolean exact, boolean biasWanted) {
+    boolean evaluate(double[] theta, double[] residuals, double[][] jacobian, boolean exact, boolean[] free) {
         int caps = model.capacitors().size();
         int m = model.transistors().size();
-        boolean fresh = false;
-        if (jacobian != null && m > 0 && biasWanted) {
-            fresh = exact || biasAtColumns == null;
-            for (int j = 0; !fresh && j < m; j++) {
-                fresh = Math.abs(theta[caps + j] - biasAtColumns[j]) > BIAS_REFRESH;
+        boolean[] fresh = null;
+        if (jacobian != null && m > 0) {
+            for (int j = 0; j < m; j++) {
+                boolean wanted = exact || free == null || free[caps + j];
+                boolean stale = exact || columnBias[j] == null || moved(theta, caps, columnBias[j]);
+                if (wanted && stale) {
+                    if (fresh == null) {
+                        fresh = new boolean[m];
+                    }
+                    fresh[j] = true;
+                }
             }
         }
         boolean ok = model.evaluate(theta, hr, hi, jacobian == null ? null : dr, jacobian == null ? null : di, fresh,
@@ -97,41 +106,54 @@ final class Misfit {
         if (!ok) {
             return false;
         }
-        if (fresh) {
-            biasAtColumns = java.util.Arrays.copyOfRange(theta, caps, caps + m);
+        for (int j = 0; fresh != null && j < m; j++) {
+            if (fresh[j]) {
+                columnBias[j] = java.util.Arrays.copyOfRange(theta, caps, caps + m);
+            }
         }
         int n = measured.size();
         int p = priors.length;
-        int row = 0;
         for (int k = 0; k < n; k++) {
-            double sigma = measured.sigmaMagnitude(k) * noiseScale;
-            residuals[row] = (measured.lnMagnitude(k) - 0.5 * Math.log(hr[k] * hr[k] + hi[k] * hi[k])) / sigma;
-            if (jacobian != null) {
-                for (int j = 0; j < p; j++) {
-                    jacobian[row][j] = -dr[k][j] / sigma;
-                }
+            residuals[k] = (measured.lnMagnitude(k) - 0.5 * Math.log(hr[k] * hr[k] + hi[k] * hi[k]))
+                    * magnitudeWeight[k];
+        }
+        if (measured.withPhase()) {
+            for (int k = 0; k < n; k++) {
+                residuals[n + k] = wrap(measured.phaseRad(k) - Math.atan2(hi[k], hr[k])) * phaseWeight[k];
             }
-            row++;
-            if (measured.withPhase()) {
-                double phaseSigma = measured.sigmaPhase(k) * noiseScale;
-                residuals[row] = wrap(measured.phaseRad(k) - Math.atan2(hi[k], hr[k])) / phaseSigma;
-                if (jacobian != null) {
-                    for (int j = 0; j < p; j++) {
-                        jacobian[row][j] = -di[k][j] / phaseSigma;
-                    }
-                }
-                row++;
-            }
+        }
+        int priorRow = measured.rows();
+        for (int j = 0; j < p; j++) {
+            residuals[priorRow + j] = (theta[j] - priors[j].mean()) / priors[j].standardDeviation();
+        }
+        if (jacobian == null) {
+            return true;
         }
         for (int j = 0; j < p; j++) {
-            residuals[row] = (theta[j] - priors[j].mean()) / priors[j].standardDeviation();
-            if (jacobian != null) {
-                java.util.Arrays.fill(jacobian[row], 0);
-                jacobian[row][j] = 1 / priors[j].standardDeviation();
+            double[] column = jacobian[j];
+            double[] magnitude = dr[j];
+            for (int k = 0; k < n; k++) {
+                column[k] = -magnitude[k] * magnitudeWeight[k];
             }
-            row++;
+            if (measured.withPhase()) {
+                double[] phase = di[j];
+                for (int k = 0; k < n; k++) {
+                    column[n + k] = -phase[k] * phaseWeight[k];
+                }
+            }
+            java.util.Arrays.fill(column, priorRow, priorRow + p, 0);
+            column[priorRow + j] = 1 / priors[j].standardDeviation();
         }
         return true;
+    }
+
+    private static boolean moved(double[] theta, int caps, double[] at) {
+        for (int j = 0; j < at.length; j++) {
+            if (Math.abs(theta[caps + j] - at[j]) > BIAS_REFRESH) {
+                return true;
+            }
+        }
+        return false;
     }
 
     /** @return the data part of the squared residual norm, χ² at the model's σ times the scale */
