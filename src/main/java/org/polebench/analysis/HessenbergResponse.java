@@ -43,13 +43,21 @@ final class HessenbergResponse {
     private void reduce() {
         double[] v = new double[k];
         for (int col = 0; col < k - 2; col++) {
-            double norm = 0;
+            // the column's 2-norm, scaled by its largest entry against overflow (in place of
+            // Math.hypot, whose software form is many times the size of this loop)
+            double largest = 0;
             for (int i = col + 1; i < k; i++) {
-                norm = Math.hypot(norm, h[i][col]);
+                largest = Math.max(largest, Math.abs(h[i][col]));
             }
-            if (norm == 0) {
+            if (largest == 0) {
                 continue;
             }
+            double squares = 0;
+            for (int i = col + 1; i < k; i++) {
+                double scaled = h[i][col] / largest;
+                squares += scaled * scaled;
+            }
+            double norm = largest * Math.sqrt(squares);
             double alpha = h[col + 1][col] > 0 ? -norm : norm;
             double vv = 0;
             for (int i = col + 1; i < k; i++) {
