@@ -89,20 +89,26 @@ public final class StateModel {
         this.a = new double[k][k];
         this.bState = new double[k];
         for (int i = 0; i < k; i++) {
-            for (int j = 0; j < k; j++) {
-                double sum = 0;
-                for (int m = 0; m < k; m++) {
-                    sum += cInverse[i][m] * y[m][j];
-                }
-                a[i][j] = -sum;
-            }
-            double bi = 0;
-            for (int m = 0; m < k; m++) {
-                bi += cInverse[i][m] * (yCInverseG[m] - b[m]);
-            }
-            bState[i] = bi;
+            stateRow(i, cInverse[i], y, b, yCInverseG);
         }
         this.largestPoleBound = SpectralBound.of(a);
+    }
+
+    // row i of A and B; one row per call, as RealLu keeps its loops, for the cold spread's sake
+    private void stateRow(int i, double[] cInverseRow, double[][] y, double[] b, double[] yCInverseG) {
+        int k = cInverseRow.length;
+        for (int j = 0; j < k; j++) {
+            double sum = 0;
+            for (int m = 0; m < k; m++) {
+                sum += cInverseRow[m] * y[m][j];
+            }
+            a[i][j] = -sum;
+        }
+        double bi = 0;
+        for (int m = 0; m < k; m++) {
+            bi += cInverseRow[m] * (yCInverseG[m] - b[m]);
+        }
+        bState[i] = bi;
     }
 
     private static double[] multiply(double[][] m, double[] v) {

@@ -9,9 +9,18 @@ package org.polebench.circuit;
  * largest entry of the column, singular when its magnitude is below an absolute threshold; the
  * factors agree with that class's to round-off. Shared by the DC bias solve here and the
  * small-signal MNA solves of the analysis package. Immutable after construction.
+ *
+ * <p>The factors sit in one array, row by row, and a pivot swaps row offsets, not entries.
+ * Each method holds one loop over one row or column and leaves the next level to the one it
+ * calls: a tolerance spread factors thousands of small matrices in a cold JVM, where a method
+ * whose single call runs hundreds of loop iterations is compiled twice (once mid-loop, once
+ * whole) and a short one only once.
  */
 public final class RealLu {
-    private final double[][] lu;
+    private final int m;
+    /** the factors: row r of L\U starts at {@code offset[r]} */
+    private final double[] lu;
+    private final int[] offset;
     private final int[] pivot;
     private final boolean singular;
 
@@ -20,64 +29,82 @@ public final class RealLu {
      * @param singularThreshold  an absolute pivot magnitude below which the matrix is singular
      */
     public RealLu(double[][] matrix, double singularThreshold) {
-        int m = matrix.length;
-        lu = new double[m][];
-        for (int i = 0; i < m; i++) {
-            lu[i] = matrix[i].clone();
-        }
+        m = matrix.length;
+        lu = new double[m * m];
+        offset = new int[m];
         pivot = new int[m];
         for (int row = 0; row < m; row++) {
+            System.arraycopy(matrix[row], 0, lu, row * m, m);
+            offset[row] = row * m;
             pivot[row] = row;
         }
         singular = !factor(singularThreshold);
     }
 
     private boolean factor(double singularThreshold) {
-        int m = lu.length;
         int[] nonZero = new int[m];
         for (int col = 0; col < m; col++) {
-            int max = col;
-            double largest = Double.NEGATIVE_INFINITY;
-            for (int row = col; row < m; row++) {
-                double size = Math.abs(lu[row][col]);
-                if (size > largest) {
-                    largest = size;
-                    max = row;
-                }
-            }
-            if (Math.abs(lu[max][col]) < singularThreshold) {
+            int max = largestBelow(col);
+            if (Math.abs(lu[offset[max] + col]) < singularThreshold) {
                 return false;
             }
             if (max != col) {
-                double[] t = lu[max];
-                lu[max] = lu[col];
-                lu[col] = t;
+                int t = offset[max];
+                offset[max] = offset[col];
+                offset[col] = t;
                 int p = pivot[max];
                 pivot[max] = pivot[col];
                 pivot[col] = p;
             }
-            double[] pivotRow = lu[col];
-            int count = 0;
-            for (int j = col + 1; j < m; j++) {
-                if (pivotRow[j] != 0) {
-                    nonZero[count++] = j;
-                }
-            }
-            double diagonal = pivotRow[col];
-            for (int row = col + 1; row < m; row++) {
-                double[] luRow = lu[row];
-                if (luRow[col] == 0) {
-                    continue;
-                }
-                double multiplier = luRow[col] / diagonal;
-                luRow[col] = multiplier;
-                for (int n = 0; n < count; n++) {
-                    int j = nonZero[n];
-                    luRow[j] -= multiplier * pivotRow[j];
-                }
-            }
+            eliminateBelow(col, nonZero, nonZeroAfter(col, nonZero));
         }
         return true;
+    }
+
+    /** @return the first row at or below {@code col} with the largest magnitude in column {@code col} */
+    private int largestBelow(int col) {
+        int max = col;
+        double largest = Double.NEGATIVE_INFINITY;
+        for (int row = col; row < m; row++) {
+            double size = Math.abs(lu[offset[row] + col]);
+            if (size > largest) {
+                largest = size;
+                max = row;
+            }
+        }
+        return max;
+    }
+
+    /** @return how many columns after {@code col} the pivot row has non-zero, listed in {@code nonZero} */
+    private int nonZeroAfter(int col, int[] nonZero) {
+        int start = offset[col];
+        int count = 0;
+        for (int j = col + 1; j < m; j++) {
+            if (lu[start + j] != 0) {
+                nonZero[count++] = j;
+            }
+        }
+        return count;
+    }
+
+    private void eliminateBelow(int col, int[] nonZero, int count) {
+        int pivotStart = offset[col];
+        double diagonal = lu[pivotStart + col];
+        for (int row = col + 1; row < m; row++) {
+            int start = offset[row];
+            if (lu[start + col] != 0) {
+                double multiplier = lu[start + col] / diagonal;
+                lu[start + col] = multiplier;
+                subtractPivotRow(start, pivotStart, multiplier, nonZero, count);
+            }
+        }
+    }
+
+    private void subtractPivotRow(int start, int pivotStart, double multiplier, int[] nonZero, int count) {
+        for (int n = 0; n < count; n++) {
+            int j = nonZero[n];
+            lu[start + j] -= multiplier * lu[pivotStart + j];
+        }
     }
 
     public boolean isNonSingular() {
@@ -89,36 +116,33 @@ public final class RealLu {
         if (singular) {
             throw new IllegalStateException("the matrix is singular");
         }
-        int m = lu.length;
         double[] x = new double[m];
         for (int row = 0; row < m; row++) {
             x[row] = b[pivot[row]];
         }
         for (int col = 0; col < m; col++) {
-            double xCol = x[col];
-            if (xCol == 0) {
-                continue;
-            }
-            for (int i = col + 1; i < m; i++) {
-                x[i] -= xCol * lu[i][col];
+            if (x[col] != 0) {
+                subtractColumn(x, col, x[col], col + 1, m);
             }
         }
         for (int col = m - 1; col >= 0; col--) {
-            x[col] /= lu[col][col];
-            double xCol = x[col];
-            if (xCol == 0) {
-                continue;
-            }
-            for (int i = 0; i < col; i++) {
-                x[i] -= xCol * lu[i][col];
+            x[col] /= lu[offset[col] + col];
+            if (x[col] != 0) {
+                subtractColumn(x, col, x[col], 0, col);
             }
         }
         return x;
     }
 
+    /** x[i] −= xCol·(L\U)[i][col] for rows from ≤ i &lt; to */
+    private void subtractColumn(double[] x, int col, double xCol, int from, int to) {
+        for (int i = from; i < to; i++) {
+            x[i] -= xCol * lu[offset[i] + col];
+        }
+    }
+
     /** @return A⁻¹, column by column with {@link #solve}; only for a non-singular matrix */
     public double[][] inverse() {
-        int m = lu.length;
         double[][] inverse = new double[m][m];
         double[] unit = new double[m];
         for (int j = 0; j < m; j++) {
