@@ -10,9 +10,9 @@ package org.polebench.analysis;
  * O(k³) of a dense complex LU. Q is orthogonal, so the result equals the dense solve's up to
  * round-off. Work arrays are preallocated: one instance per thread and task.
  *
- * <p>Each method holds one loop level (as {@link org.polebench.circuit.RealLu} does): a
- * tolerance spread builds one of these per board and evaluates it a few dozen times, in a cold
- * JVM, where a method whose single call loops hundreds of times is compiled twice.
+ * <p>Each method holds one loop level, and no outer loop runs an iteration whose inner range is
+ * empty (as in {@link org.polebench.circuit.RealLu}, which says why): a tolerance spread builds
+ * one of these per board and evaluates it a few dozen times, in a cold JVM.
  */
 final class HessenbergResponse {
     private final int k;
@@ -148,13 +148,19 @@ final class HessenbergResponse {
                 return Double.NaN;
             }
         }
-        ur[k - 1][k - 1] = carryRe[k - 1];
-        ui[k - 1][k - 1] = carryIm[k - 1];
-        yr[k - 1] = carryRhsRe;
-        yi[k - 1] = carryRhsIm;
-        double hr = d;
-        double him = 0;
-        for (int i = k - 1; i >= 0; i--) {
+        // the last row is the carried one; it has nothing right of its diagonal, so it stays
+        // out of the loop below, whose inner range is then never empty (see the class comment)
+        double lastRe = carryRe[k - 1];
+        double lastIm = carryIm[k - 1];
+        double size = lastRe * lastRe + lastIm * lastIm;
+        if (size == 0) {
+            return Double.NaN;
+        }
+        xr[k - 1] = (carryRhsRe * lastRe + carryRhsIm * lastIm) / size;
+        xi[k - 1] = (carryRhsIm * lastRe - carryRhsRe * lastIm) / size;
+        double hr = d + cHat[k - 1] * xr[k - 1];
+        double him = cHat[k - 1] * xi[k - 1];
+        for (int i = k - 2; i >= 0; i--) {
             if (!backSubstitute(i)) {
                 return Double.NaN;
             }

@@ -12,9 +12,11 @@ package org.polebench.circuit;
  *
  * <p>The factors sit in one array, row by row, and a pivot swaps row offsets, not entries.
  * Each method holds one loop over one row or column and leaves the next level to the one it
- * calls: a tolerance spread factors thousands of small matrices in a cold JVM, where a method
- * whose single call runs hundreds of loop iterations is compiled twice (once mid-loop, once
- * whole) and a short one only once.
+ * calls, and no outer loop runs an iteration whose inner range is empty: a tolerance spread
+ * factors thousands of small matrices in a cold JVM, where a method whose single call runs
+ * hundreds of loop iterations is compiled twice (once mid-loop, once whole), and a triangular
+ * loop nest whose inner loop is empty at one end of the outer range makes HotSpot's compiled
+ * code (profiled loop predication) fall back and compile again.
  */
 public final class RealLu {
     private final int m;
@@ -43,7 +45,7 @@ public final class RealLu {
 
     private boolean factor(double singularThreshold) {
         int[] nonZero = new int[m];
-        for (int col = 0; col < m; col++) {
+        for (int col = 0; col < m - 1; col++) {
             int max = largestBelow(col);
             if (Math.abs(lu[offset[max] + col]) < singularThreshold) {
                 return false;
@@ -58,7 +60,8 @@ public final class RealLu {
             }
             eliminateBelow(col, nonZero, nonZeroAfter(col, nonZero));
         }
-        return true;
+        // the last pivot has no rows below it to eliminate
+        return m == 0 || !(Math.abs(lu[offset[m - 1] + m - 1]) < singularThreshold);
     }
 
     /** @return the first row at or below {@code col} with the largest magnitude in column {@code col} */
@@ -88,6 +91,11 @@ public final class RealLu {
     }
 
     private void eliminateBelow(int col, int[] nonZero, int count) {
+        if (count == 0) {
+            // a pivot row empty after its diagonal changes nothing below but the multipliers
+            storeMultipliers(col);
+            return;
+        }
         int pivotStart = offset[col];
         double diagonal = lu[pivotStart + col];
         for (int row = col + 1; row < m; row++) {
@@ -97,6 +105,13 @@ public final class RealLu {
                 lu[start + col] = multiplier;
                 subtractPivotRow(start, pivotStart, multiplier, nonZero, count);
             }
+        }
+    }
+
+    private void storeMultipliers(int col) {
+        double diagonal = lu[offset[col] + col];
+        for (int row = col + 1; row < m; row++) {
+            lu[offset[row] + col] /= diagonal;
         }
     }
 
@@ -120,16 +135,21 @@ public final class RealLu {
         for (int row = 0; row < m; row++) {
             x[row] = b[pivot[row]];
         }
-        for (int col = 0; col < m; col++) {
+        // the last column has nothing below it and the first nothing above: they stay out of
+        // the loops, whose inner ranges are then never empty (see the class comment)
+        for (int col = 0; col < m - 1; col++) {
             if (x[col] != 0) {
                 subtractColumn(x, col, x[col], col + 1, m);
             }
         }
-        for (int col = m - 1; col >= 0; col--) {
+        for (int col = m - 1; col > 0; col--) {
             x[col] /= lu[offset[col] + col];
             if (x[col] != 0) {
                 subtractColumn(x, col, x[col], 0, col);
             }
+        }
+        if (m > 0) {
+            x[0] /= lu[offset[0]];
         }
         return x;
     }
