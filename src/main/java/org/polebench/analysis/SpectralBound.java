@@ -67,21 +67,19 @@ final class SpectralBound {
 
     /** @return Σ_j |b_ij| over j ≠ skip (one loop per call: see {@link org.polebench.circuit.RealLu}) */
     private static double rowSum(double[][] b, int i, int skip) {
-        double sum = 0;
-        for (int j = 0; j < b.length; j++) {
-            if (j != skip) {
-                sum += Math.abs(b[i][j]);
-            }
-        }
-        return sum;
+        return absoluteSum(b, i, skip, false);
     }
 
     /** @return Σ_j |b_ji| over j ≠ skip */
     private static double columnSum(double[][] b, int i, int skip) {
+        return absoluteSum(b, i, skip, true);
+    }
+
+    private static double absoluteSum(double[][] b, int i, int skip, boolean column) {
         double sum = 0;
         for (int j = 0; j < b.length; j++) {
             if (j != skip) {
-                sum += Math.abs(b[j][i]);
+                sum += Math.abs(column ? b[j][i] : b[i][j]);
             }
         }
         return sum;

@@ -100,7 +100,7 @@ class BoardCornersTest {
         int analysed = 0;
         int outOfRegion = 0;
         for (int n = 0; n < boards; n++) {
-            Stage board = board(nominal, values[n]);
+            Stage board = nominal.withPartValues(values[n]);
             double cornerHz = kernel.isPresent() ? kernel.get().cornerHz(values[n], factors[n]) : Double.NaN;
             OperatingPoints points;
             try {
@@ -124,24 +124,6 @@ class BoardCornersTest {
             }
         }
         return new Tally(analysed, outOfRegion);
-    }
-
-    /** The board as a stage of records, each part rebuilt with its drawn value. */
-    private static Stage board(Stage nominal, double[] values) {
-        List<Part> parts = new ArrayList<>();
-        for (int p = 0; p < values.length; p++) {
-            Part part = nominal.parts().get(p);
-            if (part instanceof Resistor) {
-                parts.add(((Resistor) part).withOhms(values[p]));
-            } else if (part instanceof Capacitor) {
-                parts.add(((Capacitor) part).withFarads(values[p]));
-            } else if (part instanceof Bjt) {
-                parts.add(((Bjt) part).withBeta(values[p]));
-            } else {
-                parts.add(part);
-            }
-        }
-        return nominal.withParts(parts);
     }
 
     private static double logUniform(Random random, double low, double high) {
