@@ -33,8 +33,8 @@ public final class MnaSolver {
         return lu.isNonSingular() ? Optional.of(new Factored(system, lu)) : Optional.empty();
     }
 
-    // one row per call: see RealLu on loops in methods that a cold spread calls thousands of times
-    private static double largestMagnitude(double[] row) {
+    /** @return the largest |entry| of a row (one row per call: see RealLu on loops in hot methods) */
+    static double largestMagnitude(double[] row) {
         double largest = 0;
         for (double v : row) {
             largest = Math.max(largest, Math.abs(v));

@@ -231,16 +231,11 @@ public final class PortReduction {
     private boolean invertEquilibrated(double[][] y, double[][] inverse) {
         int k = y.length;
         double[] rowScale = new double[k];
-        double[][] scaled = new double[k][k];
+        double[][] scaled = new double[k][];
         for (int i = 0; i < k; i++) {
-            double max = 0;
-            for (int j = 0; j < k; j++) {
-                max = Math.max(max, Math.abs(y[i][j]));
-            }
+            double max = MnaSolver.largestMagnitude(y[i]);
             rowScale[i] = max > 0 ? 1 / max : 1;
-            for (int j = 0; j < k; j++) {
-                scaled[i][j] = y[i][j] * rowScale[i];
-            }
+            scaled[i] = scaledRow(y[i], rowScale[i]);
         }
         RealLu lu = new RealLu(scaled, admittancePivot);
         if (!lu.isNonSingular()) {
@@ -248,12 +243,25 @@ public final class PortReduction {
         }
         double[][] inv = lu.inverse();
         for (int i = 0; i < k; i++) {
-            for (int j = 0; j < k; j++) {
-                // (R·Y)⁻¹ = Y⁻¹·R⁻¹, so Y⁻¹ = (R·Y)⁻¹·R
-                inverse[i][j] = inv[i][j] * rowScale[j];
-            }
+            // (R·Y)⁻¹ = Y⁻¹·R⁻¹, so Y⁻¹ = (R·Y)⁻¹·R
+            unscale(inv[i], rowScale, inverse[i]);
         }
         return true;
+    }
+
+    // one row per call: see RealLu on loops in methods that a cold spread calls thousands of times
+    private static double[] scaledRow(double[] row, double scale) {
+        double[] scaled = new double[row.length];
+        for (int j = 0; j < row.length; j++) {
+            scaled[j] = row[j] * scale;
+        }
+        return scaled;
+    }
+
+    private static void unscale(double[] row, double[] columnScale, double[] into) {
+        for (int j = 0; j < row.length; j++) {
+            into[j] = row[j] * columnScale[j];
+        }
     }
 
     private static Reduction.Singular poleAtZero(double[][] y, List<String> names, Band band) {

@@ -161,17 +161,20 @@ public final class RealLu {
         }
     }
 
+    private static void setColumn(double[][] matrix, int j, double[] column) {
+        for (int i = 0; i < column.length; i++) {
+            matrix[i][j] = column[i];
+        }
+    }
+
     /** @return A⁻¹, column by column with {@link #solve}; only for a non-singular matrix */
     public double[][] inverse() {
         double[][] inverse = new double[m][m];
         double[] unit = new double[m];
         for (int j = 0; j < m; j++) {
             unit[j] = 1;
-            double[] column = solve(unit);
+            setColumn(inverse, j, solve(unit));
             unit[j] = 0;
-            for (int i = 0; i < m; i++) {
-                inverse[i][j] = column[i];
-            }
         }
         return inverse;
     }
