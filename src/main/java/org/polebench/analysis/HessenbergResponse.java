@@ -9,6 +9,10 @@ package org.polebench.analysis;
  * matrix with partial pivoting between neighbouring rows, O(k²) per frequency instead of the
  * O(k³) of a dense complex LU. Q is orthogonal, so the result equals the dense solve's up to
  * round-off. Work arrays are preallocated: one instance per thread and task.
+ *
+ * <p>Each method holds one loop level, and no outer loop runs an iteration whose inner range is
+ * empty (as in {@link org.polebench.circuit.RealLu}, which says why): a tolerance spread builds
+ * one of these per board and evaluates it a few dozen times, in a cold JVM.
  */
 final class HessenbergResponse {
     private final int k;
@@ -16,10 +20,18 @@ final class HessenbergResponse {
     private final double[][] h;
     private final double[] bHat;
     private final double[] cHat;
-    private final double[][] mr;
-    private final double[][] mi;
+    /** the upper triangular factor of jωI − Ĥ, row by row, and its right-hand side */
+    private final double[][] ur;
+    private final double[][] ui;
+    private final double[] yr;
+    private final double[] yi;
+    /** the row being eliminated: row c of the partly reduced matrix, columns c…k−1 */
+    private final double[] carryRe;
+    private final double[] carryIm;
     private final double[] xr;
     private final double[] xi;
+    private double carryRhsRe;
+    private double carryRhsIm;
 
     HessenbergResponse(StateModel model) {
         this.k = model.order();
@@ -31,153 +43,202 @@ final class HessenbergResponse {
         }
         this.bHat = model.bView().clone();
         this.cHat = model.cView().clone();
-        reduce();
-        this.mr = new double[k][k];
-        this.mi = new double[k][k];
+        double[] v = new double[k];
+        for (int col = 0; col < k - 2; col++) {
+            reflect(col, v);
+        }
+        this.ur = new double[k][k];
+        this.ui = new double[k][k];
+        this.yr = new double[k];
+        this.yi = new double[k];
+        this.carryRe = new double[k];
+        this.carryIm = new double[k];
         this.xr = new double[k];
         this.xi = new double[k];
     }
 
     // Householder P = I − 2·v·vᵀ/(vᵀv) zeroes column col below the subdiagonal; Ĥ = P·H·P, so
     // B takes P from the left and C from the right.
-    private void reduce() {
-        double[] v = new double[k];
-        for (int col = 0; col < k - 2; col++) {
-            double norm = 0;
-            for (int i = col + 1; i < k; i++) {
-                norm = Math.hypot(norm, h[i][col]);
-            }
-            if (norm == 0) {
-                continue;
-            }
-            double alpha = h[col + 1][col] > 0 ? -norm : norm;
-            double vv = 0;
-            for (int i = col + 1; i < k; i++) {
-                v[i] = h[i][col];
-            }
-            v[col + 1] -= alpha;
-            for (int i = col + 1; i < k; i++) {
-                vv += v[i] * v[i];
-            }
-            double scale = 2 / vv;
-            for (int j = col; j < k; j++) {
-                double s = 0;
-                for (int i = col + 1; i < k; i++) {
-                    s += v[i] * h[i][j];
-                }
-                s *= scale;
-                for (int i = col + 1; i < k; i++) {
-                    h[i][j] -= s * v[i];
-                }
-            }
-            for (int i = 0; i < k; i++) {
-                double s = 0;
-                for (int j = col + 1; j < k; j++) {
-                    s += h[i][j] * v[j];
-                }
-                s *= scale;
-                for (int j = col + 1; j < k; j++) {
-                    h[i][j] -= s * v[j];
-                }
-            }
-            double sb = 0;
-            double sc = 0;
-            for (int i = col + 1; i < k; i++) {
-                sb += v[i] * bHat[i];
-                sc += cHat[i] * v[i];
-            }
-            for (int i = col + 1; i < k; i++) {
-                bHat[i] -= scale * sb * v[i];
-                cHat[i] -= scale * sc * v[i];
-            }
-            // the reflection maps the column to alpha·e1 exactly; round-off below it is dropped
-            h[col + 1][col] = alpha;
-            for (int i = col + 2; i < k; i++) {
-                h[i][col] = 0;
-            }
+    private void reflect(int col, double[] v) {
+        // the column's 2-norm, scaled by its largest entry against overflow (in place of
+        // Math.hypot, whose software form is many times the size of this loop)
+        double largest = 0;
+        for (int i = col + 1; i < k; i++) {
+            largest = Math.max(largest, Math.abs(h[i][col]));
+        }
+        if (largest == 0) {
+            return;
+        }
+        double squares = 0;
+        for (int i = col + 1; i < k; i++) {
+            double scaled = h[i][col] / largest;
+            squares += scaled * scaled;
+        }
+        double norm = largest * Math.sqrt(squares);
+        double alpha = h[col + 1][col] > 0 ? -norm : norm;
+        double vv = 0;
+        for (int i = col + 1; i < k; i++) {
+            v[i] = h[i][col];
+        }
+        v[col + 1] -= alpha;
+        for (int i = col + 1; i < k; i++) {
+            vv += v[i] * v[i];
+        }
+        double scale = 2 / vv;
+        for (int j = col; j < k; j++) {
+            reflectColumn(j, col, v, scale);
+        }
+        for (int i = 0; i < k; i++) {
+            reflectRow(h[i], col, v, scale);
+        }
+        double sb = 0;
+        double sc = 0;
+        for (int i = col + 1; i < k; i++) {
+            sb += v[i] * bHat[i];
+            sc += cHat[i] * v[i];
+        }
+        for (int i = col + 1; i < k; i++) {
+            bHat[i] -= scale * sb * v[i];
+            cHat[i] -= scale * sc * v[i];
+        }
+        // the reflection maps the column to alpha·e1 exactly; round-off below it is dropped
+        h[col + 1][col] = alpha;
+        for (int i = col + 2; i < k; i++) {
+            h[i][col] = 0;
+        }
+    }
+
+    /** Column j of Ĥ from the left: the rows below col take P. */
+    private void reflectColumn(int j, int col, double[] v, double scale) {
+        double s = 0;
+        for (int i = col + 1; i < k; i++) {
+            s += v[i] * h[i][j];
+        }
+        s *= scale;
+        for (int i = col + 1; i < k; i++) {
+            h[i][j] -= s * v[i];
+        }
+    }
+
+    /** One row of Ĥ from the right: the columns after col take P. */
+    private void reflectRow(double[] row, int col, double[] v, double scale) {
+        double s = 0;
+        for (int j = col + 1; j < k; j++) {
+            s += row[j] * v[j];
+        }
+        s *= scale;
+        for (int j = col + 1; j < k; j++) {
+            row[j] -= s * v[j];
         }
     }
 
     /** @return |H(jω)|² at ω in rad/s (V/V squared), or NaN when jω is an eigenvalue of A */
     double magnitudeSquared(double omegaRadPerS) {
-        for (int i = 0; i < k; i++) {
-            double[] rr = mr[i];
-            double[] ri = mi[i];
-            double[] hi = h[i];
-            for (int j = Math.max(0, i - 1); j < k; j++) {
-                rr[j] = -hi[j];
-                ri[j] = 0;
-            }
-            ri[i] = omegaRadPerS;
-            xr[i] = bHat[i];
-            xi[i] = 0;
+        // row 0 of jωI − Ĥ starts the elimination
+        double[] first = h[0];
+        for (int j = 0; j < k; j++) {
+            carryRe[j] = -first[j];
+            carryIm[j] = 0;
         }
+        carryIm[0] = omegaRadPerS;
+        carryRhsRe = bHat[0];
+        carryRhsIm = 0;
         for (int c = 0; c < k - 1; c++) {
-            int below = c + 1;
-            if (Math.abs(mr[below][c]) + Math.abs(mi[below][c]) > Math.abs(mr[c][c]) + Math.abs(mi[c][c])) {
-                // rows c and c + 1 both start at column c here
-                double[] t = mr[c];
-                mr[c] = mr[below];
-                mr[below] = t;
-                t = mi[c];
-                mi[c] = mi[below];
-                mi[below] = t;
-                double s = xr[c];
-                xr[c] = xr[below];
-                xr[below] = s;
-                s = xi[c];
-                xi[c] = xi[below];
-                xi[below] = s;
-            }
-            double pr = mr[c][c];
-            double pi = mi[c][c];
-            double size = pr * pr + pi * pi;
-            if (size == 0) {
+            if (!eliminate(c, omegaRadPerS)) {
                 return Double.NaN;
             }
-            double ar = mr[below][c];
-            double ai = mi[below][c];
-            if (ar == 0 && ai == 0) {
-                continue;
-            }
-            // l = a / p
-            double lr = (ar * pr + ai * pi) / size;
-            double li = (ai * pr - ar * pi) / size;
-            double[] br = mr[below];
-            double[] bi = mi[below];
-            double[] cr = mr[c];
-            double[] ci = mi[c];
-            for (int j = below; j < k; j++) {
-                br[j] -= lr * cr[j] - li * ci[j];
-                bi[j] -= lr * ci[j] + li * cr[j];
-            }
-            double yr = xr[c];
-            double yi = xi[c];
-            xr[below] -= lr * yr - li * yi;
-            xi[below] -= lr * yi + li * yr;
         }
-        double hr = d;
-        double him = 0;
-        for (int i = k - 1; i >= 0; i--) {
-            double sr = xr[i];
-            double si = xi[i];
-            double[] rr = mr[i];
-            double[] ri = mi[i];
-            for (int j = i + 1; j < k; j++) {
-                sr -= rr[j] * xr[j] - ri[j] * xi[j];
-                si -= rr[j] * xi[j] + ri[j] * xr[j];
-            }
-            double dr = rr[i];
-            double di = ri[i];
-            double size = dr * dr + di * di;
-            if (size == 0) {
+        // the last row is the carried one; it has nothing right of its diagonal, so it stays
+        // out of the loop below, whose inner range is then never empty (see the class comment)
+        double lastRe = carryRe[k - 1];
+        double lastIm = carryIm[k - 1];
+        double size = lastRe * lastRe + lastIm * lastIm;
+        if (size == 0) {
+            return Double.NaN;
+        }
+        xr[k - 1] = (carryRhsRe * lastRe + carryRhsIm * lastIm) / size;
+        xi[k - 1] = (carryRhsIm * lastRe - carryRhsRe * lastIm) / size;
+        double hr = d + cHat[k - 1] * xr[k - 1];
+        double him = cHat[k - 1] * xi[k - 1];
+        for (int i = k - 2; i >= 0; i--) {
+            if (!backSubstitute(i)) {
                 return Double.NaN;
             }
-            xr[i] = (sr * dr + si * di) / size;
-            xi[i] = (si * dr - sr * di) / size;
             hr += cHat[i] * xr[i];
             him += cHat[i] * xi[i];
         }
         return hr * hr + him * him;
+    }
+
+    /**
+     * Step c of the elimination: of the carried row c and row c + 1 of jωI − Ĥ (untouched so
+     * far, and starting at column c, since Ĥ is Hessenberg), the one with the larger entry in
+     * column c becomes row c of the triangular factor, and the other, less a multiple of it,
+     * is carried to the next step.
+     *
+     * @return false when the pivot is 0 (jω is an eigenvalue)
+     */
+    private boolean eliminate(int c, double omegaRadPerS) {
+        int below = c + 1;
+        double[] next = h[below];
+        double nextAtC = -next[c];
+        boolean swap = Math.abs(nextAtC) > Math.abs(carryRe[c]) + Math.abs(carryIm[c]);
+        double pr = swap ? nextAtC : carryRe[c];
+        double pi = swap ? 0 : carryIm[c];
+        double ar = swap ? carryRe[c] : nextAtC;
+        double ai = swap ? carryIm[c] : 0;
+        double size = pr * pr + pi * pi;
+        if (size == 0) {
+            return false;
+        }
+        // l = a / p (0 when the entry under the pivot is 0: the carried row is then taken as it is)
+        double lr = (ar * pr + ai * pi) / size;
+        double li = (ai * pr - ar * pi) / size;
+        double[] rowRe = ur[c];
+        double[] rowIm = ui[c];
+        rowRe[c] = pr;
+        rowIm[c] = pi;
+        for (int j = below; j < k; j++) {
+            double nr = -next[j];
+            double ni = j == below ? omegaRadPerS : 0;
+            double upperRe = swap ? nr : carryRe[j];
+            double upperIm = swap ? ni : carryIm[j];
+            double lowerRe = swap ? carryRe[j] : nr;
+            double lowerIm = swap ? carryIm[j] : ni;
+            rowRe[j] = upperRe;
+            rowIm[j] = upperIm;
+            carryRe[j] = lowerRe - (lr * upperRe - li * upperIm);
+            carryIm[j] = lowerIm - (lr * upperIm + li * upperRe);
+        }
+        double upperRhsRe = swap ? bHat[below] : carryRhsRe;
+        double upperRhsIm = swap ? 0 : carryRhsIm;
+        double lowerRhsRe = swap ? carryRhsRe : bHat[below];
+        double lowerRhsIm = swap ? carryRhsIm : 0;
+        yr[c] = upperRhsRe;
+        yi[c] = upperRhsIm;
+        carryRhsRe = lowerRhsRe - (lr * upperRhsRe - li * upperRhsIm);
+        carryRhsIm = lowerRhsIm - (lr * upperRhsIm + li * upperRhsRe);
+        return true;
+    }
+
+    /** @return false when the diagonal entry of row i is 0; else x_i is set */
+    private boolean backSubstitute(int i) {
+        double sr = yr[i];
+        double si = yi[i];
+        double[] rr = ur[i];
+        double[] ri = ui[i];
+        for (int j = i + 1; j < k; j++) {
+            sr -= rr[j] * xr[j] - ri[j] * xi[j];
+            si -= rr[j] * xi[j] + ri[j] * xr[j];
+        }
+        double dr = rr[i];
+        double di = ri[i];
+        double size = dr * dr + di * di;
+        if (size == 0) {
+            return false;
+        }
+        xr[i] = (sr * dr + si * di) / size;
+        xi[i] = (si * dr - sr * di) / size;
+        return true;
     }
 }

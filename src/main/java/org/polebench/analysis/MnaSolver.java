@@ -27,12 +27,19 @@ public final class MnaSolver {
         double[][] m = system.matrixView();
         double largest = 0;
         for (double[] row : m) {
-            for (double v : row) {
-                largest = Math.max(largest, Math.abs(v));
-            }
+            largest = Math.max(largest, largestMagnitude(row));
         }
         RealLu lu = new RealLu(m, relativePivot * largest);
         return lu.isNonSingular() ? Optional.of(new Factored(system, lu)) : Optional.empty();
+    }
+
+    /** @return the largest |entry| of a row (one row per call: see RealLu on loops in hot methods) */
+    static double largestMagnitude(double[] row) {
+        double largest = 0;
+        for (double v : row) {
+            largest = Math.max(largest, Math.abs(v));
+        }
+        return largest;
     }
 
     /** One factorisation of one system. */

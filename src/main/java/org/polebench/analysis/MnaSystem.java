@@ -49,39 +49,96 @@ public final class MnaSystem {
      */
     public static MnaSystem withPorts(SmallSignalNetwork network, List<NetworkElement.Capacitance> ports,
                                       List<NetworkElement.Capacitance> shorted) {
-        int nodes = network.nodeCount();
-        int sources = 1 + ports.size() + shorted.size();
-        int size = nodes - 1 + sources;
-        double[][] m = new double[size][size];
-        double reference = 0;
-        for (NetworkElement element : network.elements()) {
-            if (element instanceof NetworkElement.Conductance) {
-                NetworkElement.Conductance g = (NetworkElement.Conductance) element;
-                stampConductance(m, g.a(), g.b(), g.siemens());
-                reference = Math.max(reference, g.siemens());
-            } else if (element instanceof NetworkElement.Transconductance) {
-                NetworkElement.Transconductance t = (NetworkElement.Transconductance) element;
-                stampTransconductance(m, t);
-                reference = Math.max(reference, Math.abs(t.siemens()));
+        return new Layout(network, ports, shorted).stamp(network.elementValues());
+    }
+
+    /**
+     * Where every element and source of one network goes in its MNA matrix, found once, so that
+     * a draw of the network (the same elements with other values) costs only the stamping of its
+     * numbers. Immutable; one instance serves any thread.
+     */
+    static final class Layout {
+        private static final int OPEN = 0;
+        private static final int CONDUCTANCE = 1;
+        private static final int TRANSCONDUCTANCE = 2;
+
+        private final int nodeCount;
+        private final int outputNode;
+        private final int size;
+        /** per element: OPEN for a capacitance (its port or short is a source below), else its form */
+        private final int[] form;
+        /** per element: a and b, or from, to, control + and control − */
+        private final int[][] terminals;
+        private final int[] sourcePlus;
+        private final int[] sourceMinus;
+        private final List<String> sourceNames;
+        private final List<String> nodeNames;
+
+        Layout(SmallSignalNetwork network, List<NetworkElement.Capacitance> ports,
+               List<NetworkElement.Capacitance> shorted) {
+            nodeCount = network.nodeCount();
+            outputNode = network.outputNode();
+            nodeNames = network.nodes();
+            List<NetworkElement> elements = network.elements();
+            form = new int[elements.size()];
+            terminals = new int[elements.size()][];
+            for (int i = 0; i < form.length; i++) {
+                NetworkElement element = elements.get(i);
+                if (element instanceof NetworkElement.Conductance) {
+                    NetworkElement.Conductance g = (NetworkElement.Conductance) element;
+                    form[i] = CONDUCTANCE;
+                    terminals[i] = new int[] {g.a(), g.b()};
+                } else if (element instanceof NetworkElement.Transconductance) {
+                    NetworkElement.Transconductance t = (NetworkElement.Transconductance) element;
+                    form[i] = TRANSCONDUCTANCE;
+                    terminals[i] = new int[] {t.from(), t.to(), t.controlPlus(), t.controlMinus()};
+                } else {
+                    form[i] = OPEN;
+                }
             }
+            int sources = 1 + ports.size() + shorted.size();
+            size = nodeCount - 1 + sources;
+            sourcePlus = new int[sources];
+            sourceMinus = new int[sources];
+            List<String> names = new ArrayList<>(sources);
+            names.add(STIMULUS);
+            sourcePlus[0] = network.drivenNode();
+            int s = 1;
+            for (List<NetworkElement.Capacitance> group : List.of(ports, shorted)) {
+                for (NetworkElement.Capacitance c : group) {
+                    names.add(c.name());
+                    sourcePlus[s] = c.a();
+                    sourceMinus[s++] = c.b();
+                }
+            }
+            sourceNames = Collections.unmodifiableList(names);
         }
-        if (reference == 0) {
-            reference = 1;
+
+        /** @param elementValues one per element of the laid-out network ({@link SmallSignalNetwork#elementValues()}) */
+        MnaSystem stamp(double[] elementValues) {
+            if (elementValues.length != form.length) {
+                throw new IllegalArgumentException(elementValues.length + " values for " + form.length + " elements");
+            }
+            double[][] m = new double[size][size];
+            double reference = 0;
+            for (int i = 0; i < form.length; i++) {
+                int[] n = terminals[i];
+                if (form[i] == CONDUCTANCE) {
+                    stampConductance(m, n[0], n[1], elementValues[i]);
+                    reference = Math.max(reference, elementValues[i]);
+                } else if (form[i] == TRANSCONDUCTANCE) {
+                    stampTransconductance(m, n[0], n[1], n[2], n[3], elementValues[i]);
+                    reference = Math.max(reference, Math.abs(elementValues[i]));
+                }
+            }
+            if (reference == 0) {
+                reference = 1;
+            }
+            for (int s = 0; s < sourcePlus.length; s++) {
+                stampSource(m, nodeCount - 1 + s, sourcePlus[s], sourceMinus[s], reference);
+            }
+            return new MnaSystem(nodeCount, outputNode, m, reference, sourceNames, nodeNames);
         }
-        List<String> names = new ArrayList<>(sources);
-        names.add(STIMULUS);
-        stampSource(m, nodes - 1, network.drivenNode(), 0, reference);
-        int s = 1;
-        for (NetworkElement.Capacitance c : ports) {
-            names.add(c.name());
-            stampSource(m, nodes - 1 + s++, c.a(), c.b(), reference);
-        }
-        for (NetworkElement.Capacitance c : shorted) {
-            names.add(c.name());
-            stampSource(m, nodes - 1 + s++, c.a(), c.b(), reference);
-        }
-        return new MnaSystem(nodes, network.outputNode(), m, reference, Collections.unmodifiableList(names),
-                network.nodes());
     }
 
     static void stampConductance(double[][] m, int a, int b, double siemens) {
@@ -98,20 +155,20 @@ public final class MnaSystem {
     }
 
     // KCL rows count currents leaving a node: gm·(v+ − v−) leaves 'from' and enters 'to'.
-    static void stampTransconductance(double[][] m, NetworkElement.Transconductance t) {
-        int[] rows = {t.from(), t.to()};
-        double[] signs = {1, -1};
-        for (int r = 0; r < 2; r++) {
-            int row = rows[r];
-            if (row == 0) {
-                continue;
-            }
-            if (t.controlPlus() != 0) {
-                m[row - 1][t.controlPlus() - 1] += signs[r] * t.siemens();
-            }
-            if (t.controlMinus() != 0) {
-                m[row - 1][t.controlMinus() - 1] -= signs[r] * t.siemens();
-            }
+    private static void stampTransconductance(double[][] m, int from, int to, int plus, int minus, double siemens) {
+        stampControlled(m, from, plus, minus, siemens);
+        stampControlled(m, to, plus, minus, -siemens);
+    }
+
+    private static void stampControlled(double[][] m, int row, int plus, int minus, double siemens) {
+        if (row == 0) {
+            return;
+        }
+        if (plus != 0) {
+            m[row - 1][plus - 1] += siemens;
+        }
+        if (minus != 0) {
+            m[row - 1][minus - 1] -= siemens;
         }
     }
 

@@ -53,6 +53,20 @@ public final class PortReduction {
 
     /** @return the band's model (A in 1/s, D as a voltage ratio), or the named singular case */
     public Reduction reduce(SmallSignalNetwork network, Band band) {
+        return prepare(network, band).reduce(network.elementValues());
+    }
+
+    /**
+     * Lays one band's reduction out once for many value sets of one network (the draws of a
+     * tolerance spread): which capacitors are ports, shorts and links, the graph checks (loops,
+     * nodes without a DC path) and where every element sits in the MNA matrix. Those depend on
+     * the elements and their nodes only, and on which conductances are zero; a draw whose
+     * conductances are all positive and transconductances non-zero, as every in-region bias
+     * gives, has the same layout.
+     *
+     * @return the layout; its {@link Prepared#reduce} gives the graph's singular case for any values
+     */
+    public Prepared prepare(SmallSignalNetwork network, Band band) {
         List<NetworkElement.Capacitance> candidates = network.capacitances(band);
         List<NetworkElement.Capacitance> shorted =
                 band == Band.HIGH ? network.capacitances(Band.LOW) : List.of();
@@ -63,11 +77,12 @@ public final class PortReduction {
             Optional<List<NetworkTopology.Step>> loop =
                     topology.addVoltageBranch(new NetworkTopology.Branch(c.name(), c.a(), c.b(), -1, false));
             if (loop.isPresent()) {
-                return loopCase(network, band, loop.get(), c.name());
+                return new Prepared(this, loopCase(network, band, loop.get(), c.name()));
             }
         }
         List<NetworkElement.Capacitance> ports = new ArrayList<>(candidates.size());
         List<LinkCapacitor> links = new ArrayList<>();
+        List<NetworkElement.Capacitance> linked = new ArrayList<>();
         for (NetworkElement.Capacitance c : candidates) {
             Optional<List<NetworkTopology.Step>> loop = topology.addVoltageBranch(
                     new NetworkTopology.Branch(c.name(), c.a(), c.b(), ports.size(), false));
@@ -75,51 +90,125 @@ public final class PortReduction {
                 ports.add(c);
             } else if (band == Band.HIGH) {
                 links.add(new LinkCapacitor(c.name(), c.farads(), loop.get()));
+                linked.add(c);
             } else {
-                return loopCase(network, band, loop.get(), c.name());
+                return new Prepared(this, loopCase(network, band, loop.get(), c.name()));
             }
         }
         List<Integer> floating = topology.nodesWithoutDcPath();
         if (!floating.isEmpty()) {
             List<String> nodes = topology.nodeNames(floating);
             List<String> parts = topology.elementsTouching(floating);
-            return new Reduction.Singular(SingularCase.NO_DC_PATH, band, parts, nodes,
+            return new Prepared(this, new Reduction.Singular(SingularCase.NO_DC_PATH, band, parts, nodes,
                     "no resistor or source ties node(s) " + nodes + " to ground in the " + band.name().toLowerCase()
-                            + "-band network; parts there: " + parts);
+                            + "-band network; parts there: " + parts));
+        }
+        return new Prepared(this, band, network, ports, shorted, links, linked);
+    }
+
+    /**
+     * One band's reduction of one network, laid out by {@link PortReduction#prepare}: per value
+     * set, one MNA stamping, one real LU and k + 1 solves. Immutable; one instance serves any
+     * thread.
+     */
+    public static final class Prepared {
+        private final PortReduction reduction;
+        private final Reduction.Singular singular;
+        private final Band band;
+        private final MnaSystem.Layout layout;
+        private final List<String> names;
+        /** element index of each port, then of each link */
+        private final int[] portElements;
+        private final int[] linkElements;
+        private final List<LinkCapacitor> links;
+
+        private Prepared(PortReduction reduction, Reduction.Singular singular) {
+            this.reduction = reduction;
+            this.singular = singular;
+            this.band = singular.band();
+            this.layout = null;
+            this.names = List.of();
+            this.portElements = new int[0];
+            this.linkElements = new int[0];
+            this.links = List.of();
         }
 
-        MnaSystem system = MnaSystem.withPorts(network, ports, shorted);
-        Optional<MnaSolver.Factored> factored = solver.factor(system);
-        if (factored.isEmpty()) {
-            return singularMna(system, band);
-        }
-        int k = ports.size();
-        double[][] y = new double[k][k];
-        double[] b = new double[k];
-        double[] c = new double[k];
-        double[] farads = new double[k];
-        List<String> names = new ArrayList<>(k);
-        for (int j = 0; j < k; j++) {
-            double[] solution = factored.get().solveUnitSource(j + 1);
-            for (int i = 0; i < k; i++) {
-                // Y counts current out of the port into the network: minus the source current.
-                y[i][j] = -system.sourceCurrentAmps(solution, i + 1);
+        private Prepared(PortReduction reduction, Band band, SmallSignalNetwork network,
+                         List<NetworkElement.Capacitance> ports, List<NetworkElement.Capacitance> shorted,
+                         List<LinkCapacitor> links, List<NetworkElement.Capacitance> linked) {
+            this.reduction = reduction;
+            this.singular = null;
+            this.band = band;
+            this.layout = new MnaSystem.Layout(network, ports, shorted);
+            List<String> portNames = new ArrayList<>(ports.size());
+            for (NetworkElement.Capacitance c : ports) {
+                portNames.add(c.name());
             }
-            c[j] = system.outputVolts(solution);
-            farads[j] = ports.get(j).farads();
-            names.add(ports.get(j).name());
+            this.names = List.copyOf(portNames);
+            this.portElements = elementIndices(network, ports);
+            this.links = List.copyOf(links);
+            this.linkElements = elementIndices(network, linked);
         }
-        double[] stimulus = factored.get().solveUnitSource(0);
-        for (int i = 0; i < k; i++) {
-            b[i] = -system.sourceCurrentAmps(stimulus, i + 1);
-        }
-        double d = system.outputVolts(stimulus);
 
-        double[][] yInverse = new double[k][k];
-        if (k > 0 && !invertEquilibrated(y, yInverse)) {
-            return poleAtZero(y, names, band);
+        // by identity: the capacitances are the network's own records
+        private static int[] elementIndices(SmallSignalNetwork network, List<NetworkElement.Capacitance> chosen) {
+            List<NetworkElement> elements = network.elements();
+            int[] indices = new int[chosen.size()];
+            for (int j = 0; j < indices.length; j++) {
+                int i = 0;
+                while (elements.get(i) != chosen.get(j)) {
+                    i++;
+                }
+                indices[j] = i;
+            }
+            return indices;
         }
-        return new Reduction.StateSpace(new StateModel(band, names, farads, links, y, yInverse, b, c, d));
+
+        /**
+         * @param elementValues one per element of the prepared network, as
+         *                      {@link SmallSignalNetwork#elementValues()} gives them
+         * @return the model for these values, or the named singular case
+         */
+        public Reduction reduce(double[] elementValues) {
+            if (singular != null) {
+                return singular;
+            }
+            MnaSystem system = layout.stamp(elementValues);
+            Optional<MnaSolver.Factored> factored = reduction.solver.factor(system);
+            if (factored.isEmpty()) {
+                return singularMna(system, band);
+            }
+            int k = portElements.length;
+            double[][] y = new double[k][k];
+            double[] b = new double[k];
+            double[] c = new double[k];
+            double[] farads = new double[k];
+            for (int j = 0; j < k; j++) {
+                double[] solution = factored.get().solveUnitSource(j + 1);
+                for (int i = 0; i < k; i++) {
+                    // Y counts current out of the port into the network: minus the source current.
+                    y[i][j] = -system.sourceCurrentAmps(solution, i + 1);
+                }
+                c[j] = system.outputVolts(solution);
+                farads[j] = elementValues[portElements[j]];
+            }
+            double[] stimulus = factored.get().solveUnitSource(0);
+            for (int i = 0; i < k; i++) {
+                b[i] = -system.sourceCurrentAmps(stimulus, i + 1);
+            }
+            double d = system.outputVolts(stimulus);
+
+            double[][] yInverse = new double[k][k];
+            if (k > 0 && !reduction.invertEquilibrated(y, yInverse)) {
+                return poleAtZero(y, names, band);
+            }
+            List<LinkCapacitor> drawnLinks = new ArrayList<>(links.size());
+            for (int l = 0; l < links.size(); l++) {
+                LinkCapacitor link = links.get(l);
+                drawnLinks.add(new LinkCapacitor(link.name, elementValues[linkElements[l]], link.path));
+            }
+            return new Reduction.StateSpace(new StateModel(band, names, farads, drawnLinks, y, yInverse, b, c, d));
+        }
     }
 
     private static Reduction.Singular loopCase(SmallSignalNetwork network, Band band, List<NetworkTopology.Step> loop,
@@ -142,16 +231,11 @@ public final class PortReduction {
     private boolean invertEquilibrated(double[][] y, double[][] inverse) {
         int k = y.length;
         double[] rowScale = new double[k];
-        double[][] scaled = new double[k][k];
+        double[][] scaled = new double[k][];
         for (int i = 0; i < k; i++) {
-            double max = 0;
-            for (int j = 0; j < k; j++) {
-                max = Math.max(max, Math.abs(y[i][j]));
-            }
+            double max = MnaSolver.largestMagnitude(y[i]);
             rowScale[i] = max > 0 ? 1 / max : 1;
-            for (int j = 0; j < k; j++) {
-                scaled[i][j] = y[i][j] * rowScale[i];
-            }
+            scaled[i] = scaledRow(y[i], rowScale[i]);
         }
         RealLu lu = new RealLu(scaled, admittancePivot);
         if (!lu.isNonSingular()) {
@@ -159,12 +243,25 @@ public final class PortReduction {
         }
         double[][] inv = lu.inverse();
         for (int i = 0; i < k; i++) {
-            for (int j = 0; j < k; j++) {
-                // (R·Y)⁻¹ = Y⁻¹·R⁻¹, so Y⁻¹ = (R·Y)⁻¹·R
-                inverse[i][j] = inv[i][j] * rowScale[j];
-            }
+            // (R·Y)⁻¹ = Y⁻¹·R⁻¹, so Y⁻¹ = (R·Y)⁻¹·R
+            unscale(inv[i], rowScale, inverse[i]);
         }
         return true;
+    }
+
+    // one row per call: see RealLu on loops in methods that a cold spread calls thousands of times
+    private static double[] scaledRow(double[] row, double scale) {
+        double[] scaled = new double[row.length];
+        for (int j = 0; j < row.length; j++) {
+            scaled[j] = row[j] * scale;
+        }
+        return scaled;
+    }
+
+    private static void unscale(double[] row, double[] columnScale, double[] into) {
+        for (int j = 0; j < row.length; j++) {
+            into[j] = row[j] * columnScale[j];
+        }
     }
 
     private static Reduction.Singular poleAtZero(double[][] y, List<String> names, Band band) {

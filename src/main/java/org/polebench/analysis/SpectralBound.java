@@ -24,50 +24,64 @@ final class SpectralBound {
         for (int sweep = 0; sweep < MAX_SWEEPS && !converged; sweep++) {
             converged = true;
             for (int i = 0; i < n; i++) {
-                double column = 0;
-                double row = 0;
-                for (int j = 0; j < n; j++) {
-                    if (j != i) {
-                        column += Math.abs(b[j][i]);
-                        row += Math.abs(b[i][j]);
-                    }
-                }
-                if (column == 0 || row == 0) {
-                    continue;
-                }
-                double sum = column + row;
-                double f = 1;
-                double g = row / 2;
-                while (column < g) {
-                    f *= 2;
-                    column *= 4;
-                }
-                g = row * 2;
-                while (column >= g) {
-                    f /= 2;
-                    column /= 4;
-                }
-                if ((column + row) / f < 0.95 * sum) {
-                    converged = false;
-                    for (int j = 0; j < n; j++) {
-                        b[i][j] /= f;
-                        b[j][i] *= f;
-                    }
-                }
+                converged &= !balance(b, i);
             }
         }
         double rowNorm = 0;
         double columnNorm = 0;
         for (int i = 0; i < n; i++) {
-            double r = 0;
-            double c = 0;
-            for (int j = 0; j < n; j++) {
-                r += Math.abs(b[i][j]);
-                c += Math.abs(b[j][i]);
-            }
-            rowNorm = Math.max(rowNorm, r);
-            columnNorm = Math.max(columnNorm, c);
+            rowNorm = Math.max(rowNorm, rowSum(b, i, -1));
+            columnNorm = Math.max(columnNorm, columnSum(b, i, -1));
         }
         return Math.min(rowNorm, columnNorm);
+    }
+
+    /** @return true when row and column i were scaled, by the power of two that evens their sums */
+    private static boolean balance(double[][] b, int i) {
+        double column = columnSum(b, i, i);
+        double row = rowSum(b, i, i);
+        if (column == 0 || row == 0) {
+            return false;
+        }
+        double sum = column + row;
+        double f = 1;
+        double g = row / 2;
+        while (column < g) {
+            f *= 2;
+            column *= 4;
+        }
+        g = row * 2;
+        while (column >= g) {
+            f /= 2;
+            column /= 4;
+        }
+        if (!((column + row) / f < 0.95 * sum)) {
+            return false;
+        }
+        for (int j = 0; j < b.length; j++) {
+            b[i][j] /= f;
+            b[j][i] *= f;
+        }
+        return true;
+    }
+
+    /** @return Σ_j |b_ij| over j ≠ skip (one loop per call: see {@link org.polebench.circuit.RealLu}) */
+    private static double rowSum(double[][] b, int i, int skip) {
+        return absoluteSum(b, i, skip, false);
+    }
+
+    /** @return Σ_j |b_ji| over j ≠ skip */
+    private static double columnSum(double[][] b, int i, int skip) {
+        return absoluteSum(b, i, skip, true);
+    }
+
+    private static double absoluteSum(double[][] b, int i, int skip, boolean column) {
+        double sum = 0;
+        for (int j = 0; j < b.length; j++) {
+            if (j != skip) {
+                sum += Math.abs(column ? b[j][i] : b[i][j]);
+            }
+        }
+        return sum;
     }
 }

@@ -89,7 +89,20 @@ public final class StagePredictor {
      * is no corner (see {@link Prediction#exactLowerCornerHz()}); {@link #predict} says which
      */
     public OptionalDouble exactLowerCornerHz(SmallSignalNetwork network) {
-        Reduction low = reduction.reduce(network, Band.LOW);
+        return exactLowerCornerHz(reduction.reduce(network, Band.LOW));
+    }
+
+    /** @return the low-band reduction of {@code network} laid out for many value sets ({@link PortReduction#prepare}) */
+    PortReduction.Prepared lowBandLayout(SmallSignalNetwork network) {
+        return reduction.prepare(network, Band.LOW);
+    }
+
+    /**
+     * @param low a low-band reduction made already (a spread's kernel makes it from a prepared
+     *            layout, {@link PortReduction#prepare})
+     * @return as {@link #exactLowerCornerHz(SmallSignalNetwork)}
+     */
+    OptionalDouble exactLowerCornerHz(Reduction low) {
         if (low instanceof Reduction.Singular) {
             return OptionalDouble.empty();
         }

@@ -55,10 +55,31 @@ public final class StateModel {
         this.yInverse = yInverse;
         this.c = c;
         this.capacitance = new double[k][k];
-        double[] g = new double[k];
         for (int i = 0; i < k; i++) {
             capacitance[i][i] = farads[i];
         }
+        this.a = new double[k][k];
+        this.bState = new double[k];
+        if (links.isEmpty()) {
+            // Cd is diagonal: the general formulas below with their zero terms left out (the
+            // low band, and so every board of a tolerance spread)
+            this.d = directGain;
+            for (int i = 0; i < k; i++) {
+                diagonalRow(i, 1 / farads[i], y[i], b[i]);
+            }
+        } else {
+            this.d = withLinks(k, y, b, c, directGain);
+        }
+        this.largestPoleBound = SpectralBound.of(a);
+    }
+
+    /** @return D' = D − cᵀ·Cf⁻¹·g, after setting A and B by the formulas of the class comment */
+    private double withLinks(int k, double[][] y, double[] b, double[] c, double directGain) {
+        if (k == 0) {
+            // links across the stimulus and shorts alone: no state, and D stands
+            return directGain;
+        }
+        double[] g = new double[k];
         for (LinkCapacitor link : links) {
             double[] q = link.portCoefficients(k);
             double qu = link.stimulusCoefficient();
@@ -69,40 +90,45 @@ public final class StateModel {
                 }
             }
         }
-        double[][] cInverse = new double[k][k];
-        if (links.isEmpty()) {
-            for (int i = 0; i < k; i++) {
-                cInverse[i][i] = 1 / farads[i];
-            }
-        } else if (k > 0) {
-            // Cf is symmetric positive definite (a sum of C_i > 0 terms), so it inverts; threshold 0
-            // because Commons Math's default pivot threshold (1e-11, absolute) exceeds picofarads
-            cInverse = new LUDecomposition(new Array2DRowRealMatrix(capacitance), 0).getSolver().getInverse().getData();
-        }
+        // Cf is symmetric positive definite (a sum of C_i > 0 terms), so it inverts; threshold 0
+        // because Commons Math's default pivot threshold (1e-11, absolute) exceeds picofarads
+        double[][] cInverse = new LUDecomposition(new Array2DRowRealMatrix(capacitance), 0).getSolver().getInverse()
+                .getData();
         double[] cInverseG = multiply(cInverse, g);
         double[] yCInverseG = multiply(y, cInverseG);
         double dPrime = directGain;
         for (int i = 0; i < k; i++) {
             dPrime -= c[i] * cInverseG[i];
         }
-        this.d = dPrime;
-        this.a = new double[k][k];
-        this.bState = new double[k];
         for (int i = 0; i < k; i++) {
-            for (int j = 0; j < k; j++) {
-                double sum = 0;
-                for (int m = 0; m < k; m++) {
-                    sum += cInverse[i][m] * y[m][j];
-                }
-                a[i][j] = -sum;
-            }
-            double bi = 0;
-            for (int m = 0; m < k; m++) {
-                bi += cInverse[i][m] * (yCInverseG[m] - b[m]);
-            }
-            bState[i] = bi;
+            stateRow(i, cInverse[i], y, b, yCInverseG);
         }
-        this.largestPoleBound = SpectralBound.of(a);
+        return dPrime;
+    }
+
+    // A_ij = −Y_ij/C_i, B_i = −b_i/C_i, as (1/C_i)·… like the general product
+    private void diagonalRow(int i, double inverseFarads, double[] yRow, double bSiemens) {
+        for (int j = 0; j < yRow.length; j++) {
+            a[i][j] = -(inverseFarads * yRow[j]);
+        }
+        bState[i] = inverseFarads * -bSiemens;
+    }
+
+    // row i of A and B; one row per call, as RealLu keeps its loops, for the cold spread's sake
+    private void stateRow(int i, double[] cInverseRow, double[][] y, double[] b, double[] yCInverseG) {
+        int k = cInverseRow.length;
+        for (int j = 0; j < k; j++) {
+            double sum = 0;
+            for (int m = 0; m < k; m++) {
+                sum += cInverseRow[m] * y[m][j];
+            }
+            a[i][j] = -sum;
+        }
+        double bi = 0;
+        for (int m = 0; m < k; m++) {
+            bi += cInverseRow[m] * (yCInverseG[m] - b[m]);
+        }
+        bState[i] = bi;
     }
 
     private static double[] multiply(double[][] m, double[] v) {

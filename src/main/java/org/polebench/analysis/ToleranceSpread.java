@@ -3,20 +3,16 @@ package org.polebench.analysis;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
-import java.util.OptionalDouble;
+import java.util.Optional;
 import java.util.SplittableRandom;
 import java.util.concurrent.ExecutionException;
 import java.util.concurrent.ForkJoinPool;
 import java.util.stream.IntStream;
-import org.polebench.InputProblem;
 import org.polebench.circuit.Bias;
-import org.polebench.circuit.BiasSolver;
 import org.polebench.circuit.Bjt;
 import org.polebench.circuit.Capacitor;
-import org.polebench.circuit.OperatingPoints;
 import org.polebench.circuit.Part;
 import org.polebench.circuit.Resistor;
-import org.polebench.circuit.SmallSignalExpansion;
 import org.polebench.circuit.Stage;
 import org.polebench.circuit.Tolerance;
 import org.polebench.circuit.Transistor;
@@ -29,6 +25,7 @@ import org.polebench.circuit.Transistor;
  * reading of a band that the back-solve's priors use (GUM, JCGM 100:2008, 4.3.7), so the spread
  * and the priors describe the same population. Resistors and β change the bias, which is solved
  * again for every sample; a sample whose bias leaves the active region is counted, not used.
+ * The boards are analysed as numbers by {@link BoardCorners}, laid out once from the nominal.
  * Draws come from one {@link SplittableRandom} with the given seed, in part order, so a run is
  * repeatable: every board is drawn before any is analysed, and each draw takes its values in
  * the same order whether or not its bias then solves, so the spread does not depend on the
@@ -43,8 +40,6 @@ public final class ToleranceSpread {
     private final int samples;
     private final long seed;
     private final int threads;
-    private final BiasSolver biasSolver = new BiasSolver();
-    private final SmallSignalExpansion expansion = new SmallSignalExpansion();
     private final StagePredictor predictor = new StagePredictor();
 
     public ToleranceSpread() {
@@ -90,31 +85,29 @@ public final class ToleranceSpread {
      *         be analysed (every draw left the active region or had no corner)
      */
     public CornerSpread lowerCorner(Stage nominal) {
-        BiasSolver.Prepared bias;
-        try {
-            bias = biasSolver.prepare(nominal);
-        } catch (InputProblem noDcPath) {
-            // a node without a DC path is one in every draw: each draw's bias solve would fail
-            return new CornerSpread(samples, seed, samples, List.of());
-        }
-        SmallSignalExpansion.Prepared small = expansion.prepare(nominal);
         // Every draw is made first, in order, from one generator, so the boards drawn do not
         // depend on how many threads then analyse them: the spread is the same on any machine.
         SplittableRandom random = new SplittableRandom(seed);
         List<Transistor> given = givenBiasTransistors(nominal);
-        Stage[] stages = new Stage[samples];
+        double[][] boardValues = new double[samples][];
         double[][] biasFactors = new double[samples][];
         for (int n = 0; n < samples; n++) {
-            stages[n] = draw(nominal, random);
+            boardValues[n] = drawValues(nominal, random);
             biasFactors[n] = drawGivenBias(given, random);
         }
+        Optional<BoardCorners> prepared = BoardCorners.prepare(nominal, boardValues, predictor);
+        if (prepared.isEmpty()) {
+            // a node without a DC path is one in every draw, and so is a bias out of region in all
+            return new CornerSpread(samples, seed, samples, List.of());
+        }
+        BoardCorners boards = prepared.get();
         double[] corners = new double[samples];
         IntStream draws = IntStream.range(0, samples);
         if (threads > 1) {
             ForkJoinPool pool = new ForkJoinPool(threads);
             try {
                 pool.submit(() -> draws.parallel().forEach(n ->
-                        corners[n] = cornerOfOneDraw(stages[n], given, biasFactors[n], bias, small))).get();
+                        corners[n] = boards.cornerHz(boardValues[n], biasFactors[n]))).get();
             } catch (InterruptedException e) {
                 Thread.currentThread().interrupt();
                 throw new IllegalStateException("the tolerance spread was interrupted", e);
@@ -124,7 +117,7 @@ public final class ToleranceSpread {
                 pool.shutdown();
             }
         } else {
-            draws.forEach(n -> corners[n] = cornerOfOneDraw(stages[n], given, biasFactors[n], bias, small));
+            draws.forEach(n -> corners[n] = boards.cornerHz(boardValues[n], biasFactors[n]));
         }
         int biasFailures = 0;
         double[] usable = new double[samples];
@@ -145,43 +138,29 @@ public final class ToleranceSpread {
         return new CornerSpread(samples, seed, biasFailures, values);
     }
 
-    /**
-     * @return the exact lower corner of one draw in Hz; 0 when the draw has none; NaN when its
-     *         bias left the active region
-     */
-    private double cornerOfOneDraw(Stage drawn, List<Transistor> given, double[] biasFactors,
-                                   BiasSolver.Prepared bias, SmallSignalExpansion.Prepared small) {
-        OperatingPoints points;
-        try {
-            points = bias.solve(drawn);
-        } catch (InputProblem outOfRegion) {
-            return Double.NaN;
-        }
-        for (int t = 0; t < given.size(); t++) {
-            points = points.withCurrentScaled(given.get(t).name(), biasFactors[t]);
-        }
-        OptionalDouble corner = predictor.exactLowerCornerHz(small.expand(drawn, points));
-        return corner.isPresent() ? corner.getAsDouble() : 0;
+    /** One board drawn across the tolerances, as a stage (for {@link ResponseSpread}, so both draw alike). */
+    static Stage draw(Stage nominal, SplittableRandom random) {
+        return nominal.withPartValues(drawValues(nominal, random));
     }
 
-    /** One board drawn across the tolerances (shared with {@link ResponseSpread}, so both draw alike). */
-    static Stage draw(Stage nominal, SplittableRandom random) {
-        List<Part> drawn = new ArrayList<>(nominal.parts().size());
-        for (Part part : nominal.parts()) {
+    /**
+     * @return one board's part values ({@link Stage#partValues()}): each resistor, capacitor and
+     *         β times a factor drawn across its tolerance, in part order
+     */
+    static double[] drawValues(Stage nominal, SplittableRandom random) {
+        double[] values = nominal.partValues();
+        List<Part> parts = nominal.parts();
+        for (int p = 0; p < values.length; p++) {
+            Part part = parts.get(p);
             if (part instanceof Resistor) {
-                Resistor resistor = (Resistor) part;
-                drawn.add(resistor.withOhms(resistor.ohms() * factor(resistor.tolerance(), random)));
+                values[p] *= factor(((Resistor) part).tolerance(), random);
             } else if (part instanceof Capacitor) {
-                Capacitor capacitor = (Capacitor) part;
-                drawn.add(capacitor.withFarads(capacitor.farads() * factor(capacitor.tolerance(), random)));
+                values[p] *= factor(((Capacitor) part).tolerance(), random);
             } else if (part instanceof Bjt) {
-                Bjt bjt = (Bjt) part;
-                drawn.add(bjt.withBeta(bjt.beta() * factor(bjt.betaTolerance(), random)));
-            } else {
-                drawn.add(part);
+                values[p] *= factor(((Bjt) part).betaTolerance(), random);
             }
         }
-        return nominal.withParts(drawn);
+        return values;
     }
 
     static List<Transistor> givenBiasTransistors(Stage stage) {

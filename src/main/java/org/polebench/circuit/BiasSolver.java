@@ -47,7 +47,7 @@ public final class BiasSolver {
     /** @return the operating points of every transistor, or a problem naming the one that fails */
     public OperatingPoints solve(Stage stage) throws InputProblem {
         requireDcPaths(stage);
-        return solveLaidOut(stage, new NodeIndex(stage));
+        return solveLaidOut(stage, new Circuit(stage, null));
     }
 
     private static void requireDcPaths(Stage stage) throws InputProblem {
@@ -74,34 +74,33 @@ public final class BiasSolver {
      */
     public Prepared prepare(Stage stage) throws InputProblem {
         requireDcPaths(stage);
-        return new Prepared(this, stage, new NodeIndex(stage));
+        return new Prepared(stage, new Circuit(stage, null));
     }
 
-    private OperatingPoints solveLaidOut(Stage stage, NodeIndex nodes) throws InputProblem {
-        List<Transistor> transistors = stage.transistors();
-        Circuit circuit = new Circuit(stage, transistors, null, nodes);
-        double[] x = circuit.solve();
-        OperatingPoints points = circuit.points(x);
-        for (Transistor transistor : transistors) {
-            check(stage, transistor, circuit, x);
+    private static OperatingPoints solveLaidOut(Stage stage, Circuit circuit) throws InputProblem {
+        double[] values = stage.partValues();
+        double[] x = circuit.solve(values);
+        for (int t = 0; t < circuit.transistorCount(); t++) {
+            Fault fault = circuit.fault(t, values, x);
+            if (fault != Fault.NONE) {
+                throw problem(stage, t, fault, circuit, values, x);
+            }
         }
-        return points;
+        return circuit.points(values, x);
     }
 
     /**
      * {@link BiasSolver#solve} for draws of one checked stage: the same solve, region checks and
-     * problems, without the structural check and with the node numbering built once. Immutable;
-     * one instance serves any thread.
+     * problems, without the structural check and with the DC network laid out once (rows of
+     * every part, sources, unknowns). Immutable; one instance serves any thread.
      */
     public static final class Prepared {
-        private final BiasSolver solver;
         private final Stage nominal;
-        private final NodeIndex nodes;
+        private final Circuit circuit;
 
-        private Prepared(BiasSolver solver, Stage nominal, NodeIndex nodes) {
-            this.solver = solver;
+        private Prepared(Stage nominal, Circuit circuit) {
             this.nominal = nominal;
-            this.nodes = nodes;
+            this.circuit = circuit;
         }
 
         /**
@@ -115,8 +114,48 @@ public final class BiasSolver {
             if (!StageLayout.isDrawOf(draw, nominal)) {
                 throw new IllegalArgumentException("stage " + draw.name() + " is not a draw of " + nominal.name());
             }
-            return solver.solveLaidOut(draw, nodes);
+            return solveLaidOut(draw, circuit);
         }
+
+        /**
+         * The bias of one draw given as numbers, for a Monte Carlo spread: the solve and region
+         * test of {@link #solve(Stage)} on the prepared stage with {@code partValues}, without
+         * building operating points or a problem's text.
+         *
+         * @param partValues      the draw's values, one per part as {@link Stage#partValues()}
+         *                        orders them
+         * @param currentAmps     filled with each transistor's IC or ID in amperes (positive), in
+         *                        {@link Stage#transistors()} order
+         * @param sourceBodyVolts filled with each transistor's VSB in the device's sense, in volts
+         *                        (0 for a BJT and for a MOSFET without a body terminal)
+         * @return true when every transistor is in its amplifying region; false where
+         *         {@link #solve(Stage)} would throw (then the arrays hold nothing of use)
+         */
+        public boolean solveInRegion(double[] partValues, double[] currentAmps, double[] sourceBodyVolts) {
+            if (partValues.length != nominal.parts().size()) {
+                throw new IllegalArgumentException(partValues.length + " values for the " + nominal.parts().size()
+                        + " parts of " + nominal.name());
+            }
+            double[] x;
+            try {
+                x = circuit.solve(partValues);
+            } catch (InputProblem notSolvable) {
+                return false;
+            }
+            for (int t = 0; t < circuit.transistorCount(); t++) {
+                if (circuit.fault(t, partValues, x) != Fault.NONE) {
+                    return false;
+                }
+                currentAmps[t] = circuit.currentAmps(t, partValues, x);
+                sourceBodyVolts[t] = circuit.sourceBody(t, x);
+            }
+            return true;
+        }
+    }
+
+    /** Why a solved transistor is not in its amplifying region (see the class comment's thresholds). */
+    private enum Fault {
+        NONE, CUT_OFF, SATURATED, TRIODE
     }
 
     /** The DC unknowns' numbering: every node but ground, in {@link Stage#nodes()} order. */
@@ -158,72 +197,53 @@ public final class BiasSolver {
         return String.join(", ", names);
     }
 
-    private void check(Stage stage, Transistor transistor, Circuit circuit, double[] x) throws InputProblem {
-        boolean given = transistor.bias() instanceof Bias.Given;
+    /** The problem {@link #solve} reports for transistor t of {@code stage}, out of its region by {@code fault}. */
+    private static InputProblem problem(Stage stage, int t, Fault fault, Circuit circuit, double[] values,
+                                        double[] x) {
+        Transistor transistor = circuit.transistor(t);
         if (transistor instanceof Bjt) {
             Bjt bjt = (Bjt) transistor;
-            int s = bjt.polarity().sign();
-            double baseAmps = given ? 0 : circuit.baseCurrent(bjt, x);
             String vbe = bjt.polarity() == Bjt.Polarity.NPN ? "VBE" : "VEB";
             String vce = bjt.polarity() == Bjt.Polarity.NPN ? "VCE" : "VEC";
-            if (!given && !(baseAmps > 0)) {
-                throw new InputProblem(stage.sourceFile(), bjt.line(), bjt.name() + " is cut off: its "
+            if (fault == Fault.CUT_OFF) {
+                return new InputProblem(stage.sourceFile(), bjt.line(), bjt.name() + " is cut off: its "
                         + bjt.polarity().word() + " base–emitter junction would need a base current of "
-                        + amps(baseAmps) + " to sit at " + vbe + "(on) = " + volts(bjt.vbeOnVolts()),
+                        + amps(circuit.baseCurrent(t, x)) + " to sit at " + vbe + "(on) = " + volts(bjt.vbeOnVolts()),
                         cutOffHint(stage, bjt, bjt.base(), vbe + "(on)", bjt.vbeOnVolts()));
             }
-            double vceVolts = s * (circuit.volts(bjt.collector(), x) - circuit.volts(bjt.emitter(), x));
-            if (vceVolts < VCE_SAT_VOLTS) {
-                double ic = given ? ((Bias.Given) bjt.bias()).amps() : bjt.beta() * baseAmps;
-                throw new InputProblem(stage.sourceFile(), bjt.line(), bjt.name() + " is saturated: " + vce
-                        + " would be " + volts(vceVolts) + ", under " + vce + "(sat) = " + volts(VCE_SAT_VOLTS)
-                        + ", at IC = " + amps(ic),
-                        "the resistors at the collector and emitter (" + resistorsAt(stage, bjt.collector(),
-                                bjt.emitter()) + ") drop too much at this current: less bias current (a lower"
-                                + " base bias or a larger emitter resistor) or a smaller collector resistor would"
-                                + " bring it into the active region");
-            }
-        } else {
-            Mosfet mosfet = (Mosfet) transistor;
-            int s = mosfet.channel().sign();
-            double vgs = s * (circuit.volts(mosfet.gate(), x) - circuit.volts(mosfet.source(), x));
-            double vth = circuit.threshold(mosfet, x);
-            String vgsName = s > 0 ? "VGS" : "VSG";
-            String vdsName = s > 0 ? "VDS" : "VSD";
-            double overdrive;
-            double id;
-            if (given) {
-                id = ((Bias.Given) mosfet.bias()).amps();
-                overdrive = Math.sqrt(2 * id / mosfet.kAmpsPerVoltSquared());
-            } else {
-                overdrive = vgs - vth;
-                if (!(overdrive > 0)) {
-                    throw new InputProblem(stage.sourceFile(), mosfet.line(), mosfet.name() + " is cut off: "
-                            + vgsName + " stays below its threshold of " + volts(vth),
-                            cutOffHint(stage, mosfet, mosfet.gate(), "the threshold", vth));
-                }
-                id = 0.5 * mosfet.kAmpsPerVoltSquared() * overdrive * overdrive;
-            }
-            double vds = s * (circuit.volts(mosfet.drain(), x) - circuit.volts(mosfet.source(), x));
-            if (vds < overdrive) {
-                throw new InputProblem(stage.sourceFile(), mosfet.line(), mosfet.name() + " is in the triode"
-                        + " region: " + vdsName + " would be " + volts(vds) + ", under " + vgsName + " − Vth = "
-                        + volts(overdrive) + ", at ID = " + amps(id),
-                        "the resistors at the drain and source (" + resistorsAt(stage, mosfet.drain(),
-                                mosfet.source()) + ") drop too much at this current: less bias current (a lower"
-                                + " gate bias or a larger source resistor) or a smaller drain resistor would bring"
-                                + " it into saturation");
-            }
+            return new InputProblem(stage.sourceFile(), bjt.line(), bjt.name() + " is saturated: " + vce
+                    + " would be " + volts(circuit.mainVolts(t, x)) + ", under " + vce + "(sat) = "
+                    + volts(VCE_SAT_VOLTS) + ", at IC = " + amps(circuit.currentAmps(t, values, x)),
+                    "the resistors at the collector and emitter (" + resistorsAt(stage, bjt.collector(),
+                            bjt.emitter()) + ") drop too much at this current: less bias current (a lower"
+                            + " base bias or a larger emitter resistor) or a smaller collector resistor would"
+                            + " bring it into the active region");
         }
+        Mosfet mosfet = (Mosfet) transistor;
+        String vgsName = mosfet.channel().sign() > 0 ? "VGS" : "VSG";
+        String vdsName = mosfet.channel().sign() > 0 ? "VDS" : "VSD";
+        if (fault == Fault.CUT_OFF) {
+            double vth = circuit.threshold(t, x);
+            return new InputProblem(stage.sourceFile(), mosfet.line(), mosfet.name() + " is cut off: "
+                    + vgsName + " stays below its threshold of " + volts(vth),
+                    cutOffHint(stage, mosfet, mosfet.gate(), "the threshold", vth));
+        }
+        return new InputProblem(stage.sourceFile(), mosfet.line(), mosfet.name() + " is in the triode"
+                + " region: " + vdsName + " would be " + volts(circuit.mainVolts(t, x)) + ", under " + vgsName
+                + " − Vth = " + volts(circuit.testedOverdrive(t, x)) + ", at ID = " + amps(circuit.currentAmps(t, values, x)),
+                "the resistors at the drain and source (" + resistorsAt(stage, mosfet.drain(),
+                        mosfet.source()) + ") drop too much at this current: less bias current (a lower"
+                        + " gate bias or a larger source resistor) or a smaller drain resistor would bring"
+                        + " it into saturation");
     }
 
     /** A hint for a cut-off transistor: the control voltage the network applies with it removed. */
-    private String cutOffHint(Stage stage, Transistor transistor, String controlNode, String needed,
-                              double neededVolts) {
+    private static String cutOffHint(Stage stage, Transistor transistor, String controlNode, String needed,
+                                     double neededVolts) {
         String held = "";
         try {
             Circuit without = new Circuit(stage, transistor.name());
-            double[] x = without.solve();
+            double[] x = without.solve(stage.partValues());
             int s;
             String common;
             String pair;
@@ -277,116 +297,163 @@ public final class BiasSolver {
     }
 
     /**
-     * The DC MNA system of one stage: unknowns are the node voltages (ground excluded), then one
-     * current per ideal source (supplies, a 0 Ω generator, each auto BJT's VBE(on)).
+     * The DC MNA system of one stage, laid out once: unknowns are the node voltages (ground
+     * excluded), then one current per ideal source (supplies, a 0 Ω generator, each auto BJT's
+     * VBE(on)). Every part's terminal rows are found here, so that a solve only stamps the part
+     * values ({@link Stage#partValues()}) into the matrix; the values that are never drawn
+     * (supplies, VBE(on), source and load resistances, given currents, MOSFET parameters) are the
+     * laid-out stage's. Immutable; each solve works in its own arrays.
      */
     private static final class Circuit {
         private final Stage stage;
-        private final List<Transistor> transistors;
         private final NodeIndex index;
-        private final List<Source> sources = new ArrayList<>();
-        private final List<Mosfet> nonlinear = new ArrayList<>();
-        private final Map<String, Integer> junctionSource = new LinkedHashMap<>();
-        private final double[][] g;
-        private final double[] b;
+        private final List<Transistor> transistors;
         private final int nodeCount;
+        private final int size;
+        /** per part, in part order: the rows of its terminals (−1 for ground), in terminal order */
+        private final int[][] partRows;
+        private final int[] resistorParts;
+        /** per transistor: its part index */
+        private final int[] transistorPart;
+        /** per transistor: false for the one a cut-off hint leaves out */
+        private final boolean[] included;
+        /** per transistor: the column of an auto BJT's VBE(on) source current, −1 for the others */
+        private final int[] junctionColumn;
+        /** transistor indices of the auto-biased MOSFETs, solved by Newton */
+        private final int[] nonlinear;
+        private final List<Source> sources = new ArrayList<>();
+        private final int inputRow;
+        private final int outputRow;
 
-        private record Source(String plus, String minus, double volts, String name) {
+        private record Source(int plusRow, int minusRow, double volts) {
         }
 
         /** @param excluded a transistor left out (for a cut-off hint), or null */
-        Circuit(Stage stage, String excluded) throws InputProblem {
-            this(stage, stage.transistors(), excluded, new NodeIndex(stage));
-        }
-
-        /** @param transistors the stage's transistors, {@link Stage#transistors()} */
-        Circuit(Stage stage, List<Transistor> transistors, String excluded, NodeIndex index) {
+        Circuit(Stage stage, String excluded) {
             this.stage = stage;
-            this.transistors = transistors;
-            this.index = index;
+            this.index = new NodeIndex(stage);
+            this.transistors = stage.transistors();
             nodeCount = index.size();
+            List<Part> parts = stage.parts();
+            partRows = new int[parts.size()][];
+            List<Integer> resistors = new ArrayList<>();
+            transistorPart = new int[transistors.size()];
+            for (int p = 0, t = 0; p < parts.size(); p++) {
+                Part part = parts.get(p);
+                List<String> terminals = part.terminalNodes();
+                partRows[p] = new int[terminals.size()];
+                for (int i = 0; i < terminals.size(); i++) {
+                    partRows[p][i] = index.row(terminals.get(i));
+                }
+                if (part instanceof Resistor) {
+                    resistors.add(p);
+                } else if (part instanceof Transistor) {
+                    transistorPart[t++] = p;
+                }
+            }
+            resistorParts = resistors.stream().mapToInt(Integer::intValue).toArray();
+            inputRow = index.row(stage.input().node());
+            outputRow = index.row(stage.output().node());
             for (Supply supply : stage.supplies()) {
-                sources.add(new Source(supply.node(), stage.ground(), supply.volts(), supply.node()));
+                sources.add(new Source(index.row(supply.node()), -1, supply.volts()));
             }
             if (stage.input().sourceOhms() == 0) {
-                sources.add(new Source(stage.input().node(), stage.ground(), 0, "generator"));
+                sources.add(new Source(inputRow, -1, 0));
             }
-            for (Transistor transistor : transistors) {
-                if (transistor.name().equals(excluded)) {
-                    continue;
-                }
-                if (transistor instanceof Bjt && transistor.bias() instanceof Bias.Auto) {
-                    Bjt bjt = (Bjt) transistor;
-                    junctionSource.put(bjt.name(), sources.size());
-                    sources.add(bjt.polarity() == Bjt.Polarity.NPN
-                            ? new Source(bjt.base(), bjt.emitter(), bjt.vbeOnVolts(), bjt.name())
-                            : new Source(bjt.emitter(), bjt.base(), bjt.vbeOnVolts(), bjt.name()));
-                } else if (transistor instanceof Mosfet && transistor.bias() instanceof Bias.Auto) {
-                    nonlinear.add((Mosfet) transistor);
-                }
-            }
-            int size = nodeCount + sources.size();
-            g = new double[size][size];
-            b = new double[size];
-            for (Resistor resistor : stage.resistors()) {
-                conductance(resistor.between().a(), resistor.between().b(), 1 / resistor.ohms());
-            }
-            if (stage.input().sourceOhms() > 0) {
-                conductance(stage.input().node(), stage.ground(), 1 / stage.input().sourceOhms());
-            }
-            if (stage.output().loadOhms().isPresent()) {
-                conductance(stage.output().node(), stage.ground(), 1 / stage.output().loadOhms().getAsDouble());
-            }
-            for (int k = 0; k < sources.size(); k++) {
-                Source source = sources.get(k);
-                int row = nodeCount + k;
-                stamp(source.plus(), row, 1);
-                stamp(source.minus(), row, -1);
-                b[row] = source.volts();
-            }
-            for (Transistor transistor : transistors) {
-                if (transistor.name().equals(excluded)) {
+            included = new boolean[transistors.size()];
+            junctionColumn = new int[transistors.size()];
+            List<Integer> mosfets = new ArrayList<>();
+            for (int t = 0; t < transistors.size(); t++) {
+                Transistor transistor = transistors.get(t);
+                included[t] = !transistor.name().equals(excluded);
+                junctionColumn[t] = -1;
+                if (!included[t] || !(transistor.bias() instanceof Bias.Auto)) {
                     continue;
                 }
                 if (transistor instanceof Bjt) {
                     Bjt bjt = (Bjt) transistor;
+                    int[] rows = partRows[transistorPart[t]];
+                    junctionColumn[t] = nodeCount + sources.size();
+                    // the VBE(on) source from base to emitter (emitter to base for a PNP)
+                    sources.add(bjt.polarity() == Bjt.Polarity.NPN
+                            ? new Source(rows[1], rows[2], bjt.vbeOnVolts())
+                            : new Source(rows[2], rows[1], bjt.vbeOnVolts()));
+                } else {
+                    mosfets.add(t);
+                }
+            }
+            nonlinear = mosfets.stream().mapToInt(Integer::intValue).toArray();
+            size = nodeCount + sources.size();
+        }
+
+        int transistorCount() {
+            return transistors.size();
+        }
+
+        Transistor transistor(int t) {
+            return transistors.get(t);
+        }
+
+        /** @return the matrix G and right-hand side b of the linear part, from the part values */
+        private double[][] stamp(double[] values, double[] b) {
+            double[][] g = new double[size][size];
+            for (int p : resistorParts) {
+                conductance(g, partRows[p][0], partRows[p][1], 1 / values[p]);
+            }
+            if (stage.input().sourceOhms() > 0) {
+                conductance(g, inputRow, -1, 1 / stage.input().sourceOhms());
+            }
+            if (stage.output().loadOhms().isPresent()) {
+                conductance(g, outputRow, -1, 1 / stage.output().loadOhms().getAsDouble());
+            }
+            for (int k = 0; k < sources.size(); k++) {
+                Source source = sources.get(k);
+                int row = nodeCount + k;
+                incidence(g, source.plusRow(), row, 1);
+                incidence(g, source.minusRow(), row, -1);
+                b[row] = source.volts();
+            }
+            for (int t = 0; t < transistors.size(); t++) {
+                if (!included[t]) {
+                    continue;
+                }
+                Transistor transistor = transistors.get(t);
+                int[] rows = partRows[transistorPart[t]];
+                if (transistor instanceof Bjt) {
+                    Bjt bjt = (Bjt) transistor;
+                    double beta = values[transistorPart[t]];
+                    boolean npn = bjt.polarity() == Bjt.Polarity.NPN;
                     if (transistor.bias() instanceof Bias.Auto) {
                         // collector current β·IB, with IB the junction source's current
-                        int column = nodeCount + junctionSource.get(bjt.name());
-                        String from = bjt.polarity() == Bjt.Polarity.NPN ? bjt.collector() : bjt.emitter();
-                        String to = bjt.polarity() == Bjt.Polarity.NPN ? bjt.emitter() : bjt.collector();
-                        add(from, column, bjt.beta());
-                        add(to, column, -bjt.beta());
+                        int from = npn ? rows[0] : rows[2];
+                        int to = npn ? rows[2] : rows[0];
+                        add(g, from, junctionColumn[t], beta);
+                        add(g, to, junctionColumn[t], -beta);
                     } else {
                         double ic = ((Bias.Given) bjt.bias()).amps();
-                        double ib = ic / bjt.beta();
-                        if (bjt.polarity() == Bjt.Polarity.NPN) {
-                            inject(bjt.base(), bjt.emitter(), ib);
-                            inject(bjt.collector(), bjt.emitter(), ic);
+                        double ib = ic / beta;
+                        if (npn) {
+                            inject(b, rows[1], rows[2], ib);
+                            inject(b, rows[0], rows[2], ic);
                         } else {
-                            inject(bjt.emitter(), bjt.base(), ib);
-                            inject(bjt.emitter(), bjt.collector(), ic);
+                            inject(b, rows[2], rows[1], ib);
+                            inject(b, rows[2], rows[0], ic);
                         }
                     }
                 } else if (transistor.bias() instanceof Bias.Given) {
                     Mosfet mosfet = (Mosfet) transistor;
                     double id = ((Bias.Given) mosfet.bias()).amps();
                     if (mosfet.channel() == Mosfet.Channel.NMOS) {
-                        inject(mosfet.drain(), mosfet.source(), id);
+                        inject(b, rows[0], rows[2], id);
                     } else {
-                        inject(mosfet.source(), mosfet.drain(), id);
+                        inject(b, rows[2], rows[0], id);
                     }
                 }
             }
+            return g;
         }
 
-        private int row(String node) {
-            return index.row(node);
-        }
-
-        private void conductance(String a, String bNode, double siemens) {
-            int i = row(a);
-            int j = row(bNode);
+        private static void conductance(double[][] g, int i, int j, double siemens) {
             if (i >= 0) {
                 g[i][i] += siemens;
             }
@@ -399,26 +466,22 @@ public final class BiasSolver {
             }
         }
 
-        /** An ideal source's incidence: its current leaves {@code node} (sign +1) or enters it (−1). */
-        private void stamp(String node, int sourceRow, double sign) {
-            int i = row(node);
+        /** An ideal source's incidence: its current leaves the node of row {@code i} (sign +1) or enters it (−1). */
+        private static void incidence(double[][] g, int i, int sourceRow, double sign) {
             if (i >= 0) {
                 g[i][sourceRow] += sign;
                 g[sourceRow][i] += sign;
             }
         }
 
-        private void add(String node, int column, double value) {
-            int i = row(node);
+        private static void add(double[][] g, int i, int column, double value) {
             if (i >= 0) {
                 g[i][column] += value;
             }
         }
 
-        /** A fixed current {@code amps} taken out of {@code from} and returned into {@code to}. */
-        private void inject(String from, String to, double amps) {
-            int i = row(from);
-            int j = row(to);
+        /** A fixed current {@code amps} taken out of row {@code i}'s node and returned into row {@code j}'s. */
+        private static void inject(double[] b, int i, int j, double amps) {
             if (i >= 0) {
                 b[i] -= amps;
             }
@@ -428,25 +491,83 @@ public final class BiasSolver {
         }
 
         double volts(String node, double[] x) {
-            int i = row(node);
-            return i < 0 ? 0 : x[i];
+            return volts(index.row(node), x);
         }
 
-        /** @return IB (magnitude in the device's sense) of an auto BJT from the junction source's current */
-        double baseCurrent(Bjt bjt, double[] x) {
-            return x[nodeCount + junctionSource.get(bjt.name())];
+        private static double volts(int row, double[] x) {
+            return row < 0 ? 0 : x[row];
         }
 
-        /** @return the threshold in the device's own sense at the solved source–body voltage */
-        double threshold(Mosfet mosfet, double[] x) {
-            return thresholdAt(mosfet, sourceBody(mosfet, x));
+        /** @return IB (magnitude in the device's sense) of auto BJT t from the junction source's current */
+        double baseCurrent(int t, double[] x) {
+            return x[junctionColumn[t]];
         }
 
-        private double sourceBody(Mosfet mosfet, double[] x) {
-            if (mosfet.body().isEmpty()) {
+        /** @return VCE of a BJT or VDS of a MOSFET, in the device's sense */
+        double mainVolts(int t, double[] x) {
+            int[] rows = partRows[transistorPart[t]];
+            return sign(t) * (volts(rows[0], x) - volts(rows[2], x));
+        }
+
+        /** @return +1 for NPN and NMOS, −1 for PNP and PMOS */
+        private int sign(int t) {
+            Transistor transistor = transistors.get(t);
+            return transistor instanceof Bjt ? ((Bjt) transistor).polarity().sign()
+                    : ((Mosfet) transistor).channel().sign();
+        }
+
+        /** @return IC or ID in amperes: given, β·IB, or the square law at the solved VGS */
+        double currentAmps(int t, double[] values, double[] x) {
+            Transistor transistor = transistors.get(t);
+            if (transistor.bias() instanceof Bias.Given) {
+                return ((Bias.Given) transistor.bias()).amps();
+            }
+            if (transistor instanceof Bjt) {
+                return values[transistorPart[t]] * baseCurrent(t, x);
+            }
+            double u = overdrive(t, x);
+            return 0.5 * ((Mosfet) transistor).kAmpsPerVoltSquared() * u * u;
+        }
+
+        /** @return the region test of the class comment for transistor t of a solved circuit */
+        Fault fault(int t, double[] values, double[] x) {
+            Transistor transistor = transistors.get(t);
+            boolean given = transistor.bias() instanceof Bias.Given;
+            if (transistor instanceof Bjt) {
+                if (!given && !(baseCurrent(t, x) > 0)) {
+                    return Fault.CUT_OFF;
+                }
+                return mainVolts(t, x) < VCE_SAT_VOLTS ? Fault.SATURATED : Fault.NONE;
+            }
+            double overdrive = testedOverdrive(t, x);
+            if (!given && !(overdrive > 0)) {
+                return Fault.CUT_OFF;
+            }
+            return mainVolts(t, x) < overdrive ? Fault.TRIODE : Fault.NONE;
+        }
+
+        /** @return VGS − Vth of MOSFET t as the region test takes it: by the square law from a given current, else as solved */
+        double testedOverdrive(int t, double[] x) {
+            Mosfet mosfet = (Mosfet) transistors.get(t);
+            if (mosfet.bias() instanceof Bias.Given) {
+                return Math.sqrt(2 * ((Bias.Given) mosfet.bias()).amps() / mosfet.kAmpsPerVoltSquared());
+            }
+            return overdrive(t, x);
+        }
+
+        /** @return the threshold of MOSFET t in the device's own sense at the solved source–body voltage */
+        double threshold(int t, double[] x) {
+            return thresholdAt((Mosfet) transistors.get(t), sourceBody(t, x));
+        }
+
+        /** @return VSB of MOSFET t in the device's sense; 0 for a BJT and without a body terminal */
+        double sourceBody(int t, double[] x) {
+            Transistor transistor = transistors.get(t);
+            if (!(transistor instanceof Mosfet) || ((Mosfet) transistor).body().isEmpty()) {
                 return 0;
             }
-            return mosfet.channel().sign() * (volts(mosfet.source(), x) - volts(mosfet.body().get(), x));
+            int[] rows = partRows[transistorPart[t]];
+            return sign(t) * (volts(rows[2], x) - volts(rows[3], x));
         }
 
         private static double thresholdAt(Mosfet mosfet, double vsb) {
@@ -463,20 +584,22 @@ public final class BiasSolver {
             return Math.max(phi + vsb, 0.01 * phi);
         }
 
-        double[] solve() throws InputProblem {
-            int size = b.length;
-            if (nonlinear.isEmpty()) {
+        /** @return the unknowns for the part values: node voltages, then source currents */
+        double[] solve(double[] values) throws InputProblem {
+            double[] b = new double[size];
+            double[][] g = stamp(values, b);
+            if (nonlinear.length == 0) {
                 return linearSolve(g, b);
             }
             double[] x = new double[size];
-            double[] residual = residual(x);
+            double[] residual = residual(g, b, x);
             double norm = norm(residual);
             for (int step = 0; step < MAX_NEWTON_STEPS; step++) {
                 double[] minus = new double[size];
                 for (int i = 0; i < size; i++) {
                     minus[i] = -residual[i];
                 }
-                double[] delta = linearSolve(jacobian(x), minus);
+                double[] delta = linearSolve(jacobian(g, x), minus);
                 double full = 0;
                 double scale = 1;
                 for (int i = 0; i < nodeCount; i++) {
@@ -494,7 +617,7 @@ public final class BiasSolver {
                     for (int i = 0; i < size; i++) {
                         trial[i] = x[i] + t * delta[i];
                     }
-                    double[] trialResidual = residual(trial);
+                    double[] trialResidual = residual(g, b, trial);
                     double trialNorm = norm(trialResidual);
                     if (trialNorm < norm) {
                         decreased = true;
@@ -512,14 +635,17 @@ public final class BiasSolver {
                     break;
                 }
             }
-            throw new InputProblem(stage.sourceFile(), nonlinear.get(0).line(),
-                    "the bias of " + String.join(", ", nonlinear.stream().map(Mosfet::name).toList())
-                            + " did not converge in " + MAX_NEWTON_STEPS + " Newton steps",
+            List<String> names = new ArrayList<>();
+            for (int t : nonlinear) {
+                names.add(transistors.get(t).name());
+            }
+            throw new InputProblem(stage.sourceFile(), transistors.get(nonlinear[0]).line(),
+                    "the bias of " + String.join(", ", names) + " did not converge in " + MAX_NEWTON_STEPS
+                            + " Newton steps",
                     "check vth, k and the gate bias; or give the measured current as 'bias: {id: 1m}'");
         }
 
-        private double[] residual(double[] x) {
-            int size = b.length;
+        private double[] residual(double[][] g, double[] b, double[] x) {
             double[] r = new double[size];
             for (int i = 0; i < size; i++) {
                 double sum = -b[i];
@@ -528,71 +654,69 @@ public final class BiasSolver {
                 }
                 r[i] = sum;
             }
-            for (Mosfet mosfet : nonlinear) {
-                double current = mosfet.channel().sign() * channelCurrent(mosfet, x);
-                addAt(r, mosfet.drain(), current);
-                addAt(r, mosfet.source(), -current);
+            for (int t : nonlinear) {
+                int[] rows = partRows[transistorPart[t]];
+                double current = sign(t) * channelCurrent(t, x);
+                addAt(r, rows[0], current);
+                addAt(r, rows[2], -current);
             }
             return r;
         }
 
         /** @return (k/2)·u·|u| with u = VGS − Vth in the device's sense: the square law, continued below threshold */
-        private double channelCurrent(Mosfet mosfet, double[] x) {
-            double u = overdrive(mosfet, x);
-            return 0.5 * mosfet.kAmpsPerVoltSquared() * u * Math.abs(u);
+        private double channelCurrent(int t, double[] x) {
+            double u = overdrive(t, x);
+            return 0.5 * ((Mosfet) transistors.get(t)).kAmpsPerVoltSquared() * u * Math.abs(u);
         }
 
-        private double overdrive(Mosfet mosfet, double[] x) {
-            int s = mosfet.channel().sign();
-            double vgs = s * (volts(mosfet.gate(), x) - volts(mosfet.source(), x));
-            return vgs - threshold(mosfet, x);
+        /** @return VGS − Vth of MOSFET t in the device's sense */
+        double overdrive(int t, double[] x) {
+            int[] rows = partRows[transistorPart[t]];
+            double vgs = sign(t) * (volts(rows[1], x) - volts(rows[2], x));
+            return vgs - threshold(t, x);
         }
 
-        private double[][] jacobian(double[] x) {
-            int size = b.length;
+        private double[][] jacobian(double[][] g, double[] x) {
             double[][] j = new double[size][];
             for (int i = 0; i < size; i++) {
                 j[i] = g[i].clone();
             }
-            for (Mosfet mosfet : nonlinear) {
+            for (int t : nonlinear) {
+                Mosfet mosfet = (Mosfet) transistors.get(t);
+                int[] rows = partRows[transistorPart[t]];
                 int s = mosfet.channel().sign();
-                double slope = Math.max(mosfet.kAmpsPerVoltSquared() * Math.abs(overdrive(mosfet, x)),
+                double slope = Math.max(mosfet.kAmpsPerVoltSquared() * Math.abs(overdrive(t, x)),
                         SLOPE_FLOOR_SIEMENS);
                 double thresholdSlope = 0;
                 if (mosfet.hasBodyEffect()) {
-                    double vsb = sourceBody(mosfet, x);
+                    double vsb = sourceBody(t, x);
                     double argument = mosfet.surfacePotentialVolts() + vsb;
                     thresholdSlope = argument > 0.01 * mosfet.surfacePotentialVolts()
                             ? mosfet.gammaRootVolts() / (2 * Math.sqrt(argument)) : 0;
                 }
                 // u = s(VG − VS) − Vth(s(VS − VB)); the current s·f(u) flows from drain to source
-                double[][] derivative = {
-                        {row(mosfet.gate()), s},
-                        {row(mosfet.source()), -s * (1 + thresholdSlope)},
-                        {mosfet.hasBodyEffect() ? row(mosfet.body().get()) : -1, s * thresholdSlope}};
-                for (double[] d : derivative) {
-                    int column = (int) d[0];
-                    if (column < 0 || d[1] == 0) {
+                int[] columns = {rows[1], rows[2], mosfet.hasBodyEffect() ? rows[3] : -1};
+                double[] derivatives = {s, -s * (1 + thresholdSlope), s * thresholdSlope};
+                for (int d = 0; d < columns.length; d++) {
+                    int column = columns[d];
+                    if (column < 0 || derivatives[d] == 0) {
                         continue;
                     }
-                    double value = s * slope * d[1];
-                    int drain = row(mosfet.drain());
-                    int source = row(mosfet.source());
-                    if (drain >= 0) {
-                        j[drain][column] += value;
+                    double value = s * slope * derivatives[d];
+                    if (rows[0] >= 0) {
+                        j[rows[0]][column] += value;
                     }
-                    if (source >= 0) {
-                        j[source][column] -= value;
+                    if (rows[2] >= 0) {
+                        j[rows[2]][column] -= value;
                     }
                 }
             }
             return j;
         }
 
-        private void addAt(double[] r, String node, double value) {
-            int i = row(node);
-            if (i >= 0) {
-                r[i] += value;
+        private static void addAt(double[] r, int row, double value) {
+            if (row >= 0) {
+                r[row] += value;
             }
         }
 
@@ -628,41 +752,39 @@ public final class BiasSolver {
             return true;
         }
 
-        OperatingPoints points(double[] x) {
+        OperatingPoints points(double[] values, double[] x) {
             Map<String, Double> nodeVolts = new LinkedHashMap<>();
             nodeVolts.put(stage.ground(), 0.0);
             for (String node : index.nodes()) {
                 nodeVolts.put(node, x[index.row(node)]);
             }
             List<OperatingPoint> points = new ArrayList<>();
-            for (Transistor transistor : transistors) {
+            for (int t = 0; t < transistors.size(); t++) {
+                Transistor transistor = transistors.get(t);
                 boolean given = transistor.bias() instanceof Bias.Given;
+                double current = currentAmps(t, values, x);
                 if (transistor instanceof Bjt) {
                     Bjt bjt = (Bjt) transistor;
                     int s = bjt.polarity().sign();
-                    double ic = given ? ((Bias.Given) bjt.bias()).amps() : bjt.beta() * baseCurrent(bjt, x);
                     Map<String, Double> terminals = new LinkedHashMap<>();
                     terminals.put("c", volts(bjt.collector(), x));
                     terminals.put("b", volts(bjt.base(), x));
                     terminals.put("e", volts(bjt.emitter(), x));
-                    points.add(new OperatingPoint.BjtPoint(bjt.name(), Region.FORWARD_ACTIVE, ic, ic / bjt.beta(),
-                            s * (terminals.get("c") - terminals.get("e")),
+                    points.add(new OperatingPoint.BjtPoint(bjt.name(), Region.FORWARD_ACTIVE, current,
+                            current / values[transistorPart[t]], s * (terminals.get("c") - terminals.get("e")),
                             s * (terminals.get("b") - terminals.get("e")), given, terminals));
                 } else {
                     Mosfet mosfet = (Mosfet) transistor;
                     int s = mosfet.channel().sign();
-                    double vth = threshold(mosfet, x);
                     double vgs = s * (volts(mosfet.gate(), x) - volts(mosfet.source(), x));
-                    double id = given ? ((Bias.Given) mosfet.bias()).amps()
-                            : 0.5 * mosfet.kAmpsPerVoltSquared() * (vgs - vth) * (vgs - vth);
                     Map<String, Double> terminals = new LinkedHashMap<>();
                     terminals.put("d", volts(mosfet.drain(), x));
                     terminals.put("g", volts(mosfet.gate(), x));
                     terminals.put("s", volts(mosfet.source(), x));
                     mosfet.body().ifPresent(body -> terminals.put("b", volts(body, x)));
-                    points.add(new OperatingPoint.MosfetPoint(mosfet.name(), Region.SATURATION, id,
-                            s * (terminals.get("d") - terminals.get("s")), vgs, sourceBody(mosfet, x), vth, given,
-                            terminals));
+                    points.add(new OperatingPoint.MosfetPoint(mosfet.name(), Region.SATURATION, current,
+                            s * (terminals.get("d") - terminals.get("s")), vgs, sourceBody(t, x), threshold(t, x),
+                            given, terminals));
                 }
             }
             return new OperatingPoints(nodeVolts, points);

@@ -46,26 +46,27 @@ public final class SmallSignalExpansion {
      *               ({@link OperatingPoints#withCurrentScaled}); one per transistor of the stage
      */
     public SmallSignalNetwork expand(Stage stage, OperatingPoints points) {
-        return expand(new Nodes(stage), stage, points);
+        return new Layout(stage).network(stage, points);
     }
 
-    /** @return an expansion for draws of {@code stage} that numbers the nodes once */
+    /** @return an expansion for draws of {@code stage} that lays the network out once */
     public Prepared prepare(Stage stage) {
-        return new Prepared(stage, new Nodes(stage));
+        return new Prepared(stage, new Layout(stage));
     }
 
     /**
      * {@link SmallSignalExpansion#expand(Stage, OperatingPoints)} for draws of one stage (a
-     * Monte Carlo tolerance spread), with the node numbering made once. Immutable; one instance
-     * serves any thread.
+     * Monte Carlo tolerance spread), with the node numbering and the element list made once: a
+     * draw changes element values, never which elements there are or where they sit. Immutable;
+     * one instance serves any thread.
      */
     public static final class Prepared {
         private final Stage nominal;
-        private final Nodes nodes;
+        private final Layout layout;
 
-        private Prepared(Stage nominal, Nodes nodes) {
+        private Prepared(Stage nominal, Layout layout) {
             this.nominal = nominal;
-            this.nodes = nodes;
+            this.layout = layout;
         }
 
         /**
@@ -79,112 +80,272 @@ public final class SmallSignalExpansion {
             if (!StageLayout.isDrawOf(draw, nominal)) {
                 throw new IllegalArgumentException("stage " + draw.name() + " is not a draw of " + nominal.name());
             }
-            return SmallSignalExpansion.expand(nodes, draw, points);
+            return layout.network(draw, points);
+        }
+
+        /**
+         * The network of the prepared stage with other part values and currents, as records.
+         *
+         * @param partValues      one per part, as {@link Stage#partValues()} orders them
+         * @param currentAmps     per transistor ({@link Stage#transistors()} order), IC or ID, positive
+         * @param sourceBodyVolts per transistor, VSB in the device's sense (read for MOSFETs only)
+         */
+        public SmallSignalNetwork network(double[] partValues, double[] currentAmps, double[] sourceBodyVolts) {
+            return layout.network(nominal, partValues, currentAmps, sourceBodyVolts);
+        }
+
+        /**
+         * The element values alone, for a kernel that keeps one network's layout and restamps
+         * only numbers: the same arithmetic as {@link #network}, without the records.
+         *
+         * @return per element of {@link #network}, in its order: siemens for a conductance or
+         *         transconductance, farads for a capacitance
+         */
+        public double[] elementValues(double[] partValues, double[] currentAmps, double[] sourceBodyVolts) {
+            return layout.values(nominal, partValues, currentAmps, sourceBodyVolts);
         }
     }
 
-    private static SmallSignalNetwork expand(Nodes nodes, Stage stage, OperatingPoints points) {
-        List<NetworkElement> elements = new ArrayList<>();
-        double vt = ThermalVoltage.volts(stage.temperatureKelvin());
+    /** What one element of the network is, and so how its value follows from the stage's numbers. */
+    private enum Kind {
+        SOURCE_RESISTANCE(Form.CONDUCTANCE), LOAD(Form.CONDUCTANCE), RESISTOR(Form.CONDUCTANCE),
+        CAPACITOR(Form.CAPACITANCE), BJT_RX(Form.CONDUCTANCE), BJT_RPI(Form.CONDUCTANCE),
+        BJT_GM(Form.TRANSCONDUCTANCE), BJT_RO(Form.CONDUCTANCE), BJT_CPI(Form.CAPACITANCE),
+        BJT_CMU(Form.CAPACITANCE), MOSFET_GM(Form.TRANSCONDUCTANCE), MOSFET_GMB(Form.TRANSCONDUCTANCE),
+        MOSFET_RO(Form.CONDUCTANCE), MOSFET_CGS(Form.CAPACITANCE), MOSFET_CGD(Form.CAPACITANCE);
 
-        int input = nodes.of(stage.input().node());
-        int driven;
-        if (StageTopology.inputIsDriven(stage)) {
-            driven = input;
-        } else {
-            driven = nodes.sourceNode();
-            elements.add(new NetworkElement.Conductance("source-resistance", driven, input,
-                    1 / stage.input().sourceOhms()));
+        final Form form;
+
+        Kind(Form form) {
+            this.form = form;
         }
-        if (stage.output().loadOhms().isPresent()) {
-            conductance(elements, "load", nodes.of(stage.output().node()), 0,
-                    1 / stage.output().loadOhms().getAsDouble());
+    }
+
+    private enum Form {
+        CONDUCTANCE, CAPACITANCE, TRANSCONDUCTANCE
+    }
+
+    /**
+     * One element's place in the network: its kind, the part and transistor it comes from, its
+     * name and nodes (a and b; for a transconductance from, to, control + and control −).
+     */
+    private static final class Slot {
+        final Kind kind;
+        final int part;
+        final int transistor;
+        final String name;
+        final int a;
+        final int b;
+        final int plus;
+        final int minus;
+        final Band band;
+
+        Slot(Kind kind, int part, int transistor, String name, int a, int b, int plus, int minus, Band band) {
+            this.kind = kind;
+            this.part = part;
+            this.transistor = transistor;
+            this.name = name;
+            this.a = a;
+            this.b = b;
+            this.plus = plus;
+            this.minus = minus;
+            this.band = band;
         }
-        for (Part part : stage.parts()) {
-            if (part instanceof Resistor) {
-                Resistor r = (Resistor) part;
-                conductance(elements, r.name(), nodes.of(r.between().a()), nodes.of(r.between().b()), 1 / r.ohms());
-            } else if (part instanceof Capacitor) {
-                Capacitor c = (Capacitor) part;
-                capacitance(elements, c.name(), nodes.of(c.between().a()), nodes.of(c.between().b()), c.farads(),
-                        c.band());
-            } else if (part instanceof Bjt) {
-                bjt(elements, nodes, (Bjt) part, points.bjt(part.name()), vt);
+    }
+
+    /**
+     * The network's elements in order, from a stage's layout alone (which parts, nodes, bands,
+     * rx, Early voltage, body effect and λ it has). Elements whose two ends both land on AC
+     * ground are left out here, once, so every set of values fills the same list.
+     */
+    private static final class Layout {
+        private final Nodes nodes;
+        private final int driven;
+        private final int output;
+        private final List<Slot> slots = new ArrayList<>();
+
+        Layout(Stage stage) {
+            nodes = new Nodes(stage);
+            int input = nodes.of(stage.input().node());
+            if (StageTopology.inputIsDriven(stage)) {
+                driven = input;
             } else {
-                mosfet(elements, nodes, (Mosfet) part, points.mosfet(part.name()));
+                driven = nodes.sourceNode();
+                slots.add(new Slot(Kind.SOURCE_RESISTANCE, -1, -1, "source-resistance", driven, input, 0, 0, null));
+            }
+            output = nodes.of(stage.output().node());
+            if (stage.output().loadOhms().isPresent()) {
+                twoTerminal(Kind.LOAD, -1, -1, "load", output, 0, null);
+            }
+            List<Part> parts = stage.parts();
+            int t = 0;
+            for (int p = 0; p < parts.size(); p++) {
+                Part part = parts.get(p);
+                if (part instanceof Resistor) {
+                    Resistor r = (Resistor) part;
+                    twoTerminal(Kind.RESISTOR, p, -1, r.name(), nodes.of(r.between().a()), nodes.of(r.between().b()),
+                            null);
+                } else if (part instanceof Capacitor) {
+                    Capacitor c = (Capacitor) part;
+                    twoTerminal(Kind.CAPACITOR, p, -1, c.name(), nodes.of(c.between().a()), nodes.of(c.between().b()),
+                            c.band());
+                } else if (part instanceof Bjt) {
+                    bjt((Bjt) part, p, t++);
+                } else {
+                    mosfet((Mosfet) part, p, t++);
+                }
             }
         }
-        return new SmallSignalNetwork(nodes.names(), elements, driven, nodes.of(stage.output().node()));
-    }
 
-    private static void bjt(List<NetworkElement> elements, Nodes nodes, Bjt bjt, OperatingPoint.BjtPoint point,
-                            double vt) {
-        double ic = point.collectorAmps();
-        double gm = ic / vt;
-        double gpi = gm / bjt.beta();
-        int c = nodes.of(bjt.collector());
-        int base = nodes.of(bjt.base());
-        int e = nodes.of(bjt.emitter());
-        int inner = base;
-        if (bjt.rxOhms() > 0) {
-            inner = nodes.innerBase(bjt.name());
-            conductance(elements, bjt.name() + ".rx", base, inner, 1 / bjt.rxOhms());
+        private void bjt(Bjt bjt, int p, int t) {
+            int c = nodes.of(bjt.collector());
+            int base = nodes.of(bjt.base());
+            int e = nodes.of(bjt.emitter());
+            int inner = base;
+            if (bjt.rxOhms() > 0) {
+                inner = nodes.innerBase(bjt.name());
+                twoTerminal(Kind.BJT_RX, p, t, bjt.name() + ".rx", base, inner, null);
+            }
+            twoTerminal(Kind.BJT_RPI, p, t, bjt.name() + ".rpi", inner, e, null);
+            transconductance(Kind.BJT_GM, p, t, bjt.name() + ".gm", c, e, inner, e);
+            if (bjt.earlyVolts().isPresent()) {
+                twoTerminal(Kind.BJT_RO, p, t, bjt.name() + ".ro", c, e, null);
+            }
+            if (bjt.cpiFarads() > 0) {
+                twoTerminal(Kind.BJT_CPI, p, t, bjt.name() + ".cpi", inner, e, Band.HIGH);
+            }
+            if (bjt.cmuFarads() > 0) {
+                twoTerminal(Kind.BJT_CMU, p, t, bjt.name() + ".cmu", inner, c, Band.HIGH);
+            }
         }
-        conductance(elements, bjt.name() + ".rpi", inner, e, gpi);
-        transconductance(elements, bjt.name() + ".gm", c, e, inner, e, gm);
-        if (bjt.earlyVolts().isPresent()) {
-            conductance(elements, bjt.name() + ".ro", c, e, ic / bjt.earlyVolts().getAsDouble());
-        }
-        if (bjt.cpiFarads() > 0) {
-            capacitance(elements, bjt.name() + ".cpi", inner, e, bjt.cpiFarads(), Band.HIGH);
-        }
-        if (bjt.cmuFarads() > 0) {
-            capacitance(elements, bjt.name() + ".cmu", inner, c, bjt.cmuFarads(), Band.HIGH);
-        }
-    }
 
-    private static void mosfet(List<NetworkElement> elements, Nodes nodes, Mosfet mosfet,
-                               OperatingPoint.MosfetPoint point) {
-        double id = point.drainAmps();
-        double gm = Math.sqrt(2 * mosfet.kAmpsPerVoltSquared() * id);
-        int d = nodes.of(mosfet.drain());
-        int g = nodes.of(mosfet.gate());
-        int s = nodes.of(mosfet.source());
-        transconductance(elements, mosfet.name() + ".gm", d, s, g, s, gm);
-        if (mosfet.hasBodyEffect()) {
-            double argument = Math.max(mosfet.surfacePotentialVolts() + point.vsbVolts(),
-                    0.01 * mosfet.surfacePotentialVolts());
-            double gmb = mosfet.gammaRootVolts() * gm / (2 * Math.sqrt(argument));
-            transconductance(elements, mosfet.name() + ".gmb", d, s, nodes.of(mosfet.body().get()), s, gmb);
+        private void mosfet(Mosfet mosfet, int p, int t) {
+            int d = nodes.of(mosfet.drain());
+            int g = nodes.of(mosfet.gate());
+            int s = nodes.of(mosfet.source());
+            transconductance(Kind.MOSFET_GM, p, t, mosfet.name() + ".gm", d, s, g, s);
+            if (mosfet.hasBodyEffect()) {
+                transconductance(Kind.MOSFET_GMB, p, t, mosfet.name() + ".gmb", d, s, nodes.of(mosfet.body().get()), s);
+            }
+            if (mosfet.lambdaPerVolt() > 0) {
+                twoTerminal(Kind.MOSFET_RO, p, t, mosfet.name() + ".ro", d, s, null);
+            }
+            if (mosfet.cgsFarads() > 0) {
+                twoTerminal(Kind.MOSFET_CGS, p, t, mosfet.name() + ".cgs", g, s, Band.HIGH);
+            }
+            if (mosfet.cgdFarads() > 0) {
+                twoTerminal(Kind.MOSFET_CGD, p, t, mosfet.name() + ".cgd", g, d, Band.HIGH);
+            }
         }
-        if (mosfet.lambdaPerVolt() > 0) {
-            conductance(elements, mosfet.name() + ".ro", d, s, mosfet.lambdaPerVolt() * id);
-        }
-        if (mosfet.cgsFarads() > 0) {
-            capacitance(elements, mosfet.name() + ".cgs", g, s, mosfet.cgsFarads(), Band.HIGH);
-        }
-        if (mosfet.cgdFarads() > 0) {
-            capacitance(elements, mosfet.name() + ".cgd", g, d, mosfet.cgdFarads(), Band.HIGH);
-        }
-    }
 
-    private static void conductance(List<NetworkElement> elements, String name, int a, int b, double siemens) {
-        if (a != b) {
-            elements.add(new NetworkElement.Conductance(name, a, b, siemens));
+        private void twoTerminal(Kind kind, int p, int t, String name, int a, int b, Band band) {
+            if (a != b) {
+                slots.add(new Slot(kind, p, t, name, a, b, 0, 0, band));
+            }
         }
-    }
 
-    private static void capacitance(List<NetworkElement> elements, String name, int a, int b, double farads,
-                                    Band band) {
-        if (a != b) {
-            elements.add(new NetworkElement.Capacitance(name, a, b, farads, band));
+        private void transconductance(Kind kind, int p, int t, String name, int from, int to, int plus, int minus) {
+            if (from != to && plus != minus) {
+                slots.add(new Slot(kind, p, t, name, from, to, plus, minus, null));
+            }
         }
-    }
 
-    private static void transconductance(List<NetworkElement> elements, String name, int from, int to,
-                                         int plus, int minus, double siemens) {
-        if (from != to && plus != minus) {
-            elements.add(new NetworkElement.Transconductance(name, from, to, plus, minus, siemens));
+        SmallSignalNetwork network(Stage stage, OperatingPoints points) {
+            List<Transistor> transistors = stage.transistors();
+            double[] currentAmps = new double[transistors.size()];
+            double[] sourceBodyVolts = new double[transistors.size()];
+            for (int t = 0; t < currentAmps.length; t++) {
+                Transistor transistor = transistors.get(t);
+                if (transistor instanceof Bjt) {
+                    currentAmps[t] = points.bjt(transistor.name()).collectorAmps();
+                } else {
+                    OperatingPoint.MosfetPoint point = points.mosfet(transistor.name());
+                    currentAmps[t] = point.drainAmps();
+                    sourceBodyVolts[t] = point.vsbVolts();
+                }
+            }
+            return network(stage, stage.partValues(), currentAmps, sourceBodyVolts);
+        }
+
+        SmallSignalNetwork network(Stage stage, double[] partValues, double[] currentAmps, double[] sourceBodyVolts) {
+            double[] values = values(stage, partValues, currentAmps, sourceBodyVolts);
+            List<NetworkElement> elements = new ArrayList<>(slots.size());
+            for (int i = 0; i < values.length; i++) {
+                Slot slot = slots.get(i);
+                switch (slot.kind.form) {
+                    case CONDUCTANCE:
+                        elements.add(new NetworkElement.Conductance(slot.name, slot.a, slot.b, values[i]));
+                        break;
+                    case CAPACITANCE:
+                        elements.add(new NetworkElement.Capacitance(slot.name, slot.a, slot.b, values[i], slot.band));
+                        break;
+                    default:
+                        elements.add(new NetworkElement.Transconductance(slot.name, slot.a, slot.b, slot.plus,
+                                slot.minus, values[i]));
+                }
+            }
+            return new SmallSignalNetwork(nodes.names(), elements, driven, output);
+        }
+
+        /** The numbers of the class comment: conductances, capacitances, gm = IC/VT and the rest. */
+        double[] values(Stage stage, double[] partValues, double[] currentAmps, double[] sourceBodyVolts) {
+            double vt = ThermalVoltage.volts(stage.temperatureKelvin());
+            List<Part> parts = stage.parts();
+            double[] values = new double[slots.size()];
+            for (int i = 0; i < values.length; i++) {
+                Slot slot = slots.get(i);
+                Part part = slot.part >= 0 ? parts.get(slot.part) : null;
+                double amps = slot.transistor >= 0 ? currentAmps[slot.transistor] : 0;
+                values[i] = value(slot.kind, stage, part, part == null ? Double.NaN : partValues[slot.part], amps,
+                        slot.transistor >= 0 ? sourceBodyVolts[slot.transistor] : 0, vt);
+            }
+            return values;
+        }
+
+        /**
+         * @param drawn the part's value ({@link Stage#partValues()}): ohms, farads or β
+         * @param amps  the transistor's IC or ID
+         */
+        private static double value(Kind kind, Stage stage, Part part, double drawn, double amps, double vsbVolts,
+                                    double vt) {
+            switch (kind) {
+                case SOURCE_RESISTANCE:
+                    return 1 / stage.input().sourceOhms();
+                case LOAD:
+                    return 1 / stage.output().loadOhms().getAsDouble();
+                case RESISTOR:
+                    return 1 / drawn;
+                case CAPACITOR:
+                    return drawn;
+                case BJT_RX:
+                    return 1 / ((Bjt) part).rxOhms();
+                case BJT_RPI:
+                    // gπ = gm/β with gm = IC/VT
+                    return amps / vt / drawn;
+                case BJT_GM:
+                    return amps / vt;
+                case BJT_RO:
+                    return amps / ((Bjt) part).earlyVolts().getAsDouble();
+                case BJT_CPI:
+                    return ((Bjt) part).cpiFarads();
+                case BJT_CMU:
+                    return ((Bjt) part).cmuFarads();
+                case MOSFET_GM:
+                    return Math.sqrt(2 * ((Mosfet) part).kAmpsPerVoltSquared() * amps);
+                case MOSFET_GMB: {
+                    Mosfet mosfet = (Mosfet) part;
+                    double gm = Math.sqrt(2 * mosfet.kAmpsPerVoltSquared() * amps);
+                    double argument = Math.max(mosfet.surfacePotentialVolts() + vsbVolts,
+                            0.01 * mosfet.surfacePotentialVolts());
+                    return mosfet.gammaRootVolts() * gm / (2 * Math.sqrt(argument));
+                }
+                case MOSFET_RO:
+                    return ((Mosfet) part).lambdaPerVolt() * amps;
+                case MOSFET_CGS:
+                    return ((Mosfet) part).cgsFarads();
+                default:
+                    return ((Mosfet) part).cgdFarads();
+            }
         }
     }
 

@@ -41,6 +41,26 @@ public record SmallSignalNetwork(List<String> nodes, List<NetworkElement> elemen
         return result;
     }
 
+    /**
+     * @return every element's value in element order: siemens for a conductance or a
+     *         transconductance, farads for a capacitance (the numbers a kernel restamps, see
+     *         {@link SmallSignalExpansion.Prepared#elementValues})
+     */
+    public double[] elementValues() {
+        double[] values = new double[elements.size()];
+        for (int i = 0; i < values.length; i++) {
+            NetworkElement element = elements.get(i);
+            if (element instanceof NetworkElement.Conductance) {
+                values[i] = ((NetworkElement.Conductance) element).siemens();
+            } else if (element instanceof NetworkElement.Capacitance) {
+                values[i] = ((NetworkElement.Capacitance) element).farads();
+            } else {
+                values[i] = ((NetworkElement.Transconductance) element).siemens();
+            }
+        }
+        return values;
+    }
+
     /** @return a copy with the named capacitor at a new value; the name must exist */
     public SmallSignalNetwork withCapacitance(String name, double farads) {
         List<NetworkElement> changed = new ArrayList<>(elements.size());

@@ -173,6 +173,53 @@ public record Stage(String name, Path sourceFile, String ground, List<Supply> su
                 gainCalibrationDb, newParts);
     }
 
+    /**
+     * The values a tolerance spread draws, one per part in part order: a resistor's ohms, a
+     * capacitor's farads, a BJT's β; NaN for a MOSFET, of which nothing is drawn. A draw of a
+     * stage is this array with other numbers: the kernels that solve many draws take it instead
+     * of a copied stage.
+     */
+    public double[] partValues() {
+        double[] values = new double[parts.size()];
+        for (int p = 0; p < values.length; p++) {
+            Part part = parts.get(p);
+            if (part instanceof Resistor) {
+                values[p] = ((Resistor) part).ohms();
+            } else if (part instanceof Capacitor) {
+                values[p] = ((Capacitor) part).farads();
+            } else if (part instanceof Bjt) {
+                values[p] = ((Bjt) part).beta();
+            } else {
+                values[p] = Double.NaN;
+            }
+        }
+        return values;
+    }
+
+    /**
+     * @param values one per part, as {@link #partValues()} orders them (a MOSFET's entry is ignored)
+     * @return a copy whose resistors, capacitors and BJTs take those values
+     */
+    public Stage withPartValues(double[] values) {
+        if (values.length != parts.size()) {
+            throw new IllegalArgumentException(values.length + " values for the " + parts.size() + " parts of " + name);
+        }
+        List<Part> changed = new ArrayList<>(parts.size());
+        for (int p = 0; p < values.length; p++) {
+            Part part = parts.get(p);
+            if (part instanceof Resistor) {
+                changed.add(((Resistor) part).withOhms(values[p]));
+            } else if (part instanceof Capacitor) {
+                changed.add(((Capacitor) part).withFarads(values[p]));
+            } else if (part instanceof Bjt) {
+                changed.add(((Bjt) part).withBeta(values[p]));
+            } else {
+                changed.add(part);
+            }
+        }
+        return withParts(changed);
+    }
+
     /** @return a copy with the part of the same name replaced; the name must exist */
     public Stage withPart(Part replacement) {
         List<Part> changed = new ArrayList<>(parts.size());

@@ -2,6 +2,7 @@ package org.polebench.circuit;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.ArrayList;
 import java.util.List;
@@ -35,6 +36,44 @@ class PreparedDrawsTest {
         // the same arithmetic on the same numbers: equal records, not merely close values
         assertEquals(plain, prepared);
         assertEquals(plainNetwork, preparedNetwork);
+    }
+
+    @Test
+    void partValuesOfAStageBuiltFromValuesAreThoseValues() throws InputProblem {
+        Stage nominal = new StageReader().read(StageFiles.demo("vibration-buffer-cs.stage.yaml")).stage();
+        double[] values = nominal.partValues();
+        for (int p = 0; p < values.length; p++) {
+            values[p] *= 1 + 0.01 * (p + 1);
+        }
+
+        Stage drawn = nominal.withPartValues(values);
+
+        // an exact identity: the values go into the records and come out unchanged, one per part
+        // in part order (the MOSFET's entry is NaN, nothing of it being drawn)
+        double[] back = drawn.partValues();
+        for (int p = 0; p < values.length; p++) {
+            assertEquals(values[p], back[p], 0, nominal.parts().get(p).name());
+        }
+        assertEquals(values[nominal.parts().indexOf(nominal.resistor("RD"))], drawn.resistor("RD").ohms(), 0);
+        assertEquals(values[nominal.parts().indexOf(nominal.capacitor("C3"))], drawn.capacitor("C3").farads(), 0);
+        assertEquals(nominal.mosfet("M1"), drawn.mosfet("M1"));
+    }
+
+    @Test
+    void preparedBiasOfValuesGivesThePlainCurrents() throws InputProblem {
+        Stage nominal = new StageReader().read(StageFiles.demo("vibration-buffer-cs.stage.yaml")).stage();
+        double[] values = nominal.partValues();
+        values[nominal.parts().indexOf(nominal.resistor("RS"))] *= 1.05;
+        OperatingPoints plain = new BiasSolver().solve(nominal.withPartValues(values));
+        double[] currentAmps = new double[1];
+        double[] sourceBodyVolts = new double[1];
+
+        boolean inRegion = new BiasSolver().prepare(nominal).solveInRegion(values, currentAmps, sourceBodyVolts);
+
+        // the same Newton iteration on the same numbers: equal to the last bit
+        assertTrue(inRegion);
+        assertEquals(plain.mosfet("M1").drainAmps(), currentAmps[0], 0);
+        assertEquals(plain.mosfet("M1").vsbVolts(), sourceBodyVolts[0], 0);
     }
 
     @Test
