@@ -18,6 +18,8 @@ final class PreparedSweep {
     final double referenceHz;
     final double[] frequencyHz;
     final double[] x;
+    /** ln x per point. */
+    final double[] lnX;
     final double[] lnGain;
     final double[] phaseRad;
     final double[] sigmaGain;
@@ -39,8 +41,10 @@ final class PreparedSweep {
         this.hasPhase = hasPhase;
         this.uncertaintiesStated = uncertaintiesStated;
         this.x = new double[frequencyHz.length];
+        this.lnX = new double[frequencyHz.length];
         for (int k = 0; k < x.length; k++) {
             x[k] = frequencyHz[k] / referenceHz;
+            lnX[k] = Math.log(x[k]);
         }
     }
 
