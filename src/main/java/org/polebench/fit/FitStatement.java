@@ -249,7 +249,7 @@ final class FitStatement {
     private static FitQuality quality(PreparedSweep data, RefinedFit fit, UncertaintyBasis basis) {
         int n = data.size();
         double[] value = new double[data.residualCount()];
-        LogResidualFit.evaluate(data, fit.model, fit.parameters, value, new double[value.length][]);
+        LogResidualFit.evaluate(data, fit.model, fit.parameters, value, (double[]) null);
         double gain = 0;
         double phase = 0;
         for (int k = 0; k < n; k++) {

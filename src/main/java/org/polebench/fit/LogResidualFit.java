@@ -7,9 +7,11 @@ import org.apache.commons.math3.fitting.leastsquares.LeastSquaresOptimizer;
 import org.apache.commons.math3.fitting.leastsquares.LeastSquaresProblem;
 import org.apache.commons.math3.fitting.leastsquares.LevenbergMarquardtOptimizer;
 import org.apache.commons.math3.fitting.leastsquares.ValueAndJacobianFunction;
+import org.apache.commons.math3.linear.AbstractRealMatrix;
 import org.apache.commons.math3.linear.Array2DRowRealMatrix;
 import org.apache.commons.math3.linear.ArrayRealVector;
 import org.apache.commons.math3.linear.CholeskyDecomposition;
+import org.apache.commons.math3.linear.MatrixUtils;
 import org.apache.commons.math3.linear.NonPositiveDefiniteMatrixException;
 import org.apache.commons.math3.linear.NonSymmetricMatrixException;
 import org.apache.commons.math3.linear.RealMatrix;
@@ -123,21 +125,21 @@ final class LogResidualFit {
     RefinedFit assess(PreparedSweep data, RationalModel model, double[] p) {
         int n = data.size();
         int rows = data.residualCount();
-        double[] value = new double[rows];
-        double[][] jacobian = new double[rows][];
-        evaluate(data, model, p, value, jacobian);
         int np = p.length;
+        double[] value = new double[rows];
+        double[] jacobian = new double[rows * np];
+        evaluate(data, model, p, value, jacobian);
         double chi2 = 0;
         double[][] info = new double[np][np];
         for (int r = 0; r < rows; r++) {
             double sigma = r < n ? data.sigmaGain[r] : data.sigmaPhase[r - n];
             double w = 1 / (sigma * sigma);
             chi2 += w * value[r] * value[r];
-            double[] g = jacobian[r];
+            int row = r * np;
             for (int i = 0; i < np; i++) {
-                double wg = w * g[i];
+                double wg = w * jacobian[row + i];
                 for (int j = 0; j <= i; j++) {
-                    info[i][j] += wg * g[j];
+                    info[i][j] += wg * jacobian[row + j];
                 }
             }
         }
@@ -149,36 +151,38 @@ final class LogResidualFit {
         return new RefinedFit(model, p, chi2, invert(info), rows);
     }
 
-    /** Model value −r and its Jacobian ∂ ln H_model/∂p, gain rows first, then phase rows. */
+    /** Model value −r and its Jacobian ∂ ln H_model/∂p as one array per row. */
     static void evaluate(PreparedSweep data, RationalModel model, double[] p, double[] value, double[][] jacobian) {
+        int np = p.length;
+        double[] flat = new double[value.length * np];
+        evaluate(data, model, p, value, flat);
+        for (int r = 0; r < value.length; r++) {
+            jacobian[r] = Arrays.copyOfRange(flat, r * np, (r + 1) * np);
+        }
+    }
+
+    /**
+     * Model value −r, gain rows first, then phase rows, and (unless {@code jacobian} is null)
+     * ∂ ln H_model/∂p, row after row in one array (row r at r·p.length).
+     */
+    static void evaluate(PreparedSweep data, RationalModel model, double[] p, double[] value, double[] jacobian) {
         int n = data.size();
         int np = p.length;
         double[] out = new double[2];
         double[] e = RationalModel.exponentials(p);
-        double[] unusedPhaseRow = data.hasPhase ? null : new double[np];
+        double[] gRe = jacobian == null ? null : new double[np];
+        double[] gIm = jacobian == null ? null : new double[np];
         for (int k = 0; k < n; k++) {
-            double[] gRe = new double[np];
-            double[] gIm = data.hasPhase ? new double[np] : unusedPhaseRow;
             model.logAt(p, e, data.x[k], data.lnX[k], out, gRe, gIm);
             value[k] = out[0] - data.lnGain[k];
-            jacobian[k] = gRe;
-            if (data.hasPhase) {
-                value[n + k] = wrapped(out[1] - data.phaseRad[k]);
-                jacobian[n + k] = gIm;
+            if (jacobian != null) {
+                System.arraycopy(gRe, 0, jacobian, k * np, np);
             }
-        }
-    }
-
-    /** Model value −r alone, without the Jacobian. */
-    static void evaluate(PreparedSweep data, RationalModel model, double[] p, double[] value) {
-        int n = data.size();
-        double[] out = new double[2];
-        double[] e = RationalModel.exponentials(p);
-        for (int k = 0; k < n; k++) {
-            model.logAt(p, e, data.x[k], data.lnX[k], out, null, null);
-            value[k] = out[0] - data.lnGain[k];
             if (data.hasPhase) {
                 value[n + k] = wrapped(out[1] - data.phaseRad[k]);
+                if (jacobian != null) {
+                    System.arraycopy(gIm, 0, jacobian, (n + k) * np, np);
+                }
             }
         }
     }
@@ -209,32 +213,16 @@ final class LogResidualFit {
         @Override
         public RealVector computeValue(double[] p) {
             if (!Arrays.equals(p, lastPoint)) {
-                double[] value = new double[root.length];
-                evaluate(data, model, p, value);
-                for (int r = 0; r < value.length; r++) {
-                    value[r] *= root[r];
-                }
-                lastPoint = p.clone();
-                lastValue = value;
+                remember(p, null);
             }
             return new ArrayRealVector(lastValue);
         }
 
         @Override
         public RealMatrix computeJacobian(double[] p) {
-            double[] value = new double[root.length];
-            double[][] jacobian = new double[root.length][];
-            evaluate(data, model, p, value, jacobian);
-            for (int r = 0; r < value.length; r++) {
-                value[r] *= root[r];
-                double[] g = jacobian[r];
-                for (int i = 0; i < g.length; i++) {
-                    g[i] *= root[r];
-                }
-            }
-            lastPoint = p.clone();
-            lastValue = value;
-            return new Jacobian(jacobian);
+            double[] jacobian = new double[root.length * p.length];
+            remember(p, jacobian);
+            return new Jacobian(root.length, p.length, jacobian);
         }
 
         @Override
@@ -243,32 +231,90 @@ final class LogResidualFit {
             RealMatrix jacobian = computeJacobian(p);
             return new Pair<>(computeValue(p), jacobian);
         }
+
+        private void remember(double[] p, double[] jacobian) {
+            int np = p.length;
+            double[] value = new double[root.length];
+            evaluate(data, model, p, value, jacobian);
+            for (int r = 0; r < value.length; r++) {
+                value[r] *= root[r];
+                if (jacobian != null) {
+                    for (int i = r * np; i < (r + 1) * np; i++) {
+                        jacobian[i] *= root[r];
+                    }
+                }
+            }
+            lastPoint = p.clone();
+            lastValue = value;
+        }
     }
 
     /**
-     * A dense matrix whose scalar multiple is formed row by row: the optimiser negates every
-     * Jacobian it decomposes, and the inherited method goes entry by entry through bounds checks.
+     * A dense matrix in one row-major array. The optimiser negates every Jacobian it decomposes
+     * and takes the result as rows ({@code scalarMultiply(−1).getData()}); here that costs one
+     * pass and one set of rows, where {@link Array2DRowRealMatrix} goes entry by entry through
+     * bounds checks and copies its rows twice.
      */
-    private static final class Jacobian extends Array2DRowRealMatrix {
-        private static final long serialVersionUID = 1L;
+    private static final class Jacobian extends AbstractRealMatrix {
+        private final int rows;
+        private final int columns;
+        private final double[] entries;
 
-        Jacobian(double[][] rows) {
-            super(rows, false);
+        Jacobian(int rows, int columns, double[] entries) {
+            super(rows, columns);
+            this.rows = rows;
+            this.columns = columns;
+            this.entries = entries;
+        }
+
+        @Override
+        public int getRowDimension() {
+            return rows;
+        }
+
+        @Override
+        public int getColumnDimension() {
+            return columns;
+        }
+
+        @Override
+        public double getEntry(int row, int column) {
+            MatrixUtils.checkMatrixIndex(this, row, column);
+            return entries[row * columns + column];
+        }
+
+        @Override
+        public void setEntry(int row, int column, double value) {
+            MatrixUtils.checkMatrixIndex(this, row, column);
+            entries[row * columns + column] = value;
+        }
+
+        @Override
+        public RealMatrix createMatrix(int rowDimension, int columnDimension) {
+            return new Array2DRowRealMatrix(rowDimension, columnDimension);
+        }
+
+        @Override
+        public RealMatrix copy() {
+            return new Jacobian(rows, columns, entries.clone());
         }
 
         @Override
         public RealMatrix scalarMultiply(double d) {
-            double[][] rows = getDataRef();
-            double[][] out = new double[rows.length][];
-            for (int i = 0; i < rows.length; i++) {
-                double[] row = rows[i];
-                double[] scaled = new double[row.length];
-                for (int j = 0; j < row.length; j++) {
-                    scaled[j] = d * row[j];
-                }
-                out[i] = scaled;
+            double[] scaled = new double[entries.length];
+            for (int i = 0; i < scaled.length; i++) {
+                scaled[i] = d * entries[i];
             }
-            return new Array2DRowRealMatrix(out, false);
+            return new Jacobian(rows, columns, scaled);
+        }
+
+        @Override
+        public double[][] getData() {
+            double[][] out = new double[rows][];
+            for (int r = 0; r < rows; r++) {
+                out[r] = Arrays.copyOfRange(entries, r * columns, (r + 1) * columns);
+            }
+            return out;
         }
     }
 
