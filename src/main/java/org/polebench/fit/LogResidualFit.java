@@ -31,15 +31,12 @@ final class LogResidualFit {
     // margin. Candidates whose roots run away stop early through the box check.
     private static final int MAX_ITERATIONS = 150;
     private static final int MAX_EVALUATIONS = 300;
-    // Stop once both the actual and the predicted relative fall of χ² over a step are below 1e-6
-    // (Moré's ftol, MINPACK). The predicted fall of a full step is its length in the metric of JᵀWJ,
-    // so what is left lies within √(1e-6·χ²) standard uncertainties of the optimum: 0.015 u at
-    // χ² ≈ ν ≈ 200, and χ² itself within 2e-4 of its minimum, far below the differences of order one
-    // that the order selection weighs. Tighter (1e-10, the default) bought only extra iterations
-    // along the flat valleys of over-parameterised candidates.
-    private static final double COST_TOLERANCE = 1e-6;
-    // Commons Math's defaults: a noise-free sweep, whose χ² falls to round-off, stops on these and
-    // is recovered far inside 1e-6 relative (NoiseFreeRecoveryTest)
+    // Commons Math's defaults. A looser cost tolerance (1e-6: χ² within 2e-4 of its minimum, far
+    // below what the order selection weighs) cut the iterations by a quarter but changed which
+    // model the demo sweeps choose: a candidate whose complex zero pair creeps towards DC stops
+    // short of the point where its information matrix turns singular, and so stays eligible. The
+    // tight tolerance keeps that test honest; a noise-free sweep is recovered far inside 1e-6
+    // relative (NoiseFreeRecoveryTest).
     private static final double TOLERANCE = 1e-10;
     private static final double TWO_PI = 2 * Math.PI;
 
@@ -85,7 +82,7 @@ final class LogResidualFit {
         LeastSquaresOptimizer.Optimum optimum;
         try {
             optimum = new LevenbergMarquardtOptimizer()
-                    .withCostRelativeTolerance(COST_TOLERANCE)
+                    .withCostRelativeTolerance(TOLERANCE)
                     .withParameterRelativeTolerance(TOLERANCE)
                     .withOrthoTolerance(TOLERANCE)
                     .optimize(problem);
