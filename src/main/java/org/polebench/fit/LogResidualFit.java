@@ -31,6 +31,8 @@ final class LogResidualFit {
     // margin. Candidates whose roots run away stop early through the box check.
     private static final int MAX_ITERATIONS = 150;
     private static final int MAX_EVALUATIONS = 300;
+    private static final double SINKING_DEPTH = 100;
+    private static final int SINKING_STEPS = 5;
     // Commons Math's defaults. A looser cost tolerance (1e-6: χ² within 2e-4 of its minimum, far
     // below what the order selection weighs) cut the iterations by a quarter but changed which
     // model the demo sweeps choose: a candidate whose complex zero pair creeps towards DC stops
@@ -58,6 +60,7 @@ final class LogResidualFit {
             }
         }
         double[] box = rootBox(data);
+        SinkingRoot sinking = new SinkingRoot(model.structure(), Math.log(data.x[0]) - Math.log(SINKING_DEPTH));
         WeightedResiduals function = new WeightedResiduals(data, model, root);
         LeastSquaresProblem problem = new LeastSquaresBuilder()
                 .start(start)
@@ -75,6 +78,9 @@ final class LogResidualFit {
                         if (!(p[i] > box[0] && p[i] < box[1])) {
                             throw new RunawayRoot();
                         }
+                    }
+                    if (sinking.seenIn(previous.getPoint().toArray(), p)) {
+                        throw new RunawayRoot();
                     }
                     return false;
                 })
@@ -107,6 +113,50 @@ final class LogResidualFit {
     private static double[] rootBox(PreparedSweep data) {
         double reach = Math.log(1e6);
         return new double[]{Math.log(data.x[0]) - reach, Math.log(data.x[data.size() - 1]) + reach};
+    }
+
+    /**
+     * Watches the accepted steps for a root sinking towards DC: a real root, or the ω₀ of a pair,
+     * that lies more than {@link #SINKING_DEPTH} below the lowest swept frequency and has moved
+     * down on each of the last {@link #SINKING_STEPS} steps. Down there a root shifts the band's
+     * phase by under 1/{@link #SINKING_DEPTH} rad (a zero at s = −z adds z/ω), so the steps creep
+     * at a tiny gain in χ² towards the box at 10⁶ below the band, which ends the run as a runaway
+     * in the end, or exhaust the iteration limit first (a zero pair folding into two DC zeros took
+     * all 150). One instance watches one refinement.
+     */
+    private static final class SinkingRoot {
+        private final boolean[] frequency;
+        private final double floor;
+        private final int[] descents;
+
+        SinkingRoot(ModelStructure s, double floor) {
+            this.frequency = new boolean[s.parameterCount()];
+            this.floor = floor;
+            this.descents = new int[s.parameterCount()];
+            for (int i = s.realZeroOffset(); i < s.zeroPairOffset(); i++) {
+                frequency[i] = true;
+            }
+            for (int i = s.zeroPairOffset(); i < s.realPoleOffset(); i += 2) {
+                frequency[i] = true;
+            }
+            for (int i = s.realPoleOffset(); i < s.polePairOffset(); i++) {
+                frequency[i] = true;
+            }
+            for (int i = s.polePairOffset(); i < s.highBandOffset(); i += 2) {
+                frequency[i] = true;
+            }
+        }
+
+        /** @return whether some root has now sunk for the stated number of steps */
+        boolean seenIn(double[] previous, double[] current) {
+            for (int i = 0; i < current.length; i++) {
+                descents[i] = frequency[i] && current[i] < floor && current[i] < previous[i] ? descents[i] + 1 : 0;
+                if (descents[i] >= SINKING_STEPS) {
+                    return true;
+                }
+            }
+            return false;
+        }
     }
 
     /** Thrown from inside the optimiser to stop a candidate whose root has run away. */
