@@ -22,9 +22,12 @@ final class CandidateFitter {
 
     /**
      * @param startPolesRadPerS predicted poles (empty for none)
+     * @param unconstrained     {@link #unconstrainedEstimate} for this pole count and high-band
+     *                          option, the start of the candidate without DC zeros (null: make it)
      * @return the best fit of this order, or null when no start converges
      */
-    RefinedFit fit(PreparedSweep data, int poles, int dcZeros, boolean high, List<Complex> startPolesRadPerS) {
+    RefinedFit fit(PreparedSweep data, int poles, int dcZeros, boolean high, List<Complex> startPolesRadPerS,
+                   RationalEstimate unconstrained) {
         int finiteZeros = poles - dcZeros;
         double highX = high ? highBandStart(data) : Double.NaN;
         StartingPoint start;
@@ -36,10 +39,15 @@ final class CandidateFitter {
             }
             start = StartingPoint.matchGainAndSign(new RationalModel(structure, false), p, data);
         } else {
-            RationalEstimate estimate = startPolesRadPerS.size() == poles
-                    ? linearised.numeratorFor(data, dcZeros, finiteZeros, predictedDenominator(data, startPolesRadPerS),
-                    highX)
-                    : linearised.estimate(data, dcZeros, finiteZeros, poles, highX);
+            RationalEstimate estimate;
+            if (startPolesRadPerS.size() == poles) {
+                estimate = linearised.numeratorFor(data, dcZeros, finiteZeros,
+                        predictedDenominator(data, startPolesRadPerS), highX);
+            } else if (dcZeros == 0 && unconstrained != null) {
+                estimate = unconstrained;
+            } else {
+                estimate = linearised.estimate(data, dcZeros, finiteZeros, poles, highX);
+            }
             start = estimate == null ? null : StartingPoint.from(estimate, data, dcZeros, highX);
         }
         if (start == null) {
@@ -66,10 +74,10 @@ final class CandidateFitter {
      * lowest decade of the sweep is tried, and both integers beside it when it lies between
      * n + 0.25 and n + 0.75.
      *
-     * @param high whether the candidates carry a high-band pole (divided out of the data first)
+     * @param unconstrained {@link #unconstrainedEstimate} for this pole count (null when it failed)
      * @return for each count 0…poles, whether to try it
      */
-    boolean[] dcZeroCounts(PreparedSweep data, int poles, boolean high) {
+    boolean[] dcZeroCounts(PreparedSweep data, int poles, RationalEstimate unconstrained) {
         boolean[] counts = new boolean[poles + 1];
         double slope = lowDecadeSlope(data);
         if (Double.isFinite(slope)) {
@@ -81,7 +89,7 @@ final class CandidateFitter {
                 counts[clampCount(Math.ceil(slope), poles)] = true;
             }
         }
-        RationalEstimate estimate = linearised.estimate(data, 0, poles, poles, high ? highBandStart(data) : Double.NaN);
+        RationalEstimate estimate = unconstrained;
         PolynomialRoots zeros = estimate == null ? null : PolynomialRoots.of(estimate.numerator);
         if (zeros == null) {
             // no estimate to vote: try them all, as before the slope was consulted
@@ -106,6 +114,16 @@ final class CandidateFitter {
             counts[m] = true;
         }
         return counts;
+    }
+
+    /**
+     * The Sanathanan–Koerner estimate with as many free zeros as poles and none fixed at DC.
+     *
+     * @param high whether the candidates carry a high-band pole (divided out of the data first)
+     * @return the estimate, or null when its linear problem is singular
+     */
+    RationalEstimate unconstrainedEstimate(PreparedSweep data, int poles, boolean high) {
+        return linearised.estimate(data, 0, poles, poles, high ? highBandStart(data) : Double.NaN);
     }
 
     /**

@@ -72,10 +72,21 @@ final class FitStatement {
         Labels zeroLabels = new Labels("z");
         Labels poleLabels = new Labels("p");
         List<FittedRoot> poles = new ArrayList<>();
-        realRoots(p, cov, s.realZeroOffset(), s.realZeros(), omegaRef, lowestRad, zeroLabels, names, zeros);
-        pairs(p, cov, s.zeroPairOffset(), s.zeroPairs(), omegaRef, lowestRad, zeroLabels, names, zeros);
-        realRoots(p, cov, s.realPoleOffset(), s.realPoles(), omegaRef, lowestRad, poleLabels, names, poles);
-        pairs(p, cov, s.polePairOffset(), s.polePairs(), omegaRef, lowestRad, poleLabels, names, poles);
+        RootClusters clusters = new RootClusters(k);
+        List<RootClusters.Member> zeroMembers = new ArrayList<>();
+        List<RootClusters.Member> poleMembers = new ArrayList<>();
+        realRoots(p, cov, s.realZeroOffset(), s.realZeros(), omegaRef, lowestRad, zeroLabels, names, zeros,
+                zeroMembers);
+        pairs(p, cov, s.zeroPairOffset(), s.zeroPairs(), omegaRef, lowestRad, zeroLabels, names, zeros, clusters,
+                zeroMembers);
+        realRoots(p, cov, s.realPoleOffset(), s.realPoles(), omegaRef, lowestRad, poleLabels, names, poles,
+                poleMembers);
+        pairs(p, cov, s.polePairOffset(), s.polePairs(), omegaRef, lowestRad, poleLabels, names, poles, clusters,
+                poleMembers);
+        List<RootCluster> zeroClusters = new ArrayList<>();
+        List<RootCluster> poleClusters = new ArrayList<>();
+        clusters.apply(zeros, zeroMembers, p, cov, zeroClusters);
+        clusters.apply(poles, poleMembers, p, cov, poleClusters);
         OptionalDouble high = OptionalDouble.empty();
         if (s.highBandPole()) {
             int i = s.highBandOffset();
@@ -100,8 +111,10 @@ final class FitStatement {
                         + "band; it is unidentifiable from these data and is not quoted"));
             }
         }
+        clusterWarnings("poles", poleClusters, warnings);
+        clusterWarnings("zeros", zeroClusters, warnings);
         for (FittedRoot root : poles) {
-            if (!root.isReal() && root.status() == RootStatus.FITTED
+            if (!root.isReal() && root.status() == RootStatus.FITTED && root.cluster().isEmpty()
                     && Math.abs(root.radPerS().getImaginary()) < 0.05 * root.radPerS().abs()) {
                 warnings.add(InputWarning.general("poles " + root.label() + " are a complex pair with damping near 1;"
                         + " their real and imaginary parts are poorly separated"));
@@ -168,22 +181,45 @@ final class FitStatement {
         return Optional.of(new Estimate(cornerHz, data.referenceHz * Math.sqrt(Math.max(var, 0)), k));
     }
 
+    private static void clusterWarnings(String kind, List<RootCluster> clusters, List<InputWarning> warnings) {
+        for (RootCluster c : clusters) {
+            String which = kind + " " + String.join(", ", c.labels());
+            if (c.dampingRatio().isPresent()) {
+                warnings.add(InputWarning.general(which + " are a pair whose damping ratio lies within its "
+                        + "uncertainty of 1: whether they are complex or two real " + kind + " cannot be told; "
+                        + "they are quoted by their natural frequency and damping ratio"));
+            } else {
+                warnings.add(InputWarning.general(which + " are not separated by the data (they coincide within "
+                        + "their uncertainty); they are quoted together by their geometric mean"));
+            }
+        }
+    }
+
     private static void realRoots(double[] p, double[][] cov, int offset, int count, double omegaRef,
-                                  double lowestRad, Labels labels, List<String> names, List<FittedRoot> out) {
+                                  double lowestRad, Labels labels, List<String> names, List<FittedRoot> out,
+                                  List<RootClusters.Member> members) {
         for (int i = offset; i < offset + count; i++) {
             double w = omegaRef * Math.exp(p[i]);
             double u = w * Math.sqrt(cov[i][i]);
             String label = labels.next();
             names.add(label + " ln|" + label + "|");
-            out.add(new FittedRoot(label, new Complex(-w, 0), u, 0, u, status(w, lowestRad)));
+            RootStatus status = status(w, lowestRad);
+            if (status == RootStatus.FITTED) {
+                members.add(RootClusters.realRoot(out.size(), i, Math.log(w), p.length));
+            }
+            out.add(new FittedRoot(label, new Complex(-w, 0), u, 0, u, status));
         }
     }
 
     /** A pair s² + 2ζω₀s + ω₀²: complex roots when ζ < 1, two real ones otherwise. */
     private static void pairs(double[] p, double[][] cov, int offset, int count, double omegaRef, double lowestRad,
-                              Labels labels, List<String> names, List<FittedRoot> out) {
+                              Labels labels, List<String> names, List<FittedRoot> out, RootClusters clusters,
+                              List<RootClusters.Member> members) {
         for (int j = 0; j < count; j++) {
             int i = offset + 2 * j;
+            if (status(omegaRef * Math.exp(p[i]), lowestRad) == RootStatus.FITTED) {
+                members.addAll(clusters.pair(out.size(), i, p, cov, Math.log(omegaRef)));
+            }
             double w0 = omegaRef * Math.exp(p[i]);
             double zeta = Math.exp(p[i + 1]);
             double cuu = cov[i][i];
@@ -249,7 +285,7 @@ final class FitStatement {
     private static FitQuality quality(PreparedSweep data, RefinedFit fit, UncertaintyBasis basis) {
         int n = data.size();
         double[] value = new double[data.residualCount()];
-        LogResidualFit.evaluate(data, fit.model, fit.parameters, value, new double[value.length][]);
+        LogResidualFit.evaluate(data, fit.model, fit.parameters, value, (double[]) null);
         double gain = 0;
         double phase = 0;
         for (int k = 0; k < n; k++) {

@@ -1,5 +1,6 @@
 package org.polebench.fit;
 
+import java.util.Optional;
 import org.apache.commons.math3.complex.Complex;
 
 /**
@@ -14,10 +15,20 @@ import org.apache.commons.math3.complex.Complex;
  * @param uImaginaryRadPerS standard uncertainty of its imaginary part, rad/s (0 for a real root)
  * @param uMagnitudeRadPerS standard uncertainty of |root| (the corner frequency it sets), rad/s
  * @param status            fitted, structural or unidentifiable
+ * @param cluster           when present, the data do not separate this root from the cluster's
+ *                          other members: the three uncertainties above then all hold the
+ *                          cluster's u of its geometric mean (0 for the imaginary part of a real
+ *                          root), the only first-order statement about where the root lies
  */
 public record FittedRoot(String label, Complex radPerS, double uRealRadPerS, double uImaginaryRadPerS,
-                         double uMagnitudeRadPerS, RootStatus status) {
+                         double uMagnitudeRadPerS, RootStatus status, Optional<RootCluster> cluster) {
     private static final double TWO_PI = 2 * Math.PI;
+
+    /** A root the data resolve on its own. */
+    public FittedRoot(String label, Complex radPerS, double uRealRadPerS, double uImaginaryRadPerS,
+                      double uMagnitudeRadPerS, RootStatus status) {
+        this(label, radPerS, uRealRadPerS, uImaginaryRadPerS, uMagnitudeRadPerS, status, Optional.empty());
+    }
 
     public boolean isReal() {
         return radPerS.getImaginary() == 0;

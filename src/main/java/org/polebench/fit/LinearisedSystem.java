@@ -4,14 +4,16 @@ package org.polebench.fit;
  * One linearised least-squares problem A·c ≈ b of a Sanathanan–Koerner step: real rows (real and
  * imaginary parts of each point's equation, each divided by the point's standard uncertainty) and
  * unknowns c = (numerator coefficients, then the denominator's non-leading coefficients). Kept as
- * its own value so that a test can solve the very same system with another library.
+ * its own value so that a test can solve the very same system with another library. A is held by
+ * columns, as the Householder solve works down whole columns.
  */
 final class LinearisedSystem {
-    private final double[][] matrix;
+    private final double[][] columns;
     private final double[] rhs;
 
-    LinearisedSystem(double[][] matrix, double[] rhs) {
-        this.matrix = matrix;
+    /** @param columns A by columns, each of length rhs.length (taken, not copied) */
+    LinearisedSystem(double[][] columns, double[] rhs) {
+        this.columns = columns;
         this.rhs = rhs;
     }
 
@@ -20,21 +22,33 @@ final class LinearisedSystem {
     }
 
     int columns() {
-        return matrix[0].length;
+        return columns.length;
     }
 
     double entry(int row, int column) {
-        return matrix[row][column];
+        return columns[column][row];
     }
 
     double rhs(int row) {
         return rhs[row];
     }
 
+    /** A by rows. */
     double[][] copyOfMatrix() {
-        double[][] copy = new double[matrix.length][];
-        for (int i = 0; i < matrix.length; i++) {
-            copy[i] = matrix[i].clone();
+        double[][] copy = new double[rows()][columns()];
+        for (int j = 0; j < columns.length; j++) {
+            for (int i = 0; i < rhs.length; i++) {
+                copy[i][j] = columns[j][i];
+            }
+        }
+        return copy;
+    }
+
+    /** A by columns. */
+    double[][] copyOfColumns() {
+        double[][] copy = new double[columns.length][];
+        for (int j = 0; j < columns.length; j++) {
+            copy[j] = columns[j].clone();
         }
         return copy;
     }

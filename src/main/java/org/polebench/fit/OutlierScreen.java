@@ -76,8 +76,7 @@ final class OutlierScreen {
     private static double[] standardised(PreparedSweep data, RationalModel model, double[] p) {
         int n = data.size();
         double[] value = new double[data.residualCount()];
-        double[][] jacobian = new double[value.length][];
-        LogResidualFit.evaluate(data, model, p, value, jacobian);
+        LogResidualFit.evaluate(data, model, p, value, (double[]) null);
         double[] z = new double[value.length];
         for (int r = 0; r < value.length; r++) {
             z[r] = Math.abs(value[r]) / (r < n ? data.sigmaGain[r] : data.sigmaPhase[r - n]);

@@ -18,6 +18,14 @@ final class PreparedSweep {
     final double referenceHz;
     final double[] frequencyHz;
     final double[] x;
+    /** ln x per point. */
+    final double[] lnX;
+    /**
+     * The measured response per point as the linearised estimate takes it: H = |H|·e^{jφ} (real
+     * and imaginary parts) with phase, |H|² (in {@code responseRe}) without.
+     */
+    final double[] responseRe;
+    final double[] responseIm;
     final double[] lnGain;
     final double[] phaseRad;
     final double[] sigmaGain;
@@ -39,8 +47,19 @@ final class PreparedSweep {
         this.hasPhase = hasPhase;
         this.uncertaintiesStated = uncertaintiesStated;
         this.x = new double[frequencyHz.length];
+        this.lnX = new double[frequencyHz.length];
+        this.responseRe = new double[frequencyHz.length];
+        this.responseIm = new double[frequencyHz.length];
         for (int k = 0; k < x.length; k++) {
             x[k] = frequencyHz[k] / referenceHz;
+            lnX[k] = Math.log(x[k]);
+            if (hasPhase) {
+                double magnitude = Math.exp(lnGain[k]);
+                responseRe[k] = magnitude * Math.cos(phaseRad[k]);
+                responseIm[k] = magnitude * Math.sin(phaseRad[k]);
+            } else {
+                responseRe[k] = Math.exp(2 * lnGain[k]);
+            }
         }
     }
 

@@ -41,7 +41,7 @@ final class RationalModel {
 
     /** ln H at one normalised frequency; see {@link #logAt(double[], double[], double, double[], double[], double[])}. */
     void logAt(double[] p, double x, double[] out, double[] gRe, double[] gIm) {
-        logAt(p, exponentials(p), x, out, gRe, gIm);
+        logAt(p, exponentials(p), x, Math.log(x), out, gRe, gIm);
     }
 
     /**
@@ -50,11 +50,12 @@ final class RationalModel {
      * @param p    fit parameters (see {@link ModelStructure})
      * @param e    {@link #exponentials(double[])} of p
      * @param x    f/f_ref, positive
+     * @param lnX  ln x (kept with the sweep, so that it is not taken again at every evaluation)
      * @param out  receives Re ln H (nepers) in [0] and arg H (radians, principal value) in [1]
      * @param gRe  receives ∂Re ln H/∂p, or null
      * @param gIm  receives ∂Im ln H/∂p, or null
      */
-    void logAt(double[] p, double[] e, double x, double[] out, double[] gRe, double[] gIm) {
+    void logAt(double[] p, double[] e, double x, double lnX, double[] out, double[] gRe, double[] gIm) {
         boolean grad = gRe != null;
         // numerator product (nRe, nIm) and denominator product (dRe, dIm)
         double nRe = 1;
@@ -122,7 +123,7 @@ final class RationalModel {
         // arg of N·conj(D), plus π/2 per DC zero and π for an inverting stage
         double hRe = nRe * dRe + nIm * dIm;
         double hIm = nIm * dRe - nRe * dIm;
-        out[0] = p[0] + m * Math.log(x)
+        out[0] = p[0] + m * lnX
                 + 0.5 * (Math.log(nRe * nRe + nIm * nIm) - Math.log(dRe * dRe + dIm * dIm));
         out[1] = Math.atan2(hIm, hRe) + m * (Math.PI / 2) + (inverting ? Math.PI : 0);
     }

@@ -69,7 +69,7 @@ final class SanathananKoerner {
         int unknowns = finiteZeros + 1 + (fixed == null ? poles : 0);
         boolean complex = data.hasPhase;
         int rows = complex ? 2 * n : n;
-        double[][] a = new double[rows][unknowns];
+        double[][] a = new double[unknowns][rows];
         double[] rhs = new double[rows];
         int maxPower = Math.max(dcZeros + finiteZeros, poles);
         double[] powRe = new double[maxPower + 1];
@@ -86,9 +86,8 @@ final class SanathananKoerner {
                 powIm[i] = powRe[i - 1] * vIm + powIm[i - 1] * vRe;
             }
             // Hₖ (or |Hₖ|²) with a high-band pole divided out: multiply by (1 + v/x_h) or (1 + x²/x_h²)
-            double mag = complex ? Math.exp(data.lnGain[k]) : Math.exp(2 * data.lnGain[k]);
-            double hRe = complex ? mag * Math.cos(data.phaseRad[k]) : mag;
-            double hIm = complex ? mag * Math.sin(data.phaseRad[k]) : 0;
+            double hRe = data.responseRe[k];
+            double hIm = complex ? data.responseIm[k] : 0;
             if (!Double.isNaN(highBandX)) {
                 double fRe = 1 + vRe / (complex ? highBandX : highBandX * highBandX);
                 double fIm = vIm / highBandX;
@@ -151,9 +150,9 @@ final class SanathananKoerner {
 
     private static void setRow(double[][] a, int k, int n, boolean complex, int column, double re, double im,
                                double wRe, double wIm) {
-        a[k][column] = re * wRe;
+        a[column][k] = re * wRe;
         if (complex) {
-            a[n + k][column] = im * wIm;
+            a[column][n + k] = im * wIm;
         }
     }
 
@@ -170,20 +169,18 @@ final class SanathananKoerner {
         if (rows < cols) {
             return null;
         }
-        // column-major copy: each Householder step works down whole columns
-        double[][] a = new double[cols][rows];
+        double[][] a = system.copyOfColumns();
         double[] b = system.copyOfRhs();
         double[] scale = new double[cols];
         for (int j = 0; j < cols; j++) {
+            double[] col = a[j];
             double s = 0;
             for (int i = 0; i < rows; i++) {
-                double v = system.entry(i, j);
-                a[j][i] = v;
-                s += v * v;
+                s += col[i] * col[i];
             }
             scale[j] = s > 0 ? Math.sqrt(s) : 1;
             for (int i = 0; i < rows; i++) {
-                a[j][i] /= scale[j];
+                col[i] /= scale[j];
             }
         }
         double[] diagonal = new double[cols];

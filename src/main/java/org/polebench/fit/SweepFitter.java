@@ -91,13 +91,15 @@ public final class SweepFitter {
         for (int poles = lowest; poles <= highest; poles++) {
             for (boolean high : highOptions) {
                 boolean[] counts = new boolean[poles + 1];
+                RationalEstimate unconstrained = null;
                 if (settings.dcZeros().isPresent()) {
                     // a fixed DC-zero count still allows fewer poles: a coupling pole far below the band
                     // cancels against its DC zero there, and the data cannot see either
                     counts[Math.min(settings.dcZeros().getAsInt(), poles)] = true;
                 } else if (poles > 0) {
                     // the linearised estimate's zeros and the data's low-frequency slope both vote
-                    counts = fitter.dcZeroCounts(data, poles, high);
+                    unconstrained = fitter.unconstrainedEstimate(data, poles, high);
+                    counts = fitter.dcZeroCounts(data, poles, unconstrained);
                 } else {
                     counts[0] = true;
                 }
@@ -110,7 +112,7 @@ public final class SweepFitter {
                         continue;
                     }
                     tried.add(shape);
-                    fits.add(fitter.fit(data, poles, dc, high, settings.startPolesRadPerS()));
+                    fits.add(fitter.fit(data, poles, dc, high, settings.startPolesRadPerS(), unconstrained));
                 }
             }
         }

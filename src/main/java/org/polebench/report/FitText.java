@@ -1,5 +1,6 @@
 package org.polebench.report;
 
+import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 import org.polebench.InputWarning;
@@ -8,6 +9,7 @@ import org.polebench.fit.Estimate;
 import org.polebench.fit.FitQuality;
 import org.polebench.fit.FitResult;
 import org.polebench.fit.FittedRoot;
+import org.polebench.fit.RootCluster;
 import org.polebench.fit.RootStatus;
 import org.polebench.fit.UncertaintyBasis;
 
@@ -40,12 +42,12 @@ public final class FitText {
         }
         out.append(NL);
         out.append(NL).append("Poles").append(NL);
-        roots(out, result.poles(), result.coverageFactor());
+        roots(out, result.poles(), result.coverageFactor(), "poles");
         out.append(NL).append("Zeros").append(NL);
         if (result.zeros().isEmpty()) {
             out.append("  none").append(NL);
         }
-        roots(out, result.zeros(), result.coverageFactor());
+        roots(out, result.zeros(), result.coverageFactor(), "zeros");
         out.append(NL).append("Lower -3 dB corner").append(NL);
         out.append("  of the fitted model (exact)        ")
                 .append(result.lowerCornerModelHz().map(e -> estimate(e, "Hz")).orElse("not quoted (see warnings)"))
@@ -66,7 +68,7 @@ public final class FitText {
         return out.toString();
     }
 
-    private static void roots(StringBuilder out, List<FittedRoot> roots, double k) {
+    private static void roots(StringBuilder out, List<FittedRoot> roots, double k, String kind) {
         int dc = 0;
         for (FittedRoot r : roots) {
             dc += r.status() == RootStatus.STRUCTURAL ? 1 : 0;
@@ -74,8 +76,16 @@ public final class FitText {
         if (dc > 0) {
             out.append(String.format(Locale.ROOT, "  %-8s at DC, %d (structural: fixed by the model)%n", "z0", dc));
         }
+        List<RootCluster> printed = new ArrayList<>();
         for (FittedRoot r : roots) {
             if (r.status() == RootStatus.STRUCTURAL || (!r.isReal() && r.imaginaryHz() < 0)) {
+                continue;
+            }
+            if (r.cluster().isPresent() && r.status() == RootStatus.FITTED) {
+                if (!printed.contains(r.cluster().get())) {
+                    printed.add(r.cluster().get());
+                    cluster(out, r.cluster().get(), roots, k, kind);
+                }
                 continue;
             }
             out.append(String.format(Locale.ROOT, "  %-8s ", r.label()));
@@ -95,15 +105,53 @@ public final class FitText {
         }
     }
 
+    /**
+     * Roots the data do not separate: their geometric mean with u and U, the damping ratio when
+     * they are one fitted pair, and the members' values (which have no uncertainty of their own).
+     */
+    private static void cluster(StringBuilder out, RootCluster c, List<FittedRoot> roots, double k, String kind) {
+        out.append(String.format(Locale.ROOT, "  %-8s ", String.join(",", c.labels())));
+        if (c.dampingRatio().isPresent()) {
+            out.append("a pair at damping ratio 1 within its uncertainty (complex or two real ").append(kind)
+                    .append(" cannot be told)").append(NL).append("           natural frequency ")
+                    .append(withU(c.meanHz(), c.uMeanHz(), k, "Hz")).append(NL).append("           damping ratio     ")
+                    .append(withU(c.dampingRatio().getAsDouble(), c.uDampingRatio(), k, "")).append(NL);
+        } else {
+            out.append(c.roots()).append(' ').append(kind).append(" the data do not separate, quoted together")
+                    .append(NL).append("           geometric mean    ").append(withU(c.meanHz(), c.uMeanHz(), k, "Hz"))
+                    .append(NL);
+        }
+        StringBuilder values = new StringBuilder();
+        for (FittedRoot r : roots) {
+            if (r.cluster().isPresent() && r.cluster().get().equals(c)) {
+                values.append(values.length() == 0 ? "" : ", ").append(MeasuredValueFormat.sixFigures(r.realHz()));
+                if (!r.isReal()) {
+                    values.append(r.imaginaryHz() < 0 ? " − j" : " + j")
+                            .append(MeasuredValueFormat.sixFigures(Math.abs(r.imaginaryHz())));
+                }
+            }
+        }
+        out.append("           the fitted model's roots ").append(values).append(" Hz (no uncertainty of their own)")
+                .append(NL);
+    }
+
     /** Below this relative uncertainty the digits are round-off: the data fit the model exactly. */
     private static final double EXACT = 1e-9;
 
-    private static String withU(double value, double u, double k, String unit) {
+    /** value with u and U in unit (may be empty), as the summary prints it. */
+    static String withU(double value, double u, double k, String unit) {
+        String space = unit.isEmpty() ? "" : " ";
         if (!(u > EXACT * Math.abs(value))) {
-            return MeasuredValueFormat.sixFigures(value) + " " + unit + "  (u below 1e-9 relative: an exact fit)";
+            return MeasuredValueFormat.sixFigures(value) + space + unit + "  (u below 1e-9 relative: an exact fit)";
         }
-        return MeasuredValueFormat.value(value, k * u) + " " + unit + "  u = " + MeasuredValueFormat.uncertainty(u)
-                + "  U = " + MeasuredValueFormat.uncertainty(k * u) + " " + unit;
+        if (!(k * u < Math.abs(value))) {
+            // rounded to the digits of U the value would read 0: give it, and say what U means
+            return MeasuredValueFormat.sixFigures(value) + space + unit + "  u = " + MeasuredValueFormat.uncertainty(u)
+                    + "  U = " + MeasuredValueFormat.uncertainty(k * u) + space + unit
+                    + "  (U exceeds the value: these data do not determine it)";
+        }
+        return MeasuredValueFormat.value(value, k * u) + space + unit + "  u = " + MeasuredValueFormat.uncertainty(u)
+                + "  U = " + MeasuredValueFormat.uncertainty(k * u) + space + unit;
     }
 
     private static String estimate(Estimate e, String unit) {

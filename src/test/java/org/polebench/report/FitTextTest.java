@@ -1,16 +1,20 @@
 package org.polebench.report;
 
 import static org.junit.jupiter.api.Assertions.assertArrayEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.List;
 import java.util.OptionalDouble;
 import java.util.Random;
 import java.util.ArrayList;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
 import org.junit.jupiter.api.Test;
 import org.polebench.InputProblem;
 import org.polebench.fit.FitResult;
 import org.polebench.fit.FitSettings;
+import org.polebench.fit.KnownResponse;
 import org.polebench.fit.SweepFitter;
 import org.polebench.measure.Sweep;
 import org.polebench.measure.SweepPoint;
@@ -57,5 +61,39 @@ class FitTextTest {
                 .fit(ReportFixtures.stage(true, 500));
         String text = new FitText().format(result);
         assertTrue(text.contains("unidentifiable"), text);
+    }
+
+    // issue 4: a double real pole (K·s²/(s + a)², a = 2π·20 Hz: closed-form truth, seed 5) was printed
+    // as "0 Hz u = 64000", the value rounded to the digits of an uncertainty that first-order
+    // propagation makes infinite at a double root. Now one quote for the two roots, finite, and its
+    // expanded interval around 20 Hz
+    @Test
+    void doublePoleIsPrintedOnceByItsGeometricMeanAndNeverAsZero() throws InputProblem {
+        KnownResponse truth = new KnownResponse(10, 2, new double[0][], KnownResponse.real(-20, -20), Double.NaN);
+        FitResult result = new SweepFitter(FitSettings.defaults()).fit(
+                truth.noisySweep(KnownResponse.logSpaced(1, 20_000, 100), 0.05, 0.5, new Random(5), true));
+        String text = new FitText().format(result);
+        String poles = text.substring(text.indexOf("Poles"), text.indexOf("Zeros"));
+        assertTrue(poles.contains("p1,p2"), text);
+        assertFalse(poles.contains(" 0 Hz"), text);
+        assertFalse(poles.contains("NaN") || poles.contains("Infinity"), text);
+        Matcher quote = Pattern.compile("(natural frequency|geometric mean) +([0-9.]+) Hz {2}u = ([0-9.]+) {2}U = "
+                + "([0-9.]+) Hz").matcher(poles);
+        assertTrue(quote.find(), text);
+        double value = Double.parseDouble(quote.group(2));
+        double expanded = Double.parseDouble(quote.group(4));
+        // synthetic truth 20 Hz inside the printed U (k = 2, 95 % coverage; this seed's fit covers it)
+        assertTrue(Math.abs(value - 20) <= expanded, text);
+    }
+
+    // a value whose U exceeds it keeps its digits and is said to be undetermined: rounded to the
+    // digits of U, as GUM 7.2.6 has it otherwise, −2.705 Hz with U = 55 000 Hz would read "0"
+    @Test
+    void valueSmallerThanItsUncertaintyIsNotPrintedAsZero() {
+        String text = FitText.withU(-2.70521, 27_000, 2, "Hz");
+        assertTrue(text.startsWith("−2.70521 Hz"), text);
+        assertTrue(text.contains("U = 54000 Hz") && text.contains("these data do not determine it"), text);
+        // below U the GUM rounding stands: U = 0.64 to two figures, the value to match
+        assertTrue(FitText.withU(-10.5924, 0.32, 2, "Hz").startsWith("−10.59 Hz  u = 0.32  U = 0.64 Hz"));
     }
 }
