@@ -100,7 +100,11 @@ public final class CornerFinder {
 
     /**
      * Brent's zero finder in ln ω between a scan's two last points, whose values it reuses: at
-     * {@code below} the excess is at most 0, at {@code above} it is positive.
+     * {@code below} the excess is at most 0, at {@code above} it is positive. Written out here
+     * rather than through Commons Math's {@code BrentSolver}, which evaluates both ends and a
+     * midpoint again and builds its solver and counter objects per call: a tolerance spread
+     * finds 10,000 corners. The root is the same crossing to the same 1e-12 in ln ω; only where
+     * within that tolerance the iteration stops can differ.
      *
      * @return the crossing in rad/s; empty when the iteration runs out of evaluations (or meets NaN)
      */

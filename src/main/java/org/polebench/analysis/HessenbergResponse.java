@@ -10,9 +10,10 @@ package org.polebench.analysis;
  * O(k³) of a dense complex LU. Q is orthogonal, so the result equals the dense solve's up to
  * round-off. Work arrays are preallocated: one instance per thread and task.
  *
- * <p>Each method holds one loop level, and no outer loop runs an iteration whose inner range is
- * empty (as in {@link org.polebench.circuit.RealLu}, which says why): a tolerance spread builds
- * one of these per board and evaluates it a few dozen times, in a cold JVM.
+ * <p>The reduction holds one loop level per method, and the evaluation, whose loops run k
+ * times per level, no outer iteration with an empty inner range (as in
+ * {@link org.polebench.circuit.RealLu}, which says why): a tolerance spread builds one of these
+ * per board and evaluates it a few dozen times, in a cold JVM.
  */
 final class HessenbergResponse {
     private final int k;
@@ -30,8 +31,6 @@ final class HessenbergResponse {
     private final double[] carryIm;
     private final double[] xr;
     private final double[] xi;
-    private double carryRhsRe;
-    private double carryRhsIm;
 
     HessenbergResponse(StateModel model) {
         this.k = model.order();
@@ -132,7 +131,16 @@ final class HessenbergResponse {
         }
     }
 
-    /** @return |H(jω)|² at ω in rad/s (V/V squared), or NaN when jω is an eigenvalue of A */
+    /**
+     * Gaussian elimination of jωI − Ĥ with partial pivoting between neighbouring rows, then back
+     * substitution. At step c, of the carried row c and row c + 1 of jωI − Ĥ (untouched so far,
+     * and starting at column c, since Ĥ is Hessenberg), the one with the larger entry in column
+     * c becomes row c of the triangular factor, and the other, less a multiple of it, is carried
+     * to the next step. One method: its loops are short (k per level), and split into helpers
+     * they were compiled twice, alone and inlined here.
+     *
+     * @return |H(jω)|² at ω in rad/s (V/V squared), or NaN when jω is an eigenvalue of A
+     */
     double magnitudeSquared(double omegaRadPerS) {
         // row 0 of jωI − Ĥ starts the elimination
         double[] first = h[0];
@@ -141,104 +149,81 @@ final class HessenbergResponse {
             carryIm[j] = 0;
         }
         carryIm[0] = omegaRadPerS;
-        carryRhsRe = bHat[0];
-        carryRhsIm = 0;
+        double rhsRe = bHat[0];
+        double rhsIm = 0;
         for (int c = 0; c < k - 1; c++) {
-            if (!eliminate(c, omegaRadPerS)) {
+            int below = c + 1;
+            double[] next = h[below];
+            double nextAtC = -next[c];
+            boolean swap = Math.abs(nextAtC) > Math.abs(carryRe[c]) + Math.abs(carryIm[c]);
+            double pr = swap ? nextAtC : carryRe[c];
+            double pi = swap ? 0 : carryIm[c];
+            double ar = swap ? carryRe[c] : nextAtC;
+            double ai = swap ? carryIm[c] : 0;
+            double size = pr * pr + pi * pi;
+            if (size == 0) {
                 return Double.NaN;
             }
+            // l = a / p (0 when the entry under the pivot is 0: the carried row is then taken as it is)
+            double lr = (ar * pr + ai * pi) / size;
+            double li = (ai * pr - ar * pi) / size;
+            double[] rowRe = ur[c];
+            double[] rowIm = ui[c];
+            rowRe[c] = pr;
+            rowIm[c] = pi;
+            for (int j = below; j < k; j++) {
+                double nr = -next[j];
+                double ni = j == below ? omegaRadPerS : 0;
+                double upperRe = swap ? nr : carryRe[j];
+                double upperIm = swap ? ni : carryIm[j];
+                double lowerRe = swap ? carryRe[j] : nr;
+                double lowerIm = swap ? carryIm[j] : ni;
+                rowRe[j] = upperRe;
+                rowIm[j] = upperIm;
+                carryRe[j] = lowerRe - (lr * upperRe - li * upperIm);
+                carryIm[j] = lowerIm - (lr * upperIm + li * upperRe);
+            }
+            double upperRhsRe = swap ? bHat[below] : rhsRe;
+            double upperRhsIm = swap ? 0 : rhsIm;
+            double lowerRhsRe = swap ? rhsRe : bHat[below];
+            double lowerRhsIm = swap ? rhsIm : 0;
+            yr[c] = upperRhsRe;
+            yi[c] = upperRhsIm;
+            rhsRe = lowerRhsRe - (lr * upperRhsRe - li * upperRhsIm);
+            rhsIm = lowerRhsIm - (lr * upperRhsIm + li * upperRhsRe);
         }
         // the last row is the carried one; it has nothing right of its diagonal, so it stays
         // out of the loop below, whose inner range is then never empty (see the class comment)
         double lastRe = carryRe[k - 1];
         double lastIm = carryIm[k - 1];
-        double size = lastRe * lastRe + lastIm * lastIm;
-        if (size == 0) {
+        double lastSize = lastRe * lastRe + lastIm * lastIm;
+        if (lastSize == 0) {
             return Double.NaN;
         }
-        xr[k - 1] = (carryRhsRe * lastRe + carryRhsIm * lastIm) / size;
-        xi[k - 1] = (carryRhsIm * lastRe - carryRhsRe * lastIm) / size;
+        xr[k - 1] = (rhsRe * lastRe + rhsIm * lastIm) / lastSize;
+        xi[k - 1] = (rhsIm * lastRe - rhsRe * lastIm) / lastSize;
         double hr = d + cHat[k - 1] * xr[k - 1];
         double him = cHat[k - 1] * xi[k - 1];
         for (int i = k - 2; i >= 0; i--) {
-            if (!backSubstitute(i)) {
+            double sr = yr[i];
+            double si = yi[i];
+            double[] rr = ur[i];
+            double[] ri = ui[i];
+            for (int j = i + 1; j < k; j++) {
+                sr -= rr[j] * xr[j] - ri[j] * xi[j];
+                si -= rr[j] * xi[j] + ri[j] * xr[j];
+            }
+            double dr = rr[i];
+            double di = ri[i];
+            double size = dr * dr + di * di;
+            if (size == 0) {
                 return Double.NaN;
             }
+            xr[i] = (sr * dr + si * di) / size;
+            xi[i] = (si * dr - sr * di) / size;
             hr += cHat[i] * xr[i];
             him += cHat[i] * xi[i];
         }
         return hr * hr + him * him;
-    }
-
-    /**
-     * Step c of the elimination: of the carried row c and row c + 1 of jωI − Ĥ (untouched so
-     * far, and starting at column c, since Ĥ is Hessenberg), the one with the larger entry in
-     * column c becomes row c of the triangular factor, and the other, less a multiple of it,
-     * is carried to the next step.
-     *
-     * @return false when the pivot is 0 (jω is an eigenvalue)
-     */
-    private boolean eliminate(int c, double omegaRadPerS) {
-        int below = c + 1;
-        double[] next = h[below];
-        double nextAtC = -next[c];
-        boolean swap = Math.abs(nextAtC) > Math.abs(carryRe[c]) + Math.abs(carryIm[c]);
-        double pr = swap ? nextAtC : carryRe[c];
-        double pi = swap ? 0 : carryIm[c];
-        double ar = swap ? carryRe[c] : nextAtC;
-        double ai = swap ? carryIm[c] : 0;
-        double size = pr * pr + pi * pi;
-        if (size == 0) {
-            return false;
-        }
-        // l = a / p (0 when the entry under the pivot is 0: the carried row is then taken as it is)
-        double lr = (ar * pr + ai * pi) / size;
-        double li = (ai * pr - ar * pi) / size;
-        double[] rowRe = ur[c];
-        double[] rowIm = ui[c];
-        rowRe[c] = pr;
-        rowIm[c] = pi;
-        for (int j = below; j < k; j++) {
-            double nr = -next[j];
-            double ni = j == below ? omegaRadPerS : 0;
-            double upperRe = swap ? nr : carryRe[j];
-            double upperIm = swap ? ni : carryIm[j];
-            double lowerRe = swap ? carryRe[j] : nr;
-            double lowerIm = swap ? carryIm[j] : ni;
-            rowRe[j] = upperRe;
-            rowIm[j] = upperIm;
-            carryRe[j] = lowerRe - (lr * upperRe - li * upperIm);
-            carryIm[j] = lowerIm - (lr * upperIm + li * upperRe);
-        }
-        double upperRhsRe = swap ? bHat[below] : carryRhsRe;
-        double upperRhsIm = swap ? 0 : carryRhsIm;
-        double lowerRhsRe = swap ? carryRhsRe : bHat[below];
-        double lowerRhsIm = swap ? carryRhsIm : 0;
-        yr[c] = upperRhsRe;
-        yi[c] = upperRhsIm;
-        carryRhsRe = lowerRhsRe - (lr * upperRhsRe - li * upperRhsIm);
-        carryRhsIm = lowerRhsIm - (lr * upperRhsIm + li * upperRhsRe);
-        return true;
-    }
-
-    /** @return false when the diagonal entry of row i is 0; else x_i is set */
-    private boolean backSubstitute(int i) {
-        double sr = yr[i];
-        double si = yi[i];
-        double[] rr = ur[i];
-        double[] ri = ui[i];
-        for (int j = i + 1; j < k; j++) {
-            sr -= rr[j] * xr[j] - ri[j] * xi[j];
-            si -= rr[j] * xi[j] + ri[j] * xr[j];
-        }
-        double dr = rr[i];
-        double di = ri[i];
-        double size = dr * dr + di * di;
-        if (size == 0) {
-            return false;
-        }
-        xr[i] = (sr * dr + si * di) / size;
-        xi[i] = (si * dr - sr * di) / size;
-        return true;
     }
 }

@@ -198,8 +198,8 @@ public final class PortReduction {
             }
             double d = system.outputVolts(stimulus);
 
-            double[][] yInverse = new double[k][k];
-            if (k > 0 && !reduction.invertEquilibrated(y, yInverse)) {
+            AdmittanceInverse yInverse = reduction.equilibratedInverse(y);
+            if (yInverse == null) {
                 return poleAtZero(y, names, band);
             }
             List<LinkCapacitor> drawnLinks = new ArrayList<>(links.size());
@@ -228,7 +228,8 @@ public final class PortReduction {
 
     // Row equilibration makes the pivot test relative to each row's size: a port seen through
     // a large resistance is not singular, a dependent combination of ports is.
-    private boolean invertEquilibrated(double[][] y, double[][] inverse) {
+    /** @return Y⁻¹ to be formed on request, or null when Y is singular */
+    private AdmittanceInverse equilibratedInverse(double[][] y) {
         int k = y.length;
         double[] rowScale = new double[k];
         double[][] scaled = new double[k][];
@@ -238,15 +239,7 @@ public final class PortReduction {
             scaled[i] = scaledRow(y[i], rowScale[i]);
         }
         RealLu lu = new RealLu(scaled, admittancePivot);
-        if (!lu.isNonSingular()) {
-            return false;
-        }
-        double[][] inv = lu.inverse();
-        for (int i = 0; i < k; i++) {
-            // (R·Y)⁻¹ = Y⁻¹·R⁻¹, so Y⁻¹ = (R·Y)⁻¹·R
-            unscale(inv[i], rowScale, inverse[i]);
-        }
-        return true;
+        return lu.isNonSingular() ? new AdmittanceInverse(lu, rowScale) : null;
     }
 
     // one row per call: see RealLu on loops in methods that a cold spread calls thousands of times
@@ -256,12 +249,6 @@ public final class PortReduction {
             scaled[j] = row[j] * scale;
         }
         return scaled;
-    }
-
-    private static void unscale(double[] row, double[] columnScale, double[] into) {
-        for (int j = 0; j < row.length; j++) {
-            into[j] = row[j] * columnScale[j];
-        }
     }
 
     private static Reduction.Singular poleAtZero(double[][] y, List<String> names, Band band) {

@@ -15,9 +15,9 @@ import org.polebench.circuit.Transistor;
 
 /**
  * Monte Carlo band of the gain |H(f)| over the stage's part tolerances, for the tolerance band
- * of a Bode plot. Boards are drawn exactly as {@link ToleranceSpread} draws them (uniform in
- * ln(value) across each band, from one {@link SplittableRandom} with the given seed, in part
- * order), so with the same seed the n boards here are the first n boards of the corner spread.
+ * of a Bode plot. Boards are drawn exactly as {@link ToleranceSpread} draws them, through
+ * {@link ToleranceBands} (uniform in ln(value) across each band, from one
+ * {@link SplittableRandom} with the given seed, in part order), so with the same seed the n boards here are the first n boards of the corner spread.
  * Each board's bias is solved again; its gain is the full complex MNA response
  * ({@link FullResponse}), both bands. At every frequency the band runs between the
  * (1 − coverage)/2 and (1 + coverage)/2 percentiles of the boards' gains (Hyndman and Fan 1996,
@@ -57,7 +57,8 @@ public final class ResponseSpread {
     public GainSpread gain(Stage nominal, List<Double> frequenciesHz) {
         int n = frequenciesHz.size();
         SplittableRandom random = new SplittableRandom(seed);
-        List<Transistor> given = ToleranceSpread.givenBiasTransistors(nominal);
+        ToleranceBands bands = new ToleranceBands(nominal);
+        List<Transistor> given = ToleranceBands.givenBias(nominal);
         double[][] gains = new double[n][boards];
         int[] counts = new int[n];
         int failures = 0;
@@ -68,8 +69,8 @@ public final class ResponseSpread {
             bias = null;
         }
         for (int b = 0; b < boards; b++) {
-            Stage drawn = ToleranceSpread.draw(nominal, random);
-            double[] factors = ToleranceSpread.drawGivenBias(given, random);
+            Stage drawn = nominal.withPartValues(bands.board(random));
+            double[] factors = bands.biasFactors(random);
             OperatingPoints points;
             try {
                 if (bias == null) {

@@ -27,19 +27,25 @@ final class SpectralBound {
                 converged &= !balance(b, i);
             }
         }
-        double rowNorm = 0;
-        double columnNorm = 0;
+        // the largest row sum and column sum of |b|
+        double[] norms = new double[2];
         for (int i = 0; i < n; i++) {
-            rowNorm = Math.max(rowNorm, rowSum(b, i, -1));
-            columnNorm = Math.max(columnNorm, columnSum(b, i, -1));
+            addSums(b, i, norms);
         }
-        return Math.min(rowNorm, columnNorm);
+        return Math.min(norms[0], norms[1]);
     }
 
     /** @return true when row and column i were scaled, by the power of two that evens their sums */
     private static boolean balance(double[][] b, int i) {
-        double column = columnSum(b, i, i);
-        double row = rowSum(b, i, i);
+        int n = b.length;
+        double column = 0;
+        double row = 0;
+        for (int j = 0; j < n; j++) {
+            if (j != i) {
+                column += Math.abs(b[j][i]);
+                row += Math.abs(b[i][j]);
+            }
+        }
         if (column == 0 || row == 0) {
             return false;
         }
@@ -58,30 +64,25 @@ final class SpectralBound {
         if (!((column + row) / f < 0.95 * sum)) {
             return false;
         }
-        for (int j = 0; j < b.length; j++) {
+        for (int j = 0; j < n; j++) {
             b[i][j] /= f;
             b[j][i] *= f;
         }
         return true;
     }
 
-    /** @return Σ_j |b_ij| over j ≠ skip (one loop per call: see {@link org.polebench.circuit.RealLu}) */
-    private static double rowSum(double[][] b, int i, int skip) {
-        return absoluteSum(b, i, skip, false);
-    }
-
-    /** @return Σ_j |b_ji| over j ≠ skip */
-    private static double columnSum(double[][] b, int i, int skip) {
-        return absoluteSum(b, i, skip, true);
-    }
-
-    private static double absoluteSum(double[][] b, int i, int skip, boolean column) {
-        double sum = 0;
+    /**
+     * Raises {@code sums} to row i's Σ_j |b_ij| and column i's Σ_j |b_ji| (one loop per call:
+     * see {@link org.polebench.circuit.RealLu}).
+     */
+    private static void addSums(double[][] b, int i, double[] sums) {
+        double row = 0;
+        double column = 0;
         for (int j = 0; j < b.length; j++) {
-            if (j != skip) {
-                sum += Math.abs(column ? b[j][i] : b[i][j]);
-            }
+            row += Math.abs(b[i][j]);
+            column += Math.abs(b[j][i]);
         }
-        return sum;
+        sums[0] = Math.max(sums[0], row);
+        sums[1] = Math.max(sums[1], column);
     }
 }

@@ -37,7 +37,7 @@ public final class StateModel {
     private final double[] farads;
     private final double[][] capacitance;
     private final double[][] y;
-    private final double[][] yInverse;
+    private final AdmittanceInverse yInverse;
     private final double[] c;
     private final double d;
     private final double[][] a;
@@ -45,7 +45,7 @@ public final class StateModel {
     private final double largestPoleBound;
 
     StateModel(Band band, List<String> capacitorNames, double[] farads, List<LinkCapacitor> links,
-               double[][] y, double[][] yInverse, double[] b, double[] c, double directGain) {
+               double[][] y, AdmittanceInverse yInverse, double[] b, double[] c, double directGain) {
         int k = farads.length;
         this.band = band;
         this.capacitorNames = List.copyOf(capacitorNames);
@@ -187,10 +187,11 @@ public final class StateModel {
     /** @return q_lᵀ·Y⁻¹·q_l in ohms: the resistance link l sees with every other capacitor open */
     public double linkOpenCircuitOhms(int l) {
         double[] q = links.get(l).portCoefficients(order());
+        double[][] inverse = yInverse.matrix();
         double sum = 0;
         for (int i = 0; i < q.length; i++) {
             for (int j = 0; j < q.length; j++) {
-                sum += q[i] * yInverse[i][j] * q[j];
+                sum += q[i] * inverse[i][j] * q[j];
             }
         }
         return sum;
@@ -218,7 +219,7 @@ public final class StateModel {
 
     /** @return (Y⁻¹)_ij in ohms: the open-circuit resistance seen by port i is (Y⁻¹)_ii */
     public double inverseAdmittanceOhms(int i, int j) {
-        return yInverse[i][j];
+        return yInverse.ohms(i, j);
     }
 
     /** @return c_i: output volts per volt on port i, stimulus and other ports at 0 V */
@@ -271,12 +272,13 @@ public final class StateModel {
     double inverseSmallestPoleBound() {
         // computed on request: a lower-corner scan needs it only when it runs far below the poles
         int k = order();
+        double[][] yInverseOhms = yInverse.matrix();
         double[][] aInverse = new double[k][k];
         for (int i = 0; i < k; i++) {
             for (int j = 0; j < k; j++) {
                 double sum = 0;
                 for (int m = 0; m < k; m++) {
-                    sum += yInverse[i][m] * capacitance[m][j];
+                    sum += yInverseOhms[i][m] * capacitance[m][j];
                 }
                 // A⁻¹ = −Y⁻¹·Cf
                 aInverse[i][j] = -sum;

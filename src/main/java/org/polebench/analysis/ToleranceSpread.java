@@ -8,14 +8,7 @@ import java.util.SplittableRandom;
 import java.util.concurrent.ExecutionException;
 import java.util.concurrent.ForkJoinPool;
 import java.util.stream.IntStream;
-import org.polebench.circuit.Bias;
-import org.polebench.circuit.Bjt;
-import org.polebench.circuit.Capacitor;
-import org.polebench.circuit.Part;
-import org.polebench.circuit.Resistor;
 import org.polebench.circuit.Stage;
-import org.polebench.circuit.Tolerance;
-import org.polebench.circuit.Transistor;
 
 /**
  * Monte Carlo spread of the exact lower corner over the stage's part tolerances, β spreads and
@@ -88,12 +81,12 @@ public final class ToleranceSpread {
         // Every draw is made first, in order, from one generator, so the boards drawn do not
         // depend on how many threads then analyse them: the spread is the same on any machine.
         SplittableRandom random = new SplittableRandom(seed);
-        List<Transistor> given = givenBiasTransistors(nominal);
+        ToleranceBands bands = new ToleranceBands(nominal);
         double[][] boardValues = new double[samples][];
         double[][] biasFactors = new double[samples][];
         for (int n = 0; n < samples; n++) {
-            boardValues[n] = drawValues(nominal, random);
-            biasFactors[n] = drawGivenBias(given, random);
+            boardValues[n] = bands.board(random);
+            biasFactors[n] = bands.biasFactors(random);
         }
         Optional<BoardCorners> prepared = BoardCorners.prepare(nominal, boardValues, predictor);
         if (prepared.isEmpty()) {
@@ -136,57 +129,5 @@ public final class ToleranceSpread {
             values.add(corner);
         }
         return new CornerSpread(samples, seed, biasFailures, values);
-    }
-
-    /** One board drawn across the tolerances, as a stage (for {@link ResponseSpread}, so both draw alike). */
-    static Stage draw(Stage nominal, SplittableRandom random) {
-        return nominal.withPartValues(drawValues(nominal, random));
-    }
-
-    /**
-     * @return one board's part values ({@link Stage#partValues()}): each resistor, capacitor and
-     *         β times a factor drawn across its tolerance, in part order
-     */
-    static double[] drawValues(Stage nominal, SplittableRandom random) {
-        double[] values = nominal.partValues();
-        List<Part> parts = nominal.parts();
-        for (int p = 0; p < values.length; p++) {
-            Part part = parts.get(p);
-            if (part instanceof Resistor) {
-                values[p] *= factor(((Resistor) part).tolerance(), random);
-            } else if (part instanceof Capacitor) {
-                values[p] *= factor(((Capacitor) part).tolerance(), random);
-            } else if (part instanceof Bjt) {
-                values[p] *= factor(((Bjt) part).betaTolerance(), random);
-            }
-        }
-        return values;
-    }
-
-    static List<Transistor> givenBiasTransistors(Stage stage) {
-        List<Transistor> given = new ArrayList<>();
-        for (Transistor transistor : stage.transistors()) {
-            if (transistor.bias() instanceof Bias.Given) {
-                given.add(transistor);
-            }
-        }
-        return given;
-    }
-
-    static double[] drawGivenBias(List<Transistor> given, SplittableRandom random) {
-        double[] factors = new double[given.size()];
-        for (int t = 0; t < factors.length; t++) {
-            factors[t] = factor(given.get(t).biasTolerance(), random);
-        }
-        return factors;
-    }
-
-    private static double factor(Tolerance tolerance, SplittableRandom random) {
-        double lower = tolerance.lnLower();
-        double upper = tolerance.lnUpper();
-        if (upper == lower) {
-            return Math.exp(lower);
-        }
-        return Math.exp(lower + (upper - lower) * random.nextDouble());
     }
 }

@@ -230,7 +230,8 @@ public final class BiasSolver {
         }
         return new InputProblem(stage.sourceFile(), mosfet.line(), mosfet.name() + " is in the triode"
                 + " region: " + vdsName + " would be " + volts(circuit.mainVolts(t, x)) + ", under " + vgsName
-                + " − Vth = " + volts(circuit.testedOverdrive(t, x)) + ", at ID = " + amps(circuit.currentAmps(t, values, x)),
+                + " − Vth = " + volts(circuit.testedOverdrive(t, x)) + ", at ID = "
+                + amps(circuit.currentAmps(t, values, x)),
                 "the resistors at the drain and source (" + resistorsAt(stage, mosfet.drain(),
                         mosfet.source()) + ") drop too much at this current: less bias current (a lower"
                         + " gate bias or a larger source resistor) or a smaller drain resistor would bring"
@@ -546,7 +547,10 @@ public final class BiasSolver {
             return mainVolts(t, x) < overdrive ? Fault.TRIODE : Fault.NONE;
         }
 
-        /** @return VGS − Vth of MOSFET t as the region test takes it: by the square law from a given current, else as solved */
+        /**
+         * @return VGS − Vth of MOSFET t as the region test takes it: by the square law from a
+         *         given current, else as solved
+         */
         double testedOverdrive(int t, double[] x) {
             Mosfet mosfet = (Mosfet) transistors.get(t);
             if (mosfet.bias() instanceof Bias.Given) {

@@ -12,8 +12,8 @@ package org.polebench.circuit;
  *
  * <p>The factors sit in one array, row by row, and a pivot swaps row offsets, not entries, so
  * a row keeps its place in the array (the row of the original matrix) for good. The
- * elimination lists the non-zero entries of L and U column by column as it makes them, and
- * the substitutions run over those lists only: the same operations as the dense loops, less
+ * elimination lists the non-zero entries of L column by column and of U row by row as it makes
+ * them, and the substitutions run over those lists only: the same operations as the dense loops, less
  * the ones with a zero factor (a 17-unknown MNA matrix factors into about a hundred non-zeros
  * of the 272 off the diagonal).
  *
@@ -34,9 +34,9 @@ public final class RealLu {
     /** per column c: the array rows (original rows) below the diagonal where L is non-zero */
     private final int[] lowerStart;
     private final int[] lowerRows;
-    /** per column c: the rows of U above the diagonal where U is non-zero */
+    /** per row r: the columns of U right of the diagonal where U is non-zero, from the right */
     private final int[] upperStart;
-    private final int[] upperRows;
+    private final int[] upperColumns;
 
     /**
      * @param matrix             square; not changed
@@ -56,22 +56,17 @@ public final class RealLu {
         lowerStart = new int[m + 1];
         lowerRows = new int[capacity];
         upperStart = new int[m + 1];
-        int[] upperRowOf = new int[capacity];
-        int[] upperColumnOf = new int[capacity];
-        int upper = factor(singularThreshold, upperRowOf, upperColumnOf);
-        singular = upper < 0;
-        upperRows = singular ? new int[0] : byColumn(upperRowOf, upperColumnOf, upper);
+        upperColumns = new int[capacity];
+        singular = !factor(singularThreshold);
     }
 
-    /** @return how many entries of U above the diagonal are non-zero (listed by row), or −1 when singular */
-    private int factor(double singularThreshold, int[] upperRowOf, int[] upperColumnOf) {
-        int[] nonZero = new int[m];
+    private boolean factor(double singularThreshold) {
         int lower = 0;
         int upper = 0;
         for (int col = 0; col < m - 1; col++) {
             int max = largestBelow(col);
             if (Math.abs(lu[offset[max] + col]) < singularThreshold) {
-                return -1;
+                return false;
             }
             if (max != col) {
                 int t = offset[max];
@@ -81,22 +76,26 @@ public final class RealLu {
                 pivot[max] = pivot[col];
                 pivot[col] = p;
             }
-            int count = nonZeroAfter(col, nonZero);
+            // the pivot row is final now: its non-zeros right of the diagonal are row col of U
+            upperStart[col] = upper;
+            upper = nonZeroAfter(col, upper);
+            int count = upper - upperStart[col];
             lowerStart[col] = lower;
             if (count == 0) {
                 // a pivot row empty after its diagonal changes nothing below but the multipliers
                 lower = storeMultipliers(col, lower);
             } else {
-                lower = eliminateBelow(col, nonZero, count, lower);
-                upper = listRow(col, nonZero, count, upper, upperRowOf, upperColumnOf);
+                lower = eliminateBelow(col, upperStart[col], count, lower);
             }
         }
         if (m > 0) {
             lowerStart[m - 1] = lower;
+            upperStart[m - 1] = upper;
         }
         lowerStart[m] = lower;
+        upperStart[m] = upper;
         // the last pivot has no rows below it to eliminate
-        return m == 0 || !(Math.abs(lu[offset[m - 1] + m - 1]) < singularThreshold) ? upper : -1;
+        return m == 0 || !(Math.abs(lu[offset[m - 1] + m - 1]) < singularThreshold);
     }
 
     /** @return the first row at or below {@code col} with the largest magnitude in column {@code col} */
@@ -113,20 +112,20 @@ public final class RealLu {
         return max;
     }
 
-    /** @return how many columns after {@code col} the pivot row has non-zero, listed in {@code nonZero} */
-    private int nonZeroAfter(int col, int[] nonZero) {
+    /** @return the length of U's column list after the pivot row's non-zeros after {@code col} are appended */
+    private int nonZeroAfter(int col, int upper) {
+        // from the right, the order in which the back substitution takes them
         int start = offset[col];
-        int count = 0;
-        for (int j = col + 1; j < m; j++) {
+        for (int j = m - 1; j > col; j--) {
             if (lu[start + j] != 0) {
-                nonZero[count++] = j;
+                upperColumns[upper++] = j;
             }
         }
-        return count;
+        return upper;
     }
 
     /** @return the length of the list of L's non-zeros after column col's are appended */
-    private int eliminateBelow(int col, int[] nonZero, int count, int lower) {
+    private int eliminateBelow(int col, int first, int count, int lower) {
         int pivotStart = offset[col];
         double diagonal = lu[pivotStart + col];
         for (int row = col + 1; row < m; row++) {
@@ -135,15 +134,15 @@ public final class RealLu {
                 double multiplier = lu[start + col] / diagonal;
                 lu[start + col] = multiplier;
                 lowerRows[lower++] = pivot[row];
-                subtractPivotRow(start, pivotStart, multiplier, nonZero, count);
+                subtractPivotRow(start, pivotStart, multiplier, first, count);
             }
         }
         return lower;
     }
 
-    private void subtractPivotRow(int start, int pivotStart, double multiplier, int[] nonZero, int count) {
-        for (int n = 0; n < count; n++) {
-            int j = nonZero[n];
+    private void subtractPivotRow(int start, int pivotStart, double multiplier, int first, int count) {
+        for (int n = first; n < first + count; n++) {
+            int j = upperColumns[n];
             lu[start + j] -= multiplier * lu[pivotStart + j];
         }
     }
@@ -158,31 +157,6 @@ public final class RealLu {
             }
         }
         return lower;
-    }
-
-    /** Lists pivot row {@code row}'s non-zeros right of its diagonal (final once it is the pivot row). */
-    private static int listRow(int row, int[] nonZero, int count, int upper, int[] rowOf, int[] columnOf) {
-        for (int n = 0; n < count; n++) {
-            rowOf[upper] = row;
-            columnOf[upper++] = nonZero[n];
-        }
-        return upper;
-    }
-
-    /** @return the rows of U's listed non-zeros regrouped by column (a counting sort), with {@link #upperStart} set */
-    private int[] byColumn(int[] rowOf, int[] columnOf, int count) {
-        for (int e = 0; e < count; e++) {
-            upperStart[columnOf[e] + 1]++;
-        }
-        for (int col = 0; col < m; col++) {
-            upperStart[col + 1] += upperStart[col];
-        }
-        int[] next = upperStart.clone();
-        int[] rows = new int[count];
-        for (int e = 0; e < count; e++) {
-            rows[next[columnOf[e]]++] = rowOf[e];
-        }
-        return rows;
     }
 
     public boolean isNonSingular() {
@@ -206,15 +180,17 @@ public final class RealLu {
         for (int row = 0; row < m; row++) {
             x[row] = y[pivot[row]];
         }
-        // the first column has nothing above its diagonal: it stays out of the loop
-        for (int col = m - 1; col > 0; col--) {
-            x[col] /= lu[offset[col] + col];
-            if (x[col] != 0 && upperStart[col] < upperStart[col + 1]) {
-                subtractUpper(x, col, x[col]);
-            }
-        }
+        // back substitution by rows of U, each row's terms from the right: the order in which
+        // the column by column form subtracts them, so the sums are the same to the bit; the
+        // last row has nothing right of its diagonal and stays out of the loop
         if (m > 0) {
-            x[0] /= lu[offset[0]];
+            x[m - 1] /= lu[offset[m - 1] + m - 1];
+        }
+        for (int row = m - 2; row >= 0; row--) {
+            if (upperStart[row] < upperStart[row + 1]) {
+                x[row] = subtractUpper(x, row);
+            }
+            x[row] /= lu[offset[row] + row];
         }
         return x;
     }
@@ -227,12 +203,15 @@ public final class RealLu {
         }
     }
 
-    /** x[i] −= xCol·U[i][col] over the rows i above the diagonal where U is non-zero */
-    private void subtractUpper(double[] x, int col, double xCol) {
-        for (int e = upperStart[col]; e < upperStart[col + 1]; e++) {
-            int i = upperRows[e];
-            x[i] -= xCol * lu[offset[i] + col];
+    /** @return x[row] − Σ U[row][j]·x[j] over the non-zeros right of the diagonal, from the right */
+    private double subtractUpper(double[] x, int row) {
+        int start = offset[row];
+        double sum = x[row];
+        for (int e = upperStart[row]; e < upperStart[row + 1]; e++) {
+            int j = upperColumns[e];
+            sum -= x[j] * lu[start + j];
         }
+        return sum;
     }
 
     private static void setColumn(double[][] matrix, int j, double[] column) {

@@ -89,12 +89,13 @@ class BoardCornersTest {
      */
     private Tally compare(Stage nominal, int boards, long seed) {
         SplittableRandom random = new SplittableRandom(seed);
-        List<Transistor> given = ToleranceSpread.givenBiasTransistors(nominal);
+        ToleranceBands bands = new ToleranceBands(nominal);
+        List<Transistor> given = ToleranceBands.givenBias(nominal);
         double[][] values = new double[boards][];
         double[][] factors = new double[boards][];
         for (int n = 0; n < boards; n++) {
-            values[n] = ToleranceSpread.drawValues(nominal, random);
-            factors[n] = ToleranceSpread.drawGivenBias(given, random);
+            values[n] = bands.board(random);
+            factors[n] = bands.biasFactors(random);
         }
         Optional<BoardCorners> kernel = BoardCorners.prepare(nominal, values, predictor);
         int analysed = 0;
