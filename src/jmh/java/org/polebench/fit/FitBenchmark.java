@@ -1,25 +1,21 @@
 package org.polebench.fit;
 
-import java.lang.management.ManagementFactory;
-import java.lang.management.ThreadMXBean;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Random;
 import java.util.concurrent.TimeUnit;
 import org.apache.commons.math3.complex.Complex;
-import org.openjdk.jmh.annotations.AuxCounters;
 import org.openjdk.jmh.annotations.Benchmark;
 import org.openjdk.jmh.annotations.BenchmarkMode;
 import org.openjdk.jmh.annotations.Fork;
-import org.openjdk.jmh.annotations.Level;
 import org.openjdk.jmh.annotations.Mode;
 import org.openjdk.jmh.annotations.OutputTimeUnit;
 import org.openjdk.jmh.annotations.Scope;
 import org.openjdk.jmh.annotations.Setup;
 import org.openjdk.jmh.annotations.State;
-import org.openjdk.jmh.annotations.TearDown;
 import org.polebench.InputProblem;
+import org.polebench.ThreadCpuTime;
 import org.polebench.measure.ProfileLibrary;
 import org.polebench.measure.Sweep;
 import org.polebench.measure.SweepReader;
@@ -32,8 +28,8 @@ import org.polebench.measure.SweepReader;
  * fit --max-poles 5} does, and as {@code reconcile} does, starting from the stage's predicted
  * poles. Run: {@code java -jar target/benchmarks.jar FitBenchmark -f 1 -wi 3 -i 5 -w 1 -r 1},
  * with {@code -prof gc} for the allocation per fit. Besides wall time per fit, the auxiliary
- * counters {@code cpuMicros} and {@code fits} give the benchmark thread's own CPU time, which
- * stays meaningful on a machine other jobs share (cpuMicros / fits = CPU µs per fit).
+ * counters {@code cpuMicros} and {@code calls} give the benchmark thread's own CPU time, which
+ * stays meaningful on a machine other jobs share (cpuMicros / calls = CPU µs per fit).
  */
 @State(Scope.Thread)
 @BenchmarkMode(Mode.AverageTime)
@@ -54,35 +50,8 @@ public class FitBenchmark {
         fitter = new SweepFitter(FitSettings.defaults().withMaxPoles(4));
     }
 
-    /** CPU time of the benchmark thread, summed per iteration. */
-    @State(Scope.Thread)
-    @AuxCounters(AuxCounters.Type.EVENTS)
-    public static class CpuTime {
-        private final ThreadMXBean threads = ManagementFactory.getThreadMXBean();
-        private long start;
-        public long cpuMicros;
-        public long fits;
-
-        @Setup(Level.Iteration)
-        public void clear() {
-            cpuMicros = 0;
-            fits = 0;
-        }
-
-        @Setup(Level.Invocation)
-        public void begin() {
-            start = threads.getCurrentThreadCpuTime();
-        }
-
-        @TearDown(Level.Invocation)
-        public void end() {
-            cpuMicros += (threads.getCurrentThreadCpuTime() - start) / 1000;
-            fits++;
-        }
-    }
-
     @Benchmark
-    public FitResult fitWithOrderSelectionUpToFourPoles(CpuTime cpu) throws InputProblem {
+    public FitResult fitWithOrderSelectionUpToFourPoles(ThreadCpuTime cpu) throws InputProblem {
         return fitter.fit(sweeps[next++ & 63]);
     }
 
@@ -110,12 +79,12 @@ public class FitBenchmark {
     }
 
     @Benchmark
-    public FitResult geophoneDemoUpToFivePoles(GeophoneDemo demo, CpuTime cpu) throws InputProblem {
+    public FitResult geophoneDemoUpToFivePoles(GeophoneDemo demo, ThreadCpuTime cpu) throws InputProblem {
         return demo.free.fit(demo.sweep);
     }
 
     @Benchmark
-    public FitResult geophoneDemoFromPredictedPoles(GeophoneDemo demo, CpuTime cpu) throws InputProblem {
+    public FitResult geophoneDemoFromPredictedPoles(GeophoneDemo demo, ThreadCpuTime cpu) throws InputProblem {
         return demo.started.fit(demo.sweep);
     }
 }

@@ -1,14 +1,10 @@
 package org.polebench.reconcile;
 
-import java.lang.management.ManagementFactory;
-import java.lang.management.ThreadMXBean;
 import java.nio.file.Path;
 import java.util.concurrent.TimeUnit;
-import org.openjdk.jmh.annotations.AuxCounters;
 import org.openjdk.jmh.annotations.Benchmark;
 import org.openjdk.jmh.annotations.BenchmarkMode;
 import org.openjdk.jmh.annotations.Fork;
-import org.openjdk.jmh.annotations.Level;
 import org.openjdk.jmh.annotations.Measurement;
 import org.openjdk.jmh.annotations.Mode;
 import org.openjdk.jmh.annotations.OutputTimeUnit;
@@ -16,9 +12,9 @@ import org.openjdk.jmh.annotations.Param;
 import org.openjdk.jmh.annotations.Scope;
 import org.openjdk.jmh.annotations.Setup;
 import org.openjdk.jmh.annotations.State;
-import org.openjdk.jmh.annotations.TearDown;
 import org.openjdk.jmh.annotations.Warmup;
 import org.polebench.InputProblem;
+import org.polebench.ThreadCpuTime;
 import org.polebench.analysis.StageAnalysis;
 import org.polebench.analysis.StagePrediction;
 import org.polebench.analysis.ToleranceSpread;
@@ -60,40 +56,13 @@ public class ReconcileBenchmark {
                 BoardSynthesizer.logSpaced(0.5, 5000, 100), 20_261_201L);
     }
 
-    /** CPU time of the benchmark thread, summed per iteration. */
-    @State(Scope.Thread)
-    @AuxCounters(AuxCounters.Type.EVENTS)
-    public static class CpuTime {
-        private final ThreadMXBean threads = ManagementFactory.getThreadMXBean();
-        private long start;
-        public long cpuMicros;
-        public long calls;
-
-        @Setup(Level.Iteration)
-        public void clear() {
-            cpuMicros = 0;
-            calls = 0;
-        }
-
-        @Setup(Level.Invocation)
-        public void begin() {
-            start = threads.getCurrentThreadCpuTime();
-        }
-
-        @TearDown(Level.Invocation)
-        public void end() {
-            cpuMicros += (threads.getCurrentThreadCpuTime() - start) / 1000;
-            calls++;
-        }
-    }
-
     @Benchmark
-    public ReconcileResult reconcile(CpuTime cpu) throws InputProblem {
+    public ReconcileResult reconcile(ThreadCpuTime cpu) throws InputProblem {
         return Reconciler.onOneThread().reconcile(predicted, sweep, DecisionRule.SIMPLE);
     }
 
     @Benchmark
-    public Diagnosis backSolveAndHypotheses(CpuTime cpu) {
+    public Diagnosis backSolveAndHypotheses(ThreadCpuTime cpu) {
         return new FaultRanking().rank(predicted.stage(), predicted.operatingPoints(), predicted.prediction().lowBand(),
                 sweep);
     }
