@@ -5,7 +5,8 @@ import java.util.List;
 /**
  * The MAP back-solve of one hypothesis on the stage's exact model (DESIGN.md "Back-solve").
  *
- * @param parameters   every capacitor, then every transistor's bias, then the gain, in order
+ * @param parameters   the hypothesis' parameters in model order: every capacitor, every
+ *                     transistor's bias current, every BJT's β, the resistors it frees, the gain
  * @param correlation  posterior correlations of the log-scale parameters, same order, unit diagonal
  * @param chiSquared   Σ of the squared weighted data residuals at the MAP, at the stated σ
  *                     (before any residual scale)
@@ -27,6 +28,16 @@ public record BackSolve(List<ParameterEstimate> parameters, List<List<Double>> c
 
     /** @return the gain calibration's estimate */
     public ParameterEstimate gain() {
-        return parameters.get(parameters.size() - 1);
+        return of(ParameterKind.GAIN).get(0);
+    }
+
+    /** @throws IllegalArgumentException when this back-solve does not have the parameter */
+    public ParameterEstimate of(ModelParameter parameter) {
+        for (ParameterEstimate estimate : parameters) {
+            if (estimate.parameter().equals(parameter)) {
+                return estimate;
+            }
+        }
+        throw new IllegalArgumentException("no estimate of " + parameter.label());
     }
 }

@@ -1,6 +1,5 @@
 package org.polebench.reconcile;
 
-import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -10,15 +9,14 @@ import org.polebench.analysis.Reduction;
 import org.polebench.analysis.StateModel;
 import org.polebench.circuit.Band;
 import org.polebench.circuit.OperatingPoints;
-import org.polebench.circuit.SmallSignalExpansion;
 import org.polebench.circuit.SmallSignalNetwork;
 import org.polebench.circuit.Stage;
-import org.polebench.circuit.Transistor;
 
 /**
  * The stage's own exact response at the sweep's frequencies as a function of the back-solve's
- * parameters θ = (φ_i = ln(C_i/C_i,nom) per low-band capacitor, ln(I_j/I_j,nom) per transistor,
- * g = flat gain in nepers): H(jω; θ) = e^g · H_low(jω) · H_high(jω)/D (DESIGN.md "Back-solve").
+ * parameters θ = (φ_i = ln(C_i/C_i,nom) per low-band capacitor, the network parameters of
+ * {@link BoardNetwork}: ln(I_j/I_j,nom) per transistor, ln(β/β_nom) per BJT, ln(R/R_nom) per
+ * resistor; g = flat gain in nepers): H(jω; θ) = e^g · H_low(jω) · H_high(jω)/D (DESIGN.md "Back-solve").
  *
  * <p>H_low comes from the low-band port reduction: with A = −Cd⁻¹·Y and B = −Cd⁻¹·b,
  * H_low = D + cᵀ·(sI − A)⁻¹·B = D − cᵀ·(Y + s·Cd)⁻¹·b, and Y, b, c, D do not depend on the
@@ -26,8 +24,8 @@ import org.polebench.circuit.Transistor;
  * exact: with x = −(Y + s·Cd)⁻¹·b and u = (Y + s·Cd)⁻ᵀ·c, ∂H_low/∂φ_i = −s·C_i·u_i·x_i.
  * H_high/D is the high-band model's response (low-band capacitors shorted) over the midband
  * gain: the product of the two bands is exact when they lie decades apart, as a low-band
- * sweep assumes. Only the bias parameters need a new small-signal expansion and reduction
- * ({@link OperatingPoints#withCurrentScaled}); their derivative is a forward difference.
+ * sweep assumes. Only the network parameters need a new small-signal expansion and reduction
+ * (a resistor or a β with a new bias solve); their derivative is a forward difference.
  *
  * <p>Every evaluation solves the port equations at all the sweep's frequencies at once
  * ({@link SweptPortEquations}) into preallocated arrays: nothing is allocated per frequency.
@@ -42,16 +40,12 @@ final class BoardModel {
     /** Bias move in ln I within which a high-band factor is reused between exact evaluations. */
     static final double HIGH_BAND_REFRESH = 0.02;
 
-    private final Stage stage;
-    private final OperatingPoints nominalPoints;
     private final List<String> capacitors;
     private final double[] nominalFarads;
-    private final List<String> transistors;
     private final double[] omegas;
     private final PortReduction reduction = new PortReduction();
-    private final SmallSignalExpansion expansion = new SmallSignalExpansion();
-    /** The stage's nodes numbered once: every bias point is expanded on the same layout. */
-    private final SmallSignalExpansion.Prepared prepared;
+    /** The network parameters' effect on the resistive network, laid out once. */
+    private final BoardNetwork board;
     private final Map<BiasPoint, Reduced> cache = leastRecentlyUsed(CACHED_REDUCTIONS);
     // hypotheses alternate between a few bias points (the no-fault MAP's, the priors' means)
     private final Map<BiasPoint, HighFactor> highCache = leastRecentlyUsed(CACHED_HIGH_FACTORS);
@@ -84,20 +78,13 @@ final class BoardModel {
      * @param frequenciesHz where the response is wanted, positive
      */
     BoardModel(Stage stage, OperatingPoints nominalPoints, StateModel nominalModel, double[] frequenciesHz) {
-        this.stage = stage;
-        this.prepared = expansion.prepare(stage);
-        this.nominalPoints = nominalPoints;
         this.capacitors = nominalModel.capacitorNames();
+        this.board = new BoardNetwork(stage, nominalPoints, capacitors);
         int k = capacitors.size();
         this.nominalFarads = new double[k];
         for (int i = 0; i < k; i++) {
             nominalFarads[i] = nominalModel.farads(i);
         }
-        List<String> names = new ArrayList<>();
-        for (Transistor transistor : stage.transistors()) {
-            names.add(transistor.name());
-        }
-        this.transistors = List.copyOf(names);
         this.omegas = new double[frequenciesHz.length];
         for (int n = 0; n < omegas.length; n++) {
             omegas[n] = 2 * Math.PI * frequenciesHz[n];
@@ -122,8 +109,9 @@ final class BoardModel {
         return capacitors;
     }
 
-    List<String> transistors() {
-        return transistors;
+    /** @return the network parameters' layout: bias currents, BJT current gains, resistors */
+    BoardNetwork board() {
+        return board;
     }
 
     double nominalFarads(int i) {
@@ -134,9 +122,9 @@ final class BoardModel {
         return omegas.length;
     }
 
-    /** @return k + m + 1: capacitors, transistors, gain */
+    /** @return k + n + 1: capacitors, the network parameters of {@link BoardNetwork}, gain */
     int parameterCount() {
-        return capacitors.size() + transistors.size() + 1;
+        return capacitors.size() + board.size() + 1;
     }
 
     /**
@@ -147,9 +135,9 @@ final class BoardModel {
      * @param hIm   out: Im H per frequency
      * @param dRe   out, or null: [parameter][frequency] real part of ∂ln H/∂θ
      * @param dIm   out, or null: imaginary part
-     * @param biasColumns per transistor, whether to compute its bias column of {@code dRe, dIm}
-     *                    (by forward difference, one reduction each); null for none. Columns not
-     *                    computed are left as they were.
+     * @param biasColumns per network parameter (bias current, β, resistor), whether to compute
+     *                    its column of {@code dRe, dIm} (by forward difference, one reduction
+     *                    each); null for none. Columns not computed are left as they were.
      * @param exactHighBand false lets the high-band factor of a bias point within
      *                      {@value #HIGH_BAND_REFRESH} in ln I of the last one used be reused
      * @return false when the network is singular at these bias currents or H vanishes
@@ -157,7 +145,7 @@ final class BoardModel {
     boolean evaluate(double[] theta, double[] hRe, double[] hIm, double[][] dRe, double[][] dIm,
                      boolean[] biasColumns, boolean exactHighBand) {
         int k = capacitors.size();
-        int m = transistors.size();
+        int m = board.size();
         double[] lnBias = Arrays.copyOfRange(theta, k, k + m);
         Reduced reduced = reduced(lnBias);
         HighFactor high = reduced == null ? null : highFactor(lnBias, exactHighBand, reduced.d);
@@ -198,21 +186,7 @@ final class BoardModel {
      */
     SmallSignalNetwork network(double[] theta) {
         int k = capacitors.size();
-        Stage scaled = stage;
-        for (int i = 0; i < k; i++) {
-            scaled = scaled.withCapacitance(capacitors.get(i), nominalFarads[i] * Math.exp(theta[i]));
-        }
-        return expansion.expand(scaled, points(Arrays.copyOfRange(theta, k, k + transistors.size())));
-    }
-
-    private OperatingPoints points(double[] lnBias) {
-        OperatingPoints points = nominalPoints;
-        for (int j = 0; j < lnBias.length; j++) {
-            if (lnBias[j] != 0) {
-                points = points.withCurrentScaled(transistors.get(j), Math.exp(lnBias[j]));
-            }
-        }
-        return points;
+        return board.network(Arrays.copyOfRange(theta, 0, k), Arrays.copyOfRange(theta, k, k + board.size()));
     }
 
     // high null: the low band alone
@@ -312,8 +286,12 @@ final class BoardModel {
     }
 
     private Reduced reduce(double[] lnBias) {
+        SmallSignalNetwork network = expanded(lnBias);
+        if (network == null) {
+            return null;
+        }
         reductions++;
-        Reduction low = reduction.reduce(expanded(lnBias), Band.LOW);
+        Reduction low = reduction.reduce(network, Band.LOW);
         if (!(low instanceof Reduction.StateSpace)) {
             return null;
         }
@@ -357,6 +335,9 @@ final class BoardModel {
         double[] im = new double[omegas.length];
         Arrays.fill(re, 1);
         SmallSignalNetwork network = expanded(lnBias);
+        if (network == null) {
+            return null;
+        }
         if (!network.capacitances(Band.HIGH).isEmpty()) {
             reductions++;
             Reduction high = reduction.reduce(network, Band.HIGH);
@@ -372,11 +353,12 @@ final class BoardModel {
         return lastHigh;
     }
 
-    // the low and the high band of one bias point come from one expansion
+    // the low and the high band of one bias point come from one expansion; null where the
+    // transistors leave their amplifying region
     private SmallSignalNetwork expanded(double[] lnBias) {
         BiasPoint key = new BiasPoint(lnBias);
         if (!key.equals(lastExpanded)) {
-            lastNetwork = prepared.expand(stage, points(lnBias));
+            lastNetwork = board.network(null, lnBias);
             lastExpanded = key;
         }
         return lastNetwork;

@@ -1,36 +1,53 @@
 package org.polebench.reconcile;
 
+import java.util.List;
 import java.util.Optional;
-import java.util.OptionalDouble;
 
 /**
- * One single-fault hypothesis, ranked by its Laplace evidence.
+ * One fault hypothesis, ranked by its Laplace evidence.
  *
- * @param kind               none, capacitor, bias or gain
- * @param part               the capacitor or transistor it frees; empty for none and gain
- * @param priorProbability   its probability before the sweep (DESIGN.md "Conventions")
- * @param logEvidence        ln of the Laplace evidence, up to a constant shared by all hypotheses
- * @param probability        its posterior probability among the ranked hypotheses
- * @param culprit            the freed parameter's estimate; empty for "none"
- * @param nearestPreferred   for a capacitor, the nearest IEC 60063 value of the series its
- *                           tolerance belongs to, in farads
- * @param decadeSlip         the nearest preferred value is the nominal times a power of ten
- *                           other than 1 (47 µF fitted as 4.7 µF)
- * @param statement          the hypothesis in plain words
- * @param backSolve          the MAP of every parameter under this hypothesis
+ * @param kind             none, capacitor, resistor, bias, gain, bench or double
+ * @param faults           what it frees: nothing for none, one part for a single fault, two for
+ *                         a double
+ * @param priorProbability its probability before the sweep (DESIGN.md "Conventions")
+ * @param logEvidence      ln of the Laplace evidence, up to a constant shared by all hypotheses
+ * @param probability      its posterior probability among the ranked hypotheses
+ * @param identifiable     whether the sweep identifies every part it frees; one that does not is
+ *                         never named as the most likely
+ * @param backSolve        the MAP of every parameter under this hypothesis
  */
-public record Hypothesis(HypothesisKind kind, Optional<String> part, double priorProbability, double logEvidence,
-                         double probability, Optional<ParameterEstimate> culprit, OptionalDouble nearestPreferred,
-                         boolean decadeSlip, String statement, BackSolve backSolve) {
+public record Hypothesis(HypothesisKind kind, List<PartReading> faults, double priorProbability, double logEvidence,
+                         double probability, boolean identifiable, BackSolve backSolve) {
+    public Hypothesis {
+        faults = List.copyOf(faults);
+    }
 
-    /** @return "no fault", a part id, or "gain calibration" */
+    /** @return the one part a single fault frees; empty for none, gain and double */
+    public Optional<String> part() {
+        return faults.size() == 1 ? faults.get(0).estimate().parameter().part() : Optional.empty();
+    }
+
+    /** @return the freed parameter's estimate of a single fault; empty for none and double */
+    public Optional<ParameterEstimate> culprit() {
+        return faults.size() == 1 ? Optional.of(faults.get(0).estimate()) : Optional.empty();
+    }
+
+    /** @return "no fault", a part id, "Q1 bias current", "gain calibration", or "C2 and RE1" */
     public String label() {
         if (kind == HypothesisKind.NONE) {
             return "no fault";
         }
-        if (kind == HypothesisKind.GAIN) {
+        if (kind == HypothesisKind.DOUBLE) {
+            return label(faults.get(0)) + " and " + label(faults.get(1));
+        }
+        return label(faults.get(0));
+    }
+
+    private static String label(PartReading reading) {
+        ModelParameter parameter = reading.estimate().parameter();
+        if (parameter.kind() == ParameterKind.GAIN) {
             return "gain calibration";
         }
-        return part.orElse("?") + (kind == HypothesisKind.BIAS ? " bias current" : "");
+        return parameter.label() + (parameter.kind() == ParameterKind.BIAS ? " bias current" : "");
     }
 }

@@ -1,17 +1,23 @@
 package org.polebench.reconcile;
 
-/** The single-fault hypotheses the back-solve ranks (DESIGN.md "Back-solve"). */
+/** The fault hypotheses the back-solve ranks (DESIGN.md "Back-solve", "Honest diagnosis"). */
 public enum HypothesisKind {
     /** Every parameter within its tolerance prior. */
     NONE,
     /** One capacitor freed (σ = ln 10 in ln C), the rest within tolerance. */
     CAPACITOR,
+    /** One resistor freed (σ = ln 10 in ln R) with the bias solved again, the rest within tolerance. */
+    RESISTOR,
     /** One transistor's bias current freed, the rest within tolerance. */
     BIAS,
     /** The flat gain calibration freed (a probe or level mistake), the rest within tolerance. */
-    GAIN;
+    GAIN,
+    /** A part of the measuring chain (reserved for the bench hypotheses; none is ranked yet). */
+    BENCH,
+    /** Two of the single faults at once, ranked only when no single one explains the sweep. */
+    DOUBLE;
 
-    /** @return the word used in JSON: none, capacitor, bias, gain */
+    /** @return the word used in JSON: none, capacitor, resistor, bias, gain, bench, double */
     public String word() {
         return name().toLowerCase(java.util.Locale.ROOT);
     }

@@ -45,6 +45,8 @@ final class MapSolver {
     Optional<MapPoint> solve(Misfit misfit, double[] start, boolean[] free, boolean exactHessian) {
         int p = misfit.parameters();
         int rows = misfit.rows();
+        boolean[] active = misfit.active();
+        free = moving(free, active);
         double[] theta = start.clone();
         double[] r = new double[rows];
         double[][] jacobian = new double[p][rows];
@@ -62,9 +64,7 @@ final class MapSolver {
         while (iteration < maxIterations && !converged) {
             iteration++;
             normalEquations(jacobian, r, free, normal, gradient);
-            if (free != null) {
-                hold(free, normal, gradient);
-            }
+            hold(free, normal, gradient);
             boolean accepted = false;
             while (!accepted && lambda <= MAX_LAMBDA) {
                 double[][] damped = new double[p][p];
@@ -120,16 +120,27 @@ final class MapSolver {
             }
         }
         // the Hessian for the covariance and the evidence: every column fresh and exact
-        if (exactHessian && !misfit.evaluate(theta, r, jacobian, true, null)) {
+        if (exactHessian && !misfit.evaluate(theta, r, jacobian, true, active)) {
             return Optional.empty();
         }
-        normalEquations(jacobian, r, null, normal, gradient);
+        normalEquations(jacobian, r, active, normal, gradient);
+        hold(active, normal, gradient);
         Optional<Cholesky> factor = Cholesky.of(normal);
         if (factor.isEmpty()) {
             return Optional.empty();
         }
-        return Optional.of(new MapPoint(theta, misfit.dataChiSquared(r), misfit.priorMisfit(r), normal,
-                factor.get().inverse(), factor.get().lnDeterminant(), converged, iteration));
+        return Optional.of(new MapPoint(theta, misfit.dataChiSquared(r), misfit.magnitudeChiSquared(r),
+                misfit.priorMisfit(r), normal, magnitudeNormal(jacobian, misfit.magnitudeRows(), active),
+                factor.get().inverse(), factor.get().lnDeterminant(), active, converged, iteration));
+    }
+
+    // the parameters that move: free (all when null) and active
+    private static boolean[] moving(boolean[] free, boolean[] active) {
+        boolean[] moving = new boolean[active.length];
+        for (int j = 0; j < active.length; j++) {
+            moving[j] = active[j] && (free == null || free[j]);
+        }
+        return moving;
     }
 
     // JᵀJ and Jᵀr from the Jacobian's columns, each entry one contiguous dot product; the rows
@@ -146,6 +157,28 @@ final class MapSolver {
                 normal[j][i] = normal[i][j];
             }
         }
+    }
+
+    // JₘᵀJₘ over the gain rows [0, rows) of the active parameters: the gain part of the Hessian,
+    // kept so that gain and phase σ can be rescaled apart
+    private static double[][] magnitudeNormal(double[][] jacobian, int rows, boolean[] active) {
+        int p = active.length;
+        double[][] normal = new double[p][p];
+        for (int i = 0; i < p; i++) {
+            for (int j = 0; j <= i && active[i]; j++) {
+                if (active[j]) {
+                    double sum = 0;
+                    double[] a = jacobian[i];
+                    double[] b = jacobian[j];
+                    for (int k = 0; k < rows; k++) {
+                        sum += a[k] * b[k];
+                    }
+                    normal[i][j] = sum;
+                    normal[j][i] = sum;
+                }
+            }
+        }
+        return normal;
     }
 
     // four partial sums: independent additions the processor can overlap
@@ -171,23 +204,27 @@ final class MapSolver {
     /** @return the point θ itself with its exact Hessian, no search; empty where the model is undefined */
     Optional<MapPoint> at(Misfit misfit, double[] theta) {
         int p = misfit.parameters();
+        boolean[] active = misfit.active();
         double[] r = new double[misfit.rows()];
         double[][] jacobian = new double[p][misfit.rows()];
-        if (!misfit.evaluate(theta, r, jacobian, true, null)) {
+        if (!misfit.evaluate(theta, r, jacobian, true, active)) {
             return Optional.empty();
         }
         double[][] normal = new double[p][p];
         double[] gradient = new double[p];
-        normalEquations(jacobian, r, null, normal, gradient);
+        normalEquations(jacobian, r, active, normal, gradient);
+        hold(active, normal, gradient);
         Optional<Cholesky> factor = Cholesky.of(normal);
         if (factor.isEmpty()) {
             return Optional.empty();
         }
-        return Optional.of(new MapPoint(theta.clone(), misfit.dataChiSquared(r), misfit.priorMisfit(r), normal,
-                factor.get().inverse(), factor.get().lnDeterminant(), false, 0));
+        return Optional.of(new MapPoint(theta.clone(), misfit.dataChiSquared(r), misfit.magnitudeChiSquared(r),
+                misfit.priorMisfit(r), normal, magnitudeNormal(jacobian, misfit.magnitudeRows(), active),
+                factor.get().inverse(), factor.get().lnDeterminant(), active, false, 0));
     }
 
-    // a held parameter gets a unit row and column and no gradient, so its step is 0
+    // a held or inactive parameter gets a unit row and column and no gradient, so its step is 0
+    // and its ln det contribution is 0
     private static void hold(boolean[] free, double[][] normal, double[] gradient) {
         for (int i = 0; i < free.length; i++) {
             if (free[i]) {

@@ -17,6 +17,7 @@ final class MeasuredResponse {
     private final double[] sigmaMagnitude;
     private final double[] sigmaPhase;
     private final boolean withPhase;
+    private final boolean stated;
 
     /**
      * @param defaultGainDb  σ of the gain where the sweep states none, in dB, positive
@@ -30,6 +31,7 @@ final class MeasuredResponse {
         this.phaseRad = new double[n];
         this.sigmaMagnitude = new double[n];
         this.sigmaPhase = new double[n];
+        boolean allStated = true;
         for (int i = 0; i < n; i++) {
             SweepPoint point = sweep.points().get(i);
             frequenciesHz[i] = point.frequencyHz();
@@ -37,12 +39,20 @@ final class MeasuredResponse {
             double gainSigma = point.gainUncertaintyDb().orElse(defaultGainDb);
             // a stated zero uncertainty would give infinite weight: take the default instead
             sigmaMagnitude[i] = Decibels.toNepers(gainSigma > 0 ? gainSigma : defaultGainDb);
+            allStated &= point.gainUncertaintyDb().orElse(0) > 0;
             if (withPhase) {
                 phaseRad[i] = Math.toRadians(point.phaseDeg().getAsDouble());
                 double phaseSigma = point.phaseUncertaintyDeg().orElse(defaultPhaseDeg);
                 sigmaPhase[i] = Math.toRadians(phaseSigma > 0 ? phaseSigma : defaultPhaseDeg);
+                allStated &= point.phaseUncertaintyDeg().orElse(0) > 0;
             }
         }
+        this.stated = allStated;
+    }
+
+    /** @return whether every point stated its own σ (gain, and phase where measured) */
+    boolean stated() {
+        return stated;
     }
 
     int size() {

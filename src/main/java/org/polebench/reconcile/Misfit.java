@@ -12,7 +12,10 @@ final class Misfit {
     private final BoardModel model;
     private final MeasuredResponse measured;
     private final Prior[] priors;
-    private final double noiseScale;
+    private final double magnitudeScale;
+    private final double phaseScale;
+    /** Which parameters this hypothesis has; the others (resistors it does not free) stay at their means. */
+    private final boolean[] active;
     private final double[] hr;
     private final double[] hi;
     private final double[][] dr;
@@ -24,14 +27,27 @@ final class Misfit {
     private final double[][] columnBias;
     static final double BIAS_REFRESH = 0.1;
 
-    Misfit(BoardModel model, MeasuredResponse measured, Prior[] priors, double noiseScale) {
+    /**
+     * @param active         which parameters the hypothesis has, or null for all; an inactive one
+     *                       must start and stay at its prior mean, and gets no Jacobian column
+     * @param magnitudeScale the factor on every gain σ (a variance component estimated from the
+     *                       residuals; 1 to take the sweep's σ as stated)
+     * @param phaseScale     the factor on every phase σ, likewise
+     */
+    Misfit(BoardModel model, MeasuredResponse measured, Prior[] priors, boolean[] active, double magnitudeScale,
+           double phaseScale) {
         if (priors.length != model.parameterCount()) {
             throw new IllegalArgumentException("one prior per parameter");
         }
         this.model = model;
         this.measured = measured;
         this.priors = priors.clone();
-        this.noiseScale = noiseScale;
+        this.active = new boolean[priors.length];
+        for (int j = 0; j < priors.length; j++) {
+            this.active[j] = active == null || active[j];
+        }
+        this.magnitudeScale = magnitudeScale;
+        this.phaseScale = phaseScale;
         int n = measured.size();
         this.hr = new double[n];
         this.hi = new double[n];
@@ -40,10 +56,10 @@ final class Misfit {
         this.magnitudeWeight = new double[n];
         this.phaseWeight = new double[n];
         for (int k = 0; k < n; k++) {
-            magnitudeWeight[k] = 1 / (measured.sigmaMagnitude(k) * noiseScale);
-            phaseWeight[k] = measured.withPhase() ? 1 / (measured.sigmaPhase(k) * noiseScale) : 0;
+            magnitudeWeight[k] = 1 / (measured.sigmaMagnitude(k) * magnitudeScale);
+            phaseWeight[k] = measured.withPhase() ? 1 / (measured.sigmaPhase(k) * phaseScale) : 0;
         }
-        this.columnBias = new double[model.transistors().size()][];
+        this.columnBias = new double[model.board().size()][];
     }
 
     int responses() {
@@ -62,6 +78,11 @@ final class Misfit {
         return measured.rows() + priors.length;
     }
 
+    /** @return the gain rows, one per point, which come first */
+    int magnitudeRows() {
+        return measured.size();
+    }
+
     int dataRows() {
         return measured.rows();
     }
@@ -70,28 +91,50 @@ final class Misfit {
         return priors[j];
     }
 
-    double noiseScale() {
-        return noiseScale;
+    double magnitudeScale() {
+        return magnitudeScale;
+    }
+
+    double phaseScale() {
+        return phaseScale;
+    }
+
+    /** @return which parameters this hypothesis has (a copy) */
+    boolean[] active() {
+        return active.clone();
+    }
+
+    boolean active(int j) {
+        return active[j];
+    }
+
+    /** @return the squared weighted gain residuals, Σ over the points */
+    double magnitudeChiSquared(double[] residuals) {
+        double sum = 0;
+        for (int r = 0; r < measured.size(); r++) {
+            sum += residuals[r] * residuals[r];
+        }
+        return sum;
     }
 
     /**
      * @param residuals out, {@link #rows()} long
      * @param jacobian  out, or null: ∂residual/∂θ by columns, [parameter][row]
-     * @param exact     true forces every bias column of the Jacobian fresh, and the high band
-     *                  exact; otherwise a bias column is reused until the bias has moved by
-     *                  {@value #BIAS_REFRESH} in ln I since it was made (bias columns change
-     *                  slowly, and each costs a reduction)
-     * @param free      which parameters move, or null for all: a held bias needs no column
-     *                  (unless {@code exact})
+     * @param exact     true forces every active network column of the Jacobian fresh, and the
+     *                  high band exact; otherwise a network column is reused until the network
+     *                  parameters have moved by {@value #BIAS_REFRESH} in ln since it was made
+     *                  (these columns change slowly, and each costs a reduction)
+     * @param free      which parameters move, or null for all: a held network parameter needs no
+     *                  column (unless {@code exact}); an inactive one never gets one
      * @return false where the model is undefined (singular network, H = 0)
      */
     boolean evaluate(double[] theta, double[] residuals, double[][] jacobian, boolean exact, boolean[] free) {
         int caps = model.capacitors().size();
-        int m = model.transistors().size();
+        int m = model.board().size();
         boolean[] fresh = null;
         if (jacobian != null && m > 0) {
             for (int j = 0; j < m; j++) {
-                boolean wanted = exact || free == null || free[caps + j];
+                boolean wanted = active[caps + j] && (exact || free == null || free[caps + j]);
                 boolean stale = exact || columnBias[j] == null || moved(theta, caps, columnBias[j]);
                 if (wanted && stale) {
                     if (fresh == null) {

@@ -1,5 +1,6 @@
 package org.polebench.reconcile;
 
+import java.util.ArrayList;
 import java.util.List;
 import java.util.Optional;
 import java.util.OptionalDouble;
@@ -9,7 +10,7 @@ import org.polebench.analysis.Reduction;
 import org.polebench.analysis.StateModel;
 import org.polebench.circuit.Band;
 import org.polebench.circuit.OperatingPoints;
-import org.polebench.circuit.SmallSignalExpansion;
+import org.polebench.circuit.SmallSignalNetwork;
 import org.polebench.circuit.Stage;
 import org.polebench.fit.Estimate;
 import org.polebench.units.Decibels;
@@ -18,15 +19,15 @@ import org.polebench.units.Decibels;
  * The midband gain and the lower corner of the board as the back-solve sees it: the stage's
  * own model at the MAP estimate, with standard uncertainties propagated to first order from the
  * posterior covariance (GUM 5.1.2): capacitor gradients from the exact corner sensitivities
- * ({@link CornerFinder#cornerSensitivities}), bias gradients by forward difference. The coverage
+ * ({@link CornerFinder#cornerSensitivities}), gradients of the bias currents, β and freed resistors by forward difference. The coverage
  * factor is 2 (GUM 6.3). Stateless.
  */
 public final class ModelMeasurement {
-    private static final double BIAS_STEP = 1e-5;
+    /** Forward-difference step in the ln of a network parameter (bias current, β, resistor). */
+    private static final double STEP = 1e-5;
     public static final double COVERAGE = 2;
 
     private final PortReduction reduction = new PortReduction();
-    private final SmallSignalExpansion expansion = new SmallSignalExpansion();
     private final CornerFinder corners = new CornerFinder();
 
     /** @return midband gain in dB with uncertainty, and the lower corner in Hz when the model has one */
@@ -34,18 +35,24 @@ public final class ModelMeasurement {
         List<ParameterEstimate> parameters = backSolve.parameters();
         int p = parameters.size();
         double[] theta = new double[p];
+        List<String> capacitors = new ArrayList<>();
         for (int j = 0; j < p; j++) {
             theta[j] = parameters.get(j).logEstimate();
+            if (parameters.get(j).parameter().kind() == ParameterKind.CAPACITOR) {
+                capacitors.add(parameters.get(j).parameter().label());
+            }
         }
-        Optional<StateModel> model = model(stage, nominalPoints, parameters, theta);
+        BoardNetwork board = new BoardNetwork(stage, nominalPoints, capacitors);
+        Optional<StateModel> model = model(board, parameters, theta);
         if (model.isEmpty()) {
             return new Measured(Optional.empty(), Optional.empty());
         }
-        double gainDb = Decibels.fromRatio(Math.abs(model.get().directGain())) + Decibels.fromNepers(theta[p - 1]);
+        int gainIndex = indexOf(parameters, ParameterKind.GAIN);
+        double gainDb = Decibels.fromRatio(Math.abs(model.get().directGain())) + Decibels.fromNepers(theta[gainIndex]);
         OptionalDouble corner = corners.lowerCornerRadPerS(model.get());
         double[] gainGradient = new double[p];
         double[] cornerGradient = new double[p];
-        gainGradient[p - 1] = 1 / Decibels.NEPERS_PER_DB;
+        gainGradient[gainIndex] = 1 / Decibels.NEPERS_PER_DB;
         if (corner.isPresent()) {
             double[] s = corners.cornerSensitivities(model.get(), corner.getAsDouble());
             int i = 0;
@@ -56,20 +63,21 @@ public final class ModelMeasurement {
             }
         }
         for (int j = 0; j < p; j++) {
-            if (parameters.get(j).parameter().kind() != ParameterKind.BIAS) {
+            ParameterKind kind = parameters.get(j).parameter().kind();
+            if (kind == ParameterKind.CAPACITOR || kind == ParameterKind.GAIN) {
                 continue;
             }
             double[] stepped = theta.clone();
-            stepped[j] += BIAS_STEP;
-            Optional<StateModel> other = model(stage, nominalPoints, parameters, stepped);
+            stepped[j] += STEP;
+            Optional<StateModel> other = model(board, parameters, stepped);
             if (other.isEmpty()) {
                 continue;
             }
             gainGradient[j] = (Decibels.fromRatio(Math.abs(other.get().directGain()))
-                    - Decibels.fromRatio(Math.abs(model.get().directGain()))) / BIAS_STEP;
+                    - Decibels.fromRatio(Math.abs(model.get().directGain()))) / STEP;
             OptionalDouble moved = corners.lowerCornerRadPerS(other.get());
             if (corner.isPresent() && moved.isPresent()) {
-                cornerGradient[j] = Math.log(moved.getAsDouble() / corner.getAsDouble()) / BIAS_STEP;
+                cornerGradient[j] = Math.log(moved.getAsDouble() / corner.getAsDouble()) / STEP;
             }
         }
         Estimate gain = new Estimate(gainDb, Math.sqrt(quadratic(gainGradient, backSolve, parameters)), COVERAGE);
@@ -80,6 +88,15 @@ public final class ModelMeasurement {
                     COVERAGE));
         }
         return new Measured(Optional.of(gain), lower);
+    }
+
+    private static int indexOf(List<ParameterEstimate> parameters, ParameterKind kind) {
+        for (int j = 0; j < parameters.size(); j++) {
+            if (parameters.get(j).parameter().kind() == kind) {
+                return j;
+            }
+        }
+        throw new IllegalArgumentException("the back-solve has no " + kind + " parameter");
     }
 
     // gᵀΣg with Σ_ij = ρ_ij·u_i·u_j on the log scale
@@ -94,19 +111,38 @@ public final class ModelMeasurement {
         return Math.max(0, sum);
     }
 
-    private Optional<StateModel> model(Stage stage, OperatingPoints points, List<ParameterEstimate> parameters,
-                                       double[] theta) {
-        Stage scaled = stage;
-        OperatingPoints scaledPoints = points;
+    // the back-solve's estimates laid onto the board network's parameter order; a resistor the
+    // hypothesis did not free stays at its value
+    private Optional<StateModel> model(BoardNetwork board, List<ParameterEstimate> parameters, double[] theta) {
+        List<Double> lnCapacitor = new ArrayList<>();
+        double[] lnNetwork = board.nominal();
+        int m = board.transistors().size();
+        int nb = board.bjts().size();
         for (int j = 0; j < parameters.size(); j++) {
             ModelParameter parameter = parameters.get(j).parameter();
-            if (parameter.kind() == ParameterKind.CAPACITOR) {
-                scaled = scaled.withCapacitance(parameter.label(), parameter.valueOf(theta[j]));
-            } else if (parameter.kind() == ParameterKind.BIAS) {
-                scaledPoints = scaledPoints.withCurrentScaled(parameter.label(), Math.exp(theta[j]));
+            switch (parameter.kind()) {
+                case CAPACITOR:
+                    lnCapacitor.add(theta[j]);
+                    break;
+                case BIAS:
+                    lnNetwork[board.transistors().indexOf(parameter.label())] = theta[j];
+                    break;
+                case CURRENT_GAIN:
+                    lnNetwork[m + board.bjts().indexOf(parameter.label())] = theta[j];
+                    break;
+                case RESISTOR:
+                    lnNetwork[m + nb + board.resistors().indexOf(parameter.label())] = theta[j];
+                    break;
+                default:
+                    break;
             }
         }
-        Reduction low = reduction.reduce(expansion.expand(scaled, scaledPoints), Band.LOW);
+        double[] capacitors = lnCapacitor.stream().mapToDouble(Double::doubleValue).toArray();
+        SmallSignalNetwork network = board.network(capacitors, lnNetwork);
+        if (network == null) {
+            return Optional.empty();
+        }
+        Reduction low = reduction.reduce(network, Band.LOW);
         return low instanceof Reduction.StateSpace ? Optional.of(((Reduction.StateSpace) low).model())
                 : Optional.empty();
     }

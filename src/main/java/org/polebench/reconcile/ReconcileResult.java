@@ -16,13 +16,15 @@ import org.polebench.measure.Sweep;
  * @param sideBySide     predicted against measured
  * @param apportionment  the corner error split among the capacitors; empty without a measured
  *                       or a predicted corner
- * @param diagnosis      the ranked single-fault hypotheses, each with its MAP back-solve
+ * @param diagnosis      the ranked fault hypotheses, each with its MAP back-solve
+ * @param adequacy       whether the most probable hypothesis explains the sweep, stated first
  * @param conformity     the verdict against the stage's limits, and the limits left unchecked
  * @param midbandSource  where the verdict's midband gain came from, in words
  * @param cornerSource   where the verdict's lower corner came from, in words
  */
 public record ReconcileResult(StagePrediction predicted, Sweep sweep, FitResult measured, SideBySide sideBySide,
-                              Optional<Apportionment> apportionment, Diagnosis diagnosis, Conformity conformity,
+                              Optional<Apportionment> apportionment, Diagnosis diagnosis, ModelAdequacy adequacy,
+                              Conformity conformity,
                               String midbandSource, String cornerSource) {
 
     /** @return the MAP back-solve of the most probable hypothesis: the estimates to report */

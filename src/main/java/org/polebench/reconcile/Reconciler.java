@@ -34,6 +34,7 @@ import org.polebench.measure.Sweep;
  */
 public final class Reconciler {
     private final FaultRanking ranking = new FaultRanking();
+    private final AdequacyTest adequacyTest = new AdequacyTest();
     private final CornerApportionment apportionment = new CornerApportionment();
     private final LimitAssessment assessment = new LimitAssessment();
     private final ModelMeasurement measurement = new ModelMeasurement();
@@ -82,8 +83,16 @@ public final class Reconciler {
                 throw new CompletionException(problem);
             }
         }, fitExecutor);
-        Diagnosis diagnosis = ranking.rank(predicted.stage(), predicted.operatingPoints(), prediction.lowBand(), sweep);
+        HypothesisSearch search = ranking.search(predicted.stage(), predicted.operatingPoints(), prediction.lowBand(),
+                sweep);
+        Diagnosis diagnosis = search.singles();
         FitResult fit = join(fitting);
+        ModelAdequacy adequacy = adequacyTest.assess(diagnosis, fit, sweep, predicted.spread());
+        if (!adequacy.explained()) {
+            // no single fault explains the sweep: pairs of the most probable ones, then the test again
+            diagnosis = search.withPairs();
+            adequacy = adequacyTest.assess(diagnosis, fit, sweep, predicted.spread());
+        }
         ModelMeasurement.Measured model = measurement.measure(predicted.stage(), predicted.operatingPoints(),
                 diagnosis.top().backSolve());
         boolean adequate = fit.quality().reducedChiSquare() <= FIT_ADEQUATE_CHI_SQUARE;
@@ -134,7 +143,7 @@ public final class Reconciler {
             }
         }
         Conformity conformity = assessment.assess(predicted.stage().limits(), lower, gain, upper, rule);
-        return new ReconcileResult(predicted, sweep, fit, sideBySide, shares, diagnosis, conformity,
+        return new ReconcileResult(predicted, sweep, fit, sideBySide, shares, diagnosis, adequacy, conformity,
                 gainSource, cornerSource);
     }
 

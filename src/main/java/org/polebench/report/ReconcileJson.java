@@ -4,6 +4,7 @@ import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.JsonNodeFactory;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.util.List;
+import java.util.Locale;
 import java.util.Optional;
 import java.util.OptionalDouble;
 import org.polebench.fit.Estimate;
@@ -11,6 +12,10 @@ import org.polebench.reconcile.Apportionment;
 import org.polebench.reconcile.BackSolve;
 import org.polebench.reconcile.CapacitorShare;
 import org.polebench.reconcile.Hypothesis;
+import org.polebench.reconcile.HypothesisKind;
+import org.polebench.reconcile.ModelAdequacy;
+import org.polebench.reconcile.NoiseBasis;
+import org.polebench.reconcile.PartReading;
 import org.polebench.reconcile.LimitCheck;
 import org.polebench.reconcile.ParameterEstimate;
 import org.polebench.reconcile.ParameterKind;
@@ -31,6 +36,7 @@ public final class ReconcileJson {
 
     public ObjectNode of(ReconcileResult result) {
         ObjectNode root = nodes.objectNode();
+        root.set("diagnosis", diagnosis(result.adequacy()));
         root.set("predicted", new PredictionJson().of(result.predicted()));
         root.set("measured", new FitJson().toJson(result.measured()));
         root.set("side_by_side", sideBySide(result.sideBySide()));
@@ -57,6 +63,24 @@ public final class ReconcileJson {
             row.put("u_a", estimate.uncertainty());
             row.put("identifiable", estimate.identifiable());
         }
+        ArrayNode beta = nuisance.putArray("current_gain");
+        for (ParameterEstimate estimate : backSolve.of(ParameterKind.CURRENT_GAIN)) {
+            ObjectNode row = beta.addObject();
+            row.put("id", estimate.parameter().label());
+            row.put("nominal_beta", estimate.parameter().nominal());
+            row.put("estimated_beta", estimate.value());
+            row.put("u_beta", estimate.uncertainty());
+            row.put("identifiable", estimate.identifiable());
+        }
+        ArrayNode resistors = root.putArray("resistors");
+        for (ParameterEstimate estimate : backSolve.of(ParameterKind.RESISTOR)) {
+            ObjectNode row = resistors.addObject();
+            row.put("id", estimate.parameter().label());
+            row.put("nominal_ohms", estimate.parameter().nominal());
+            row.put("estimated_ohms", estimate.value());
+            row.put("u_ohms", estimate.uncertainty());
+            row.put("identifiable", estimate.identifiable());
+        }
         ParameterEstimate gain = backSolve.gain();
         ObjectNode gainNode = nuisance.putObject("gain");
         gainNode.put("estimated_db", gain.value());
@@ -68,11 +92,17 @@ public final class ReconcileJson {
             row.forEach(line::add);
         }
         ObjectNode noise = root.putObject("noise");
-        noise.put("default_gain_sigma_db", result.diagnosis().defaultGainSigmaDb());
-        noise.put("default_phase_sigma_deg", result.diagnosis().defaultPhaseSigmaDeg());
-        noise.put("scale", result.diagnosis().noiseScale());
+        NoiseBasis basis = result.diagnosis().noise();
+        noise.put("stated_by_sweep", basis.stated());
+        noise.put("default_gain_sigma_db", basis.defaultGainSigmaDb());
+        noise.put("default_phase_sigma_deg", basis.defaultPhaseSigmaDeg());
+        noise.put("gain_scale", basis.magnitudeScale());
+        noise.put("phase_scale", basis.phaseScale());
         noise.put("chi_squared", backSolve.chiSquared());
         noise.put("data_rows", backSolve.dataRows());
+        root.put("pairs_ranked", result.diagnosis().pairsRanked());
+        root.put("probabilities_relative", !result.adequacy().explained());
+        root.put("most_likely", DiagnosisText.mostLikely(result.diagnosis(), result.adequacy()));
         ArrayNode hypotheses = root.putArray("hypotheses");
         for (Hypothesis hypothesis : result.diagnosis().hypotheses()) {
             hypotheses.add(hypothesis(hypothesis));
@@ -80,6 +110,27 @@ public final class ReconcileJson {
         root.set("verdict", verdict(result.conformity().verdict(), result.conformity().notChecked(),
                 result.cornerSource(), result.midbandSource()));
         return root;
+    }
+
+    // issue 11: {"explained", "statement", "chi_squared", "degrees_of_freedom", "p_value",
+    // "structure_p_value"}, and the rest of the evidence
+    private ObjectNode diagnosis(ModelAdequacy adequacy) {
+        ObjectNode node = nodes.objectNode();
+        node.put("explained", adequacy.explained());
+        node.put("statement", DiagnosisText.adequacy(adequacy));
+        node.put("looks_like_stage", adequacy.looksLikeStage());
+        node.put("chi_squared", adequacy.chiSquared());
+        node.put("degrees_of_freedom", adequacy.degreesOfFreedom());
+        putOptional(node, "p_value", adequacy.pValue());
+        node.put("p_value_basis", adequacy.basis().name().toLowerCase(Locale.ROOT));
+        node.put("structure_p_value", adequacy.structurePValue());
+        putOptional(node, "free_fit_ratio", adequacy.freeFitRatio());
+        putOptional(node, "free_fit_p_value", adequacy.freeFitPValue());
+        ArrayNode findings = node.putArray("findings");
+        for (ModelAdequacy.Finding finding : adequacy.findings()) {
+            findings.add(finding.name().toLowerCase(Locale.ROOT));
+        }
+        return node;
     }
 
     private ObjectNode hypothesis(Hypothesis hypothesis) {
@@ -92,23 +143,43 @@ public final class ReconcileJson {
         }
         row.put("probability", hypothesis.probability());
         row.put("prior_probability", hypothesis.priorProbability());
+        row.put("identifiable", hypothesis.identifiable());
         if (hypothesis.culprit().isPresent()) {
-            ParameterEstimate culprit = hypothesis.culprit().get();
+            PartReading reading = hypothesis.faults().get(0);
+            ParameterEstimate culprit = reading.estimate();
             row.put("estimated_value", culprit.value());
             row.put("u_value", culprit.uncertainty());
             row.put("unit", culprit.parameter().kind().unit());
             row.put("estimated_factor", culprit.factor());
-            row.put("identifiable", culprit.identifiable());
+            putOptional(row, "nearest_preferred", reading.nearestPreferred());
+            row.put("decade_slip", reading.decadeSlip());
         } else {
             row.putNull("estimated_value");
             row.putNull("u_value");
             row.putNull("unit");
             row.putNull("estimated_factor");
-            row.putNull("identifiable");
+            row.putNull("nearest_preferred");
+            row.put("decade_slip", false);
         }
-        putOptional(row, "nearest_preferred", hypothesis.nearestPreferred());
-        row.put("decade_slip", hypothesis.decadeSlip());
-        row.put("statement", hypothesis.statement());
+        if (hypothesis.kind() == HypothesisKind.DOUBLE) {
+            ArrayNode faults = row.putArray("faults");
+            for (PartReading reading : hypothesis.faults()) {
+                ParameterEstimate estimate = reading.estimate();
+                ObjectNode fault = faults.addObject();
+                fault.put("kind", estimate.parameter().kind().faultKind().word());
+                if (estimate.parameter().part().isPresent()) {
+                    fault.put("part", estimate.parameter().part().get());
+                } else {
+                    fault.putNull("part");
+                }
+                fault.put("estimated_factor", estimate.factor());
+                fault.put("estimated_value", estimate.value());
+                fault.put("u_value", estimate.uncertainty());
+                fault.put("unit", estimate.parameter().kind().unit());
+                fault.put("identifiable", estimate.identifiable());
+            }
+        }
+        row.put("statement", DiagnosisText.statement(hypothesis));
         return row;
     }
 

@@ -11,7 +11,9 @@ import org.polebench.reconcile.Apportionment;
 import org.polebench.reconcile.BackSolve;
 import org.polebench.reconcile.CapacitorShare;
 import org.polebench.reconcile.Hypothesis;
+import org.polebench.reconcile.HypothesisKind;
 import org.polebench.reconcile.LimitCheck;
+import org.polebench.reconcile.NoiseBasis;
 import org.polebench.reconcile.ParameterEstimate;
 import org.polebench.reconcile.ParameterKind;
 import org.polebench.reconcile.ReconcileResult;
@@ -36,6 +38,7 @@ public final class ReconcileText {
             out.println("  " + note);
         }
         out.println();
+        diagnosis(result, out);
         sideBySide(result.sideBySide(), out);
         if (result.apportionment().isPresent()) {
             apportionment(result.apportionment().get(), out);
@@ -43,6 +46,14 @@ public final class ReconcileText {
         backSolve(result, out);
         hypotheses(result, out);
         verdict(result, out);
+    }
+
+    // first, above everything else: whether the stage explains the sweep at all
+    private static void diagnosis(ReconcileResult result, PrintWriter out) {
+        out.println("Does the stage explain the sweep? " + (result.adequacy().explained() ? "yes"
+                : result.adequacy().looksLikeStage() ? "NO" : "NO, and it does not look like a board of this stage"));
+        out.println("  " + DiagnosisText.adequacy(result.adequacy()));
+        out.println();
     }
 
     private static void sideBySide(SideBySide side, PrintWriter out) {
@@ -123,6 +134,14 @@ public final class ReconcileText {
                             + EngineeringValue.format(estimate.uncertainty(), "F", 2),
                     estimate.factor(), estimate.identifiable() ? "yes" : "no (the sweep barely sees it; not blamed)"));
         }
+        for (ParameterEstimate estimate : backSolve.of(ParameterKind.RESISTOR)) {
+            out.println(String.format(Locale.ROOT, "  %-8s %10s %12s %22s %8.3f  %s", estimate.parameter().label(),
+                    EngineeringValue.format(estimate.parameter().nominal(), "Ω", 3),
+                    estimate.parameter().tolerance().get().describe(),
+                    EngineeringValue.format(estimate.value(), "Ω", 3) + " ± "
+                            + EngineeringValue.format(estimate.uncertainty(), "Ω", 2),
+                    estimate.factor(), estimate.identifiable() ? "yes" : "no (the sweep barely sees it; not blamed)"));
+        }
         for (ParameterEstimate estimate : backSolve.of(ParameterKind.BIAS)) {
             out.println(String.format(Locale.ROOT, "  %-8s bias current %s ± %s against %s (×%.3f)%s",
                     estimate.parameter().label(), EngineeringValue.format(estimate.value(), "A", 3),
@@ -130,24 +149,36 @@ public final class ReconcileText {
                     EngineeringValue.format(estimate.parameter().nominal(), "A", 3), estimate.factor(),
                     estimate.identifiable() ? "" : "  (not identifiable)"));
         }
+        for (ParameterEstimate estimate : backSolve.of(ParameterKind.CURRENT_GAIN)) {
+            out.println(String.format(Locale.ROOT, "  %-8s β %.0f ± %.0f against %.0f (×%.3f), device spread%s",
+                    estimate.parameter().label(), estimate.value(), estimate.uncertainty(),
+                    estimate.parameter().nominal(), estimate.factor(),
+                    estimate.identifiable() ? "" : "  (not identifiable)"));
+        }
         ParameterEstimate gain = backSolve.gain();
         out.println(String.format(Locale.ROOT, "  gain calibration %+.3f dB ± %.3f dB%s", gain.value(), gain.uncertainty(),
                 gain.identifiable() ? "" : "  (not identifiable)"));
-        out.println(String.format(Locale.ROOT, "  χ² = %.1f over %d residuals; point σ %s dB and %s° where the sweep "
-                        + "states none, times %.3f (residual scale of the best hypothesis)", backSolve.chiSquared(),
-                backSolve.dataRows(), MeasuredValueFormat.sixFigures(result.diagnosis().defaultGainSigmaDb()),
-                MeasuredValueFormat.sixFigures(result.diagnosis().defaultPhaseSigmaDeg()), result.diagnosis().noiseScale()));
+        NoiseBasis noise = result.diagnosis().noise();
+        out.println(String.format(Locale.ROOT, "  χ² = %.1f over %d residuals; %s, times %.3f for the gain and %.3f "
+                        + "for the phase (the best hypothesis' residual scales)", backSolve.chiSquared(),
+                backSolve.dataRows(), noise.stated() ? "the sweep's own point σ"
+                        : "point σ " + MeasuredValueFormat.sixFigures(noise.defaultGainSigmaDb()) + " dB and "
+                        + MeasuredValueFormat.sixFigures(noise.defaultPhaseSigmaDeg()) + "° (the sweep states none)",
+                noise.magnitudeScale(), noise.phaseScale()));
         out.println();
     }
 
     private static void hypotheses(ReconcileResult result, PrintWriter out) {
-        out.println("Single-fault hypotheses (Laplace evidence; prior: no fault 0.5, the rest share 0.5)");
+        boolean explained = result.adequacy().explained();
+        out.println((result.diagnosis().pairsRanked() ? "Fault hypotheses, single and double" : "Single-fault hypotheses")
+                + " (Laplace evidence; prior: no fault 0.5, single faults share 0.4, pairs share 0.1)"
+                + (explained ? "" : "; RELATIVE probabilities: none of these explains the sweep"));
         for (Hypothesis hypothesis : result.diagnosis().hypotheses()) {
             out.println(String.format(Locale.ROOT, "  %7.3f %%  %-20s %s", 100 * hypothesis.probability(),
-                    hypothesis.label(), hypothesis.kind().word().equals("none") && hypothesis.probability() < 0.5
-                            ? "" : hypothesis.statement()));
+                    hypothesis.label(), hypothesis.kind() == HypothesisKind.NONE && hypothesis.probability() < 0.5
+                            ? "" : DiagnosisText.statement(hypothesis)));
         }
-        out.println("  Most likely: " + result.diagnosis().top().statement());
+        out.println("  Most likely: " + DiagnosisText.mostLikely(result.diagnosis(), result.adequacy()));
         out.println();
     }
 

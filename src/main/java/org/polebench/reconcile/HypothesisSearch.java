@@ -1,0 +1,456 @@
+package org.polebench.reconcile;
+
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.List;
+import java.util.Optional;
+
+/**
+ * The hypotheses of one sweep on one stage, searched as {@link FaultRanking} describes: the
+ * single faults first ({@link #singles()}), then, when asked, pairs of the most probable ones
+ * ({@link #withPairs()}). Keeps every hypothesis' MAP at the stated σ, so that pairs start from
+ * the single faults' estimates and the noise scales are set once more from the best of all.
+ * Holds the board model's caches: one instance belongs to one thread.
+ */
+final class HypothesisSearch {
+    private final MapSolver screen = new MapSolver(FaultRanking.SCREEN_ITERATIONS);
+    private final MapSolver solver = new MapSolver(FaultRanking.MAX_ITERATIONS);
+    private final BoardModel model;
+    private final MeasuredResponse measured;
+    private final List<ModelParameter> parameters;
+    private final Prior[] tolerance;
+    private final double[] mean;
+    /** The parameters every hypothesis has: all but the resistors. */
+    private final boolean[] baseActive;
+    /** Capacitors and gain only: the first phase of a solve, with no reductions. */
+    private final boolean[] networkHeld;
+    /** The parameters a hypothesis may free: all but β. */
+    private final List<Integer> faultable = new ArrayList<>();
+    private final List<Candidate> candidates = new ArrayList<>();
+    private boolean pairsRanked;
+    private Diagnosis last;
+
+    /** One hypothesis: what it frees, its priors, and its MAP at the stated σ. */
+    private static final class Candidate {
+        final HypothesisKind kind;
+        final int[] freed;
+        final Prior[] priors;
+        final boolean[] active;
+        final double logPrior;
+        final Misfit misfit;
+        MapPoint stated;
+
+        Candidate(HypothesisKind kind, int[] freed, Prior[] priors, boolean[] active, double logPrior, Misfit misfit) {
+            this.kind = kind;
+            this.freed = freed;
+            this.priors = priors;
+            this.active = active;
+            this.logPrior = logPrior;
+            this.misfit = misfit;
+        }
+    }
+
+    HypothesisSearch(BoardModel model, MeasuredResponse measured, List<ModelParameter> parameters) {
+        this.model = model;
+        this.measured = measured;
+        this.parameters = List.copyOf(parameters);
+        int p = parameters.size();
+        this.tolerance = new Prior[p];
+        this.mean = new double[p];
+        this.baseActive = new boolean[p];
+        this.networkHeld = new boolean[p];
+        for (int j = 0; j < p; j++) {
+            ModelParameter parameter = parameters.get(j);
+            tolerance[j] = parameter.tolerancePrior();
+            mean[j] = parameter.kind() == ParameterKind.RESISTOR ? 0 : tolerance[j].mean();
+            baseActive[j] = parameter.kind() != ParameterKind.RESISTOR;
+            networkHeld[j] = parameter.kind() == ParameterKind.CAPACITOR || parameter.kind() == ParameterKind.GAIN;
+            if (parameter.kind() != ParameterKind.CURRENT_GAIN) {
+                faultable.add(j);
+            }
+        }
+    }
+
+    /** @return the single-fault ranking (also kept, for {@link #withPairs()}) */
+    Diagnosis singles() {
+        int p = parameters.size();
+        double singlePrior = Math.log(FaultRanking.SINGLE_FAULTS_PRIOR / faultable.size());
+        Candidate none = new Candidate(HypothesisKind.NONE, new int[0], tolerance, baseActive,
+                Math.log(FaultRanking.NO_FAULT_PRIOR), misfit(tolerance, baseActive, 1, 1));
+        none.stated = solve(none.misfit, List.of(mean), networkHeld);
+        candidates.add(none);
+        for (int j : faultable) {
+            Prior[] priors = tolerance.clone();
+            priors[j] = parameters.get(j).faultPrior();
+            boolean[] active = baseActive.clone();
+            active[j] = true;
+            Candidate single = new Candidate(parameters.get(j).kind().faultKind(), new int[] {j}, priors, active,
+                    singlePrior, misfit(priors, active, 1, 1));
+            boolean[] free = networkHeld.clone();
+            if (parameters.get(j).kind() != ParameterKind.CAPACITOR && parameters.get(j).kind() != ParameterKind.GAIN) {
+                // screen with only the freed network parameter moving among the network ones
+                free[j] = true;
+            }
+            single.stated = screen(single.misfit, starts(none.stated.theta(), j), free);
+            candidates.add(single);
+        }
+        convergeNear();
+        last = finish();
+        return last;
+    }
+
+    /**
+     * Ranks pairs of the {@value FaultRanking#PAIRED_SINGLES} most probable single faults beside
+     * the singles, and sets the noise scales again from the best of all.
+     *
+     * @return the ranking with pairs
+     * @throws IllegalStateException before {@link #singles()}
+     */
+    Diagnosis withPairs() {
+        if (last == null) {
+            throw new IllegalStateException("pairs are ranked after the single faults");
+        }
+        if (pairsRanked) {
+            return last;
+        }
+        List<Candidate> singles = new ArrayList<>();
+        for (Hypothesis hypothesis : last.hypotheses()) {
+            if (hypothesis.kind() != HypothesisKind.NONE && hypothesis.kind() != HypothesisKind.DOUBLE
+                    && singles.size() < FaultRanking.PAIRED_SINGLES) {
+                singles.add(candidateOf(hypothesis));
+            }
+        }
+        int s = faultable.size();
+        double pairPrior = Math.log(FaultRanking.DOUBLE_FAULTS_PRIOR / Math.max(1, s * (s - 1) / 2.0));
+        for (int a = 0; a < singles.size(); a++) {
+            for (int b = a + 1; b < singles.size(); b++) {
+                Candidate first = singles.get(a);
+                Candidate second = singles.get(b);
+                int i = first.freed[0];
+                int j = second.freed[0];
+                Prior[] priors = tolerance.clone();
+                priors[i] = parameters.get(i).faultPrior();
+                priors[j] = parameters.get(j).faultPrior();
+                boolean[] active = baseActive.clone();
+                active[i] = true;
+                active[j] = true;
+                Candidate pair = new Candidate(HypothesisKind.DOUBLE, new int[] {i, j}, priors, active, pairPrior,
+                        misfit(priors, active, 1, 1));
+                // from each single's MAP with the other's freed value put in
+                double[] fromFirst = first.stated.theta();
+                fromFirst[j] = second.stated.theta(j);
+                double[] fromSecond = second.stated.theta();
+                fromSecond[i] = first.stated.theta(i);
+                pair.stated = solve(pair.misfit, List.of(fromFirst, fromSecond), null);
+                candidates.add(pair);
+            }
+        }
+        pairsRanked = true;
+        last = finish();
+        return last;
+    }
+
+    private Candidate candidateOf(Hypothesis hypothesis) {
+        for (Candidate candidate : candidates) {
+            if (candidate.kind == hypothesis.kind() && candidate.freed.length == hypothesis.faults().size()
+                    && (candidate.freed.length == 0 || parameters.get(candidate.freed[0])
+                    .equals(hypothesis.faults().get(0).estimate().parameter()))) {
+                return candidate;
+            }
+        }
+        throw new IllegalStateException("no candidate for " + hypothesis.label());
+    }
+
+    private Misfit misfit(Prior[] priors, boolean[] active, double magnitudeScale, double phaseScale) {
+        return new Misfit(model, measured, priors, active, magnitudeScale, phaseScale);
+    }
+
+    // a hypothesis far behind after screening keeps its screened point: its probability is below
+    // e^-SKIP_NATS either way, and converging it would not change the ranking
+    private void convergeNear() {
+        double[] lnZ = evidence(statedPoints());
+        double best = Double.NEGATIVE_INFINITY;
+        for (int h = 0; h < candidates.size(); h++) {
+            best = Math.max(best, candidates.get(h).logPrior + lnZ[h]);
+        }
+        for (int h = 1; h < candidates.size(); h++) {
+            Candidate candidate = candidates.get(h);
+            if (candidate.logPrior + lnZ[h] > best - FaultRanking.SKIP_NATS) {
+                candidate.stated = solve(candidate.misfit, List.of(candidate.stated.theta()), networkHeld);
+            }
+        }
+    }
+
+    private List<MapPoint> statedPoints() {
+        List<MapPoint> points = new ArrayList<>();
+        for (Candidate candidate : candidates) {
+            points.add(candidate.stated);
+        }
+        return points;
+    }
+
+    // the noise scales from the best hypothesis at the stated σ, every hypothesis rescaled, the
+    // near ones solved again when the gain-to-phase weighting changed, and the probabilities
+    private Diagnosis finish() {
+        List<MapPoint> stated = statedPoints();
+        double[] lnZ = evidence(stated);
+        int best = argMax(lnZ);
+        Candidate top = candidates.get(best);
+        double effective = top.stated.effectiveParameters(top.priors);
+        int n = measured.size();
+        double magnitudeScale;
+        double phaseScale;
+        if (measured.stated()) {
+            double nu = Math.max(1, measured.rows() - effective);
+            magnitudeScale = Math.sqrt(Math.max(1, top.stated.dataChiSquared() / nu));
+            phaseScale = magnitudeScale;
+        } else if (measured.withPhase()) {
+            double nu = Math.max(1, n - effective / 2);
+            magnitudeScale = Math.sqrt(Math.max(1, top.stated.magnitudeChiSquared() / nu));
+            phaseScale = Math.sqrt(Math.max(1, top.stated.phaseChiSquared() / nu));
+        } else {
+            magnitudeScale = Math.sqrt(Math.max(1, top.stated.dataChiSquared() / Math.max(1, n - effective)));
+            phaseScale = magnitudeScale;
+        }
+        List<MapPoint> points = new ArrayList<>();
+        for (Candidate candidate : candidates) {
+            points.add(magnitudeScale > 1 || phaseScale > 1
+                    ? candidate.stated.withNoiseScales(magnitudeScale, phaseScale, candidate.priors) : candidate.stated);
+        }
+        List<Misfit> scaled = new ArrayList<>();
+        for (Candidate candidate : candidates) {
+            scaled.add(magnitudeScale > 1 || phaseScale > 1
+                    ? misfit(candidate.priors, candidate.active, magnitudeScale, phaseScale) : candidate.misfit);
+        }
+        if (Math.abs(Math.log(magnitudeScale / phaseScale)) > Math.log(REWEIGHT_RATIO)) {
+            // the weighting of gain against phase changed: the MAPs move, not only the widths
+            lnZ = evidence(points);
+            double bestScaled = Double.NEGATIVE_INFINITY;
+            for (int h = 0; h < candidates.size(); h++) {
+                bestScaled = Math.max(bestScaled, candidates.get(h).logPrior + lnZ[h]);
+            }
+            for (int h = 0; h < candidates.size(); h++) {
+                if (candidates.get(h).logPrior + lnZ[h] > bestScaled - FaultRanking.SKIP_NATS) {
+                    MapPoint again = solve(scaled.get(h), List.of(points.get(h).theta()), null);
+                    points.set(h, again);
+                }
+            }
+        }
+        lnZ = evidence(points);
+        double[] logPosterior = new double[lnZ.length];
+        double max = Double.NEGATIVE_INFINITY;
+        for (int h = 0; h < lnZ.length; h++) {
+            logPosterior[h] = candidates.get(h).logPrior + lnZ[h];
+            max = Math.max(max, logPosterior[h]);
+        }
+        double sum = 0;
+        for (double v : logPosterior) {
+            sum += Math.exp(v - max);
+        }
+        List<Hypothesis> hypotheses = new ArrayList<>();
+        int topIndex = 0;
+        for (int h = 0; h < lnZ.length; h++) {
+            if (logPosterior[h] > logPosterior[topIndex]) {
+                topIndex = h;
+            }
+            Candidate candidate = candidates.get(h);
+            double probability = Math.exp(logPosterior[h] - max) / sum;
+            BackSolve backSolve = backSolve(points.get(h), candidate, candidate.stated.dataChiSquared());
+            hypotheses.add(hypothesis(candidate, lnZ[h], probability, backSolve));
+        }
+        hypotheses.sort(Comparator.comparingDouble(Hypothesis::probability).reversed());
+        BestResiduals residuals = residuals(scaled.get(topIndex), points.get(topIndex), candidates.get(topIndex));
+        NoiseBasis noise = new NoiseBasis(measured.stated(), FaultRanking.DEFAULT_GAIN_SIGMA_DB,
+                FaultRanking.DEFAULT_PHASE_SIGMA_DEG, magnitudeScale, phaseScale);
+        return new Diagnosis(hypotheses, noise, measured.withPhase(), pairsRanked, residuals);
+    }
+
+    /** Gain and phase scales further apart than this ratio: the near hypotheses are solved again. */
+    static final double REWEIGHT_RATIO = 1.5;
+
+    private BestResiduals residuals(Misfit misfit, MapPoint point, Candidate candidate) {
+        double[] r = new double[misfit.rows()];
+        if (!misfit.evaluate(point.theta(), r, null, true, null)) {
+            throw new IllegalStateException("the stage's model is undefined at the best hypothesis' MAP");
+        }
+        int n = measured.size();
+        List<Double> frequencies = new ArrayList<>(n);
+        List<Double> magnitude = new ArrayList<>(n);
+        List<Double> phase = new ArrayList<>(n);
+        List<Double> magnitudeSigma = new ArrayList<>(n);
+        List<Double> phaseSigma = new ArrayList<>(n);
+        double[] hz = measured.frequenciesHz();
+        for (int k = 0; k < n; k++) {
+            frequencies.add(hz[k]);
+            magnitude.add(r[k]);
+            magnitudeSigma.add(measured.sigmaMagnitude(k) * misfit.magnitudeScale());
+            if (measured.withPhase()) {
+                phase.add(r[n + k]);
+                phaseSigma.add(measured.sigmaPhase(k) * misfit.phaseScale());
+            }
+        }
+        return new BestResiduals(frequencies, magnitude, phase, magnitudeSigma, phaseSigma,
+                candidate.stated.dataChiSquared(), candidate.stated.effectiveParameters(candidate.priors));
+    }
+
+    // From the no-fault MAP, and from the tolerance means with the freed parameter at its mean
+    // (and a decade either side for a capacitor or a resistor): when one part is far off, the
+    // no-fault MAP has bent the others to compensate, and the means are the better place to
+    // start them. The means start is left out when the no-fault MAP lies within one prior σ of
+    // the means in every parameter: the two starts are then the same basin.
+    private List<double[]> starts(double[] noFault, int j) {
+        List<double[]> starts = new ArrayList<>();
+        starts.add(noFault.clone());
+        boolean bent = false;
+        for (int i = 0; i < mean.length; i++) {
+            bent |= baseActive[i] && Math.abs(noFault[i] - mean[i]) > tolerance[i].standardDeviation();
+        }
+        ParameterKind kind = parameters.get(j).kind();
+        boolean valued = kind == ParameterKind.CAPACITOR || kind == ParameterKind.RESISTOR;
+        double[] offsets = valued
+                ? (bent ? new double[] {0, -Math.log(10), Math.log(10)} : new double[] {-Math.log(10), Math.log(10)})
+                : (bent ? new double[] {0} : new double[0]);
+        for (double offset : offsets) {
+            double[] start = mean.clone();
+            start[j] = tolerance[j].mean() + offset;
+            starts.add(start);
+        }
+        if (kind == ParameterKind.RESISTOR && !bent) {
+            // the resistor's own nominal value, from the no-fault MAP
+            double[] start = noFault.clone();
+            start[j] = tolerance[j].mean();
+            starts.set(0, start);
+        }
+        return starts;
+    }
+
+    // every start with the network held but the freed parameter, the best one kept
+    private MapPoint screen(Misfit misfit, List<double[]> starts, boolean[] free) {
+        MapPoint best = null;
+        for (double[] start : starts) {
+            Optional<MapPoint> point = screen.solve(misfit, start, free, false);
+            if (point.isPresent() && (best == null || point.get().objective() < best.objective())) {
+                best = point.get();
+            }
+        }
+        if (best == null) {
+            // every start leaves the amplifying region or the model undefined: the hypothesis is
+            // held at the no-fault estimate, where the model is defined
+            return screen.at(misfit, starts.get(0)).orElseThrow(
+                    () -> new IllegalStateException("the stage's model is undefined at the no-fault estimate"));
+        }
+        // the best start's Hessian exact, for the evidence of a hypothesis that stops here
+        return screen.at(misfit, best.theta()).orElse(best);
+    }
+
+    // network held first (no reductions while the capacitors move), then everything free: the
+    // network moves little under its priors, so the second phase takes a few iterations
+    private MapPoint solve(Misfit misfit, List<double[]> starts, boolean[] held) {
+        MapPoint best = null;
+        for (double[] start : starts) {
+            double[] from = start;
+            if (held != null) {
+                // only a start for the next phase: its Hessian is not wanted
+                Optional<MapPoint> first = solver.solve(misfit, start, held, false);
+                if (first.isPresent()) {
+                    from = first.get().theta();
+                }
+            }
+            Optional<MapPoint> point = solver.solve(misfit, from);
+            if (point.isPresent() && (best == null || point.get().objective() < best.objective())) {
+                best = point.get();
+            }
+        }
+        if (best == null) {
+            throw new IllegalStateException("the stage's model is undefined at the back-solve's start");
+        }
+        return best;
+    }
+
+    private double[] evidence(List<MapPoint> points) {
+        double[] lnZ = new double[points.size()];
+        for (int h = 0; h < points.size(); h++) {
+            MapPoint point = points.get(h);
+            Candidate candidate = candidates.get(h);
+            double lnSigma = 0;
+            for (int j = 0; j < candidate.priors.length; j++) {
+                if (candidate.active[j]) {
+                    lnSigma += Math.log(candidate.priors[j].standardDeviation());
+                }
+            }
+            // ln det(Σp·H) = ln det H + 2·Σ ln σ_j over the hypothesis' own parameters (an
+            // inactive one has a unit row in H and no prior)
+            lnZ[h] = -0.5 * point.objective() - 0.5 * point.lnDetHessian() - lnSigma;
+        }
+        return lnZ;
+    }
+
+    private int argMax(double[] lnZ) {
+        int best = 0;
+        for (int h = 1; h < lnZ.length; h++) {
+            if (candidates.get(h).logPrior + lnZ[h] > candidates.get(best).logPrior + lnZ[best]) {
+                best = h;
+            }
+        }
+        return best;
+    }
+
+    private BackSolve backSolve(MapPoint point, Candidate candidate, double chiSquaredAtStated) {
+        int p = parameters.size();
+        Prior[] priors = candidate.priors;
+        // identifiability at this MAP: swap this hypothesis' prior curvature for the tolerance one
+        double[][] withTolerance = new double[p][p];
+        for (int i = 0; i < p; i++) {
+            for (int j = 0; j < p; j++) {
+                withTolerance[i][j] = point.hessian(i, j);
+            }
+            if (candidate.active[i]) {
+                withTolerance[i][i] += 1 / sq(tolerance[i].standardDeviation()) - 1 / sq(priors[i].standardDeviation());
+            }
+        }
+        double[][] toleranceCovariance = Cholesky.of(withTolerance).map(Cholesky::inverse).orElse(null);
+        List<ParameterEstimate> estimates = new ArrayList<>();
+        List<Integer> kept = new ArrayList<>();
+        for (int i = 0; i < p; i++) {
+            if (!candidate.active[i]) {
+                continue;
+            }
+            kept.add(i);
+            double u = Math.sqrt(point.covariance(i, i));
+            double reference = tolerance[i].standardDeviation();
+            if (parameters.get(i).kind() == ParameterKind.RESISTOR) {
+                reference = Math.max(reference, FaultRanking.RESISTOR_REFERENCE_SIGMA);
+            }
+            boolean identifiable = toleranceCovariance != null
+                    && Math.sqrt(toleranceCovariance[i][i]) < FaultRanking.IDENTIFIABLE_RATIO * reference;
+            estimates.add(new ParameterEstimate(parameters.get(i), point.theta(i), u, priors[i].standardDeviation(),
+                    identifiable));
+        }
+        List<List<Double>> correlation = new ArrayList<>();
+        for (int i : kept) {
+            List<Double> row = new ArrayList<>(kept.size());
+            for (int j : kept) {
+                row.add(point.covariance(i, j) / Math.sqrt(point.covariance(i, i) * point.covariance(j, j)));
+            }
+            correlation.add(row);
+        }
+        return new BackSolve(estimates, correlation, chiSquaredAtStated, measured.rows(), point.converged());
+    }
+
+    private static double sq(double x) {
+        return x * x;
+    }
+
+    private Hypothesis hypothesis(Candidate candidate, double logEvidence, double probability, BackSolve backSolve) {
+        List<PartReading> faults = new ArrayList<>();
+        boolean identifiable = true;
+        for (int j : candidate.freed) {
+            ParameterEstimate estimate = backSolve.of(parameters.get(j));
+            faults.add(PartReading.of(estimate));
+            identifiable &= estimate.identifiable();
+        }
+        double prior = Math.exp(candidate.logPrior);
+        return new Hypothesis(candidate.kind, faults, prior, logEvidence, probability,
+                candidate.kind == HypothesisKind.NONE || identifiable, backSolve);
+    }
+}

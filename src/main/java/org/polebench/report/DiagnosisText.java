@@ -1,0 +1,159 @@
+package org.polebench.report;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import org.polebench.reconcile.Diagnosis;
+import org.polebench.reconcile.Hypothesis;
+import org.polebench.reconcile.HypothesisKind;
+import org.polebench.reconcile.ModelAdequacy;
+import org.polebench.reconcile.ParameterEstimate;
+import org.polebench.reconcile.ParameterKind;
+import org.polebench.reconcile.PartReading;
+import org.polebench.units.EngineeringValue;
+
+/**
+ * The sentences of a diagnosis: each hypothesis in plain words, whether the stage explains the
+ * sweep, and the "most likely" line. One writer for the terminal, the JSON and the report, so
+ * the three say the same.
+ */
+public final class DiagnosisText {
+    private DiagnosisText() {
+    }
+
+    /** @return the hypothesis in plain words */
+    public static String statement(Hypothesis hypothesis) {
+        if (hypothesis.kind() == HypothesisKind.NONE) {
+            return "no fault: the sweep agrees with the stage within its part tolerances";
+        }
+        if (hypothesis.kind() == HypothesisKind.DOUBLE) {
+            return "two faults at once: " + reading(hypothesis.faults().get(0)) + "; and "
+                    + reading(hypothesis.faults().get(1));
+        }
+        return reading(hypothesis.faults().get(0));
+    }
+
+    private static String reading(PartReading reading) {
+        ParameterEstimate estimate = reading.estimate();
+        String label = estimate.parameter().label();
+        if (!estimate.identifiable()) {
+            String what = estimate.parameter().kind() == ParameterKind.BIAS ? label + " bias current"
+                    : estimate.parameter().kind() == ParameterKind.GAIN ? "the gain calibration" : label;
+            return what + " cannot be identified from this sweep (its effect lies outside the swept band or is "
+                    + "masked by other parts): not blamed";
+        }
+        switch (estimate.parameter().kind()) {
+            case CAPACITOR:
+            case RESISTOR:
+                return valued(reading);
+            case BIAS:
+                return String.format(Locale.ROOT, "%s bias current reads %s ± %s against %s designed (×%s): "
+                                + "check its bias network and supply", label,
+                        EngineeringValue.format(estimate.value(), "A", 3),
+                        EngineeringValue.format(estimate.uncertainty(), "A", 1),
+                        EngineeringValue.format(estimate.parameter().nominal(), "A", 3), factor(estimate.factor()));
+            default:
+                double db = estimate.value();
+                double tenfold = Math.abs(Math.abs(db) - 20);
+                return String.format(Locale.ROOT, "a flat gain error of %+.2f dB ± %.2f dB (×%s)", db,
+                        estimate.uncertainty(), factor(estimate.factor()))
+                        + (tenfold < 1 ? ": likely a ×10 probe or attenuator setting mixed up"
+                        : ": a probe, attenuator or generator level mistake");
+        }
+    }
+
+    private static String valued(PartReading reading) {
+        ParameterEstimate estimate = reading.estimate();
+        String unit = estimate.parameter().kind() == ParameterKind.CAPACITOR ? "F" : "Ω";
+        String label = estimate.parameter().label();
+        double nominal = estimate.parameter().nominal();
+        String text = String.format(Locale.ROOT, "%s reads %s ± %s against %s nominal (×%s)", label,
+                EngineeringValue.format(estimate.value(), unit, 2), EngineeringValue.format(estimate.uncertainty(), unit, 1),
+                EngineeringValue.format(nominal, unit, 2), factor(estimate.factor()));
+        if (reading.nearestPreferred().isEmpty()) {
+            return text;
+        }
+        double near = reading.nearestPreferred().getAsDouble();
+        String series = reading.series().map(Enum::name).orElse("");
+        String band = estimate.parameter().tolerance().map(t -> t.describe()).orElse("");
+        if (reading.fitsPreferredPart() && Math.abs(near / nominal - 1) > 1e-9) {
+            return text + ": likely a " + EngineeringValue.format(near, unit, 2) + " part"
+                    + (reading.decadeSlip() ? ", a decade slip" : " (" + series + " series)");
+        }
+        if (reading.fitsPreferredPart()) {
+            return text + ": within its " + band + " tolerance";
+        }
+        return text + ": outside its " + band + " tolerance and no " + series + " value fits (nearest "
+                + EngineeringValue.format(near, unit, 2) + "); "
+                + (estimate.parameter().kind() == ParameterKind.CAPACITOR ? "an aged, damaged or misfitted part"
+                : "a damaged part, a bad joint or a misfitted value");
+    }
+
+    private static String factor(double factor) {
+        return String.format(Locale.ROOT, "%.3g", factor);
+    }
+
+    /** @return whether the stage explains the sweep, in one or two sentences, the evidence named */
+    public static String adequacy(ModelAdequacy adequacy) {
+        StringBuilder text = new StringBuilder();
+        if (adequacy.explained()) {
+            text.append("The stage explains the sweep: ");
+        } else if (!adequacy.looksLikeStage()) {
+            text.append("This sweep does not look like a board of this stage: ");
+        } else {
+            text.append("The stage does not explain the sweep: no hypothesis fits it as well as the noise allows; ");
+        }
+        text.append(String.join("; ", evidence(adequacy))).append('.');
+        if (!adequacy.explained()) {
+            text.append(" Likely causes: a wrong stage file or board; the measuring chain (an AC-coupled scope "
+                    + "channel, a probe setting, the generator's output resistance); or a fault outside the "
+                    + "hypotheses (several parts, a dead device).");
+        }
+        return text.toString();
+    }
+
+    private static List<String> evidence(ModelAdequacy adequacy) {
+        List<String> evidence = new ArrayList<>();
+        evidence.add(String.format(Locale.ROOT, "χ² = %s over ν = %d", MeasuredValueFormat.sixFigures(
+                adequacy.chiSquared()), adequacy.degreesOfFreedom())
+                + (adequacy.basis() == ModelAdequacy.PValueBasis.STATED_UNCERTAINTIES
+                ? " at the sweep's stated uncertainties, p = " + p(adequacy.pValue().getAsDouble()) : ""));
+        if (adequacy.freeFitRatio().isPresent()) {
+            evidence.add(String.format(Locale.ROOT, "χ²/ν %s× that of a free rational fit of the same sweep, p = %s",
+                    String.format(Locale.ROOT, "%.3g", adequacy.freeFitRatio().getAsDouble()),
+                    p(adequacy.freeFitPValue().getAsDouble())));
+        }
+        evidence.add("residual runs along frequency p = " + p(adequacy.structurePValue()));
+        for (ModelAdequacy.Finding finding : adequacy.findings()) {
+            switch (finding) {
+                case CORNER_OUTSIDE_SPREAD:
+                    evidence.add("the measured lower corner lies far outside every board of the tolerance spread");
+                    break;
+                case FAR_FROM_EVERY_HYPOTHESIS:
+                    evidence.add("every hypothesis misses the sweep by far more than a free fit does");
+                    break;
+                default:
+                    break;
+            }
+        }
+        return evidence;
+    }
+
+    private static String p(double p) {
+        return p < 1e-4 ? "< 0.0001" : String.format(Locale.ROOT, "%.4f", p);
+    }
+
+    /** @return the "most likely" line: a named hypothesis, or a plain statement that none is named */
+    public static String mostLikely(Diagnosis diagnosis, ModelAdequacy adequacy) {
+        if (!adequacy.explained()) {
+            Hypothesis closest = diagnosis.top();
+            return "no hypothesis explains the sweep; the closest is \"" + closest.label()
+                    + "\" (probabilities are relative among hypotheses that do not explain it)";
+        }
+        if (diagnosis.mostLikely().isEmpty()) {
+            return "none can be named: the most probable, \"" + diagnosis.top().label()
+                    + "\", is not identifiable from this sweep";
+        }
+        return statement(diagnosis.mostLikely().get());
+    }
+}
