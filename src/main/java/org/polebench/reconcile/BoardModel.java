@@ -161,18 +161,24 @@ final class BoardModel {
             }
             double[] stepped = lnBias.clone();
             stepped[j] += BIAS_STEP;
-            // the derivative leaves out the high band's small bias dependence (its value is kept):
-            // a Jacobian only steers the search, the residuals fix where it ends
+            // between exact evaluations the derivative leaves out the high band's dependence on
+            // the network (its value is kept): a Jacobian only steers the search. The exact
+            // evaluation, whose Jacobian gives the Hessian of the evidence, steps the high band
+            // too, since a resistor moves the Miller capacitances' corners as well.
             Reduced other = reduced(stepped);
-            if (other == null || !response(other, null, theta, steppedRe, steppedIm, null, null)) {
+            HighFactor otherHigh = !exactHighBand || other == null ? null : highFactor(stepped, true, other.d);
+            if (other == null || (exactHighBand && otherHigh == null)
+                    || !response(other, otherHigh, theta, steppedRe, steppedIm, null, null)) {
                 return false;
             }
+            double[] baseRe = exactHighBand ? hRe : lowRe;
+            double[] baseIm = exactHighBand ? hIm : lowIm;
             for (int n = 0; n < omegas.length; n++) {
-                // ln(H'/H)/h against the low band of this very call: a ratio, so no branch cut of
+                // ln(H'/H)/h against the response of this very call: a ratio, so no branch cut of
                 // the logarithm is crossed
-                double size = lowRe[n] * lowRe[n] + lowIm[n] * lowIm[n];
-                double qr = (steppedRe[n] * lowRe[n] + steppedIm[n] * lowIm[n]) / size;
-                double qi = (steppedIm[n] * lowRe[n] - steppedRe[n] * lowIm[n]) / size;
+                double size = baseRe[n] * baseRe[n] + baseIm[n] * baseIm[n];
+                double qr = (steppedRe[n] * baseRe[n] + steppedIm[n] * baseIm[n]) / size;
+                double qi = (steppedIm[n] * baseRe[n] - steppedRe[n] * baseIm[n]) / size;
                 dRe[k + j][n] = 0.5 * Math.log(qr * qr + qi * qi) / BIAS_STEP;
                 dIm[k + j][n] = Math.atan2(qi, qr) / BIAS_STEP;
             }

@@ -18,8 +18,25 @@ import org.polebench.measure.BoardSynthesizer;
 class BoardModelTest {
     private static final double[] FREQUENCIES_HZ = BoardSynthesizer.logSpaced(0.5, 5000, 100).stream()
             .mapToDouble(Double::doubleValue).toArray();
-    /** Capacitors off by up to a decade, both bias currents moved, a flat gain of +0.87 dB. */
-    private static final double[] THETA = {0.1, -0.2, -Math.log(10), 0.3, 0.05, -0.15, 0.1, 0.1};
+    /**
+     * Capacitors off by up to a decade, both bias currents and both β moved, the first two
+     * resistors moved (the bias solved again), a flat gain of +0.87 dB.
+     */
+    private static final double[] THETA = theta();
+
+    private static double[] theta() {
+        try {
+            DemoBoards demo = new DemoBoards(DemoBoards.GEOPHONE);
+            int resistors = demo.stage.resistors().size();
+            double[] theta = new double[5 + 2 + 2 + resistors + 1];
+            double[] head = {0.1, -0.2, -Math.log(10), 0.3, 0.05, -0.15, 0.1, 0.2, -0.3, 0.05, -0.04};
+            System.arraycopy(head, 0, theta, 0, head.length);
+            theta[theta.length - 1] = 0.1;
+            return theta;
+        } catch (InputProblem problem) {
+            throw new IllegalStateException(problem);
+        }
+    }
 
     @Test
     void responseMatchesTheFullMnaSolveOfTheSameBoard() throws InputProblem {
@@ -50,12 +67,12 @@ class BoardModelTest {
         int f = FREQUENCIES_HZ.length;
         int p = model.parameterCount();
         int k = model.capacitors().size();
-        List<String> transistors = model.transistors();
+        int networkParameters = model.board().size();
         double[] hr = new double[f];
         double[] hi = new double[f];
         double[][] dRe = new double[p][f];
         double[][] dIm = new double[p][f];
-        boolean[] bias = new boolean[transistors.size()];
+        boolean[] bias = new boolean[networkParameters];
         java.util.Arrays.fill(bias, true);
         assertTrue(model.evaluate(THETA, hr, hi, dRe, dIm, bias, true));
         double h = 1e-4;
@@ -70,12 +87,13 @@ class BoardModelTest {
             double[] li = new double[f];
             assertTrue(model.evaluate(up, ur, ui, null, null, null, true));
             assertTrue(model.evaluate(down, lr, li, null, null, null, true));
-            boolean isBias = j >= k && j < k + transistors.size();
+            boolean isBias = j >= k && j < k + networkParameters;
             // central difference: truncation h²/6·|d³lnH/dθ³| (Nocedal and Wright, Numerical
             // Optimization, 2nd ed., 8.1), up to 1.3e-7 here against columns of order 1, so 1e-6
             // for the capacitor and gain columns, which are exact. A bias column is a forward
             // difference that leaves out the high band's own bias dependence (BoardModel's
-            // Javadoc): 2e-3 at the top of this sweep for Q2, so 1e-2 there.
+            // Javadoc): 2e-3 at the top of this sweep for Q2, so 1e-2 there; the same holds for
+            // the β and resistor columns, which move the bias point too.
             double tolerance = isBias ? 1e-2 : 1e-6;
             for (int n = 0; n < f; n++) {
                 Complex ratio = new Complex(ur[n], ui[n]).divide(new Complex(lr[n], li[n]));
