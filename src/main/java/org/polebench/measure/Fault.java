@@ -43,6 +43,15 @@ public sealed interface Fault
     /** @return the fault in words for a sweep's provenance notes */
     String describe();
 
+    /**
+     * @param designed the stage as designed, holding this fault's part
+     * @return the part's value in the stage file, such as "RE = 1.2 kΩ", for a hint; empty for
+     *         the kinds that change no part
+     */
+    default String designedValue(Stage designed) {
+        return "";
+    }
+
     /** The healthy board: nothing differs from the stage file. */
     record None() implements Fault {
         @Override
@@ -71,6 +80,11 @@ public sealed interface Fault
         public String describe() {
             return capacitor + " fitted as " + EngineeringValue.format(farads, "F");
         }
+
+        @Override
+        public String designedValue(Stage designed) {
+            return capacitor + " = " + EngineeringValue.format(designed.capacitor(capacitor).farads(), "F");
+        }
     }
 
     /**
@@ -98,11 +112,17 @@ public sealed interface Fault
         public String describe() {
             return resistor + " fitted as " + EngineeringValue.format(ohms, "Ω");
         }
+
+        @Override
+        public String designedValue(Stage designed) {
+            return resistor + " = " + EngineeringValue.format(designed.resistor(resistor).ohms(), "Ω");
+        }
     }
 
     /**
-     * A bipolar transistor whose current gain β differs from the stage file's (ordinary part
-     * spread is a factor of two or more either way). β sets rπ = β/gm in small signal, and with
+     * A bipolar transistor whose current gain β differs from the stage file's (parts of one type
+     * spread by a factor of two or more either way: common practice). β sets rπ = β/gm in small
+     * signal, and with
      * {@code bias: auto} the base current the divider must supply, so the bias is solved again; a
      * given current ({@code bias: {ic: ..}}) stays, and only rπ and the base current move.
      *
@@ -127,6 +147,14 @@ public sealed interface Fault
         public String describe() {
             return transistor + " current gain β ×" + String.format(Locale.ROOT, "%.4g", factor)
                     + " of the stage file's";
+        }
+
+        @Override
+        public String designedValue(Stage designed) {
+            double beta = designed.bjt(transistor).beta();
+            // a β as a stage file writes it: 150, not 150.0
+            return transistor + " β = " + (beta == Math.rint(beta) && beta < 1e15 ? Long.toString((long) beta)
+                    : String.format(Locale.ROOT, "%.4g", beta));
         }
     }
 

@@ -100,12 +100,21 @@ public final class FaultText {
                     "write bias:" + key + "=0.6 (a bias current factor)"
                             + (part instanceof Bjt ? " or beta:" + key + "=1.7 (a current gain factor)" : ""));
         }
-        List<String> valued = names(stage, Capacitor.class);
-        valued.addAll(names(stage, Resistor.class));
-        throw problem(trimmed, "names no capacitor or resistor of the stage"
-                        + didYouMean(key, valued.isEmpty() ? List.of("gain") : concat(valued, "gain")),
-                "use one of the stage's capacitors (" + String.join(", ", names(stage, Capacitor.class))
-                        + ") or resistors (" + String.join(", ", names(stage, Resistor.class)) + "); forms: " + FORMS);
+        List<String> capacitors = names(stage, Capacitor.class);
+        List<String> resistors = names(stage, Resistor.class);
+        List<String> candidates = new ArrayList<>(capacitors);
+        candidates.addAll(resistors);
+        candidates.add("gain");
+        List<String> offered = new ArrayList<>();
+        if (!capacitors.isEmpty()) {
+            offered.add("capacitors (" + String.join(", ", capacitors) + ")");
+        }
+        if (!resistors.isEmpty()) {
+            offered.add("resistors (" + String.join(", ", resistors) + ")");
+        }
+        throw problem(trimmed, "names no capacitor or resistor of the stage" + didYouMean(key, candidates),
+                (offered.isEmpty() ? "" : "use one of the stage's " + String.join(" or ", offered) + "; ")
+                        + "forms: " + FORMS);
     }
 
     /** Reads {@code 0.05dB,0.5deg} (either order; a bare number in the first place is dB). */
@@ -156,12 +165,6 @@ public final class FaultText {
                 result.add(part.name());
             }
         }
-        return result;
-    }
-
-    private static List<String> concat(List<String> names, String word) {
-        List<String> result = new ArrayList<>(names);
-        result.add(word);
         return result;
     }
 

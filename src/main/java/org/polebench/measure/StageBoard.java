@@ -101,14 +101,15 @@ public final class StageBoard implements BoardResponse {
                 throw asDesigned;
             }
             List<String> described = new ArrayList<>();
+            List<String> designedValues = new ArrayList<>();
             for (Fault fault : changingParts) {
                 described.add(fault.describe());
+                designedValues.add(fault.designedValue(designed));
             }
-            String faultText = String.join("; ", described);
-            throw new InputProblem(null, 0, "the board as built (" + faultText + ") cannot be biased, though the"
-                    + " stage file's own values can: " + asBuilt.getMessage(),
-                    "choose a fault value nearer the stage file's, one that keeps every transistor in its"
-                            + " amplifying region, or drop that fault", asBuilt);
+            throw new InputProblem(null, 0, "the board as built (" + String.join("; ", described) + ") cannot be"
+                    + " biased, though the stage file's own values can: " + asBuilt.getMessage(),
+                    "choose a value nearer the stage file's (" + String.join(", ", designedValues) + "), one that"
+                            + " keeps every transistor in its amplifying region, or drop that fault", asBuilt);
         }
     }
 
