@@ -66,7 +66,8 @@ final class SimulateCommand implements Callable<Integer> {
     Path stage;
 
     @Option(names = "--fault", paramLabel = "PART=VALUE",
-            description = "how the board differs: C3=4.7u, bias:Q1=0.6 or gain=10 (repeatable)")
+            description = "how the board differs, as for synthesize: C3=4.7u, RE=22, bias:Q1=0.6, beta:Q1=1.7 or "
+                    + "gain=10 (repeatable)")
     List<String> faults = new ArrayList<>();
 
     @Option(names = "--noise", paramLabel = "GAIN,PHASE", defaultValue = "0dB,0deg",

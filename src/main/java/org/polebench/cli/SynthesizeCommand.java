@@ -32,8 +32,13 @@ import picocli.CommandLine.Spec;
 @Command(name = "synthesize", mixinStandardHelpOptions = true,
         description = {"Writes the sweep a board built from the stage would give: the stage's full small-signal "
                 + "response with the stated faults and seeded Gaussian noise, at log-spaced frequencies. "
-                + "The file says in its notes that it is invented demo data, with the fault, noise and seed."},
+                + "The file says in its notes that it is invented demo data, with the fault, noise and seed.",
+                "A fault is PART=VALUE: C3=4.7u (a capacitor's value), RE=22 or R2=47k (a resistor's value; "
+                        + "the bias is solved again for the board as built), bias:Q1=0.6 (a bias current factor), "
+                        + "beta:Q1=1.7 (a current gain factor: beta as built over the stage file's; the bias is solved "
+                        + "again), gain=10 (a flat gain factor, as a x10 probe read as x1)."},
         footer = {"", "Examples:", "  polebench synthesize --stage s.stage.yaml --fault C3=4.7u --out board.csv",
+                "  polebench synthesize --stage s.stage.yaml --fault R2=12k --fault beta:Q1=1.7 --out board.csv",
                 "  polebench synthesize --stage s.stage.yaml --fault bias:Q1=0.6 --fault gain=10 --seed 7 --out b.csv"})
 final class SynthesizeCommand implements Callable<Integer> {
     @Spec
@@ -42,7 +47,7 @@ final class SynthesizeCommand implements Callable<Integer> {
     @Option(names = "--stage", paramLabel = "S", required = true, description = "the stage file (*.stage.yaml)")
     Path stageFile;
 
-    @Option(names = "--fault", paramLabel = "F", description = "C3=4.7u, bias:Q1=0.6 or gain=10; may be repeated")
+    @Option(names = "--fault", paramLabel = "F", description = "C3=4.7u, RE=22, bias:Q1=0.6, beta:Q1=1.7 or gain=10; may be repeated")
     List<String> faults = new ArrayList<>();
 
     @Option(names = "--noise", paramLabel = "N", defaultValue = "0.05dB,0.5deg",

@@ -8,10 +8,6 @@ import java.util.OptionalDouble;
 import java.util.SplittableRandom;
 import org.apache.commons.math3.complex.Complex;
 import org.polebench.InputProblem;
-import org.polebench.analysis.FullResponse;
-import org.polebench.circuit.BiasSolver;
-import org.polebench.circuit.OperatingPoints;
-import org.polebench.circuit.SmallSignalExpansion;
 import org.polebench.circuit.Stage;
 import org.polebench.units.Decibels;
 
@@ -20,48 +16,32 @@ import org.polebench.units.Decibels;
  * Gaussian noise: invented demo and test data, labelled so in its provenance.
  *
  * <p>The response is the complex MNA solve of the whole small-signal network with every
- * capacitor of both bands in place ({@link FullResponse}), not the port-reduced model the
+ * capacitor of both bands in place ({@link org.polebench.analysis.FullResponse}), not the port-reduced model the
  * back-solve uses, so that a test of the back-solve against these sweeps compares two
- * different computations. The bias is solved for the board as built (a capacitor fault does
- * not move it), then each bias fault scales its transistor's current. Gain is V(out)/V(in) in
- * the stage's own gain convention; the phase is arg H wrapped to (−180°, 180°]. Noise draws come
- * from one {@link SplittableRandom} with the given seed, gain then phase per point, ascending in
+ * different computations. The board is {@link StageBoard#asBuilt}: capacitor, resistor and β
+ * faults change the parts, the bias is solved for the board as built (a resistor or β fault
+ * moves it, a capacitor fault does not), then each bias fault scales its transistor's current
+ * and each gain fault multiplies the response. Gain is V(out)/V(in) in the stage's own gain
+ * convention; the phase is arg H wrapped to (−180°, 180°]. Noise draws come from one
+ * {@link SplittableRandom} with the given seed, gain then phase per point, ascending in
  * frequency. Stateless; one instance serves any thread.
  */
 public final class BoardSynthesizer {
-    private final BiasSolver biasSolver = new BiasSolver();
-    private final SmallSignalExpansion expansion = new SmallSignalExpansion();
-
     /**
      * @param frequenciesHz strictly ascending, positive, at least two
      * @param withPhase     false for a magnitude-only instrument
-     * @throws InputProblem when the board as built cannot be biased (a fault drove it out of its
-     *                      active region)
+     * @throws InputProblem when the board as built cannot be biased (a resistor or β fault drove a
+     *                      transistor out of its amplifying region: the problem names the fault)
      */
     public Sweep synthesize(Stage stage, List<Fault> faults, SweepNoise noise, List<Double> frequenciesHz,
                             boolean withPhase, long seed) throws InputProblem {
-        Stage built = stage;
-        for (Fault fault : faults) {
-            built = fault.applyTo(built);
-        }
-        OperatingPoints points = biasSolver.solve(built);
-        double gainFactor = 1;
-        for (Fault fault : faults) {
-            points = fault.applyTo(points);
-            gainFactor *= fault.gainFactor();
-        }
-        FullResponse response = new FullResponse(expansion.expand(built, points));
+        StageBoard board = StageBoard.asBuilt(stage, faults);
         SplittableRandom random = new SplittableRandom(seed);
         int n = frequenciesHz.size();
         double[] truePhaseDeg = new double[n];
         double[] trueGainDb = new double[n];
         for (int i = 0; i < n; i++) {
-            double frequencyHz = frequenciesHz.get(i);
-            Optional<Complex> h = response.atHz(frequencyHz);
-            if (h.isEmpty()) {
-                throw new IllegalStateException("the stage's MNA matrix is singular at " + frequencyHz + " Hz");
-            }
-            Complex value = h.get().multiply(gainFactor);
+            Complex value = board.atHz(frequenciesHz.get(i));
             trueGainDb[i] = Decibels.fromRatio(value.abs());
             truePhaseDeg[i] = Math.toDegrees(value.getArgument());
         }

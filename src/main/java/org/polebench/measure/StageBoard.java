@@ -53,19 +53,27 @@ public final class StageBoard implements BoardResponse {
     }
 
     /**
-     * The board as built from the stage as designed and its faults, as the board synthesizer
-     * builds it: capacitor faults change the parts, the bias is solved for the board as built
-     * (a capacitor does not move it), then bias faults scale their transistors' currents and
-     * gain faults multiply the response.
+     * The board as built from the stage as designed and its faults, in the order of
+     * {@link Fault}: capacitor, resistor and β faults change the parts; the bias is solved for
+     * the board as built (a resistor or β fault moves it, a capacitor does not); then bias
+     * faults scale their transistors' currents and gain faults multiply the response.
      *
-     * @throws InputProblem when the board as built cannot be biased
+     * @throws InputProblem when the board as built cannot be biased: when the stage as designed
+     *                      can, the problem names the faults that changed it (they drove a
+     *                      transistor out of its amplifying region) and points at no file line,
+     *                      since the stage file is not at fault
      */
     public static StageBoard asBuilt(Stage designed, List<Fault> faults) throws InputProblem {
         Stage built = designed;
+        List<Fault> changingParts = new ArrayList<>();
         for (Fault fault : faults) {
-            built = fault.applyTo(built);
+            Stage next = fault.applyTo(built);
+            if (next != built) {
+                changingParts.add(fault);
+            }
+            built = next;
         }
-        OperatingPoints points = new BiasSolver().solve(built);
+        OperatingPoints points = biasAsBuilt(designed, built, changingParts);
         double gainFactor = 1;
         List<String> described = new ArrayList<>();
         for (Fault fault : faults) {
@@ -75,6 +83,34 @@ public final class StageBoard implements BoardResponse {
         }
         return of(built, points, gainFactor, described.isEmpty() ? new Fault.None().describe()
                 : String.join("; ", described));
+    }
+
+    private static OperatingPoints biasAsBuilt(Stage designed, Stage built, List<Fault> changingParts)
+            throws InputProblem {
+        BiasSolver solver = new BiasSolver();
+        try {
+            return solver.solve(built);
+        } catch (InputProblem asBuilt) {
+            if (changingParts.isEmpty()) {
+                throw asBuilt;
+            }
+            try {
+                solver.solve(designed);
+            } catch (InputProblem asDesigned) {
+                // the stage file itself cannot be biased: that is what the user must fix first
+                throw asDesigned;
+            }
+            List<String> described = new ArrayList<>();
+            List<String> designedValues = new ArrayList<>();
+            for (Fault fault : changingParts) {
+                described.add(fault.describe());
+                designedValues.add(fault.designedValue(designed));
+            }
+            throw new InputProblem(null, 0, "the board as built (" + String.join("; ", described) + ") cannot be"
+                    + " biased, though the stage file's own values can: " + asBuilt.getMessage(),
+                    "choose a value nearer the stage file's (" + String.join(", ", designedValues) + "), one that"
+                            + " keeps every transistor in its amplifying region, or drop that fault", asBuilt);
+        }
     }
 
     @Override

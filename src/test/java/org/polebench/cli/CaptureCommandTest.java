@@ -113,6 +113,37 @@ class CaptureCommandTest {
     }
 
     @Test
+    void theSimulatorTakesAResistorFault() throws Exception {
+        Background simulator = new Background("simulate", "--tcp", "127.0.0.1:0", "--once",
+                "--profile", resource("scpi-test-bench.yaml"), "--stage", resource("rc-coupling.stage.yaml"),
+                "--fault", "RL=4.7k");
+        String port = simulator.awaitOutput(Pattern.compile("listening on 127\\.0\\.0\\.1:(\\d+)"), 30_000);
+        assertTrue(simulator.out.toString().contains("RL fitted as 4.7 kΩ"), simulator.out.toString());
+
+        Result capture = run("capture", "--tcp", "127.0.0.1:" + port, "--profile", resource("scpi-test-bench.yaml"),
+                "--from", "2Hz", "--to", "20kHz", "--points", "12", "--out", dir.resolve("rl").toString());
+
+        assertEquals(0, capture.code(), capture.err());
+        assertEquals(0, simulator.join(10_000));
+        for (SweepPoint p : read(dir.resolve("rl.sweep.csv")).points()) {
+            // first-order high-pass RL/(RS+RL)·jωτ/(1+jωτ), τ = (RS+RL)·C with RL = 4.7 kΩ: closed
+            // form; NR3 answers carry 7 digits: 2e-5 dB (see SweepCaptureTest)
+            double wt = 2 * Math.PI * p.frequencyHz() * 5_300 * 1e-6;
+            assertEquals(20 * Math.log10(4_700.0 / 5_300 * wt / Math.hypot(1, wt)), p.gainDb(), 2e-5,
+                    "at " + p.frequencyHz() + " Hz");
+        }
+    }
+
+    @Test
+    void theSimulatorRefusesAFaultThatLeavesNoWorkingBoard() {
+        Result r = run("simulate", "--tcp", "127.0.0.1:0", "--stage", "sample-measurements/hydrophone-preamp-ce.stage.yaml",
+                "--fault", "R1=6.8k");
+        assertEquals(2, r.code(), r.err());
+        assertTrue(r.err().contains("R1 fitted as 6.8 kΩ") && r.err().contains("Q1 is saturated"), r.err());
+        assertFalse(r.out().contains("listening"), r.out());
+    }
+
+    @Test
     void aPortLostMidSweepStopsWithExitCode3AndResumeCompletesIt() throws Exception {
         String profile = resource("scpi-test-bench.yaml");
         String stage = resource("rc-coupling.stage.yaml");

@@ -54,4 +54,50 @@ class SynthesizeCommandTest {
         assertEquals("2", bias[0]);
         assertTrue(bias[2].contains("no transistor"), bias[2]);
     }
+
+    @Test
+    void aResistorFaultEndToEndWritesASweepWhoseNotesStateIt(@TempDir Path dir) throws IOException, InputProblem {
+        // the case: the geophone's 220 Ω emitter resistor RE1a fitted as 22 Ω
+        String geophone = "sample-measurements/geophone-two-stage.stage.yaml";
+        Path faulty = dir.resolve("re1a.csv");
+        Path healthy = dir.resolve("healthy.csv");
+        String[] run = run("synthesize", "--stage", geophone, "--fault", "RE1a=22", "--noise", "0dB,0deg",
+                "--from", "1kHz", "--to", "2k", "--points", "8", "--out", faulty.toString());
+        assertEquals("0", run[0], run[2]);
+        assertTrue(run[1].contains("as built (differences from the stage file): RE1a fitted as 22 Ω"), run[1]);
+        String text = Files.readString(faulty);
+        assertTrue(text.contains("RE1a fitted as 22 Ω"), text);
+        assertTrue(text.contains("demo data, invented"), text);
+        assertEquals("0", run("synthesize", "--stage", geophone, "--noise", "0dB,0deg", "--from", "1kHz", "--to", "2k",
+                "--points", "8", "--out", healthy.toString())[0]);
+        // the first stage's unbypassed emitter resistance falls from 220 Ω to 22 Ω: its gain,
+        // about RC1∥Rin2 / (re + RE1a), rises by more than 10 dB (common practice, degenerated CE)
+        double faultyDb = new SweepReader(ProfileLibrary.bundled()).read(faulty, "canonical").sweep().points().get(0).gainDb();
+        double healthyDb = new SweepReader(ProfileLibrary.bundled()).read(healthy, "canonical").sweep().points().get(0)
+                .gainDb();
+        assertTrue(faultyDb - healthyDb > 10, healthyDb + " dB to " + faultyDb + " dB");
+
+        String[] beta = run("synthesize", "--stage", geophone, "--fault", "beta:Q2=1.7", "--fault", "RE1a=22",
+                "--noise", "0dB,0deg", "--from", "1kHz", "--to", "2k", "--points", "8", "--out",
+                dir.resolve("beta.csv").toString());
+        assertEquals("0", beta[0], beta[2]);
+        assertTrue(Files.readString(dir.resolve("beta.csv")).contains(
+                "Q2 current gain β ×1.700 of the stage file's; RE1a fitted as 22 Ω"), beta[1]);
+    }
+
+    @Test
+    void aResistorFaultThatSaturatesTheTransistorIsExitCode2NamingTheFault(@TempDir Path dir) {
+        Path out = dir.resolve("x.csv");
+        String[] run = run("synthesize", "--stage", STAGE, "--fault", "RE=120", "--out", out.toString());
+        assertEquals("2", run[0], run[2]);
+        assertTrue(run[2].contains("RE fitted as 120 Ω"), run[2]);
+        assertTrue(run[2].contains("saturated"), run[2]);
+        assertTrue(run[2].contains("fix:"), run[2]);
+        assertTrue(!run[2].contains("Exception") && !run[2].contains("\tat "), run[2]);
+        assertTrue(Files.notExists(out));
+
+        String[] misspelt = run("synthesize", "--stage", STAGE, "--fault", "RE1=22", "--out", out.toString());
+        assertEquals("2", misspelt[0], misspelt[2]);
+        assertTrue(misspelt[2].contains("did you mean R1 or RE?"), misspelt[2]);
+    }
 }
