@@ -26,13 +26,14 @@ import org.polebench.units.Decibels;
  *     The two share the noise, so under a right model the ratio scatters less than F says and
  *     the test errs on the side of "explained"; it holds whatever the noise level, because the
  *     free fit measures the noise the stated σ may misstate;</li>
- * <li>residual structure along frequency: a Wald–Wolfowitz runs test on the signs of the gain
- *     residuals and, separately, the phase residuals, their run counts summed under the normal
- *     approximation (Wald and Wolfowitz, Ann. Math. Statist. 11(2), 1940). A wrong model leaves
- *     long runs of one sign; noise does not. Structure alone is counted only where it is
- *     material: the stage model fits at least {@value #MATERIAL_RATIO} times worse than the
- *     free fit (or, with no free fit, χ²/ν at least {@value #MATERIAL_REDUCED_CHI_SQUARE}), so
- *     that a systematic error far below the noise, or one the free fit shares, is not an alarm.</li>
+ * <li>residual structure along frequency: the lag-1 autocorrelation of the normalised gain
+ *     residuals and, separately, the phase residuals ({@link #structureTest}). A wrong model
+ *     leaves long stretches of one sign; noise does not. Structure counts only where it is
+ *     material: the systematic part of the misfit (the mean square less the noise read from
+ *     successive differences) reaches {@value #MATERIAL_MEAN_SQUARE} of the assumed σ², so that
+ *     a model error far below the point σ (a noise-free sweep's round-off, the product of the
+ *     low and high bands) is not an alarm. Unlike the free-fit comparison this holds when the
+ *     free fit cannot follow the sweep either (an extra bench pole beyond the stage's order).</li>
  * </ol>
  * The level {@value #ALPHA} per check was set so that seeded boards made by the synthesizer from
  * the stage itself (several stages, noise levels and faults) raise a false alarm on at most 1 %
@@ -47,12 +48,21 @@ import org.polebench.units.Decibels;
 public final class AdequacyTest {
     /** The level of each check: a false alarm on about 0.1 % of right models per check. */
     public static final double ALPHA = 1e-3;
-    /** Stage χ²/ν over the free fit's at which residual structure counts. */
-    public static final double MATERIAL_RATIO = 1.5;
-    /** χ²/ν at the stated σ at which residual structure counts when there is no free fit. */
-    public static final double MATERIAL_REDUCED_CHI_SQUARE = 2;
+    /**
+     * The systematic mean square, in units of the point σ the ranking assumed, at which residual
+     * structure counts: a misfit whose RMS is half that σ or more.
+     */
+    public static final double MATERIAL_MEAN_SQUARE = 0.25;
+    /** Stage χ²/ν over the free fit's from which the stage counts as far worse, whatever the misfit's size. */
+    public static final double FAR_WORSE_RATIO = 2;
     /** The stage misses the sweep this many times worse than the free fit: far off. */
     public static final double FAR_RATIO = 100;
+    /**
+     * χ²/ν at the assumed σ (stated or default) from which no hypothesis is anywhere near the
+     * sweep: a misfit RMS of a hundred point σ (5 dB at the default 0.05 dB), far beyond any
+     * noise an instrument states or a bench has.
+     */
+    public static final double FAR_REDUCED_CHI_SQUARE = 1e4;
     /** The spread's extreme corners are widened by this factor before a corner counts as outside. */
     public static final double SPREAD_WIDENING = 10;
 
@@ -90,15 +100,20 @@ public final class AdequacyTest {
                 ratio = OptionalDouble.of(stageReduced / fitReduced);
                 freeP = OptionalDouble.of(1 - new FDistribution(null, stageNu, fitNu).cumulativeProbability(
                         ratio.getAsDouble()));
-                if (freeP.getAsDouble() < ALPHA) {
+                // "far worse": a model error below the noise an instrument resolves (a noise-free
+                // sweep's band-product error) is significant against a free fit of tiny χ², yet
+                // immaterial; so the ratio must be large or the misfit material as well
+                boolean far = ratio.getAsDouble() >= FAR_WORSE_RATIO || systematicMeanSquare(best,
+                        diagnosis.noise().magnitudeScale(), diagnosis.noise().phaseScale()) >= MATERIAL_MEAN_SQUARE;
+                if (freeP.getAsDouble() < ALPHA && far) {
                     findings.add(ModelAdequacy.Finding.WORSE_THAN_FREE_FIT);
                 }
             }
         }
 
-        double structureP = runsTest(best);
-        boolean material = ratio.isPresent() ? ratio.getAsDouble() >= MATERIAL_RATIO
-                : chiSquared / nu >= MATERIAL_REDUCED_CHI_SQUARE;
+        double structureP = structureTest(best);
+        boolean material = systematicMeanSquare(best, diagnosis.noise().magnitudeScale(),
+                diagnosis.noise().phaseScale()) >= MATERIAL_MEAN_SQUARE;
         if (structureP < ALPHA && material) {
             findings.add(ModelAdequacy.Finding.RESIDUAL_RUNS);
         }
@@ -107,7 +122,15 @@ public final class AdequacyTest {
         // a faulty board is not a stranger: only a sweep the stage does not explain is asked
         // whether it looks like a board of this stage at all
         boolean looksLike = true;
-        if (!explained && ratio.isPresent() && ratio.getAsDouble() >= FAR_RATIO) {
+        if (chiSquared / nu >= FAR_REDUCED_CHI_SQUARE) {
+            // a misfit RMS of a hundred point σ: no hypothesis is anywhere near the sweep
+            if (explained) {
+                findings.add(ModelAdequacy.Finding.WORSE_THAN_STATED_NOISE_BY_FAR);
+                explained = false;
+            }
+            findings.add(ModelAdequacy.Finding.FAR_FROM_EVERY_HYPOTHESIS);
+            looksLike = false;
+        } else if (!explained && ratio.isPresent() && ratio.getAsDouble() >= FAR_RATIO) {
             findings.add(ModelAdequacy.Finding.FAR_FROM_EVERY_HYPOTHESIS);
             looksLike = false;
         }
@@ -181,51 +204,72 @@ public final class AdequacyTest {
     }
 
     /**
-     * @return the one-sided p of the runs test (too few runs) over the gain and phase residual
-     *         signs; 1 when too few residuals of either sign to test
+     * @return the one-sided p of the lag-1 autocorrelation of the normalised residuals along
+     *         frequency, gain and phase sequences pooled: ρ̂ = Σ r_k·r_{k+1} / Σ r_k², which for
+     *         white noise has mean about 0 and standard deviation 1/√n (Box and Pierce, J. Amer.
+     *         Statist. Assoc. 65, 1970, from memory); a smooth misfit gives ρ̂ near 1. The two
+     *         sequences' z = ρ̂·√n are pooled as (z₁ + z₂)/√2. 1 when there are too few points
      */
-    static double runsTest(BestResiduals best) {
-        double[] gain = runs(best.magnitude());
-        double[] phase = best.phase().isEmpty() ? new double[] {0, 0, 0} : runs(best.phase());
-        double variance = gain[2] + phase[2];
-        if (!(variance > 0)) {
-            return 1;
+    static double structureTest(BestResiduals best) {
+        double zGain = lagOneZ(best.magnitude());
+        if (best.phase().isEmpty()) {
+            return upperNormal(zGain);
         }
-        // continuity correction of ½ run toward the mean
-        double z = (gain[0] + phase[0] - (gain[1] + phase[1]) + 0.5) / Math.sqrt(variance);
-        return new NormalDistribution(null, 0, 1).cumulativeProbability(z);
+        return upperNormal((zGain + lagOneZ(best.phase())) / Math.sqrt(2));
     }
 
-    // {runs, expected runs, variance} of one sequence of signs: with n₊ and n₋ of each sign,
-    // E = 1 + 2n₊n₋/n and Var = 2n₊n₋(2n₊n₋ − n)/(n²(n − 1)) (Wald and Wolfowitz, 1940)
-    private static double[] runs(List<Double> residuals) {
-        int plus = 0;
-        int minus = 0;
-        int runs = 0;
-        int previous = 0;
-        for (double r : residuals) {
-            int sign = r > 0 ? 1 : r < 0 ? -1 : 0;
-            if (sign == 0) {
-                continue;
-            }
-            if (sign > 0) {
-                plus++;
-            } else {
-                minus++;
-            }
-            if (sign != previous) {
-                runs++;
-                previous = sign;
+    private static double upperNormal(double z) {
+        return Double.isNaN(z) ? 1 : 1 - new NormalDistribution(null, 0, 1).cumulativeProbability(z);
+    }
+
+    private static double lagOneZ(List<Double> residuals) {
+        int n = residuals.size();
+        if (n < 8) {
+            return Double.NaN;
+        }
+        double sum = 0;
+        double lagged = 0;
+        for (int k = 0; k < n; k++) {
+            double r = residuals.get(k);
+            sum += r * r;
+            if (k + 1 < n) {
+                lagged += r * residuals.get(k + 1);
             }
         }
-        double n = plus + minus;
-        if (plus == 0 || minus == 0 || n < 2) {
-            return new double[] {0, 0, 0};
+        return sum > 0 ? lagged / sum * Math.sqrt(n) : Double.NaN;
+    }
+
+    /**
+     * @return the systematic part of the misfit in units of the σ the ranking assumed (stated or
+     *         default, before any scale): the mean square residual less the noise variance read
+     *         from successive differences, Σ(r_{k+1} − r_k)²/(2(n − 1)), which a smooth misfit
+     *         barely feeds (von Neumann, Ann. Math. Statist. 12(4), 1941, from memory); 0 when
+     *         noise explains it all
+     */
+    static double systematicMeanSquare(BestResiduals best, double magnitudeScale, double phaseScale) {
+        double gain = systematic(best.magnitude(), magnitudeScale);
+        if (best.phase().isEmpty()) {
+            return gain;
         }
-        double product = 2.0 * plus * minus;
-        double expected = 1 + product / n;
-        double variance = product * (product - n) / (n * n * (n - 1));
-        return new double[] {runs, expected, variance};
+        return (gain + systematic(best.phase(), phaseScale)) / 2;
+    }
+
+    private static double systematic(List<Double> residuals, double scale) {
+        int n = residuals.size();
+        if (n < 3) {
+            return 0;
+        }
+        double square = 0;
+        double differences = 0;
+        for (int k = 0; k < n; k++) {
+            double r = residuals.get(k) * scale;
+            square += r * r;
+            if (k + 1 < n) {
+                double d = residuals.get(k + 1) * scale - r;
+                differences += d * d;
+            }
+        }
+        return Math.max(0, square / n - differences / (2.0 * (n - 1)));
     }
 
     private static boolean outsideSpread(FitResult fit, CornerSpread spread) {

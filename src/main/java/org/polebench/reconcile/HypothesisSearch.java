@@ -78,6 +78,9 @@ final class HypothesisSearch {
         Candidate none = new Candidate(HypothesisKind.NONE, new int[0], tolerance, baseActive,
                 Math.log(FaultRanking.NO_FAULT_PRIOR), misfit(tolerance, baseActive, 1, 1));
         none.stated = solve(none.misfit, List.of(mean), networkHeld);
+        if (none.stated == null) {
+            throw new IllegalStateException("the stage's model is undefined at its tolerance priors' means");
+        }
         candidates.add(none);
         for (int j : faultable) {
             Prior[] priors = tolerance.clone();
@@ -142,7 +145,11 @@ final class HypothesisSearch {
                 double[] fromSecond = second.stated.theta();
                 fromSecond[i] = first.stated.theta(i);
                 pair.stated = solve(pair.misfit, List.of(fromFirst, fromSecond), null);
-                candidates.add(pair);
+                // a pair whose model is undefined from both starts (the transistors leave their
+                // amplifying region) is not a board that gives this sweep: it is not ranked
+                if (pair.stated != null) {
+                    candidates.add(pair);
+                }
             }
         }
         pairsRanked = true;
@@ -176,7 +183,10 @@ final class HypothesisSearch {
         for (int h = 1; h < candidates.size(); h++) {
             Candidate candidate = candidates.get(h);
             if (candidate.logPrior + lnZ[h] > best - FaultRanking.SKIP_NATS) {
-                candidate.stated = solve(candidate.misfit, List.of(candidate.stated.theta()), networkHeld);
+                MapPoint converged = solve(candidate.misfit, List.of(candidate.stated.theta()), networkHeld);
+                if (converged != null) {
+                    candidate.stated = converged;
+                }
             }
         }
     }
@@ -232,7 +242,9 @@ final class HypothesisSearch {
             for (int h = 0; h < candidates.size(); h++) {
                 if (candidates.get(h).logPrior + lnZ[h] > bestScaled - FaultRanking.SKIP_NATS) {
                     MapPoint again = solve(scaled.get(h), List.of(points.get(h).theta()), null);
-                    points.set(h, again);
+                    if (again != null) {
+                        points.set(h, again);
+                    }
                 }
             }
         }
@@ -344,7 +356,8 @@ final class HypothesisSearch {
     }
 
     // network held first (no reductions while the capacitors move), then everything free: the
-    // network moves little under its priors, so the second phase takes a few iterations
+    // network moves little under its priors, so the second phase takes a few iterations; null
+    // when the model is undefined from every start
     private MapPoint solve(Misfit misfit, List<double[]> starts, boolean[] held) {
         MapPoint best = null;
         for (double[] start : starts) {
@@ -360,9 +373,6 @@ final class HypothesisSearch {
             if (point.isPresent() && (best == null || point.get().objective() < best.objective())) {
                 best = point.get();
             }
-        }
-        if (best == null) {
-            throw new IllegalStateException("the stage's model is undefined at the back-solve's start");
         }
         return best;
     }

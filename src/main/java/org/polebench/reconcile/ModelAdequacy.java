@@ -50,7 +50,9 @@ public record ModelAdequacy(boolean explained, boolean looksLikeStage, double ch
         WORSE_THAN_FREE_FIT,
         /** The residuals run in long stretches of one sign along frequency. */
         RESIDUAL_RUNS,
-        /** The stage misses the sweep by orders of magnitude more than the free fit. */
+        /** The misfit's RMS is a hundred point σ or more, whatever a free fit does. */
+        WORSE_THAN_STATED_NOISE_BY_FAR,
+        /** The stage misses the sweep by orders of magnitude (against the free fit or the point σ). */
         FAR_FROM_EVERY_HYPOTHESIS,
         /** The measured lower corner lies far outside every board of the tolerance spread. */
         CORNER_OUTSIDE_SPREAD

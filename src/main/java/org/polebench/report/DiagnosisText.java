@@ -130,7 +130,7 @@ public final class DiagnosisText {
                     evidence.add("the measured lower corner lies far outside every board of the tolerance spread");
                     break;
                 case FAR_FROM_EVERY_HYPOTHESIS:
-                    evidence.add("every hypothesis misses the sweep by far more than a free fit does");
+                    evidence.add("every hypothesis misses the sweep by far more than the noise or a free fit allows");
                     break;
                 default:
                     break;

@@ -31,11 +31,11 @@ class HandCasesProbe {
                     break;
                 }
             }
-            DemoBoards wrong = new DemoBoards(demo.stage.withResistance(resistor, demo.stage.resistor(resistor).ohms() / 10));
+            DemoBoards wrong = new DemoBoards(demo.stage.withResistance(resistor, demo.stage.resistor(resistor).ohms() * 0.6));
             Sweep slip = wrong.sweep(wrong.boardWith(new Fault.None(), random), SweepNoise.BENCH, band, 12);
             report(file + " " + resistor + "/10", predicted, slip);
             String q = demo.stage.transistors().get(0).name();
-            if (demo.stage.bjt(q) != null) {
+            if (demo.stage.transistor(q) instanceof org.polebench.circuit.Bjt) {
                 DemoBoards beta = new DemoBoards(demo.stage.withBeta(q, demo.stage.bjt(q).beta() * 1.7));
                 report(file + " beta1.7", predicted, beta.sweep(beta.boardWith(new Fault.None(), random), SweepNoise.BENCH, band, 13));
             }
