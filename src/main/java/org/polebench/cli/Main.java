@@ -31,7 +31,9 @@ import picocli.CommandLine.Command;
                 "0:done; every verdict passed",
                 "1:a verdict failed (the board does not meet its limits)",
                 "2:bad input or usage (stage file, sweep, profile or option)",
-                "3:instrument or I/O fault (port, timeout, file not writable)"})
+                "3:instrument or I/O fault (port, timeout, file not writable)",
+                "4:a verdict is incomplete: no check failed, but the sweep does not decide a limit (or the stage "
+                        + "names none); never a pass"})
 public final class Main implements Runnable {
 
     @CommandLine.Spec

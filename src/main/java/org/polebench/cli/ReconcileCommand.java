@@ -16,6 +16,7 @@ import org.polebench.circuit.StageReader;
 import org.polebench.measure.ImportedSweep;
 import org.polebench.measure.SweepWriter;
 import org.polebench.reconcile.DecisionRule;
+import org.polebench.reconcile.OverallResult;
 import org.polebench.reconcile.ReconcileResult;
 import org.polebench.reconcile.Reconciler;
 import org.polebench.report.ReportStamp;
@@ -37,7 +38,10 @@ import picocli.CommandLine.Spec;
                 + "evidence; and decides the stage's limits under a stated decision rule.",
                 "With no stage and sweep it runs on the bundled demo stage and a faulty demo board's sweep "
                         + "(invented demo data).",
-                "Exit code 1 when the verdict fails."},
+                "A limit is decided only from a quantity the sweep itself determines: a corner outside the swept "
+                        + "band, a value from the stage model alone or from a fit that does not describe the sweep "
+                        + "leaves its limit not decided, and the result is then incomplete, never a pass.",
+                "Exit code 0 when the verdict passes, 1 when it fails, 4 when it is incomplete."},
         footer = {"", "Example:", "  polebench reconcile --stage my.stage.yaml --sweep board-12.csv --decision-rule guarded",
                 "  polebench reconcile --stage my.stage.yaml --sweep board-12.csv --operator \"A. Tester\" --report board-12-report"})
 final class ReconcileCommand implements Callable<Integer> {
@@ -137,8 +141,21 @@ final class ReconcileCommand implements Callable<Integer> {
             (json ? spec.commandLine().getErr() : out).println("Test report " + stamp.reportId() + " written to "
                     + report.resolve(TestReportWriter.HTML));
         }
-        return result.conformity().verdict().passed() || result.conformity().verdict().nothingToCheck()
-                ? ExitCodes.OK : ExitCodes.VERDICT_FAILED;
+        return exitCode(result.conformity().verdict().overall());
+    }
+
+    /** @return 0 for a pass, 1 for a fail, 4 for an incomplete verdict (issue 11) */
+    static int exitCode(OverallResult overall) {
+        switch (overall) {
+            case PASS:
+                return ExitCodes.OK;
+            case FAIL:
+                return ExitCodes.VERDICT_FAILED;
+            case INCOMPLETE:
+                return ExitCodes.INCOMPLETE;
+            default:
+                throw new IllegalStateException("no exit code for " + overall);
+        }
     }
 
     private static DecisionRule decisionRule(String text) throws InputProblem {

@@ -19,7 +19,9 @@ import picocli.CommandLine.Spec;
 @Command(name = "report", mixinStandardHelpOptions = true,
         description = {"Writes the test report of a saved reconcile result (the result.json of a report folder, or "
                 + "the output of reconcile --json) into a folder: report.html, result.json, capacitors.csv and the "
-                + "charts. The report gets a new id and date of issue; everything else comes from the result."},
+                + "charts. The report gets a new id and date of issue; everything else comes from the result.",
+                "Exit code 0 once the report is written, whatever its verdict: the verdict (pass, fail or "
+                        + "incomplete) is the result's own, not decided again."},
         footer = {"", "Example:", "  polebench report board-12-report/result.json --out board-12-reissued"})
 final class ReportCommand implements Callable<Integer> {
     @Spec

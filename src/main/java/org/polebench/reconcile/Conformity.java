@@ -1,16 +1,10 @@
 package org.polebench.reconcile;
 
-import java.util.List;
-
 /**
- * The verdict and the limits that could not be checked from this sweep (an upper-corner limit
- * when the sweep stops below the upper rolloff): those are named, never counted as passed.
+ * The statement of conformity against the stage's limits (ISO/IEC 17025:2017 7.8.6): the
+ * verdict, with the limits the sweep decides and those it does not (issue 11).
  *
- * @param verdict    every check that could be made, under the stated rule
- * @param notChecked one sentence per limit left unchecked
+ * @param verdict every limit of the stage, decided or not, under the stated rule
  */
-public record Conformity(Verdict verdict, List<String> notChecked) {
-    public Conformity {
-        notChecked = List.copyOf(notChecked);
-    }
+public record Conformity(Verdict verdict) {
 }

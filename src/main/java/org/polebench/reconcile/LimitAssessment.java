@@ -2,46 +2,44 @@ package org.polebench.reconcile;
 
 import java.util.ArrayList;
 import java.util.List;
-import java.util.Locale;
-import java.util.Optional;
 import java.util.OptionalDouble;
 import org.polebench.circuit.Limits;
 
 /**
- * Holds the measured lower corner, midband gain and upper corner against the stage's limits
- * under one decision rule (ILAC-G8:09/2019 §4.2; DESIGN.md "Verdict"). A limit whose quantity
- * was not measured is reported as not checked. Stateless.
+ * Holds the lower corner, midband gain and upper corner against the stage's limits under one
+ * decision rule (ILAC-G8:09/2019 §4.2; DESIGN.md "Verdict"). A limit is decided only from a
+ * quantity the sweep determines ({@link MeasuredQuantity#determinedBySweep()}); every other
+ * limit becomes a {@link NotDecidedCheck} with its reason, never a pass (issue 11). Stateless.
  */
 public final class LimitAssessment {
     public static final String LOWER_CORNER = "lower corner";
     public static final String MIDBAND_GAIN = "midband gain";
     public static final String UPPER_CORNER = "upper corner";
 
-    public Conformity assess(Limits limits, Optional<MeasuredQuantity> lowerCornerHz,
-                             Optional<MeasuredQuantity> midbandGainDb, Optional<MeasuredQuantity> upperCornerHz,
-                             DecisionRule rule) {
+    public Conformity assess(Limits limits, MeasuredQuantity lowerCornerHz, MeasuredQuantity midbandGainDb,
+                             MeasuredQuantity upperCornerHz, DecisionRule rule) {
         List<LimitCheck> checks = new ArrayList<>();
-        List<String> notChecked = new ArrayList<>();
+        List<NotDecidedCheck> notDecided = new ArrayList<>();
         check(LOWER_CORNER, "Hz", lowerCornerHz, limits.lowerCornerMinHz(), limits.lowerCornerMaxHz(), rule, checks,
-                notChecked, "the sweep gives no lower corner (the gain never falls 3 dB within it)");
+                notDecided);
         check(MIDBAND_GAIN, "dB", midbandGainDb, limits.midbandGainMinDb(), limits.midbandGainMaxDb(), rule, checks,
-                notChecked, "no midband gain was measured");
+                notDecided);
         check(UPPER_CORNER, "Hz", upperCornerHz, limits.upperCornerMinHz(), OptionalDouble.empty(), rule, checks,
-                notChecked, "the sweep stops below the upper rolloff, so the upper corner was not measured");
-        return new Conformity(new Verdict(rule, checks), notChecked);
+                notDecided);
+        return new Conformity(new Verdict(rule, checks, notDecided));
     }
 
-    private static void check(String quantity, String unit, Optional<MeasuredQuantity> measured, OptionalDouble min,
-                              OptionalDouble max, DecisionRule rule, List<LimitCheck> checks, List<String> notChecked,
-                              String why) {
+    private static void check(String quantity, String unit, MeasuredQuantity measured, OptionalDouble min,
+                              OptionalDouble max, DecisionRule rule, List<LimitCheck> checks,
+                              List<NotDecidedCheck> notDecided) {
         if (min.isEmpty() && max.isEmpty()) {
             return;
         }
-        if (measured.isEmpty()) {
-            notChecked.add(String.format(Locale.ROOT, "%s limit not checked: %s", quantity, why));
+        if (!measured.determinedBySweep()) {
+            notDecided.add(new NotDecidedCheck(quantity, unit, min, max, measured));
             return;
         }
-        MeasuredQuantity value = measured.get();
-        checks.add(LimitCheck.decide(quantity, unit, value.value(), value.expandedUncertainty(), min, max, rule));
+        checks.add(LimitCheck.decide(quantity, unit, measured.value().getAsDouble(), measured.expandedUncertainty(),
+                min, max, rule));
     }
 }

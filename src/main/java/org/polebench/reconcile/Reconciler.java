@@ -26,11 +26,14 @@ import org.polebench.measure.Sweep;
  * The whole reconcile job for one stage and one sweep (issue 5): fit the sweep starting from
  * the stage's predicted poles, set prediction and measurement side by side, apportion the
  * corner error to first order, rank the single-fault hypotheses on the stage's exact model,
- * and decide the limits. The verdict takes the midband gain and the lower corner from the fit
+ * and decide the limits. The verdict shows the midband gain and the lower corner from the fit
  * (the quantities the fit measures directly, with their uncertainties) when the fit describes
- * the sweep, else from the stage's model at the back-solve's MAP ({@link ModelMeasurement});
- * the upper corner only when an adequate fit has a fitted high-band pole (a one-pole roll-off
- * puts the −3 dB point at the pole). Immutable.
+ * the sweep, else from the stage's model at the back-solve's MAP ({@link ModelMeasurement}),
+ * and the upper corner from a fitted high-band pole (a one-pole roll-off puts the −3 dB point at
+ * the pole). A limit is decided only where the sweep itself determines the quantity
+ * ({@link SweepDetermination}, issue 11); a value from the model alone, from a fit that does not
+ * describe the sweep, or outside the swept band is shown but leaves its limit not decided.
+ * Immutable.
  */
 public final class Reconciler {
     private final FaultRanking ranking = new FaultRanking();
@@ -38,6 +41,7 @@ public final class Reconciler {
     private final CornerApportionment apportionment = new CornerApportionment();
     private final LimitAssessment assessment = new LimitAssessment();
     private final ModelMeasurement measurement = new ModelMeasurement();
+    private final SweepDetermination determination = new SweepDetermination();
     private final Executor fitExecutor;
 
     /** Fits on the common fork-join pool while the back-solve runs on the calling thread. */
@@ -56,7 +60,8 @@ public final class Reconciler {
 
     /**
      * χ²/ν above which the rational fit is taken not to describe the sweep (its residuals over
-     * twice the point σ): then the verdict's gain and corner come from the back-solved model.
+     * twice the point σ): then the gain and corner shown come from the back-solved model, and no
+     * limit is decided from them (issue 11).
      */
     public static final double FIT_ADEQUATE_CHI_SQUARE = 4;
 
@@ -70,15 +75,22 @@ public final class Reconciler {
                 start.add(new Complex(pole.realRadPerS(), pole.imaginaryRadPerS()));
             }
         }
-        FitSettings settings = FitSettings.defaults().withMaxPoles(Math.max(1, Math.min(8, order)));
-        if (start.size() == order) {
-            settings = settings.withStartPoles(start);
-        }
+        FitSettings free = FitSettings.defaults().withMaxPoles(Math.max(1, Math.min(8, order)));
+        FitSettings settings = start.size() == order ? free.withStartPoles(start) : free;
         // the fit and the back-solve are independent: the fit runs on another thread meanwhile
-        SweepFitter fitter = new SweepFitter(settings);
         CompletableFuture<FitResult> fitting = CompletableFuture.supplyAsync(() -> {
             try {
-                return fitter.fit(sweep);
+                FitResult started = new SweepFitter(settings).fit(sweep);
+                if (settings == free || adequate(started)) {
+                    return started;
+                }
+                // a board far from its design (a decade-slipped part) can leave the fit started from
+                // the predicted poles in a poor local minimum; the fit from the linearised estimate
+                // (as polebench fit runs it) then may describe the sweep, and no limit is decided
+                // from a fit that does not (issue 11)
+                FitResult unstarted = new SweepFitter(free).fit(sweep);
+                return unstarted.quality().reducedChiSquare() < started.quality().reducedChiSquare()
+                        ? unstarted : started;
             } catch (InputProblem problem) {
                 throw new CompletionException(problem);
             }
@@ -95,7 +107,7 @@ public final class Reconciler {
         }
         ModelMeasurement.Measured model = measurement.measure(predicted.stage(), predicted.operatingPoints(),
                 diagnosis.top().backSolve());
-        boolean adequate = fit.quality().reducedChiSquare() <= FIT_ADEQUATE_CHI_SQUARE;
+        boolean adequate = adequate(fit);
         Optional<Estimate> fitCorner = fit.lowerCornerModelHz().isPresent() ? fit.lowerCornerModelHz()
                 : fit.lowerCornerDataHz();
         Optional<Estimate> corner;
@@ -131,20 +143,40 @@ public final class Reconciler {
             shares = apportionment.apportion(predicted.stage(), predicted.operatingPoints(), prediction,
                     capacitorParameters(diagnosis), corner.get().value(), corner.get().standardUncertainty());
         }
-        Optional<MeasuredQuantity> lower = corner.map(c -> new MeasuredQuantity(c.value(), c.expandedUncertainty(),
-                cornerSource));
-        Optional<MeasuredQuantity> gain = Optional.of(new MeasuredQuantity(gainEstimate.value(),
-                gainEstimate.expandedUncertainty(), gainSource));
-        Optional<MeasuredQuantity> upper = Optional.empty();
-        for (FittedRoot pole : fit.poles()) {
-            if (adequate && pole.label().equals("ph") && pole.status() == RootStatus.FITTED) {
-                upper = Optional.of(new MeasuredQuantity(pole.magnitudeHz(), fit.coverageFactor() * pole.uMagnitudeHz(),
-                        "the fitted high-band pole"));
-            }
+        // a limit is decided only from a quantity the sweep itself determines (issue 11); the
+        // others are still shown, labelled with their source, and the verdict names them
+        boolean cornerFromFit = adequate && fitCorner.isPresent();
+        MeasuredQuantity lower = corner.isEmpty()
+                ? MeasuredQuantity.absent(adequate ? NotDecided.OUTSIDE_SWEPT_BAND : NotDecided.FIT_DOES_NOT_DESCRIBE_SWEEP)
+                : quantity(corner.get(), cornerSource, determination.lowerCorner(adequate, cornerFromFit,
+                        corner.get().value(), fit.band()));
+        Optional<FittedRoot> highPole = SweepDetermination.highBandPole(fit);
+        OptionalDouble highPoleHz = highPole.isPresent() ? OptionalDouble.of(highPole.get().magnitudeHz())
+                : OptionalDouble.empty();
+        MeasuredQuantity gain = quantity(gainEstimate, gainSource, determination.midbandGain(adequate,
+                SweepDetermination.fitLowerCornerHz(fit), highPoleHz, fit.band(), SweepDetermination.frequencies(sweep)));
+        Optional<NotDecided> upperReason = determination.upperCorner(adequate, highPole, fit.band());
+        MeasuredQuantity upper;
+        if (highPole.isPresent() && highPole.get().status() == RootStatus.FITTED) {
+            FittedRoot pole = highPole.get();
+            // a one-pole roll-off puts the −3 dB point at the pole
+            upper = new MeasuredQuantity(OptionalDouble.of(pole.magnitudeHz()),
+                    fit.coverageFactor() * pole.uMagnitudeHz(), "the fitted high-band pole", upperReason);
+        } else {
+            upper = MeasuredQuantity.absent(upperReason.orElseThrow());
         }
         Conformity conformity = assessment.assess(predicted.stage().limits(), lower, gain, upper, rule);
         return new ReconcileResult(predicted, sweep, fit, sideBySide, shares, diagnosis, adequacy, conformity,
                 gainSource, cornerSource);
+    }
+
+    private static boolean adequate(FitResult fit) {
+        return fit.quality().reducedChiSquare() <= FIT_ADEQUATE_CHI_SQUARE;
+    }
+
+    private static MeasuredQuantity quantity(Estimate estimate, String source, Optional<NotDecided> notDecided) {
+        return new MeasuredQuantity(OptionalDouble.of(estimate.value()), estimate.expandedUncertainty(), source,
+                notDecided);
     }
 
     private static FitResult join(CompletableFuture<FitResult> fitting) throws InputProblem {

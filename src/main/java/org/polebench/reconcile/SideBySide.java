@@ -21,7 +21,8 @@ import org.polebench.fit.Estimate;
  * @param backSolvedLowerCornerHz  that model's exact lower corner, Hz
  * @param fitAdequate              whether the rational fit describes the sweep (χ²/ν at most
  *                                 {@link Reconciler#FIT_ADEQUATE_CHI_SQUARE}); when not, the
- *                                 verdict takes the back-solved values
+ *                                 verdict shows the back-solved values and decides no limit
+ *                                 from them
  */
 public record SideBySide(double predictedMidbandGainDb, Estimate measuredMidbandGainDb, double sctcLowerCornerHz,
                          OptionalDouble exactLowerCornerHz, Optional<Estimate> measuredLowerCornerHz,

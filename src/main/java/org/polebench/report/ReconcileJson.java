@@ -17,6 +17,8 @@ import org.polebench.reconcile.ModelAdequacy;
 import org.polebench.reconcile.NoiseBasis;
 import org.polebench.reconcile.PartReading;
 import org.polebench.reconcile.LimitCheck;
+import org.polebench.reconcile.MeasuredQuantity;
+import org.polebench.reconcile.NotDecidedCheck;
 import org.polebench.reconcile.ParameterEstimate;
 import org.polebench.reconcile.ParameterKind;
 import org.polebench.reconcile.ReconcileResult;
@@ -29,7 +31,10 @@ import org.polebench.reconcile.Verdict;
  * {@code predict --json}, {@code measured} as {@code fit --json}, {@code capacitors},
  * {@code nuisance}, {@code hypotheses} (most probable first), {@code verdict}; and beside them
  * {@code side_by_side}, {@code apportionment}, {@code correlation} and {@code noise}. Keys are
- * snake_case and carry their unit; a value that does not exist is {@code null}.
+ * snake_case and carry their unit; a value that does not exist is {@code null}. In
+ * {@code verdict}, {@code overall} is {@code pass}, {@code fail} or {@code incomplete}; every
+ * limit of the stage is one of {@code checks}, with {@code decided} and, for a limit the sweep
+ * does not decide, its {@code reason} (issue 11) and a sentence in {@code not_checked}.
  */
 public final class ReconcileJson {
     private final JsonNodeFactory nodes = JsonNodeFactory.instance;
@@ -107,8 +112,7 @@ public final class ReconcileJson {
         for (Hypothesis hypothesis : result.diagnosis().hypotheses()) {
             hypotheses.add(hypothesis(hypothesis));
         }
-        root.set("verdict", verdict(result.conformity().verdict(), result.conformity().notChecked(),
-                result.cornerSource(), result.midbandSource()));
+        root.set("verdict", verdict(result));
         return root;
     }
 
@@ -243,11 +247,12 @@ public final class ReconcileJson {
         return node;
     }
 
-    private ObjectNode verdict(Verdict verdict, List<String> notChecked, String cornerSource, String gainSource) {
+    private ObjectNode verdict(ReconcileResult result) {
+        Verdict verdict = result.conformity().verdict();
         ObjectNode node = nodes.objectNode();
-        node.put("overall", verdict.overall());
-        node.put("lower_corner_source", cornerSource);
-        node.put("midband_gain_source", gainSource);
+        node.put("overall", verdict.overall().word());
+        node.put("lower_corner_source", result.cornerSource());
+        node.put("midband_gain_source", result.midbandSource());
         node.put("rule", verdict.rule().name().toLowerCase());
         node.put("rule_statement", verdict.rule().statement());
         ArrayNode checks = node.putArray("checks");
@@ -262,9 +267,33 @@ public final class ReconcileJson {
             row.put("margin", check.marginToLimit());
             row.put("guard_band", check.rule().guardBand(check.expandedUncertainty()));
             row.put("pass", check.pass());
+            row.put("decided", true);
+            row.putNull("reason");
+        }
+        // a limit the sweep does not decide: any value only for information, and no margin or decision
+        for (NotDecidedCheck check : verdict.notDecided()) {
+            ObjectNode row = checks.addObject();
+            MeasuredQuantity shown = check.shown();
+            row.put("quantity", check.quantity());
+            row.put("unit", check.unit());
+            putOptional(row, "value", shown.value());
+            if (shown.value().isPresent()) {
+                row.put("expanded_uncertainty", shown.expandedUncertainty());
+            } else {
+                row.putNull("expanded_uncertainty");
+            }
+            putOptional(row, "min", check.min());
+            putOptional(row, "max", check.max());
+            row.putNull("margin");
+            row.putNull("guard_band");
+            row.putNull("pass");
+            row.put("decided", false);
+            row.put("reason", check.reason().word());
         }
         ArrayNode unchecked = node.putArray("not_checked");
-        notChecked.forEach(unchecked::add);
+        for (NotDecidedCheck check : verdict.notDecided()) {
+            unchecked.add(new NotDecidedStatement().of(check, result.measured()));
+        }
         return node;
     }
 

@@ -13,7 +13,10 @@ import org.polebench.reconcile.CapacitorShare;
 import org.polebench.reconcile.Hypothesis;
 import org.polebench.reconcile.HypothesisKind;
 import org.polebench.reconcile.LimitCheck;
+import org.polebench.reconcile.MeasuredQuantity;
 import org.polebench.reconcile.NoiseBasis;
+import org.polebench.reconcile.NotDecidedCheck;
+import org.polebench.reconcile.OverallResult;
 import org.polebench.reconcile.ParameterEstimate;
 import org.polebench.reconcile.ParameterKind;
 import org.polebench.reconcile.ReconcileResult;
@@ -79,7 +82,7 @@ public final class ReconcileText {
         if (!side.fitAdequate()) {
             out.println("  the rational fit does not describe this sweep (χ²/ν above "
                     + MeasuredValueFormat.sixFigures(org.polebench.reconcile.Reconciler.FIT_ADEQUATE_CHI_SQUARE)
-                    + "): the verdict uses the back-solved values");
+                    + "): the back-solved values are shown, and no limit is decided from them");
         }
         if (side.cornerPercentile().isPresent()) {
             out.println(String.format(Locale.ROOT, "  measured corner at the %.1f %% point of the design spread: %s",
@@ -193,10 +196,33 @@ public final class ReconcileText {
                     limit(check.min(), check.max(), check.unit()), value(check.marginToLimit(), check.unit()),
                     check.pass() ? "pass" : "FAIL"));
         }
-        for (String line : result.conformity().notChecked()) {
-            out.println("  " + line);
+        // a limit the sweep does not decide: the value (if any) for information, no margin, no decision
+        for (NotDecidedCheck check : verdict.notDecided()) {
+            MeasuredQuantity shown = check.shown();
+            out.println(String.format(Locale.ROOT, "  %-14s %12s  U %-10s limit %-20s %-19s %s", check.quantity(),
+                    shown.value().isPresent() ? value(shown.value().getAsDouble(), check.unit()) : "none",
+                    shown.value().isPresent() ? value(shown.expandedUncertainty(), check.unit()) : "-",
+                    limit(check.min(), check.max(), check.unit()), "", "NOT DECIDED"));
         }
-        out.println("  overall: " + verdict.overall().toUpperCase(Locale.ROOT));
+        for (NotDecidedCheck check : verdict.notDecided()) {
+            out.println("  " + new NotDecidedStatement().of(check, result.measured()));
+        }
+        if (verdict.nothingToCheck()) {
+            out.println("  the stage file names no limits: nothing was decided");
+        }
+        out.println("  overall: " + verdict.overall().word().toUpperCase(Locale.ROOT) + overallNote(verdict));
+    }
+
+    private static String overallNote(Verdict verdict) {
+        if (verdict.overall() != OverallResult.INCOMPLETE || verdict.notDecided().isEmpty()) {
+            return "";
+        }
+        StringBuilder names = new StringBuilder();
+        for (NotDecidedCheck check : verdict.notDecided()) {
+            names.append(names.length() == 0 ? "" : ", ").append(check.quantity());
+        }
+        return " (not a pass: the sweep does not decide the " + names + " limit"
+                + (verdict.notDecided().size() > 1 ? "s" : "") + ")";
     }
 
     private static String limit(OptionalDouble min, OptionalDouble max, String unit) {

@@ -71,11 +71,14 @@ public final class ReportHtml {
     private static void summary(JsonNode root, StringBuilder h) {
         JsonNode verdict = root.path("verdict");
         String overall = verdict.path("overall").asText();
-        String css = overall.equals("pass") ? "pass" : overall.equals("fail") ? "fail" : "none";
+        String css = overall.equals("pass") ? "pass" : overall.equals("fail") ? "fail" : "incomplete";
         h.append("<section id=\"summary\" class=\"summary ").append(css).append("\">\n");
         h.append("<p class=\"verdict-word\">Verdict: <b id=\"verdict-overall\">").append(esc(overall.toUpperCase(Locale.ROOT)))
                 .append("</b></p>\n");
         h.append("<p>").append(esc(verdict.path("rule_statement").asText())).append(".</p>\n");
+        for (JsonNode line : verdict.path("not_checked")) {
+            h.append("<p>").append(esc(capitalised(line.asText()))).append(".</p>\n");
+        }
         JsonNode hypotheses = root.path("hypotheses");
         if (hypotheses.size() > 0) {
             JsonNode top = hypotheses.get(0);
@@ -136,8 +139,8 @@ public final class ReportHtml {
         h.append("</ol>\n");
         if (!root.path("side_by_side").path("fit_adequate").asBoolean(true)) {
             h.append("<p class=\"deviation\"><b>Deviation from the method:</b> the rational fit does not describe this "
-                    + "sweep (χ²/ν above its threshold), so the verdict uses the back-solved stage model's values "
-                    + "instead of the fit's.</p>\n");
+                    + "sweep (χ²/ν above its threshold), so the values shown are the back-solved stage model's "
+                    + "instead of the fit's, and no limit is decided from them.</p>\n");
         }
         h.append("</section>\n");
     }
@@ -347,6 +350,19 @@ public final class ReportHtml {
                 + "<th>Decision</th></tr></thead>\n<tbody>\n");
         for (JsonNode c : verdict.path("checks")) {
             String unit = c.path("unit").asText();
+            if (!c.path("decided").asBoolean(true)) {
+                // not decided (issue 11): a value only for information, no margin and no decision
+                h.append("<tr class=\"undecided\"><td>").append(esc(c.path("quantity").asText()))
+                        .append("</td><td>").append(c.path("value").isNumber()
+                                ? quantity(c.path("value").asDouble(), c.path("expanded_uncertainty").asDouble(), unit)
+                                + " <span class=\"note\">(not from the sweep)</span>" : NONE)
+                        .append("</td><td>").append(c.path("value").isNumber()
+                                ? uncertainty(c.path("expanded_uncertainty").asDouble(), unit) : NONE)
+                        .append("</td><td>").append(limit(c.path("min"), c.path("max"), unit))
+                        .append("</td><td>").append(NONE).append("</td><td>").append(NONE)
+                        .append("</td><td><b>not decided</b></td></tr>\n");
+                continue;
+            }
             boolean pass = c.path("pass").asBoolean();
             h.append("<tr class=\"").append(pass ? "pass" : "fail").append("\"><td>").append(esc(c.path("quantity").asText()))
                     .append("</td><td>").append(quantity(c.path("value").asDouble(), c.path("expanded_uncertainty").asDouble(), unit))
@@ -358,14 +374,17 @@ public final class ReportHtml {
                     .append("</td><td><b>").append(pass ? "pass" : "FAIL").append("</b></td></tr>\n");
         }
         if (verdict.path("checks").size() == 0) {
-            h.append("<tr><td colspan=\"7\">The stage file names no limits: nothing was checked.</td></tr>\n");
+            h.append("<tr><td colspan=\"7\">The stage file names no limits: nothing was decided, so the result is "
+                    + "incomplete.</td></tr>\n");
         }
         h.append("</tbody>\n</table>\n");
         for (JsonNode line : verdict.path("not_checked")) {
-            h.append("<p class=\"note\">").append(esc(line.asText())).append(".</p>\n");
+            h.append("<p class=\"note\">").append(esc(capitalised(line.asText()))).append(".</p>\n");
         }
         h.append("<p>Rule: ").append(esc(verdict.path("rule_statement").asText()))
-                .append(". Margin is the distance from the value to the nearest limit, positive inside. Overall: <b>")
+                .append(". Margin is the distance from the value to the nearest limit, positive inside. A limit is decided "
+                        + "only from a quantity the sweep itself determines; one it does not decide is never passed, "
+                        + "and makes the result incomplete unless a decided check fails. Overall: <b>")
                 .append(esc(verdict.path("overall").asText().toUpperCase(Locale.ROOT))).append("</b>.</p>\n");
     }
 
@@ -474,6 +493,10 @@ public final class ReportHtml {
     /** A value rounded to its uncertainty's last digit (GUM 7.2.6), with unit. */
     private static String quantity(double value, double expanded, String unit) {
         return MeasuredValueFormat.value(value, expanded) + " " + esc(unit);
+    }
+
+    private static String capitalised(String sentence) {
+        return sentence.isEmpty() ? sentence : sentence.substring(0, 1).toUpperCase(Locale.ROOT) + sentence.substring(1);
     }
 
     private static String uncertainty(double expanded, String unit) {
@@ -602,6 +625,7 @@ public final class ReportHtml {
             ".verdict-word { font-size: 14pt; margin: 1mm 0; }",
             ".pass .verdict-word b, tr.pass td:last-child { color: var(--pass); }",
             ".fail .verdict-word b, tr.fail td:last-child { color: var(--fail); }",
+            "section.summary.incomplete { border-color: var(--ink); border-style: dashed; }",
             "table.fields, table.data, table.signatures { border-collapse: collapse; width: 100%; break-inside: avoid; }",
             "table.fields th { text-align: left; width: 32%; font-weight: 600; vertical-align: top; }",
             "table.fields th, table.fields td { padding: 1mm 2mm; border-bottom: 1px solid var(--rule); }",

@@ -37,7 +37,14 @@ public final class ResultFile {
             throw new InputProblem(file, 1, "not a polebench reconcile result (no \"format\": \"" + ResultJson.FORMAT + "\")",
                     "give the result.json of a report folder, or the output of polebench reconcile --json");
         }
-        if (root.path("format_version").asInt() != 1) {
+        if (root.path("format_version").asInt() == 1) {
+            // version 1 passed a verdict whose limits the sweep did not all decide, and does not
+            // say which ones it decided: re-rendering it would repeat that pass (issue 11)
+            throw new InputProblem(file, 1, "result format version 1 does not say which limits the sweep decided",
+                    "re-run polebench reconcile with this version to write a version "
+                            + ResultJson.FORMAT_VERSION + " result");
+        }
+        if (root.path("format_version").asInt() != ResultJson.FORMAT_VERSION) {
             throw new InputProblem(file, 1, "result format version " + root.path("format_version").asText()
                     + " is not one this polebench reads", "re-run polebench reconcile with this version");
         }

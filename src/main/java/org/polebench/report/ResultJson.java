@@ -22,7 +22,9 @@ import org.polebench.reconcile.ReconcileResult;
  * everything the HTML report draws and states, so that {@code polebench report RESULT.json}
  * renders the same report from the file alone:
  * <ul>
- * <li>{@code format} ("polebench-reconcile-result") and {@code format_version} (1);</li>
+ * <li>{@code format} ("polebench-reconcile-result") and {@code format_version}
+ *     ({@value #FORMAT_VERSION}: version 2 says of every limit whether the sweep decides it,
+ *     issue 11);</li>
  * <li>{@code polebench_version}, {@code stage_file}, {@code stage_sha256}, {@code sweep_file},
  *     {@code sweep_sha256}, {@code profile}, {@code import_warnings};</li>
  * <li>{@code run}: operator, board (and where the board id came from), spread samples and seed;</li>
@@ -36,6 +38,8 @@ import org.polebench.reconcile.ReconcileResult;
 public final class ResultJson {
     /** The value of {@code format}, which {@code polebench report} checks. */
     public static final String FORMAT = "polebench-reconcile-result";
+    /** The value of {@code format_version}, the only one {@code polebench report} reads. */
+    public static final int FORMAT_VERSION = 2;
     /** Board draws for the Bode plot's tolerance band when the spread drew more. */
     public static final int BAND_BOARDS = 200;
 
@@ -44,7 +48,7 @@ public final class ResultJson {
     public ObjectNode of(ReconcileResult result, RunDetails run) {
         ObjectNode root = mapper.createObjectNode();
         root.put("format", FORMAT);
-        root.put("format_version", 1);
+        root.put("format_version", FORMAT_VERSION);
         root.put("polebench_version", RunDetails.polebenchVersion());
         root.put("stage_file", run.stageFile().toString());
         root.put("stage_sha256", run.stageSha256());

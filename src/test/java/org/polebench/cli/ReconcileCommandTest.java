@@ -73,6 +73,52 @@ class ReconcileCommandTest {
         assertTrue(run[1].contains("overall: FAIL"), run[1]);
     }
 
+    // issue 11: sample-measurements/boards/hp12-healthy.sweep.csv (a synthesized healthy board,
+    // invented demo data) stops at 6.4 kHz, far below the hydrophone stage's 480.8 kHz upper
+    // corner (predict), so its "upper corner ≥ 50 kHz" limit is not decided: the lower corner
+    // passes, yet the verdict is incomplete, never a pass, and the exit code is 4
+    @Test
+    void aLimitTheSweepDoesNotDecideMakesTheVerdictIncompleteWithExitCodeFour() throws IOException {
+        String[] text = run("reconcile", "--stage", "sample-measurements/hydrophone-preamp-ce.stage.yaml",
+                "--sweep", "sample-measurements/boards/hp12-healthy.sweep.csv", "--samples", "100");
+        assertEquals(Integer.toString(ExitCodes.INCOMPLETE), text[0], text[2]);
+        assertEquals("4", text[0]);
+        assertTrue(text[1].contains("overall: INCOMPLETE"), text[1]);
+        assertFalse(text[1].contains("overall: PASS"), text[1]);
+        assertTrue(text[1].contains("upper corner limit not decided: the sweep stops below the upper rolloff"),
+                text[1]);
+
+        String[] json = run("reconcile", "--stage", "sample-measurements/hydrophone-preamp-ce.stage.yaml",
+                "--sweep", "sample-measurements/boards/hp12-healthy.sweep.csv", "--samples", "100", "--json");
+        assertEquals("4", json[0], json[2]);
+        JsonNode verdict = new ObjectMapper().readTree(json[1]).get("verdict");
+        assertEquals("incomplete", verdict.get("overall").asText());
+        assertEquals(2, verdict.get("checks").size());
+        JsonNode lower = verdict.get("checks").get(0);
+        assertEquals("lower corner", lower.get("quantity").asText());
+        assertTrue(lower.get("decided").asBoolean());
+        assertTrue(lower.get("pass").asBoolean());
+        assertTrue(lower.get("reason").isNull());
+        JsonNode upper = verdict.get("checks").get(1);
+        assertEquals("upper corner", upper.get("quantity").asText());
+        assertFalse(upper.get("decided").asBoolean());
+        assertEquals("outside_swept_band", upper.get("reason").asText());
+        assertTrue(upper.get("pass").isNull());
+        assertTrue(upper.get("value").isNull());
+        assertEquals(50_000, upper.get("min").asDouble(), 0);
+        assertEquals(1, verdict.get("not_checked").size());
+        assertTrue(verdict.get("not_checked").get(0).asText().startsWith("upper corner limit not decided"));
+    }
+
+    @Test
+    void helpListsExitCodeFour() {
+        String[] help = run("--help");
+        assertEquals("0", help[0]);
+        assertTrue(help[1].contains("4   a verdict is incomplete"), help[1]);
+        String[] reconcileHelp = run("reconcile", "--help");
+        assertTrue(reconcileHelp[1].contains("4 when it is incomplete"), reconcileHelp[1]);
+    }
+
     @Test
     void badInputExitsWithTwoAndAHint() {
         String[] onlyStage = run("reconcile", "--stage", "sample-measurements/geophone-two-stage.stage.yaml");

@@ -61,6 +61,41 @@ class ReportCommandTest {
         assertArrayEquals(Files.readAllBytes(out.resolve("bode.svg")), Files.readAllBytes(again.resolve("bode.svg")));
     }
 
+    // issue 11: an incomplete verdict stays incomplete when the saved result is rendered again;
+    // the report command's own exit code says only that the report was written
+    @Test
+    void anIncompleteVerdictIsRenderedAgainAsIncomplete(@TempDir Path dir) throws Exception {
+        Path out = dir.resolve("hp12");
+        String[] first = run("reconcile", "--stage", "sample-measurements/hydrophone-preamp-ce.stage.yaml", "--sweep",
+                "sample-measurements/boards/hp12-healthy.sweep.csv", "--samples", "100", "--report", out.toString());
+        assertEquals("4", first[0], first[2]);
+        Path again = dir.resolve("again");
+        String[] report = run("report", out.resolve("result.json").toString(), "--out", again.toString());
+        assertEquals("0", report[0], report[2]);
+        for (Path folder : new Path[]{out, again}) {
+            String html = Files.readString(folder.resolve("report.html"));
+            assertTrue(html.contains("<b id=\"verdict-overall\">INCOMPLETE</b>"), folder.toString());
+            assertTrue(html.contains("Upper corner limit not decided"), folder.toString());
+            assertTrue(html.contains("<b>not decided</b>"), folder.toString());
+        }
+    }
+
+    // a result of format version 1 does not say which limits the sweep decided: refused, with
+    // what to do instead
+    @Test
+    void aVersionOneResultIsRefusedWithAHint(@TempDir Path dir) throws Exception {
+        Path out = dir.resolve("a");
+        assertEquals("1", run("reconcile", "--samples", "100", "--report", out.toString())[0]);
+        String text = Files.readString(out.resolve("result.json"));
+        assertTrue(text.contains("\"format_version\" : 2"), text.substring(0, 200));
+        Path old = Files.writeString(dir.resolve("old.json"), text.replace("\"format_version\" : 2",
+                "\"format_version\" : 1"));
+        String[] run = run("report", old.toString(), "--out", dir.resolve("b").toString());
+        assertEquals("2", run[0]);
+        assertTrue(run[2].contains("which limits the sweep decided"), run[2]);
+        assertTrue(run[2].contains("re-run polebench reconcile"), run[2]);
+    }
+
     @Test
     void reportRefusesAFileThatIsNotAResult(@TempDir Path dir) throws Exception {
         Path bad = Files.writeString(dir.resolve("x.json"), "{\n  \"stage\": [1, 2\n");

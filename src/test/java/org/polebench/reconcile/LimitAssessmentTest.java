@@ -4,7 +4,6 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import java.util.Optional;
 import java.util.OptionalDouble;
 import org.junit.jupiter.api.Test;
 import org.polebench.circuit.Limits;
@@ -23,9 +22,8 @@ class LimitAssessmentTest {
     private static final LimitAssessment ASSESSMENT = new LimitAssessment();
 
     private static Conformity assess(double cornerHz, double gainDb, double upperHz, DecisionRule rule) {
-        return ASSESSMENT.assess(LIMITS, Optional.of(new MeasuredQuantity(cornerHz, 0.5, "test")),
-                Optional.of(new MeasuredQuantity(gainDb, 0.25, "test")),
-                Optional.of(new MeasuredQuantity(upperHz, 1000, "test")), rule);
+        return ASSESSMENT.assess(LIMITS, new MeasuredQuantity(cornerHz, 0.5, "test"),
+                new MeasuredQuantity(gainDb, 0.25, "test"), new MeasuredQuantity(upperHz, 1000, "test"), rule);
     }
 
     private static boolean passes(Conformity conformity, String quantity) {
@@ -75,9 +73,9 @@ class LimitAssessmentTest {
     @Test
     void overallFailsWhenOneCheckFailsAndEachCheckCarriesItsMargin() {
         Conformity good = assess(15, 53, 60_000, DecisionRule.SIMPLE);
-        assertEquals("pass", good.verdict().overall());
+        assertEquals(OverallResult.PASS, good.verdict().overall());
         Conformity bad = assess(15, 57, 60_000, DecisionRule.SIMPLE);
-        assertEquals("fail", bad.verdict().overall());
+        assertEquals(OverallResult.FAIL, bad.verdict().overall());
         LimitCheck gain = bad.verdict().checks().get(1);
         // 57 dB against 56 dB max: margin −1 dB, value and U carried through
         assertEquals(-1, gain.marginToLimit(), 0);
@@ -85,15 +83,55 @@ class LimitAssessmentTest {
         assertEquals(0.25, gain.expandedUncertainty(), 0);
     }
 
+    // issue 11: a limit whose quantity the sweep does not determine is named with its reason and
+    // never passed; with no failing decided check the result is incomplete
     @Test
-    void anUnmeasuredQuantityIsNamedAsNotCheckedNotPassed() {
-        Conformity conformity = ASSESSMENT.assess(LIMITS, Optional.of(new MeasuredQuantity(15, 0.5, "test")),
-                Optional.of(new MeasuredQuantity(53, 0.25, "test")), Optional.empty(), DecisionRule.SIMPLE);
+    void aQuantityTheSweepDoesNotDetermineLeavesItsLimitNotDecidedAndTheResultIncomplete() {
+        Conformity conformity = ASSESSMENT.assess(LIMITS, new MeasuredQuantity(15, 0.5, "test"),
+                new MeasuredQuantity(53, 0.25, "test"), MeasuredQuantity.absent(NotDecided.OUTSIDE_SWEPT_BAND),
+                DecisionRule.SIMPLE);
         assertEquals(2, conformity.verdict().checks().size());
-        assertEquals(1, conformity.notChecked().size());
-        assertTrue(conformity.notChecked().get(0).startsWith(LimitAssessment.UPPER_CORNER));
-        Limits noUpper = new Limits(OptionalDouble.of(20), NONE, NONE, NONE, NONE, 0);
-        assertTrue(ASSESSMENT.assess(noUpper, Optional.empty(), Optional.empty(), Optional.empty(),
-                DecisionRule.SIMPLE).verdict().nothingToCheck());
+        assertEquals(1, conformity.verdict().notDecided().size());
+        NotDecidedCheck upper = conformity.verdict().notDecided().get(0);
+        assertEquals(LimitAssessment.UPPER_CORNER, upper.quantity());
+        assertEquals(NotDecided.OUTSIDE_SWEPT_BAND, upper.reason());
+        assertEquals(OverallResult.INCOMPLETE, conformity.verdict().overall());
+        assertFalse(conformity.verdict().passed());
+    }
+
+    // a model-derived corner far inside its limit is still not a pass: only the sweep decides
+    @Test
+    void aValueShownOnlyFromTheModelIsNotDecidedEvenWellInsideItsLimit() {
+        Conformity conformity = ASSESSMENT.assess(LIMITS,
+                MeasuredQuantity.shownOnly(15, 0.5, "model", NotDecided.FROM_MODEL_ONLY),
+                new MeasuredQuantity(53, 0.25, "test"), new MeasuredQuantity(60_000, 1000, "test"),
+                DecisionRule.SIMPLE);
+        assertEquals(OverallResult.INCOMPLETE, conformity.verdict().overall());
+        NotDecidedCheck lower = conformity.verdict().notDecided().get(0);
+        assertEquals(LimitAssessment.LOWER_CORNER, lower.quantity());
+        assertEquals(15, lower.shown().value().getAsDouble(), 0);
+    }
+
+    @Test
+    void aFailingDecidedCheckMakesTheResultFailEvenWithALimitNotDecided() {
+        Conformity conformity = ASSESSMENT.assess(LIMITS, new MeasuredQuantity(25, 0.5, "test"),
+                MeasuredQuantity.shownOnly(53, 0.25, "model", NotDecided.FIT_DOES_NOT_DESCRIBE_SWEEP),
+                MeasuredQuantity.absent(NotDecided.OUTSIDE_SWEPT_BAND), DecisionRule.SIMPLE);
+        assertEquals(OverallResult.FAIL, conformity.verdict().overall());
+        assertEquals(2, conformity.verdict().notDecided().size());
+    }
+
+    @Test
+    void onlyTheLimitsTheStageNamesAreAssessed() {
+        Limits onlyLower = new Limits(OptionalDouble.of(20), NONE, NONE, NONE, NONE, 0);
+        Verdict verdict = ASSESSMENT.assess(onlyLower, new MeasuredQuantity(15, 0.5, "test"),
+                MeasuredQuantity.absent(NotDecided.MIDBAND_NOT_REACHED),
+                MeasuredQuantity.absent(NotDecided.OUTSIDE_SWEPT_BAND), DecisionRule.SIMPLE).verdict();
+        assertEquals(1, verdict.checks().size());
+        assertTrue(verdict.notDecided().isEmpty());
+        assertEquals(OverallResult.PASS, verdict.overall());
+        assertTrue(ASSESSMENT.assess(Limits.none(), MeasuredQuantity.absent(NotDecided.OUTSIDE_SWEPT_BAND),
+                MeasuredQuantity.absent(NotDecided.OUTSIDE_SWEPT_BAND),
+                MeasuredQuantity.absent(NotDecided.OUTSIDE_SWEPT_BAND), DecisionRule.SIMPLE).verdict().nothingToCheck());
     }
 }

@@ -40,11 +40,16 @@ class LimitCheckTest {
     }
 
     @Test
-    void verdictFailsWhenAnyCheckFailsAndSaysWhenThereIsNothingToCheck() {
+    void verdictFailsWhenAnyCheckFailsAndIsIncompleteWhenThereIsNothingToCheck() {
         LimitCheck good = LimitCheck.decide("a", "Hz", 1, 0, NONE, OptionalDouble.of(2), DecisionRule.SIMPLE);
         LimitCheck bad = LimitCheck.decide("b", "Hz", 3, 0, NONE, OptionalDouble.of(2), DecisionRule.SIMPLE);
-        assertEquals("pass", new Verdict(DecisionRule.SIMPLE, List.of(good)).overall());
-        assertEquals("fail", new Verdict(DecisionRule.SIMPLE, List.of(good, bad)).overall());
-        assertEquals("no limits", new Verdict(DecisionRule.SIMPLE, List.of()).overall());
+        assertEquals("pass", new Verdict(DecisionRule.SIMPLE, List.of(good), List.of()).overall().word());
+        assertEquals("fail", new Verdict(DecisionRule.SIMPLE, List.of(good, bad), List.of()).overall().word());
+        // issue 11: a stage with no limits has nothing the sweep showed to pass, so the result is
+        // incomplete, not a pass
+        Verdict none = new Verdict(DecisionRule.SIMPLE, List.of(), List.of());
+        assertTrue(none.nothingToCheck());
+        assertEquals("incomplete", none.overall().word());
+        assertFalse(none.passed());
     }
 }
