@@ -39,6 +39,8 @@ final class HypothesisSearch {
         final double logPrior;
         final Misfit misfit;
         MapPoint stated;
+        /** Its point needs no convergence run (a resistor judged by one Gauss–Newton step). */
+        boolean settled;
 
         Candidate(HypothesisKind kind, int[] freed, Prior[] priors, boolean[] active, double logPrior, Misfit misfit) {
             this.kind = kind;
@@ -95,7 +97,7 @@ final class HypothesisSearch {
                 free[j] = true;
             }
             if (parameters.get(j).kind() == ParameterKind.RESISTOR) {
-                single.stated = resistor(single, none.stated, free);
+                resistor(single, none.stated, free);
             } else {
                 single.stated = screen(single.misfit, starts(none.stated.theta(), j), free);
             }
@@ -177,26 +179,33 @@ final class HypothesisSearch {
      * resistors of a stage do not explain a sweep, so each is first judged by one Gauss–Newton
      * step from the no-fault MAP over its own parameters (the data Jacobian there made once for
      * all resistors). A resistor whose step promises a χ² drop of {@value #RESISTOR_SCREEN_DROP}
-     * or more is screened from every start as the other parts are (a decade slip shows as a
-     * large drop); the others keep the exact evidence at the step's end, which for a drop that
-     * small lies within a fraction of a nat of the MAP's (the objective is near quadratic there).
+     * or more is screened and converged from every start as the other parts are (a decade slip
+     * shows as a large drop); the others keep the exact evidence at the step's end without a
+     * convergence run: with a drop that small the objective is near quadratic there and the
+     * step lands close to the MAP.
      */
-    private MapPoint resistor(Candidate single, MapPoint none, boolean[] free) {
+    private void resistor(Candidate single, MapPoint none, boolean[] free) {
         int j = single.freed[0];
         double[] theta = none.theta();
         Step step = gaussNewtonStep(single, theta);
         if (step == null || step.drop >= RESISTOR_SCREEN_DROP) {
-            return screen(single.misfit, starts(theta, j), free);
+            single.stated = screen(single.misfit, starts(theta, j), free);
+            return;
         }
         double[] end = theta.clone();
         for (int i = 0; i < end.length; i++) {
             end[i] += step.delta[i];
         }
         Optional<MapPoint> stepped = screen.at(single.misfit, end);
-        if (stepped.isPresent() && stepped.get().objective() <= none.objective()) {
-            return stepped.get();
+        if (stepped.isEmpty() || stepped.get().objective() > none.objective()) {
+            stepped = screen.at(single.misfit, theta);
         }
-        return screen.at(single.misfit, theta).orElseGet(() -> screen(single.misfit, starts(theta, j), free));
+        if (stepped.isPresent()) {
+            single.stated = stepped.get();
+            single.settled = true;
+        } else {
+            single.stated = screen(single.misfit, starts(theta, j), free);
+        }
     }
 
     /** A resistor's promised χ² drop at or above which it is screened in full. */
@@ -290,7 +299,7 @@ final class HypothesisSearch {
         }
         for (int h = 1; h < candidates.size(); h++) {
             Candidate candidate = candidates.get(h);
-            if (candidate.logPrior + lnZ[h] > best - FaultRanking.SKIP_NATS) {
+            if (!candidate.settled && candidate.logPrior + lnZ[h] > best - FaultRanking.SKIP_NATS) {
                 MapPoint converged = solve(candidate.misfit, List.of(candidate.stated.theta()), networkHeld);
                 if (converged != null) {
                     candidate.stated = converged;
