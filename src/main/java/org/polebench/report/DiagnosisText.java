@@ -123,7 +123,7 @@ public final class DiagnosisText {
                     String.format(Locale.ROOT, "%.3g", adequacy.freeFitRatio().getAsDouble()),
                     p(adequacy.freeFitPValue().getAsDouble())));
         }
-        evidence.add("residual runs along frequency p = " + p(adequacy.structurePValue()));
+        evidence.add("residual structure along frequency (lag-1 autocorrelation) p = " + p(adequacy.structurePValue()));
         for (ModelAdequacy.Finding finding : adequacy.findings()) {
             switch (finding) {
                 case CORNER_OUTSIDE_SPREAD:
