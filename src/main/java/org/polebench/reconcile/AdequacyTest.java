@@ -34,6 +34,12 @@ import org.polebench.units.Decibels;
  *     a model error far below the point σ (a noise-free sweep's round-off, the product of the
  *     low and high bands) is not an alarm. Unlike the free-fit comparison this holds when the
  *     free fit cannot follow the sweep either (an extra bench pole beyond the stage's order).</li>
+ * <li>the parts the best hypothesis holds within their tolerances must be found there: the
+ *     squared standardised distances of their estimates from their priors' means, summed,
+ *     against χ² with one degree per part (conservative: a posterior mean scatters less than
+ *     its prior), and no single part beyond {@value #OUTSIDE_TOLERANCE_SIGMAS} σ. A hypothesis
+ *     that fits the data only by moving parts it does not free far out of tolerance does not
+ *     explain the sweep.</li>
  * </ol>
  * The level {@value #ALPHA} per check was set so that seeded boards made by the synthesizer from
  * the stage itself (several stages, noise levels and faults) raise a false alarm on at most 1 %
@@ -46,6 +52,12 @@ import org.polebench.units.Decibels;
  * Stateless.
  */
 public final class AdequacyTest {
+    /**
+     * A part the best hypothesis holds at its tolerance prior but estimates this many prior σ
+     * away is outside its tolerance: a band read as rectangular puts its edge at √3 σ, so 4 σ is
+     * more than twice the band's half-width beyond its centre.
+     */
+    public static final double OUTSIDE_TOLERANCE_SIGMAS = 4;
     /** The level of each check: a false alarm on about 0.1 % of right models per check. */
     public static final double ALPHA = 1e-3;
     /**
@@ -118,6 +130,33 @@ public final class AdequacyTest {
             findings.add(ModelAdequacy.Finding.RESIDUAL_RUNS);
         }
 
+        // the parts the best hypothesis does not free must stay within their tolerances: a
+        // hypothesis that fits only by pulling them far out (a gain nuisance stretched to 20 dB,
+        // three capacitors moved to make up for a wrong resistor) does not explain the sweep
+        List<String> outside = new ArrayList<>();
+        double toleranceChiSquared = 0;
+        int held = 0;
+        Hypothesis top = diagnosis.top();
+        for (ParameterEstimate estimate : top.backSolve().parameters()) {
+            boolean freed = top.faults().stream().anyMatch(f -> f.estimate().parameter().equals(estimate.parameter()));
+            if (freed) {
+                continue;
+            }
+            Prior prior = estimate.parameter().tolerancePrior();
+            double z = (estimate.logEstimate() - prior.mean()) / prior.standardDeviation();
+            toleranceChiSquared += z * z;
+            held++;
+            if (Math.abs(z) > OUTSIDE_TOLERANCE_SIGMAS) {
+                outside.add(estimate.parameter().kind() == ParameterKind.GAIN ? "the gain calibration"
+                        : estimate.parameter().kind() == ParameterKind.BIAS ? estimate.parameter().label() + " bias current"
+                        : estimate.parameter().kind() == ParameterKind.CURRENT_GAIN
+                        ? estimate.parameter().label() + " β" : estimate.parameter().label());
+            }
+        }
+        double toleranceP = held == 0 ? 1 : upperTail(toleranceChiSquared, held);
+        if (toleranceP < ALPHA || !outside.isEmpty()) {
+            findings.add(ModelAdequacy.Finding.PARTS_OUTSIDE_TOLERANCE);
+        }
         boolean explained = findings.isEmpty();
         // a faulty board is not a stranger: only a sweep the stage does not explain is asked
         // whether it looks like a board of this stage at all
@@ -142,7 +181,7 @@ public final class AdequacyTest {
         ModelAdequacy.PValueBasis basis = statedP.isPresent() ? ModelAdequacy.PValueBasis.STATED_UNCERTAINTIES
                 : freeP.isPresent() ? ModelAdequacy.PValueBasis.FREE_FIT : ModelAdequacy.PValueBasis.NONE;
         return new ModelAdequacy(explained, looksLike, chiSquared, nu, p, basis, ratio, freeP, structureP,
-                findings);
+                toleranceP, outside, findings);
     }
 
     static double upperTail(double chiSquared, int nu) {

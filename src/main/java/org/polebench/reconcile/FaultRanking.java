@@ -34,7 +34,9 @@ import org.polebench.units.Decibels;
  * common misfit), a bias current σ = ln 3 (a wrong divider resistor or a wrong part class moves
  * a bias by tens of percent up to a few times), the gain σ = 20 dB (a ×10 probe read as ×1 is
  * exactly 20 dB off), each centred on its tolerance prior's mean; and, only when asked because
- * no single fault explains the sweep, pairs of the most probable single faults. Prior
+ * no single fault explains the sweep, pairs: the most probable single fault with each of the
+ * four parts that, freed beside it, promise the largest further drop of χ² (one Gauss–Newton
+ * step from its MAP), and the three most probable single faults with one another. Prior
  * probabilities: "no fault" {@value #NO_FAULT_PRIOR}; the single faults share
  * {@value #SINGLE_FAULTS_PRIOR} equally; the pairs share {@value #DOUBLE_FAULTS_PRIOR} equally
  * over every pair that could be formed (not only those ranked), so that one given pair is far
@@ -70,7 +72,10 @@ public final class FaultRanking {
     public static final double NO_FAULT_PRIOR = 0.5;
     public static final double SINGLE_FAULTS_PRIOR = 0.4;
     public static final double DOUBLE_FAULTS_PRIOR = 0.1;
-    /** How many of the most probable single faults are paired when pairs are ranked. */
+    /**
+     * How many second faults are paired with the most probable single fault when pairs are
+     * ranked, plus one: the parts that promise the largest further drop of χ² beside it.
+     */
     public static final int PAIRED_SINGLES = 5;
     static final double ZERO_BAND_SIGMA = 1e-3;
     static final int SCREEN_ITERATIONS = 4;

@@ -124,43 +124,120 @@ final class HypothesisSearch {
         }
         List<Candidate> singles = new ArrayList<>();
         for (Hypothesis hypothesis : last.hypotheses()) {
-            if (hypothesis.kind() != HypothesisKind.NONE && hypothesis.kind() != HypothesisKind.DOUBLE
-                    && singles.size() < FaultRanking.PAIRED_SINGLES) {
+            if (hypothesis.kind() != HypothesisKind.NONE && hypothesis.kind() != HypothesisKind.DOUBLE) {
                 singles.add(candidateOf(hypothesis));
             }
         }
         int s = faultable.size();
         double pairPrior = Math.log(FaultRanking.DOUBLE_FAULTS_PRIOR / Math.max(1, s * (s - 1) / 2.0));
-        for (int a = 0; a < singles.size(); a++) {
-            for (int b = a + 1; b < singles.size(); b++) {
-                Candidate first = singles.get(a);
-                Candidate second = singles.get(b);
-                int i = first.freed[0];
-                int j = second.freed[0];
-                Prior[] priors = tolerance.clone();
-                priors[i] = parameters.get(i).faultPrior();
-                priors[j] = parameters.get(j).faultPrior();
-                boolean[] active = baseActive.clone();
-                active[i] = true;
-                active[j] = true;
-                Candidate pair = new Candidate(HypothesisKind.DOUBLE, new int[] {i, j}, priors, active, pairPrior,
-                        misfit(priors, active, 1, 1));
-                // from each single's MAP with the other's freed value put in
-                double[] fromFirst = first.stated.theta();
-                fromFirst[j] = second.stated.theta(j);
-                double[] fromSecond = second.stated.theta();
-                fromSecond[i] = first.stated.theta(i);
-                pair.stated = solve(pair.misfit, List.of(fromFirst, fromSecond), null);
-                // a pair whose model is undefined from both starts (the transistors leave their
-                // amplifying region) is not a board that gives this sweep: it is not ranked
-                if (pair.stated != null) {
-                    candidates.add(pair);
+        List<int[]> pairs = new ArrayList<>();
+        // the most probable single with the parts that, freed beside it, promise the largest
+        // drop of χ² by one Gauss–Newton step from its MAP: the second fault is what the first
+        // leaves unexplained, which the single-fault ranking alone does not show
+        for (int leader = 0; leader < Math.min(GN_LEADERS, singles.size()); leader++) {
+            Candidate first = singles.get(leader);
+            DataNormal data = dataNormal(first.stated.theta());
+            if (data == null) {
+                continue;
+            }
+            List<double[]> promised = new ArrayList<>();
+            for (int o = 0; o < singles.size(); o++) {
+                Candidate other = singles.get(o);
+                if (o == leader) {
+                    continue;
                 }
+                Step step = gaussNewtonStep(pairPriors(first, other), pairActive(first, other), first.stated.theta(),
+                        data);
+                if (step != null) {
+                    promised.add(new double[] {o, step.drop});
+                }
+            }
+            promised.sort((a, b) -> Double.compare(b[1], a[1]));
+            for (int i = 0; i < Math.min(FaultRanking.PAIRED_SINGLES - 1, promised.size()); i++) {
+                int o = (int) promised.get(i)[0];
+                int a = Math.min(leader, o);
+                int b = Math.max(leader, o);
+                if (pairs.stream().noneMatch(pair -> pair[0] == a && pair[1] == b)) {
+                    pairs.add(new int[] {a, b});
+                }
+            }
+        }
+        // and the few most probable singles with one another
+        for (int a = 0; a < Math.min(PAIRED_LEADERS, singles.size()); a++) {
+            for (int b = a + 1; b < Math.min(PAIRED_LEADERS, singles.size()); b++) {
+                final int fa = a;
+                final int fb = b;
+                if (pairs.stream().noneMatch(pair -> pair[0] == fa && pair[1] == fb)) {
+                    pairs.add(new int[] {a, b});
+                }
+            }
+        }
+        for (int[] indices : pairs) {
+            Candidate first = singles.get(indices[0]);
+            Candidate second = singles.get(indices[1]);
+            int i = first.freed[0];
+            int j = second.freed[0];
+            Prior[] priors = pairPriors(first, second);
+            boolean[] active = pairActive(first, second);
+            Candidate pair = new Candidate(HypothesisKind.DOUBLE, new int[] {i, j}, priors, active, pairPrior,
+                    misfit(priors, active, 1, 1));
+            // from each single's MAP with the other's freed value put in, and from the first's
+            // with the second a decade either side (two slips: the second single's MAP has bent
+            // to make up for the first)
+            double[] fromFirst = first.stated.theta();
+            fromFirst[j] = second.stated.theta(j);
+            double[] fromSecond = second.stated.theta();
+            fromSecond[i] = first.stated.theta(i);
+            List<double[]> starts = new ArrayList<>(List.of(fromFirst, fromSecond));
+            ParameterKind kind = parameters.get(j).kind();
+            if (kind == ParameterKind.CAPACITOR || kind == ParameterKind.RESISTOR) {
+                for (double offset : new double[] {-Math.log(10), Math.log(10)}) {
+                    double[] start = first.stated.theta();
+                    start[j] = tolerance[j].mean() + offset;
+                    starts.add(start);
+                }
+            }
+            pair.stated = screenThenSolve(pair.misfit, starts);
+            // a pair whose model is undefined from both starts (the transistors leave their
+            // amplifying region) is not a board that gives this sweep: it is not ranked
+            if (pair.stated != null) {
+                candidates.add(pair);
             }
         }
         pairsRanked = true;
         last = finish();
         return last;
+    }
+
+    /** How many of the most probable single faults are also paired with one another. */
+    static final int PAIRED_LEADERS = 3;
+    /** How many of the most probable single faults get their Gauss–Newton partners. */
+    static final int GN_LEADERS = 2;
+
+    // every start screened, the best run to convergence; null when the model is undefined at all
+    private MapPoint screenThenSolve(Misfit misfit, List<double[]> starts) {
+        MapPoint best = null;
+        for (double[] start : starts) {
+            Optional<MapPoint> point = screen.solve(misfit, start, null, false);
+            if (point.isPresent() && (best == null || point.get().objective() < best.objective())) {
+                best = point.get();
+            }
+        }
+        return best == null ? null : solve(misfit, List.of(best.theta()), null);
+    }
+
+    private Prior[] pairPriors(Candidate first, Candidate second) {
+        Prior[] priors = tolerance.clone();
+        priors[first.freed[0]] = parameters.get(first.freed[0]).faultPrior();
+        priors[second.freed[0]] = parameters.get(second.freed[0]).faultPrior();
+        return priors;
+    }
+
+    private boolean[] pairActive(Candidate first, Candidate second) {
+        boolean[] active = baseActive.clone();
+        active[first.freed[0]] = true;
+        active[second.freed[0]] = true;
+        return active;
     }
 
     private Candidate candidateOf(Hypothesis hypothesis) {
@@ -212,8 +289,18 @@ final class HypothesisSearch {
     static final double RESISTOR_SCREEN_DROP = 9;
 
     /** The data part of JᵀJ and Jᵀr at the no-fault MAP with every resistor active; made on first use. */
-    private double[][] dataNormal;
-    private double[] dataGradient;
+    private DataNormal atNoFault;
+
+    /** The data part of the normal equations at one θ, every parameter active. */
+    private static final class DataNormal {
+        final double[][] normal;
+        final double[] gradient;
+
+        DataNormal(double[][] normal, double[] gradient) {
+            this.normal = normal;
+            this.gradient = gradient;
+        }
+    }
 
     /** A Gauss–Newton step δ and the drop of ‖r‖² it promises, gᵀ(JᵀJ + Σp⁻¹)⁻¹g. */
     private static final class Step {
@@ -226,51 +313,62 @@ final class HypothesisSearch {
         }
     }
 
-    // δ = −(JᵀJ + Σp⁻¹)⁻¹·g over the hypothesis' active parameters at θ; null when the model is
-    // undefined there
-    private Step gaussNewtonStep(Candidate candidate, double[] theta) {
+    // JᵀJ and Jᵀr over the data rows at θ with every parameter active; null where the model is
+    // undefined
+    private DataNormal dataNormal(double[] theta) {
         int p = parameters.size();
-        if (dataNormal == null) {
-            boolean[] all = new boolean[p];
-            java.util.Arrays.fill(all, true);
-            Misfit every = misfit(tolerance, all, 1, 1);
-            double[] r = new double[every.rows()];
-            double[][] jacobian = new double[p][every.rows()];
-            if (!every.evaluate(theta, r, jacobian, false, null)) {
-                return null;
-            }
-            int rows = every.dataRows();
-            dataNormal = new double[p][p];
-            dataGradient = new double[p];
-            for (int a = 0; a < p; a++) {
-                for (int b = 0; b <= a; b++) {
-                    double sum = 0;
-                    for (int k = 0; k < rows; k++) {
-                        sum += jacobian[a][k] * jacobian[b][k];
-                    }
-                    dataNormal[a][b] = sum;
-                    dataNormal[b][a] = sum;
-                }
-                double sum = 0;
-                for (int k = 0; k < rows; k++) {
-                    sum += jacobian[a][k] * r[k];
-                }
-                dataGradient[a] = sum;
-            }
+        boolean[] all = new boolean[p];
+        java.util.Arrays.fill(all, true);
+        Misfit every = misfit(tolerance, all, 1, 1);
+        double[] r = new double[every.rows()];
+        double[][] jacobian = new double[p][every.rows()];
+        if (!every.evaluate(theta, r, jacobian, false, null)) {
+            return null;
         }
+        int rows = every.dataRows();
         double[][] normal = new double[p][p];
         double[] gradient = new double[p];
         for (int a = 0; a < p; a++) {
-            if (!candidate.active[a]) {
+            for (int b = 0; b <= a; b++) {
+                double sum = 0;
+                for (int k = 0; k < rows; k++) {
+                    sum += jacobian[a][k] * jacobian[b][k];
+                }
+                normal[a][b] = sum;
+                normal[b][a] = sum;
+            }
+            double sum = 0;
+            for (int k = 0; k < rows; k++) {
+                sum += jacobian[a][k] * r[k];
+            }
+            gradient[a] = sum;
+        }
+        return new DataNormal(normal, gradient);
+    }
+
+    private Step gaussNewtonStep(Candidate candidate, double[] theta) {
+        if (atNoFault == null) {
+            atNoFault = dataNormal(theta);
+        }
+        return atNoFault == null ? null : gaussNewtonStep(candidate.priors, candidate.active, theta, atNoFault);
+    }
+
+    // δ = −(JᵀJ + Σp⁻¹)⁻¹·g over the active parameters at θ; null when the normal matrix is singular
+    private Step gaussNewtonStep(Prior[] priors, boolean[] active, double[] theta, DataNormal data) {
+        int p = parameters.size();
+        double[][] normal = new double[p][p];
+        double[] gradient = new double[p];
+        for (int a = 0; a < p; a++) {
+            if (!active[a]) {
                 normal[a][a] = 1;
                 continue;
             }
-            double sigma = candidate.priors[a].standardDeviation();
+            double sigma = priors[a].standardDeviation();
             for (int b = 0; b < p; b++) {
-                normal[a][b] = candidate.active[b] ? dataNormal[a][b] : 0;
+                normal[a][b] = active[b] ? data.normal[a][b] : 0;
             }
             normal[a][a] += 1 / (sigma * sigma);
-            gradient[a] = dataGradient[a] + (theta[a] - candidate.priors[a].mean()) / (sigma * sigma);
+            gradient[a] = data.gradient[a] + (theta[a] - priors[a].mean()) / (sigma * sigma);
         }
         Optional<Cholesky> factor = Cholesky.of(normal);
         if (factor.isEmpty()) {

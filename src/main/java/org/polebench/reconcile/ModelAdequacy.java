@@ -23,12 +23,17 @@ import java.util.OptionalDouble;
  * @param freeFitPValue      P(F ≥ that ratio) for F(ν_stage, ν_fit)
  * @param structurePValue    the runs test's p: the chance of so few sign runs in the normalised
  *                           residuals along frequency if they were noise
+ * @param tolerancePValue    P(χ² ≥ Σz²) of the standardised distances from their tolerance priors
+ *                           of the parts the best hypothesis does not free
+ * @param partsOutsideTolerance those parts estimated far outside their tolerance, by name
  * @param findings           what failed, in order of weight; empty when explained
  */
 public record ModelAdequacy(boolean explained, boolean looksLikeStage, double chiSquared, int degreesOfFreedom,
                             OptionalDouble pValue, PValueBasis basis, OptionalDouble freeFitRatio,
-                            OptionalDouble freeFitPValue, double structurePValue, List<Finding> findings) {
+                            OptionalDouble freeFitPValue, double structurePValue, double tolerancePValue,
+                            List<String> partsOutsideTolerance, List<Finding> findings) {
     public ModelAdequacy {
+        partsOutsideTolerance = List.copyOf(partsOutsideTolerance);
         findings = List.copyOf(findings);
     }
 
@@ -50,6 +55,8 @@ public record ModelAdequacy(boolean explained, boolean looksLikeStage, double ch
         WORSE_THAN_FREE_FIT,
         /** The residuals run in long stretches of one sign along frequency. */
         RESIDUAL_RUNS,
+        /** The best hypothesis fits only by moving parts it does not free far out of tolerance. */
+        PARTS_OUTSIDE_TOLERANCE,
         /** The misfit's RMS is a hundred point σ or more, whatever a free fit does. */
         WORSE_THAN_STATED_NOISE_BY_FAR,
         /** The stage misses the sweep by orders of magnitude (against the free fit or the point σ). */

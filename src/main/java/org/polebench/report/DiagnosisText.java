@@ -129,6 +129,13 @@ public final class DiagnosisText {
                 case CORNER_OUTSIDE_SPREAD:
                     evidence.add("the measured lower corner lies far outside every board of the tolerance spread");
                     break;
+                case PARTS_OUTSIDE_TOLERANCE:
+                    evidence.add(adequacy.partsOutsideTolerance().isEmpty()
+                            ? "the parts it holds within tolerance sit far from their tolerances as a set (p = "
+                            + p(adequacy.tolerancePValue()) + ")"
+                            : String.join(", ", adequacy.partsOutsideTolerance())
+                            + " would have to lie far outside their tolerances");
+                    break;
                 case FAR_FROM_EVERY_HYPOTHESIS:
                     evidence.add("every hypothesis misses the sweep by far more than the noise or a free fit allows");
                     break;

@@ -128,6 +128,9 @@ public final class ReconcileJson {
         putOptional(node, "p_value", adequacy.pValue());
         node.put("p_value_basis", adequacy.basis().name().toLowerCase(Locale.ROOT));
         node.put("structure_p_value", adequacy.structurePValue());
+        node.put("tolerance_p_value", adequacy.tolerancePValue());
+        ArrayNode outside = node.putArray("parts_outside_tolerance");
+        adequacy.partsOutsideTolerance().forEach(outside::add);
         putOptional(node, "free_fit_ratio", adequacy.freeFitRatio());
         putOptional(node, "free_fit_p_value", adequacy.freeFitPValue());
         ArrayNode findings = node.putArray("findings");
