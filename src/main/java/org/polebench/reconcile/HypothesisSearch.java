@@ -162,6 +162,27 @@ final class HypothesisSearch {
                 }
             }
         }
+        // every pair of capacitors and the gain calibration, the commonest faults: few enough
+        // (15 for five capacitors) to rank all, and a second slipped capacitor may lie in a
+        // direction the first one's MAP hides (the no-fault MAP bends the nuisances instead)
+        List<Integer> common = new ArrayList<>();
+        for (int o = 0; o < singles.size(); o++) {
+            ParameterKind kind = parameters.get(singles.get(o).freed[0]).kind();
+            if (kind == ParameterKind.CAPACITOR || kind == ParameterKind.GAIN) {
+                common.add(o);
+            }
+        }
+        if (common.size() <= COMMON_PAIRED) {
+            for (int x = 0; x < common.size(); x++) {
+                for (int y = x + 1; y < common.size(); y++) {
+                    int a = Math.min(common.get(x), common.get(y));
+                    int b = Math.max(common.get(x), common.get(y));
+                    if (pairs.stream().noneMatch(pair -> pair[0] == a && pair[1] == b)) {
+                        pairs.add(new int[] {a, b});
+                    }
+                }
+            }
+        }
         // and the few most probable singles with one another
         for (int a = 0; a < Math.min(PAIRED_LEADERS, singles.size()); a++) {
             for (int b = a + 1; b < Math.min(PAIRED_LEADERS, singles.size()); b++) {
@@ -211,8 +232,10 @@ final class HypothesisSearch {
 
     /** How many of the most probable single faults are also paired with one another. */
     static final int PAIRED_LEADERS = 3;
+    /** Up to this many capacitors and gain, every pair of them is ranked. */
+    static final int COMMON_PAIRED = 9;
     /** How many of the most probable single faults get their Gauss–Newton partners. */
-    static final int GN_LEADERS = 2;
+    static final int GN_LEADERS = 4;
 
     // every start screened, the best run to convergence; null when the model is undefined at all
     private MapPoint screenThenSolve(Misfit misfit, List<double[]> starts) {
