@@ -33,9 +33,11 @@ import picocli.CommandLine.Spec;
 /** {@code polebench reconcile}: a stage as designed against a sweep of the board as built. */
 @Command(name = "reconcile", mixinStandardHelpOptions = true,
         description = {"Predicts the stage, fits the sweep and sets them side by side; splits the corner error "
-                + "among the capacitors; back-solves every low-band capacitor, each transistor's bias current "
-                + "and a flat gain calibration on the stage's own model; ranks the single-fault hypotheses by "
-                + "evidence; and decides the stage's limits under a stated decision rule.",
+                + "among the capacitors; back-solves every low-band capacitor, each transistor's bias current, "
+                + "each bipolar transistor's beta (device spread) and a flat gain calibration on the stage's own "
+                + "model; ranks the fault hypotheses by evidence (a capacitor, a resistor, a bias current or the "
+                + "gain freed; pairs of them when no single one explains the sweep); says first whether the "
+                + "stage explains the sweep at all; and decides the stage's limits under a stated decision rule.",
                 "With no stage and sweep it runs on the bundled demo stage and a faulty demo board's sweep "
                         + "(invented demo data).",
                 "A limit is decided only from a quantity the sweep itself determines: a corner outside the swept "

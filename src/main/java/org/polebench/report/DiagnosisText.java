@@ -117,13 +117,12 @@ public final class DiagnosisText {
         evidence.add(String.format(Locale.ROOT, "χ² = %s over ν = %d", MeasuredValueFormat.sixFigures(
                 adequacy.chiSquared()), adequacy.degreesOfFreedom())
                 + (adequacy.basis() == ModelAdequacy.PValueBasis.STATED_UNCERTAINTIES
-                ? " at the sweep's stated uncertainties, p = " + p(adequacy.pValue().getAsDouble()) : ""));
+                ? " at the sweep's stated uncertainties, " + pEquals(adequacy.pValue().getAsDouble()) : ""));
         if (adequacy.freeFitRatio().isPresent()) {
-            evidence.add(String.format(Locale.ROOT, "χ²/ν %s× that of a free rational fit of the same sweep, p = %s",
-                    String.format(Locale.ROOT, "%.3g", adequacy.freeFitRatio().getAsDouble()),
-                    p(adequacy.freeFitPValue().getAsDouble())));
+            evidence.add(String.format(Locale.ROOT, "χ²/ν %s× that of a free rational fit of the same sweep, %s",
+                    ratio(adequacy.freeFitRatio().getAsDouble()), pEquals(adequacy.freeFitPValue().getAsDouble())));
         }
-        evidence.add("residual structure along frequency (lag-1 autocorrelation) p = " + p(adequacy.structurePValue()));
+        evidence.add("residual structure along frequency (lag-1 autocorrelation) " + pEquals(adequacy.structurePValue()));
         for (ModelAdequacy.Finding finding : adequacy.findings()) {
             switch (finding) {
                 case CORNER_OUTSIDE_SPREAD:
@@ -146,8 +145,14 @@ public final class DiagnosisText {
         return evidence;
     }
 
-    private static String p(double p) {
-        return p < 1e-4 ? "< 0.0001" : String.format(Locale.ROOT, "%.4f", p);
+    /** @return "p = 0.4778", or "p < 0.0001" below what four decimals can show */
+    static String pEquals(double p) {
+        return p < 1e-4 ? "p < 0.0001" : String.format(Locale.ROOT, "p = %.4f", p);
+    }
+
+    /** @return a ratio of two χ²/ν to three significant figures, as the statement gives it */
+    static String ratio(double ratio) {
+        return String.format(Locale.ROOT, "%.3g", ratio);
     }
 
     /** @return the "most likely" line: a named hypothesis, or a plain statement that none is named */

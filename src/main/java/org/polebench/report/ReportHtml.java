@@ -2,6 +2,8 @@ package org.polebench.report;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import java.util.Locale;
+import org.polebench.reconcile.AdequacyTest;
+import org.polebench.reconcile.FaultRanking;
 import org.polebench.units.EngineeringValue;
 
 /**
@@ -75,6 +77,7 @@ public final class ReportHtml {
         h.append("<section id=\"summary\" class=\"summary ").append(css).append("\">\n");
         h.append("<p class=\"verdict-word\">Verdict: <b id=\"verdict-overall\">").append(esc(overall.toUpperCase(Locale.ROOT)))
                 .append("</b></p>\n");
+        diagnosis(root.path("diagnosis"), h);
         h.append("<p>").append(esc(verdict.path("rule_statement").asText())).append(".</p>\n");
         for (JsonNode line : verdict.path("not_checked")) {
             h.append("<p>").append(esc(capitalised(line.asText()))).append(".</p>\n");
@@ -82,10 +85,43 @@ public final class ReportHtml {
         JsonNode hypotheses = root.path("hypotheses");
         if (hypotheses.size() > 0) {
             JsonNode top = hypotheses.get(0);
-            h.append("<p>Most probable explanation of the sweep: ").append(esc(top.path("statement").asText()))
-                    .append(" (posterior probability ").append(percent(top.path("probability").asDouble())).append(").</p>\n");
+            h.append("<p id=\"most-likely\">Most probable explanation of the sweep: ")
+                    .append(esc(root.path("most_likely").asText()));
+            // a probability only beside a hypothesis that is named: not beside a relative ranking,
+            // nor beside "none can be named" (the most probable is not identifiable)
+            if (!relative(root) && named(top)) {
+                h.append(" (posterior probability ").append(percent(top.path("probability").asDouble())).append(")");
+            }
+            h.append(".</p>\n");
         }
         h.append("</section>\n");
+    }
+
+    /**
+     * Whether the stage explains the sweep, first in the summary (issue 11): a yes or no line, and
+     * the statement with its evidence and, when it does not, the likely causes.
+     */
+    private static void diagnosis(JsonNode diagnosis, StringBuilder h) {
+        boolean explained = diagnosis.path("explained").asBoolean();
+        boolean looksLike = diagnosis.path("looks_like_stage").asBoolean(true);
+        h.append("<div id=\"diagnosis\" class=\"diagnosis ").append(explained ? "explained" : "unexplained")
+                .append("\">\n<p class=\"diagnosis-word\">Does the stage explain the sweep? <b id=\"diagnosis-explained\">")
+                .append(explained ? "yes" : "NO").append("</b>");
+        if (!explained && !looksLike) {
+            h.append(" — <b id=\"diagnosis-stranger\">this sweep does not look like a board of this stage</b>");
+        }
+        h.append("</p>\n<p id=\"diagnosis-statement\">").append(esc(diagnosis.path("statement").asText()))
+                .append("</p>\n</div>\n");
+    }
+
+    /** @return whether the probabilities rank hypotheses none of which explains the sweep */
+    private static boolean relative(JsonNode root) {
+        return root.path("probabilities_relative").asBoolean();
+    }
+
+    /** @return whether a hypothesis may be named as the most likely: "no fault" or an identifiable one */
+    private static boolean named(JsonNode hypothesis) {
+        return hypothesis.path("kind").asText().equals("none") || hypothesis.path("identifiable").asBoolean();
     }
 
     private static void identification(JsonNode root, ReportStamp stamp, StringBuilder h) {
@@ -128,10 +164,24 @@ public final class ReportHtml {
         h.append("<li><b>Fit.</b> A rational model (").append(esc(root.path("fit_model").asText()))
                 .append(") is fitted to the sweep by weighted least squares on complex-log residuals, started from "
                         + "the predicted poles; its uncertainties come from the fit's covariance.</li>\n");
-        h.append("<li><b>Back-solve.</b> Every low-band capacitor, each transistor's bias current and a flat gain "
-                + "calibration are estimated (maximum a posteriori) on the stage's own exact model, each within its "
-                + "tolerance prior; the single-fault hypotheses (no fault, one capacitor freed, one bias freed, the "
-                + "gain freed) are ranked by their Laplace evidence.</li>\n");
+        h.append("<li><b>Back-solve.</b> Every low-band capacitor, each transistor's bias current, each bipolar "
+                + "transistor's current gain β and a flat gain calibration are estimated (maximum a posteriori) on the "
+                + "stage's own exact model, each within its tolerance prior; β is a nuisance parameter of every "
+                + "hypothesis (device spread), never blamed.</li>\n");
+        h.append("<li><b>Hypotheses.</b> No fault; one capacitor, one resistor (the DC operating point solved again "
+                + "for every value tried), one bias current or the gain calibration freed with a wide prior; and, only "
+                + "when no single fault explains the sweep, pairs of the ").append(FaultRanking.PAIRED_SINGLES)
+                .append(" most probable single faults. They are ranked by their Laplace evidence with prior "
+                        + "probabilities ").append(fraction(FaultRanking.NO_FAULT_PRIOR)).append(" for no fault, ")
+                .append(fraction(FaultRanking.SINGLE_FAULTS_PRIOR)).append(" shared by the single faults and ")
+                .append(fraction(FaultRanking.DOUBLE_FAULTS_PRIOR)).append(" by the pairs.</li>\n");
+        h.append("<li><b>Adequacy.</b> Whether the most probable hypothesis explains the sweep is tested by three "
+                + "checks, each at level ").append(fraction(AdequacyTest.ALPHA))
+                .append(": its χ² against the χ² distribution where the sweep states its point uncertainties; the "
+                        + "stage model against a free rational fit of the same sweep at the same weights; and the "
+                        + "lag-1 autocorrelation of its residuals along frequency. When it does not, the "
+                        + "probabilities are relative among hypotheses that do not explain the sweep, and none is "
+                        + "named as the fault.</li>\n");
         h.append("<li><b>Decision rule.</b> ").append(esc(verdict.path("rule_statement").asText()))
                 .append(". Expanded uncertainties U are at k = 2. The lower corner checked comes from ")
                 .append(esc(verdict.path("lower_corner_source").asText())).append("; the midband gain from ")
@@ -183,6 +233,7 @@ public final class ReportHtml {
                 .append("</figcaption>\n</figure>\n");
         apportionment(root, h);
         capacitors(root, h);
+        adequacy(root.path("diagnosis"), h);
         hypotheses(root, h);
         verdict(root, h);
         h.append("</section>\n");
@@ -269,7 +320,8 @@ public final class ReportHtml {
     private void capacitors(JsonNode root, StringBuilder h) {
         h.append("<h3>4.3 Capacitor back-solve</h3>\n<p>Maximum a posteriori values on the stage's exact model under the "
                 + "most probable hypothesis (<i>").append(esc(root.path("back_solve_hypothesis").asText()))
-                .append("</i>); u is the standard uncertainty, U = 2u.</p>\n");
+                .append("</i>").append(relative(root) ? ", which does not explain the sweep: see 4.4" : "")
+                .append("); u is the standard uncertainty, U = 2u.</p>\n");
         h.append("<table id=\"capacitors\" class=\"data\">\n<thead><tr><th>Capacitor</th><th>Nominal</th><th>Tolerance</th>"
                 + "<th>Band</th><th>Back-solved ± U</th><th>C/C_nom</th><th>Within tolerance</th><th>Identifiable</th>"
                 + "</tr></thead>\n<tbody>\n");
@@ -293,8 +345,10 @@ public final class ReportHtml {
                         "pb-caps"))
                 .append("\n<figcaption>Figure 3. Each back-solved capacitor over its nominal value with ± U (k = 2), "
                         + "against its tolerance band (shaded).</figcaption>\n</figure>\n");
+        resistors(root, h);
         JsonNode nuisance = root.path("nuisance");
-        if (nuisance.path("bias").size() > 0 || nuisance.path("gain").isObject()) {
+        if (nuisance.path("bias").size() > 0 || nuisance.path("current_gain").size() > 0
+                || nuisance.path("gain").isObject()) {
             h.append("<table id=\"nuisance\" class=\"data compact\">\n<thead><tr><th>Nuisance parameter</th>"
                     + "<th>Nominal</th><th>Back-solved ± U</th><th>Identifiable</th></tr></thead>\n<tbody>\n");
             for (JsonNode b : nuisance.path("bias")) {
@@ -304,48 +358,187 @@ public final class ReportHtml {
                         .append(EngineeringValue.format(2 * b.path("u_a").asDouble(), "A", 2)).append("</td><td>")
                         .append(b.path("identifiable").asBoolean() ? "yes" : "no").append("</td></tr>\n");
             }
+            for (JsonNode b : nuisance.path("current_gain")) {
+                double expanded = 2 * b.path("u_beta").asDouble();
+                h.append("<tr><td>").append(esc(b.path("id").asText())).append(" current gain β (device spread)</td><td>")
+                        .append(MeasuredValueFormat.sixFigures(b.path("nominal_beta").asDouble())).append("</td><td>")
+                        .append(MeasuredValueFormat.value(b.path("estimated_beta").asDouble(), expanded)).append(" ± ")
+                        .append(MeasuredValueFormat.uncertainty(expanded)).append("</td><td>")
+                        .append(b.path("identifiable").asBoolean() ? "yes" : "no").append("</td></tr>\n");
+            }
             JsonNode g = nuisance.path("gain");
             h.append("<tr><td>flat gain calibration</td><td>0 dB</td><td>")
                     .append(withU(g, "estimated_db", "u_db", 2, "dB")).append("</td><td>")
                     .append(g.path("identifiable").asBoolean() ? "yes" : "no").append("</td></tr>\n");
             h.append("</tbody>\n</table>\n");
+            h.append("<p class=\"note\">Nuisance parameters are estimated under every hypothesis and never blamed: "
+                    + "a bias current is blamed only under its own hypothesis (4.5), β never.</p>\n");
+        }
+    }
+
+    /** The resistors the most probable hypothesis frees: a resistor is estimated only where it is freed. */
+    private static void resistors(JsonNode root, StringBuilder h) {
+        JsonNode resistors = root.path("resistors");
+        if (resistors.size() == 0) {
+            return;
+        }
+        h.append("<p>Resistors freed by the most probable hypothesis (every other resistor is held at its value; "
+                + "the DC operating point is solved again for the value found):</p>\n");
+        h.append("<table id=\"resistors\" class=\"data compact\">\n<thead><tr><th>Resistor</th><th>Nominal</th>"
+                + "<th>Back-solved ± U</th><th>R/R_nom</th><th>Identifiable</th></tr></thead>\n<tbody>\n");
+        for (JsonNode r : resistors) {
+            double nominal = r.path("nominal_ohms").asDouble();
+            double value = r.path("estimated_ohms").asDouble();
+            h.append("<tr><td>").append(esc(r.path("id").asText())).append("</td><td>").append(eng(nominal, "Ω"))
+                    .append("</td><td>").append(eng(value, "Ω")).append(" ± ")
+                    .append(esc(EngineeringValue.format(2 * r.path("u_ohms").asDouble(), "Ω", 2))).append("</td><td>")
+                    .append(nominal > 0 ? MeasuredValueFormat.fixed(value / nominal, 3) : NONE).append("</td><td>")
+                    .append(r.path("identifiable").asBoolean() ? "yes" : "no (the sweep barely sees it; not blamed)")
+                    .append("</td></tr>\n");
+        }
+        h.append("</tbody>\n</table>\n");
+    }
+
+    /** 4.4: the adequacy test's evidence, each check with its threshold. */
+    private static void adequacy(JsonNode diagnosis, StringBuilder h) {
+        // the statement opens with the answer: explained, not explained, or not a board of this stage
+        h.append("<h3>4.4 Does the stage explain the sweep?</h3>\n<p id=\"adequacy-result\">")
+                .append(esc(diagnosis.path("statement").asText())).append("</p>\n");
+        String alpha = fraction(AdequacyTest.ALPHA);
+        h.append("<table id=\"adequacy\" class=\"data compact\">\n<thead><tr><th>Check</th><th>Value</th>"
+                + "<th>Alarm when</th></tr></thead>\n<tbody>\n");
+        boolean stated = diagnosis.path("p_value_basis").asText().equals("stated_uncertainties");
+        h.append("<tr><td>χ² of the most probable hypothesis at the point σ, over ν</td><td>")
+                .append(MeasuredValueFormat.sixFigures(diagnosis.path("chi_squared").asDouble())).append(" over ν = ")
+                .append(diagnosis.path("degrees_of_freedom").asInt())
+                .append(stated ? ", " + esc(DiagnosisText.pEquals(diagnosis.path("p_value").asDouble()))
+                        : " (the sweep states no point uncertainties: not tested)")
+                .append("</td><td>p &lt; ").append(alpha).append("</td></tr>\n");
+        h.append("<tr><td>Stage model against a free rational fit: ratio of their χ²/ν</td><td>")
+                .append(diagnosis.path("free_fit_ratio").isNumber()
+                        ? DiagnosisText.ratio(diagnosis.path("free_fit_ratio").asDouble()) + ", "
+                        + esc(DiagnosisText.pEquals(diagnosis.path("free_fit_p_value").asDouble()))
+                        : "not available for this sweep")
+                .append("</td><td>p &lt; ").append(alpha).append(", with a ratio of ")
+                .append(fraction(AdequacyTest.FAR_WORSE_RATIO)).append(" or more or a material misfit</td></tr>\n");
+        h.append("<tr><td>Residual structure along frequency (lag-1 autocorrelation)</td><td>")
+                .append(esc(DiagnosisText.pEquals(diagnosis.path("structure_p_value").asDouble())))
+                .append("</td><td>p &lt; ").append(alpha).append(" and a material misfit</td></tr>\n");
+        h.append("</tbody>\n</table>\n");
+        JsonNode findings = diagnosis.path("findings");
+        if (findings.size() > 0) {
+            h.append("<ul id=\"adequacy-findings\" class=\"notes\">\n");
+            for (JsonNode finding : findings) {
+                h.append("<li>").append(esc(finding(finding.asText()))).append("</li>\n");
+            }
+            h.append("</ul>\n");
+        }
+        h.append("<p class=\"note\">A misfit is material when its systematic part (the mean square residual less the "
+                + "noise read from successive differences) reaches ")
+                .append(fraction(AdequacyTest.MATERIAL_MEAN_SQUARE)).append(" of the point σ². The sweep does not look "
+                        + "like a board of this stage when the most probable hypothesis misses it by a χ²/ν of ")
+                .append(MeasuredValueFormat.sixFigures(AdequacyTest.FAR_REDUCED_CHI_SQUARE))
+                .append(" or more, or by ").append(fraction(AdequacyTest.FAR_RATIO))
+                .append(" times the free fit's χ²/ν or more, or when its corner lies outside the tolerance spread's "
+                        + "extremes widened ").append(fraction(AdequacyTest.SPREAD_WIDENING)).append("×.</p>\n");
+    }
+
+    /** One finding of the adequacy test, as the JSON names it, in words. */
+    private static String finding(String word) {
+        switch (word) {
+            case "chi_squared_above_stated_noise":
+                return "χ² far above its distribution at the sweep's stated point uncertainties";
+            case "worse_than_free_fit":
+                return "the stage model fits far worse than a free rational model of the same sweep";
+            case "residual_runs":
+                return "the residuals run in long stretches of one sign along frequency";
+            case "worse_than_stated_noise_by_far":
+                return "the misfit's RMS is a hundred point σ or more";
+            case "far_from_every_hypothesis":
+                return "every hypothesis misses the sweep by far more than the noise or a free fit allows";
+            case "corner_outside_spread":
+                return "the measured lower corner lies far outside every board of the tolerance spread";
+            default:
+                return word.replace('_', ' ');
         }
     }
 
     private static void hypotheses(JsonNode root, StringBuilder h) {
-        h.append("<h3>4.4 Ranked single-fault hypotheses</h3>\n<table id=\"hypotheses\" class=\"data\">\n<thead><tr>"
-                + "<th>Rank</th><th>Hypothesis</th><th>Prior</th><th>Posterior</th><th>Estimate ± U (k = 2)</th><th>×nominal</th>"
-                + "<th>Nearest preferred value</th><th>Statement</th></tr></thead>\n<tbody>\n");
+        boolean relative = relative(root);
+        boolean pairs = root.path("pairs_ranked").asBoolean();
+        h.append("<h3>4.5 Ranked ").append(pairs ? "single- and double-fault" : "single-fault").append(" hypotheses</h3>\n");
+        if (relative) {
+            h.append("<p id=\"probabilities-relative\" class=\"deviation\"><b>Relative probabilities:</b> no hypothesis "
+                    + "below explains the sweep (4.4). The probabilities rank them against each other only; they are "
+                    + "not the chance that any of them is the board's fault.</p>\n");
+        }
+        h.append("<table id=\"hypotheses\" class=\"data\">\n<thead><tr><th>Rank</th><th>Hypothesis</th><th>Prior</th><th>")
+                .append(relative ? "Posterior, RELATIVE" : "Posterior")
+                .append("</th><th>Estimate ± U (k = 2)</th><th>×nominal</th><th>Nearest preferred value</th><th>Statement</th>"
+                        + "</tr></thead>\n<tbody>\n");
         int rank = 1;
         for (JsonNode y : root.path("hypotheses")) {
-            String unit = y.path("unit").isTextual() ? y.path("unit").asText() : "";
             h.append("<tr><td>").append(rank++).append("</td><td>").append(esc(label(y))).append("</td><td>")
-                    .append(percent(y.path("prior_probability").asDouble())).append("</td><td>")
-                    .append(percent(y.path("probability").asDouble())).append("</td><td>")
-                    .append(y.path("estimated_value").isNumber() ? estimateText(y.path("estimated_value").asDouble(),
-                            y.path("u_value").asDouble(), unit) : NONE)
-                    .append("</td><td>").append(y.path("estimated_factor").isNumber()
-                            ? MeasuredValueFormat.fixed(y.path("estimated_factor").asDouble(), 3) : NONE)
-                    .append("</td><td>").append(y.path("nearest_preferred").isNumber()
-                            ? eng(y.path("nearest_preferred").asDouble(), "F")
-                            + (y.path("decade_slip").asBoolean() ? " <b>(decade slip)</b>" : "") : NONE)
-                    .append("</td><td>").append(esc(y.path("statement").asText())).append("</td></tr>\n");
+                    .append(probability(y.path("prior_probability").asDouble())).append("</td><td>")
+                    .append(percent(y.path("probability").asDouble())).append("</td><td>");
+            if (y.path("kind").asText().equals("double")) {
+                // a double's two faults, one line each, in the order its label names them
+                StringBuilder estimates = new StringBuilder();
+                StringBuilder factors = new StringBuilder();
+                for (JsonNode fault : y.path("faults")) {
+                    String separator = estimates.length() == 0 ? "" : "<br>";
+                    estimates.append(separator).append(esc(label(fault))).append(": ")
+                            .append(fault.path("estimated_value").isNumber() ? estimateText(fault.path("estimated_value")
+                                    .asDouble(), fault.path("u_value").asDouble(), fault.path("unit").asText("")) : NONE);
+                    factors.append(separator).append(fault.path("estimated_factor").isNumber()
+                            ? MeasuredValueFormat.fixed(fault.path("estimated_factor").asDouble(), 3) : NONE);
+                }
+                h.append(estimates).append("</td><td>").append(factors).append("</td><td>").append(NONE);
+            } else {
+                String unit = y.path("unit").isTextual() ? y.path("unit").asText() : "";
+                h.append(y.path("estimated_value").isNumber() ? estimateText(y.path("estimated_value").asDouble(),
+                                y.path("u_value").asDouble(), unit) : NONE)
+                        .append("</td><td>").append(y.path("estimated_factor").isNumber()
+                                ? MeasuredValueFormat.fixed(y.path("estimated_factor").asDouble(), 3) : NONE)
+                        .append("</td><td>").append(y.path("nearest_preferred").isNumber()
+                                ? eng(y.path("nearest_preferred").asDouble(), unit)
+                                + (y.path("decade_slip").asBoolean() ? " <b>(decade slip)</b>" : "") : NONE);
+            }
+            // as the text summary: "no fault" is not described as agreeing with the sweep where it
+            // is the less probable
+            boolean quiet = y.path("kind").asText().equals("none") && y.path("probability").asDouble() < 0.5;
+            h.append("</td><td>").append(quiet ? NONE : esc(y.path("statement").asText())).append("</td></tr>\n");
         }
         h.append("</tbody>\n</table>\n");
         JsonNode noise = root.path("noise");
-        h.append("<p class=\"note\">Probabilities from the Laplace evidence of each hypothesis with the priors shown; point σ ")
-                .append(MeasuredValueFormat.sixFigures(noise.path("default_gain_sigma_db").asDouble())).append(" dB and ")
-                .append(MeasuredValueFormat.sixFigures(noise.path("default_phase_sigma_deg").asDouble()))
-                .append("° where the sweep states none, scaled by ")
-                .append(MeasuredValueFormat.fixed(noise.path("scale").asDouble(), 3))
-                .append(" (the best hypothesis' residual scale); χ² = ")
-                .append(MeasuredValueFormat.fixed(noise.path("chi_squared").asDouble(), 1)).append(" over ")
-                .append(noise.path("data_rows").asInt()).append(" residuals.</p>\n");
+        h.append("<p class=\"note\">Probabilities from the Laplace evidence of each hypothesis with the priors shown (no "
+                        + "fault ").append(fraction(FaultRanking.NO_FAULT_PRIOR)).append("; the single faults share ")
+                .append(fraction(FaultRanking.SINGLE_FAULTS_PRIOR)).append(", the pairs ")
+                .append(fraction(FaultRanking.DOUBLE_FAULTS_PRIOR))
+                .append(" over every pair that could be formed), normalised over the hypotheses ranked; ")
+                .append(pairs ? "pairs of the " + FaultRanking.PAIRED_SINGLES + " most probable single faults were ranked "
+                        + "because no single fault explains the sweep. "
+                        : "pairs were not ranked, as a single fault or none explains the sweep. ");
+        if (noise.path("stated_by_sweep").asBoolean()) {
+            h.append("Point σ as the sweep states them, scaled by ")
+                    .append(MeasuredValueFormat.fixed(noise.path("gain_scale").asDouble(), 3))
+                    .append(" (the best hypothesis' residual scale)");
+        } else {
+            h.append("Point σ ").append(MeasuredValueFormat.sixFigures(noise.path("default_gain_sigma_db").asDouble()))
+                    .append(" dB and ").append(MeasuredValueFormat.sixFigures(noise.path("default_phase_sigma_deg").asDouble()))
+                    .append("° (the sweep states none), scaled by ")
+                    .append(MeasuredValueFormat.fixed(noise.path("gain_scale").asDouble(), 3)).append(" for the gain and ")
+                    .append(MeasuredValueFormat.fixed(noise.path("phase_scale").asDouble(), 3))
+                    .append(" for the phase (two variance components from the best hypothesis' residuals)");
+        }
+        h.append("; χ² = ").append(MeasuredValueFormat.fixed(noise.path("chi_squared").asDouble(), 1)).append(" over ")
+                .append(noise.path("data_rows").asInt()).append(" residuals. The statements quote ± the standard "
+                        + "uncertainty u; the estimate column gives U = 2u.</p>\n");
     }
 
     private static void verdict(JsonNode root, StringBuilder h) {
         JsonNode verdict = root.path("verdict");
-        h.append("<h3>4.5 Verdict against the stage's limits</h3>\n<table id=\"verdict\" class=\"data\">\n<thead><tr>"
+        h.append("<h3>4.6 Verdict against the stage's limits</h3>\n<table id=\"verdict\" class=\"data\">\n<thead><tr>"
                 + "<th>Check</th><th>Value</th><th>U (k = 2)</th><th>Limit</th><th>Margin to limit</th><th>Guard band</th>"
                 + "<th>Decision</th></tr></thead>\n<tbody>\n");
         for (JsonNode c : verdict.path("checks")) {
@@ -462,7 +655,7 @@ public final class ReportHtml {
                 .append(valueHtml).append("</td></tr>\n");
     }
 
-    /** The hypothesis label as the text summary gives it. */
+    /** The label of a hypothesis, or of one fault of a double, as the text summary gives it. */
     private static String label(JsonNode y) {
         String kind = y.path("kind").asText();
         if (kind.equals("none")) {
@@ -470,6 +663,13 @@ public final class ReportHtml {
         }
         if (kind.equals("gain")) {
             return "gain calibration";
+        }
+        if (kind.equals("double")) {
+            StringBuilder both = new StringBuilder();
+            for (JsonNode fault : y.path("faults")) {
+                both.append(both.length() == 0 ? "" : " and ").append(label(fault));
+            }
+            return both.toString();
         }
         return y.path("part").asText("?") + (kind.equals("bias") ? " bias current" : "");
     }
@@ -548,6 +748,17 @@ public final class ReportHtml {
         return String.format(Locale.ROOT, "%.1f %%", 100 * fraction);
     }
 
+    /** A prior probability: as a percentage, to two significant figures below 1 % (a pair's share). */
+    private static String probability(double fraction) {
+        return fraction >= 0.01 || fraction <= 0 ? percent(fraction)
+                : String.format(Locale.ROOT, "%.2g %%", 100 * fraction);
+    }
+
+    /** A stated constant (a prior, a level, a ratio) in plain digits. */
+    private static String fraction(double value) {
+        return MeasuredValueFormat.sixFigures(value);
+    }
+
     /** Escapes text for HTML element content and double-quoted attributes. */
     static String esc(String text) {
         StringBuilder out = new StringBuilder(text.length() + 16);
@@ -623,6 +834,10 @@ public final class ReportHtml {
             "section.summary.pass { border-color: var(--pass); }",
             "section.summary.fail { border-color: var(--fail); }",
             ".verdict-word { font-size: 14pt; margin: 1mm 0; }",
+            ".diagnosis { border-top: 1px solid var(--rule); border-bottom: 1px solid var(--rule); margin: 1.5mm 0; }",
+            ".diagnosis-word { font-size: 12pt; margin: 1mm 0; }",
+            ".explained .diagnosis-word b { color: var(--pass); }",
+            ".unexplained .diagnosis-word b { color: var(--fail); }",
             ".pass .verdict-word b, tr.pass td:last-child { color: var(--pass); }",
             ".fail .verdict-word b, tr.fail td:last-child { color: var(--fail); }",
             "section.summary.incomplete { border-color: var(--ink); border-style: dashed; }",

@@ -12,7 +12,7 @@ import org.polebench.InputProblem;
 
 /** Reads a saved {@code result.json} back for {@code polebench report}, refusing anything else. */
 public final class ResultFile {
-    private static final String[] REQUIRED = {"predicted", "measured", "side_by_side", "capacitors", "hypotheses",
+    private static final String[] REQUIRED = {"diagnosis", "predicted", "measured", "side_by_side", "capacitors", "hypotheses",
         "verdict", "sweep", "curves", "run"};
 
     private final ObjectMapper mapper = new ObjectMapper();

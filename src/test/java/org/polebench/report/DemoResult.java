@@ -2,6 +2,7 @@ package org.polebench.report;
 
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.nio.file.Path;
+import java.util.List;
 import java.util.Optional;
 import org.polebench.analysis.StageAnalysis;
 import org.polebench.analysis.StagePrediction;
@@ -9,6 +10,7 @@ import org.polebench.analysis.ToleranceSpread;
 import org.polebench.circuit.StageReader;
 import org.polebench.measure.ImportedSweep;
 import org.polebench.measure.ProfileLibrary;
+import org.polebench.measure.Sweep;
 import org.polebench.measure.SweepReader;
 import org.polebench.reconcile.DecisionRule;
 import org.polebench.reconcile.ReconcileResult;
@@ -37,6 +39,28 @@ final class DemoResult {
         RunDetails run = RunDetails.of(STAGE, SWEEP, imported.profileName(), imported.warnings(), operator,
                 Optional.empty(), SAMPLES, ToleranceSpread.DEFAULT_SEED);
         return new ResultJson().of(result, run);
+    }
+
+    /**
+     * Any sweep against any stage file, reconciled as the CLI does with the same small spread: for
+     * the cases the bundled demo does not cover (a sweep the stage does not explain, a resistor
+     * fault).
+     *
+     * @param sweepName the name the result gives the sweep's file (a synthesized sweep has none)
+     */
+    static ObjectNode reconcile(Path stageFile, Sweep sweep, Path sweepName) throws Exception {
+        StagePrediction predicted = new StageAnalysis()
+                .withSpread(new ToleranceSpread(SAMPLES, ToleranceSpread.DEFAULT_SEED))
+                .analyse(new StageReader().read(stageFile));
+        ReconcileResult result = new Reconciler().reconcile(predicted, sweep, DecisionRule.SIMPLE);
+        RunDetails run = RunDetails.of(stageFile, sweepName, "canonical", List.of(), Optional.of("A. Tester"),
+                Optional.empty(), SAMPLES, ToleranceSpread.DEFAULT_SEED);
+        return new ResultJson().of(result, run);
+    }
+
+    /** The bundled demo board's sweep, as read for {@link #run}. */
+    static Sweep demoSweep() throws Exception {
+        return new SweepReader(ProfileLibrary.standard(Path.of(""))).read(SWEEP, SweepReader.AUTO).sweep();
     }
 
     /** One run shared by the tests that only read it (initialised once, never changed). */

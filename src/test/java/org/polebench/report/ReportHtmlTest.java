@@ -4,6 +4,7 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertNotEquals;
 import static org.junit.jupiter.api.Assertions.assertNotNull;
+import static org.junit.jupiter.api.Assertions.assertNull;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.fasterxml.jackson.databind.JsonNode;
@@ -13,12 +14,21 @@ import java.nio.file.Path;
 import java.security.MessageDigest;
 import java.time.Instant;
 import java.util.HexFormat;
+import java.util.List;
+import java.util.Locale;
 import java.util.Optional;
 import org.jsoup.Jsoup;
 import org.jsoup.nodes.Document;
 import org.jsoup.nodes.Element;
 import org.jsoup.select.Elements;
 import org.junit.jupiter.api.Test;
+import org.polebench.analysis.StageAnalysis;
+import org.polebench.circuit.Stage;
+import org.polebench.circuit.StageReader;
+import org.polebench.measure.BoardSynthesizer;
+import org.polebench.measure.Fault;
+import org.polebench.measure.Sweep;
+import org.polebench.measure.SweepNoise;
 
 class ReportHtmlTest {
     private static final ReportStamp STAMP = new ReportStamp("PB-20260314-0A1B2C3D", Instant.parse("2026-03-14T09:30:00Z"));
@@ -46,7 +56,8 @@ class ReportHtmlTest {
         assertEquals("A. Tester", page.getElementById("operator").text());
         assertTrue(page.getElementById("instrument").text().contains("board synthesizer"));
         String method = page.getElementById("method").text();
-        for (String step : new String[]{"SCTC", "Exact analysis", "Fit", "Back-solve", "Decision rule", "ILAC-G8"}) {
+        for (String step : new String[]{"SCTC", "Exact analysis", "Fit", "Back-solve", "Hypotheses", "Adequacy",
+            "Decision rule", "ILAC-G8"}) {
             assertTrue(method.contains(step), step);
         }
         // one back-solve row per low-band capacitor of the stage file: C1, CE1, C2, CE2, C3
@@ -134,6 +145,142 @@ class ReportHtmlTest {
         assertNotEquals(STAMP.reportId(), later.reportId());
         String c = new ReportHtml().render(second, "00", later);
         assertEquals(a, c.replace(later.reportId(), STAMP.reportId()).replace(later.issuedText(), STAMP.issuedText()));
+    }
+
+    // issue 11: whether the stage explains the sweep is said first, in the summary, above the
+    // hypotheses. The demo board was synthesized from the demo stage itself with one capacitor
+    // decade-slipped (the sweep's notes say so), a fault the hypotheses cover: the stage explains it
+    @Test
+    void diagnosisComesFirstAboveTheHypotheses() {
+        JsonNode root = DemoResult.shared();
+        JsonNode diagnosis = root.path("diagnosis");
+        assertTrue(diagnosis.path("explained").asBoolean(), diagnosis.toString());
+        Document page = parse(root);
+        Element block = page.getElementById("diagnosis");
+        assertEquals("summary", block.parent().id());
+        assertEquals("yes", page.getElementById("diagnosis-explained").text());
+        assertNull(page.getElementById("diagnosis-stranger"));
+        assertEquals(diagnosis.path("statement").asText(), page.getElementById("diagnosis-statement").text());
+        // jsoup lists elements in document order: the diagnosis above the most-likely line, the
+        // evidence table and the hypotheses
+        List<Element> order = page.getAllElements();
+        assertTrue(order.indexOf(block) < order.indexOf(page.getElementById("most-likely")));
+        assertTrue(order.indexOf(block) < order.indexOf(page.getElementById("adequacy")));
+        assertTrue(order.indexOf(page.getElementById("adequacy")) < order.indexOf(page.getElementById("hypotheses")));
+        // the most likely as the JSON words it, with the probability of the hypothesis it names
+        JsonNode top = root.path("hypotheses").get(0);
+        String line = page.getElementById("most-likely").text();
+        assertTrue(line.contains(root.path("most_likely").asText()), line);
+        assertTrue(line.contains(String.format(Locale.ROOT, "(posterior probability %.1f %%)",
+                100 * top.path("probability").asDouble())), line);
+        assertNull(page.getElementById("probabilities-relative"));
+        assertTrue(page.select("#hypotheses thead th").eachText().contains("Posterior"));
+        // a stage the sweep is explained by needs no pairs (FaultRanking ranks them only otherwise)
+        assertFalse(root.path("pairs_ranked").asBoolean());
+        assertTrue(page.select("h3:contains(Ranked single-fault hypotheses)").size() == 1);
+        // the three checks of the adequacy test, one row each
+        assertEquals(3, page.select("#adequacy tbody tr").size());
+    }
+
+    // issue 11's hand case "a sweep reconciled against the wrong stage file": the demo board of
+    // the two-stage geophone front end against the one-stage hydrophone demo stage (both invented).
+    // By construction no hypothesis of that stage explains it: the report says so first, labels
+    // the probabilities as relative, names no hypothesis as the fault and passes nothing
+    @Test
+    void aSweepTheStageDoesNotExplainIsSaidSoAndItsProbabilitiesAreRelative() throws Exception {
+        ObjectNode root = DemoResult.reconcile(Path.of("sample-measurements", "hydrophone-preamp-ce.stage.yaml"),
+                DemoResult.demoSweep(), DemoResult.SWEEP);
+        JsonNode diagnosis = root.path("diagnosis");
+        assertFalse(diagnosis.path("explained").asBoolean(), diagnosis.toString());
+        assertTrue(root.path("probabilities_relative").asBoolean());
+        Document page = parse(root);
+        assertEquals("NO", page.getElementById("diagnosis-explained").text());
+        boolean stranger = !diagnosis.path("looks_like_stage").asBoolean();
+        assertEquals(stranger, page.getElementById("diagnosis-stranger") != null);
+        if (stranger) {
+            assertEquals("this sweep does not look like a board of this stage",
+                    page.getElementById("diagnosis-stranger").text());
+        }
+        assertEquals(diagnosis.path("statement").asText(), page.getElementById("diagnosis-statement").text());
+        List<Element> order = page.getAllElements();
+        Element relative = page.getElementById("probabilities-relative");
+        assertNotNull(relative);
+        assertTrue(order.indexOf(page.getElementById("diagnosis")) < order.indexOf(relative));
+        assertTrue(order.indexOf(relative) < order.indexOf(page.getElementById("hypotheses")));
+        assertTrue(page.select("#hypotheses thead th").eachText().contains("Posterior, RELATIVE"));
+        // the most-likely line is the JSON's plain statement that nothing explains the sweep, and
+        // gives no probability, since none of the hypotheses is named
+        String line = page.getElementById("most-likely").text();
+        assertTrue(line.contains(root.path("most_likely").asText()), line);
+        assertTrue(root.path("most_likely").asText().startsWith("no hypothesis explains the sweep"));
+        assertFalse(line.contains("posterior probability"), line);
+        assertNotEquals("PASS", page.getElementById("verdict-overall").text());
+        // pairs are ranked when no single fault explains the sweep (issue 11 §4); each double's row
+        // names both of its faults, as its faults array does
+        assertTrue(root.path("pairs_ranked").asBoolean());
+        assertEquals(1, page.select("h3:contains(Ranked single- and double-fault hypotheses)").size());
+        Elements rows = page.select("#hypotheses tbody tr");
+        int doubles = 0;
+        for (int i = 0; i < rows.size(); i++) {
+            JsonNode y = root.path("hypotheses").get(i);
+            if (!y.path("kind").asText().equals("double")) {
+                continue;
+            }
+            doubles++;
+            assertEquals(2, y.path("faults").size());
+            for (JsonNode fault : y.path("faults")) {
+                String part = fault.path("part").asText("gain calibration");
+                assertTrue(rows.get(i).child(1).text().contains(part), rows.get(i).text());
+                assertTrue(rows.get(i).child(4).text().contains(part), rows.get(i).text());
+            }
+        }
+        assertTrue(doubles > 0);
+    }
+
+    // issue 11 §2: a hypothesis the tool marks as not identifiable is never named as the most
+    // likely, so the summary gives it no probability either (the JSON's most_likely says none can
+    // be named). The demo result, edited so that its top hypothesis is not identifiable
+    @Test
+    void aTopHypothesisThatIsNotIdentifiableGetsNoProbabilityInTheSummary() {
+        ObjectNode root = DemoResult.shared();
+        ((ObjectNode) root.path("hypotheses").get(0)).put("identifiable", false);
+        root.put("most_likely", "none can be named: the most probable, \"C2\", is not identifiable from this sweep");
+        Document page = parse(root);
+        String line = page.getElementById("most-likely").text();
+        assertTrue(line.contains("none can be named"), line);
+        assertFalse(line.contains("posterior probability"), line);
+    }
+
+    // a resistor fault the hypotheses cover: the hydrophone demo stage (invented) built with its
+    // 1.2 kΩ emitter resistor fitted as 680 Ω, synthesized with the stage's own model (seed 3,
+    // bench noise 0.05 dB / 0.5°), so the truth is RE. The back-solve shows the freed resistor
+    // and each transistor's β beside the bias currents
+    @Test
+    void theFreedResistorAndTheCurrentGainAppearInTheBackSolve() throws Exception {
+        Path stageFile = Path.of("sample-measurements", "hydrophone-preamp-ce.stage.yaml");
+        Stage stage = new StageReader().read(stageFile).stage();
+        double corner = new StageAnalysis().analyse(new StageReader().read(stageFile)).prediction()
+                .exactLowerCornerHz().getAsDouble();
+        Sweep sweep = new BoardSynthesizer().synthesize(stage, List.of(new Fault.ResistorValue("RE", 680)),
+                SweepNoise.BENCH, BoardSynthesizer.logSpaced(corner / 30, corner * 300, 61), true, 3);
+        ObjectNode root = DemoResult.reconcile(stageFile, sweep, Path.of("synthesized-re-680.csv"));
+        JsonNode top = root.path("hypotheses").get(0);
+        assertEquals("resistor", top.path("kind").asText(), top.toString());
+        assertEquals("RE", top.path("part").asText());
+        Document page = parse(root);
+        Elements resistors = page.select("#resistors tbody tr");
+        assertEquals(root.path("resistors").size(), resistors.size());
+        assertEquals("RE", resistors.get(0).child(0).text());
+        // R/R_nom of the JSON's own values, to the three decimals the table prints
+        JsonNode re = root.path("resistors").get(0);
+        assertEquals(String.format(Locale.ROOT, "%.3f", re.path("estimated_ohms").asDouble()
+                / re.path("nominal_ohms").asDouble()), resistors.get(0).child(3).text());
+        // the nearest preferred value of a resistor is in ohms
+        assertTrue(page.select("#hypotheses tbody tr").get(0).child(6).text().endsWith("Ω"));
+        // one β row per bipolar transistor: the hydrophone stage has Q1 only
+        assertEquals(root.path("nuisance").path("current_gain").size(),
+                page.select("#nuisance tbody tr:contains(current gain β)").size());
+        assertEquals(1, root.path("nuisance").path("current_gain").size());
     }
 
     private static String sha256(Path file) throws Exception {
