@@ -21,8 +21,9 @@ import java.util.OptionalDouble;
  * @param freeFitRatio       (χ²/ν of the stage model) over (χ²/ν of the free rational fit), both
  *                           at the same point weights over the points the fit used
  * @param freeFitPValue      P(F ≥ that ratio) for F(ν_stage, ν_fit)
- * @param structurePValue    the runs test's p: the chance of so few sign runs in the normalised
- *                           residuals along frequency if they were noise
+ * @param structurePValue    the structure test's p: the chance of so large a lag-1
+ *                           autocorrelation of the normalised residuals along frequency if they
+ *                           were noise
  * @param tolerancePValue    P(χ² ≥ Σz²) of the standardised distances from their tolerance priors
  *                           of the parts the best hypothesis does not free
  * @param partsOutsideTolerance those parts estimated far outside their tolerance, by name

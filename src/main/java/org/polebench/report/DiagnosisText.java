@@ -159,6 +159,11 @@ public final class DiagnosisText {
     public static String mostLikely(Diagnosis diagnosis, ModelAdequacy adequacy) {
         if (!adequacy.explained()) {
             Hypothesis closest = diagnosis.top();
+            if (closest.kind() != HypothesisKind.NONE && !closest.identifiable()) {
+                // never name what the sweep cannot identify, not even as the closest
+                return "no hypothesis explains the sweep, and the closest frees parts this sweep cannot identify "
+                        + "(probabilities are relative among hypotheses that do not explain it)";
+            }
             return "no hypothesis explains the sweep; the closest is \"" + closest.label()
                     + "\" (probabilities are relative among hypotheses that do not explain it)";
         }

@@ -184,6 +184,8 @@ public final class ReconcileJson {
                 fault.put("u_value", estimate.uncertainty());
                 fault.put("unit", estimate.parameter().kind().unit());
                 fault.put("identifiable", estimate.identifiable());
+                putOptional(fault, "nearest_preferred", reading.nearestPreferred());
+                fault.put("decade_slip", reading.decadeSlip());
             }
         }
         row.put("statement", DiagnosisText.statement(hypothesis));

@@ -177,7 +177,7 @@ public final class ReconcileText {
                 + " (Laplace evidence; prior: no fault 0.5, single faults share 0.4, pairs share 0.1)"
                 + (explained ? "" : "; RELATIVE probabilities: none of these explains the sweep"));
         for (Hypothesis hypothesis : result.diagnosis().hypotheses()) {
-            out.println(String.format(Locale.ROOT, "  %7.3f %%  %-20s %s", 100 * hypothesis.probability(),
+            out.println(String.format(Locale.ROOT, "  %7.3f %%  %-20s  %s", 100 * hypothesis.probability(),
                     hypothesis.label(), hypothesis.kind() == HypothesisKind.NONE && hypothesis.probability() < 0.5
                             ? "" : DiagnosisText.statement(hypothesis)));
         }
