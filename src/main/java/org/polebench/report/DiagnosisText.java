@@ -130,8 +130,8 @@ public final class DiagnosisText {
                     break;
                 case PARTS_OUTSIDE_TOLERANCE:
                     evidence.add(adequacy.partsOutsideTolerance().isEmpty()
-                            ? "the parts it holds within tolerance sit far from their tolerances as a set (p = "
-                            + p(adequacy.tolerancePValue()) + ")"
+                            ? "the parts it holds within tolerance sit far from their tolerances as a set ("
+                            + pEquals(adequacy.tolerancePValue()) + ")"
                             : String.join(", ", adequacy.partsOutsideTolerance())
                             + " would have to lie far outside their tolerances");
                     break;
