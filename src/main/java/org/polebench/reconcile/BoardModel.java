@@ -330,8 +330,12 @@ final class BoardModel {
         BiasPoint key = new BiasPoint(lnBias);
         HighFactor hit = highCache.get(key);
         if (hit == null && !exact && lastHigh != null) {
+            // between exact evaluations a resistor's move does not refresh the high band: the
+            // searches that move a resistor take long steps, each would cost a high-band
+            // reduction, and the final exact evaluation of every MAP uses the exact high band
             boolean near = true;
-            for (int j = 0; j < lnBias.length && near; j++) {
+            int resistorsFrom = board.transistors().size() + board.bjts().size();
+            for (int j = 0; j < resistorsFrom && near; j++) {
                 near = Math.abs(lnBias[j] - lastHigh.lnBias[j]) <= HIGH_BAND_REFRESH;
             }
             hit = near ? lastHigh : null;

@@ -289,7 +289,13 @@ final class HypothesisSearch {
         double[] theta = none.theta();
         Step step = gaussNewtonStep(single, theta);
         if (step == null || step.drop >= RESISTOR_SCREEN_DROP) {
-            single.stated = screen(single.misfit, starts(theta, j), free);
+            List<double[]> starts = starts(theta, j);
+            if (step != null) {
+                // of the two decade starts (the last two), only the one on the side the step
+                // points to: the response is monotone in one resistor's value
+                starts.remove(starts.size() - (step.delta[j] > 0 ? 2 : 1));
+            }
+            single.stated = screen(single.misfit, starts, free);
             return;
         }
         double[] end = theta.clone();
@@ -557,9 +563,10 @@ final class HypothesisSearch {
         }
         ParameterKind kind = parameters.get(j).kind();
         boolean valued = kind == ParameterKind.CAPACITOR || kind == ParameterKind.RESISTOR;
+        boolean fromMeans = bent;
         double[] offsets = valued
-                ? (bent ? new double[] {0, -Math.log(10), Math.log(10)} : new double[] {-Math.log(10), Math.log(10)})
-                : (bent ? new double[] {0} : new double[0]);
+                ? (fromMeans ? new double[] {0, -Math.log(10), Math.log(10)} : new double[] {-Math.log(10), Math.log(10)})
+                : (fromMeans ? new double[] {0} : new double[0]);
         for (double offset : offsets) {
             double[] start = mean.clone();
             start[j] = tolerance[j].mean() + offset;
