@@ -280,9 +280,9 @@ final class HypothesisSearch {
      * step from the no-fault MAP over its own parameters (the data Jacobian there made once for
      * all resistors). A resistor whose step promises a χ² drop of {@value #RESISTOR_SCREEN_DROP}
      * or more is screened and converged from every start as the other parts are (a decade slip
-     * shows as a large drop); the others keep the exact evidence at the step's end without a
-     * convergence run: with a drop that small the objective is near quadratic there and the
-     * step lands close to the MAP.
+     * shows as a large drop); the others take the quadratic model's MAP and evidence at the
+     * step's end ({@link #quadraticPoint}) without a further evaluation: with a drop that small
+     * the objective is near quadratic there and the step lands close to the MAP.
      */
     private void resistor(Candidate single, MapPoint none, boolean[] free) {
         int j = single.freed[0];
@@ -298,20 +298,58 @@ final class HypothesisSearch {
             single.stated = screen(single.misfit, starts, free);
             return;
         }
-        double[] end = theta.clone();
-        for (int i = 0; i < end.length; i++) {
-            end[i] += step.delta[i];
-        }
-        Optional<MapPoint> stepped = screen.at(single.misfit, end);
-        if (stepped.isEmpty() || stepped.get().objective() > none.objective()) {
-            stepped = screen.at(single.misfit, theta);
-        }
-        if (stepped.isPresent()) {
-            single.stated = stepped.get();
+        MapPoint quadratic = quadraticPoint(single, none, step);
+        if (quadratic != null) {
+            single.stated = quadratic;
             single.settled = true;
         } else {
             single.stated = screen(single.misfit, starts(theta, j), free);
         }
+    }
+
+    /**
+     * The MAP of a hypothesis one Gauss–Newton step from the no-fault MAP, from the quadratic
+     * model there, with no evaluation of the board: θ = θ₀ + δ, χ² = ‖r + Jδ‖² (gain rows apart),
+     * H = JᵀJ + Σp⁻¹ over the hypothesis' parameters. Exact for a model linear in θ; used only
+     * where the step promises a drop under {@value #RESISTOR_SCREEN_DROP}, where it is near.
+     */
+    private MapPoint quadraticPoint(Candidate candidate, MapPoint none, Step step) {
+        DataNormal data = atNoFault;
+        int p = parameters.size();
+        double[] theta = none.theta();
+        double[] delta = step.delta;
+        double data2 = none.dataChiSquared();
+        double gain2 = none.magnitudeChiSquared();
+        double[][] hessian = new double[p][p];
+        double[][] magnitudeHessian = new double[p][p];
+        double priorMisfit = 0;
+        for (int a = 0; a < p; a++) {
+            if (!candidate.active[a]) {
+                hessian[a][a] = 1;
+                continue;
+            }
+            data2 += 2 * data.gradient[a] * delta[a];
+            gain2 += 2 * data.magnitudeGradient[a] * delta[a];
+            for (int b = 0; b < p; b++) {
+                if (candidate.active[b]) {
+                    data2 += delta[a] * data.normal[a][b] * delta[b];
+                    gain2 += delta[a] * data.magnitudeNormal[a][b] * delta[b];
+                    hessian[a][b] = data.normal[a][b];
+                    magnitudeHessian[a][b] = data.magnitudeNormal[a][b];
+                }
+            }
+            double sigma = candidate.priors[a].standardDeviation();
+            hessian[a][a] += 1 / (sigma * sigma);
+            double z = (theta[a] + delta[a] - candidate.priors[a].mean()) / sigma;
+            priorMisfit += z * z;
+            theta[a] += delta[a];
+        }
+        Optional<Cholesky> factor = Cholesky.of(hessian);
+        if (factor.isEmpty() || !(data2 >= 0) || !(gain2 >= 0)) {
+            return null;
+        }
+        return new MapPoint(theta, data2, Math.min(gain2, data2), priorMisfit, hessian, magnitudeHessian,
+                factor.get().inverse(), factor.get().lnDeterminant(), candidate.active, true, 0);
     }
 
     /** A resistor's promised χ² drop at or above which it is screened in full. */
@@ -320,14 +358,18 @@ final class HypothesisSearch {
     /** The data part of JᵀJ and Jᵀr at the no-fault MAP with every resistor active; made on first use. */
     private DataNormal atNoFault;
 
-    /** The data part of the normal equations at one θ, every parameter active. */
+    /** The data part of the normal equations at one θ, every parameter active, and its gain rows' part. */
     private static final class DataNormal {
         final double[][] normal;
         final double[] gradient;
+        final double[][] magnitudeNormal;
+        final double[] magnitudeGradient;
 
-        DataNormal(double[][] normal, double[] gradient) {
+        DataNormal(double[][] normal, double[] gradient, double[][] magnitudeNormal, double[] magnitudeGradient) {
             this.normal = normal;
             this.gradient = gradient;
+            this.magnitudeNormal = magnitudeNormal;
+            this.magnitudeGradient = magnitudeGradient;
         }
     }
 
@@ -355,24 +397,38 @@ final class HypothesisSearch {
             return null;
         }
         int rows = every.dataRows();
+        int gainRows = every.magnitudeRows();
         double[][] normal = new double[p][p];
         double[] gradient = new double[p];
+        double[][] magnitudeNormal = new double[p][p];
+        double[] magnitudeGradient = new double[p];
         for (int a = 0; a < p; a++) {
             for (int b = 0; b <= a; b++) {
-                double sum = 0;
-                for (int k = 0; k < rows; k++) {
-                    sum += jacobian[a][k] * jacobian[b][k];
+                double gain = 0;
+                double phase = 0;
+                for (int k = 0; k < gainRows; k++) {
+                    gain += jacobian[a][k] * jacobian[b][k];
                 }
-                normal[a][b] = sum;
-                normal[b][a] = sum;
+                for (int k = gainRows; k < rows; k++) {
+                    phase += jacobian[a][k] * jacobian[b][k];
+                }
+                magnitudeNormal[a][b] = gain;
+                magnitudeNormal[b][a] = gain;
+                normal[a][b] = gain + phase;
+                normal[b][a] = gain + phase;
             }
-            double sum = 0;
-            for (int k = 0; k < rows; k++) {
-                sum += jacobian[a][k] * r[k];
+            double gain = 0;
+            double phase = 0;
+            for (int k = 0; k < gainRows; k++) {
+                gain += jacobian[a][k] * r[k];
             }
-            gradient[a] = sum;
+            for (int k = gainRows; k < rows; k++) {
+                phase += jacobian[a][k] * r[k];
+            }
+            magnitudeGradient[a] = gain;
+            gradient[a] = gain + phase;
         }
-        return new DataNormal(normal, gradient);
+        return new DataNormal(normal, gradient, magnitudeNormal, magnitudeGradient);
     }
 
     private Step gaussNewtonStep(Candidate candidate, double[] theta) {
