@@ -1,6 +1,6 @@
 package org.polebench.reconcile;
 
-/** The fault hypotheses the back-solve ranks (DESIGN.md "Back-solve", "Honest diagnosis"). */
+/** The fault hypotheses the back-solve ranks (README, "The hypotheses"). */
 public enum HypothesisKind {
     /** Every parameter within its tolerance prior. */
     NONE,

@@ -25,8 +25,9 @@ import org.polebench.measure.Sweep;
 /**
  * The whole reconcile job for one stage and one sweep (issue 5): fit the sweep starting from
  * the stage's predicted poles, set prediction and measurement side by side, apportion the
- * corner error to first order, rank the single-fault hypotheses on the stage's exact model,
- * and decide the limits. The verdict shows the midband gain and the lower corner from the fit
+ * corner error to first order, rank the fault hypotheses on the stage's exact model, test
+ * whether the best one explains the sweep ({@link AdequacyTest}; when it does not, pairs of
+ * faults are ranked as well and the test is made again), and decide the limits. The verdict shows the midband gain and the lower corner from the fit
  * (the quantities the fit measures directly, with their uncertainties) when the fit describes
  * the sweep, else from the stage's model at the back-solve's MAP ({@link ModelMeasurement}),
  * and the upper corner from a fitted high-band pole (a one-pole roll-off puts the −3 dB point at

@@ -1,6 +1,8 @@
 /**
- * Predicted against measured: the side-by-side comparison, the capacitor back-solve, the
- * single-fault hypotheses ranked by evidence, and the verdict against the stage's limits
- * under a stated decision rule. Uses units, circuit, analysis, measure and fit.
+ * Predicted against measured: the side-by-side comparison, the back-solve of every capacitor,
+ * bias current and β, the fault hypotheses (capacitors, resistors, bias currents, the gain,
+ * and pairs of them) ranked by evidence, whether the best of them explains the sweep, and the
+ * verdict against the stage's limits under a stated decision rule, decided only from what the
+ * sweep shows. Uses units, circuit, analysis, measure and fit.
  */
 package org.polebench.reconcile;
