@@ -66,7 +66,7 @@ public final class SweepFitter {
                 dropped.clear();
             } else if (!dropped.isEmpty() && data.size() - dropped.size() >= 3) {
                 for (DroppedPoint point : dropped) {
-                    warnings.add(InputWarning.general(String.format("point %d at %s Hz dropped as an outlier "
+                    warnings.add(InputWarning.general(String.format(java.util.Locale.ROOT, "point %d at %s Hz dropped as an outlier "
                                     + "(%.1f standard uncertainties from the robust fit)",
                             point.sweepIndex() + 1, trim(point.frequencyHz()), point.residualSigmas())));
                 }
@@ -172,6 +172,6 @@ public final class SweepFitter {
     }
 
     private static String trim(double hz) {
-        return String.format("%.6g", hz);
+        return String.format(java.util.Locale.ROOT, "%.6g", hz);
     }
 }

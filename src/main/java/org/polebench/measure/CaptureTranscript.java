@@ -89,7 +89,7 @@ final class CaptureTranscript implements Closeable {
             if (c == '\\') {
                 to.append("\\\\");
             } else if (c < 0x20 && c != '\t' || c == 0x7f) {
-                to.append(String.format("\\x%02X", (int) c));
+                to.append(String.format(java.util.Locale.ROOT, "\\x%02X", (int) c));
             } else {
                 to.append(c);
             }

@@ -136,7 +136,7 @@ final class HypothesisSearch {
         // leaves unexplained, which the single-fault ranking alone does not show
         for (int leader = 0; leader < Math.min(GN_LEADERS, singles.size()); leader++) {
             Candidate first = singles.get(leader);
-            DataNormal data = dataNormal(first.stated.theta());
+            QuadraticModel data = QuadraticModel.at(misfit(tolerance, allActive(), 1, 1), first.stated.theta());
             if (data == null) {
                 continue;
             }
@@ -146,8 +146,7 @@ final class HypothesisSearch {
                 if (o == leader) {
                     continue;
                 }
-                Step step = gaussNewtonStep(pairPriors(first, other), pairActive(first, other), first.stated.theta(),
-                        data);
+                QuadraticModel.Step step = data.step(pairPriors(first, other), pairActive(first, other));
                 if (step != null) {
                     promised.add(new double[] {o, step.drop});
                 }
@@ -281,13 +280,16 @@ final class HypothesisSearch {
      * all resistors). A resistor whose step promises a χ² drop of {@value #RESISTOR_SCREEN_DROP}
      * or more is screened and converged from every start as the other parts are (a decade slip
      * shows as a large drop); the others take the quadratic model's MAP and evidence at the
-     * step's end ({@link #quadraticPoint}) without a further evaluation: with a drop that small
+     * step's end ({@link QuadraticModel#endOf}) without a further evaluation: with a drop that small
      * the objective is near quadratic there and the step lands close to the MAP.
      */
     private void resistor(Candidate single, MapPoint none, boolean[] free) {
         int j = single.freed[0];
         double[] theta = none.theta();
-        Step step = gaussNewtonStep(single, theta);
+        if (atNoFault == null) {
+            atNoFault = QuadraticModel.at(misfit(tolerance, allActive(), 1, 1), theta);
+        }
+        QuadraticModel.Step step = atNoFault == null ? null : atNoFault.step(single.priors, single.active);
         if (step == null || step.drop >= RESISTOR_SCREEN_DROP) {
             List<double[]> starts = starts(theta, j);
             if (step != null) {
@@ -298,7 +300,7 @@ final class HypothesisSearch {
             single.stated = screen(single.misfit, starts, free);
             return;
         }
-        MapPoint quadratic = quadraticPoint(single, none, step);
+        MapPoint quadratic = atNoFault.endOf(step, single.priors, single.active, none);
         if (quadratic != null) {
             single.stated = quadratic;
             single.settled = true;
@@ -307,165 +309,16 @@ final class HypothesisSearch {
         }
     }
 
-    /**
-     * The MAP of a hypothesis one Gauss–Newton step from the no-fault MAP, from the quadratic
-     * model there, with no evaluation of the board: θ = θ₀ + δ, χ² = ‖r + Jδ‖² (gain rows apart),
-     * H = JᵀJ + Σp⁻¹ over the hypothesis' parameters. Exact for a model linear in θ; used only
-     * where the step promises a drop under {@value #RESISTOR_SCREEN_DROP}, where it is near.
-     */
-    private MapPoint quadraticPoint(Candidate candidate, MapPoint none, Step step) {
-        DataNormal data = atNoFault;
-        int p = parameters.size();
-        double[] theta = none.theta();
-        double[] delta = step.delta;
-        double data2 = none.dataChiSquared();
-        double gain2 = none.magnitudeChiSquared();
-        double[][] hessian = new double[p][p];
-        double[][] magnitudeHessian = new double[p][p];
-        double priorMisfit = 0;
-        for (int a = 0; a < p; a++) {
-            if (!candidate.active[a]) {
-                hessian[a][a] = 1;
-                continue;
-            }
-            data2 += 2 * data.gradient[a] * delta[a];
-            gain2 += 2 * data.magnitudeGradient[a] * delta[a];
-            for (int b = 0; b < p; b++) {
-                if (candidate.active[b]) {
-                    data2 += delta[a] * data.normal[a][b] * delta[b];
-                    gain2 += delta[a] * data.magnitudeNormal[a][b] * delta[b];
-                    hessian[a][b] = data.normal[a][b];
-                    magnitudeHessian[a][b] = data.magnitudeNormal[a][b];
-                }
-            }
-            double sigma = candidate.priors[a].standardDeviation();
-            hessian[a][a] += 1 / (sigma * sigma);
-            double z = (theta[a] + delta[a] - candidate.priors[a].mean()) / sigma;
-            priorMisfit += z * z;
-            theta[a] += delta[a];
-        }
-        Optional<Cholesky> factor = Cholesky.of(hessian);
-        if (factor.isEmpty() || !(data2 >= 0) || !(gain2 >= 0)) {
-            return null;
-        }
-        return new MapPoint(theta, data2, Math.min(gain2, data2), priorMisfit, hessian, magnitudeHessian,
-                factor.get().inverse(), factor.get().lnDeterminant(), candidate.active, true, 0);
-    }
-
     /** A resistor's promised χ² drop at or above which it is screened in full. */
     static final double RESISTOR_SCREEN_DROP = 9;
 
-    /** The data part of JᵀJ and Jᵀr at the no-fault MAP with every resistor active; made on first use. */
-    private DataNormal atNoFault;
+    /** The quadratic model at the no-fault MAP with every resistor active; made on first use. */
+    private QuadraticModel atNoFault;
 
-    /** The data part of the normal equations at one θ, every parameter active, and its gain rows' part. */
-    private static final class DataNormal {
-        final double[][] normal;
-        final double[] gradient;
-        final double[][] magnitudeNormal;
-        final double[] magnitudeGradient;
-
-        DataNormal(double[][] normal, double[] gradient, double[][] magnitudeNormal, double[] magnitudeGradient) {
-            this.normal = normal;
-            this.gradient = gradient;
-            this.magnitudeNormal = magnitudeNormal;
-            this.magnitudeGradient = magnitudeGradient;
-        }
-    }
-
-    /** A Gauss–Newton step δ and the drop of ‖r‖² it promises, gᵀ(JᵀJ + Σp⁻¹)⁻¹g. */
-    private static final class Step {
-        final double[] delta;
-        final double drop;
-
-        Step(double[] delta, double drop) {
-            this.delta = delta;
-            this.drop = drop;
-        }
-    }
-
-    // JᵀJ and Jᵀr over the data rows at θ with every parameter active; null where the model is
-    // undefined
-    private DataNormal dataNormal(double[] theta) {
-        int p = parameters.size();
-        boolean[] all = new boolean[p];
+    private boolean[] allActive() {
+        boolean[] all = new boolean[parameters.size()];
         java.util.Arrays.fill(all, true);
-        Misfit every = misfit(tolerance, all, 1, 1);
-        double[] r = new double[every.rows()];
-        double[][] jacobian = new double[p][every.rows()];
-        if (!every.evaluate(theta, r, jacobian, false, null)) {
-            return null;
-        }
-        int rows = every.dataRows();
-        int gainRows = every.magnitudeRows();
-        double[][] normal = new double[p][p];
-        double[] gradient = new double[p];
-        double[][] magnitudeNormal = new double[p][p];
-        double[] magnitudeGradient = new double[p];
-        for (int a = 0; a < p; a++) {
-            for (int b = 0; b <= a; b++) {
-                double gain = 0;
-                double phase = 0;
-                for (int k = 0; k < gainRows; k++) {
-                    gain += jacobian[a][k] * jacobian[b][k];
-                }
-                for (int k = gainRows; k < rows; k++) {
-                    phase += jacobian[a][k] * jacobian[b][k];
-                }
-                magnitudeNormal[a][b] = gain;
-                magnitudeNormal[b][a] = gain;
-                normal[a][b] = gain + phase;
-                normal[b][a] = gain + phase;
-            }
-            double gain = 0;
-            double phase = 0;
-            for (int k = 0; k < gainRows; k++) {
-                gain += jacobian[a][k] * r[k];
-            }
-            for (int k = gainRows; k < rows; k++) {
-                phase += jacobian[a][k] * r[k];
-            }
-            magnitudeGradient[a] = gain;
-            gradient[a] = gain + phase;
-        }
-        return new DataNormal(normal, gradient, magnitudeNormal, magnitudeGradient);
-    }
-
-    private Step gaussNewtonStep(Candidate candidate, double[] theta) {
-        if (atNoFault == null) {
-            atNoFault = dataNormal(theta);
-        }
-        return atNoFault == null ? null : gaussNewtonStep(candidate.priors, candidate.active, theta, atNoFault);
-    }
-
-    // δ = −(JᵀJ + Σp⁻¹)⁻¹·g over the active parameters at θ; null when the normal matrix is singular
-    private Step gaussNewtonStep(Prior[] priors, boolean[] active, double[] theta, DataNormal data) {
-        int p = parameters.size();
-        double[][] normal = new double[p][p];
-        double[] gradient = new double[p];
-        for (int a = 0; a < p; a++) {
-            if (!active[a]) {
-                normal[a][a] = 1;
-                continue;
-            }
-            double sigma = priors[a].standardDeviation();
-            for (int b = 0; b < p; b++) {
-                normal[a][b] = active[b] ? data.normal[a][b] : 0;
-            }
-            normal[a][a] += 1 / (sigma * sigma);
-            gradient[a] = data.gradient[a] + (theta[a] - priors[a].mean()) / (sigma * sigma);
-        }
-        Optional<Cholesky> factor = Cholesky.of(normal);
-        if (factor.isEmpty()) {
-            return null;
-        }
-        double[] solved = factor.get().solve(gradient);
-        double drop = 0;
-        for (int a = 0; a < p; a++) {
-            drop += gradient[a] * solved[a];
-            solved[a] = -solved[a];
-        }
-        return new Step(solved, drop);
+        return all;
     }
 
     private Misfit misfit(Prior[] priors, boolean[] active, double magnitudeScale, double phaseScale) {
