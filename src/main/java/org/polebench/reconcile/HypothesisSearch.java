@@ -109,8 +109,8 @@ final class HypothesisSearch {
     }
 
     /**
-     * Ranks pairs of the {@value FaultRanking#PAIRED_SINGLES} most probable single faults beside
-     * the singles, and sets the noise scales again from the best of all.
+     * Ranks pairs of single faults beside the singles (which pairs: {@link FaultRanking}), and
+     * sets the noise scales again from the best of all.
      *
      * @return the ranking with pairs
      * @throws IllegalStateException before {@link #singles()}
