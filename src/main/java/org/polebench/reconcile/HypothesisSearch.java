@@ -215,6 +215,12 @@ final class HypothesisSearch {
                     double[] start = first.stated.theta();
                     start[j] = tolerance[j].mean() + offset;
                     starts.add(start);
+                    // and from the tolerance means, the first at its own estimate: the first's
+                    // MAP has bent the nuisances to make up for the second fault
+                    double[] fromMeans = mean.clone();
+                    fromMeans[i] = first.stated.theta(i);
+                    fromMeans[j] = tolerance[j].mean() + offset;
+                    starts.add(fromMeans);
                 }
             }
             pair.stated = screenThenSolve(pair.misfit, starts);

@@ -239,12 +239,10 @@ class RealBoardsTest {
         String summary = both + "/" + results.size() + " with both faults in the top double\n  "
                 + String.join("\n  ", lines);
         System.out.println(summary);
-        // issue 11 asks both faults in the top double in at least 80 %: NOT MET, measured 23/30
-        // (the geophone's input and output coupling capacitors C1 and C3 trade places under β
-        // spread, which moves C1's corner through rπ; every miss is "not explained" or names a
-        // part the sweep cannot identify). This floor keeps the present rate from falling; the
-        // rule "never confidently wrong" below is the one that holds.
-        assertTrue(both >= 0.7 * results.size(), summary);
+        // issue 11: both faults in the top double in at least 80 % (measured 27/30; the misses
+        // are the hydrophone's C2 and C3 slipped together, which its C1 alone mimics and which
+        // is then not named, being not identifiable, and one geophone C3 read as C2)
+        assertTrue(both >= 0.8 * results.size(), summary);
         assertTrue(lines.stream().noneMatch(l -> l.endsWith("WRONG")), summary);
     }
 
