@@ -32,6 +32,9 @@ import org.polebench.units.EngineeringValue;
  * figures (GUM 7.2.6).
  */
 public final class ReconcileText {
+    /** A pair below this probability is listed only among the first {@value #LISTED_PAIRS} pairs. */
+    static final double LISTED_PROBABILITY = 0.001;
+    static final int LISTED_PAIRS = 5;
 
     public void write(ReconcileResult result, PrintWriter out) {
         out.println("Stage: " + result.predicted().stage().name());
@@ -176,10 +179,25 @@ public final class ReconcileText {
         out.println((result.diagnosis().pairsRanked() ? "Fault hypotheses, single and double" : "Single-fault hypotheses")
                 + " (Laplace evidence; prior: no fault 0.5, single faults share 0.4, pairs share 0.1)"
                 + (explained ? "" : "; RELATIVE probabilities: none of these explains the sweep"));
+        // every single fault is listed; of the pairs, the ones that carry any probability and the
+        // few closest: a full list of pairs would bury the lines that matter (the JSON and the
+        // report keep all of them)
+        int pairsShown = 0;
+        int pairsLeft = 0;
         for (Hypothesis hypothesis : result.diagnosis().hypotheses()) {
+            if (hypothesis.kind() == HypothesisKind.DOUBLE && hypothesis.probability() < LISTED_PROBABILITY
+                    && pairsShown >= LISTED_PAIRS) {
+                pairsLeft++;
+                continue;
+            }
+            pairsShown += hypothesis.kind() == HypothesisKind.DOUBLE ? 1 : 0;
             out.println(String.format(Locale.ROOT, "  %7.3f %%  %-20s  %s", 100 * hypothesis.probability(),
                     hypothesis.label(), hypothesis.kind() == HypothesisKind.NONE && hypothesis.probability() < 0.5
                             ? "" : DiagnosisText.statement(hypothesis)));
+        }
+        if (pairsLeft > 0) {
+            out.println(String.format(Locale.ROOT, "  (%d more pairs, each below %.1f %%: in the JSON and the report)",
+                    pairsLeft, 100 * LISTED_PROBABILITY));
         }
         out.println("  Most likely: " + DiagnosisText.mostLikely(result.diagnosis(), result.adequacy()));
         out.println();
