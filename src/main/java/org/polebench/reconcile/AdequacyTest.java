@@ -48,7 +48,8 @@ import org.polebench.units.Decibels;
  * <p>A sweep the stage does not explain is said not to look like a board of this stage at all
  * when the stage model misses it by {@value #FAR_RATIO} times the free fit's χ²/ν or more (every
  * hypothesis far off), or when its lower corner lies outside the tolerance spread's extremes
- * widened {@value #SPREAD_WIDENING}× (further than a decade slip of one part moves it).
+ * widened {@value #SPREAD_WIDENING}× (further than a decade slip of one part moves it), or when
+ * its fitted midband lies more than {@value #FAR_GAIN_DB} dB from the stage's.
  * Stateless.
  */
 public final class AdequacyTest {
@@ -75,6 +76,11 @@ public final class AdequacyTest {
      * noise an instrument states or a bench has.
      */
     public static final double FAR_REDUCED_CHI_SQUARE = 1e4;
+    /**
+     * A measured midband this far from the stage's, dB, is no board of it: beyond a ×10 probe
+     * read as ×1 (20 dB, a hypothesis of its own) with 10 dB to spare for the parts' spread.
+     */
+    public static final double FAR_GAIN_DB = 30;
     /** The spread's extreme corners are widened by this factor before a corner counts as outside. */
     public static final double SPREAD_WIDENING = 10;
 
@@ -83,8 +89,10 @@ public final class AdequacyTest {
      * @param fit       the free rational fit of the same sweep
      * @param sweep     the sweep both were made from, in the order the residuals follow
      * @param spread    the stage's tolerance spread of the lower corner (may be empty)
+     * @param predictedMidbandGainDb the stage's own midband gain, dB
      */
-    public ModelAdequacy assess(Diagnosis diagnosis, FitResult fit, Sweep sweep, CornerSpread spread) {
+    public ModelAdequacy assess(Diagnosis diagnosis, FitResult fit, Sweep sweep, CornerSpread spread,
+                                double predictedMidbandGainDb) {
         BestResiduals best = diagnosis.residuals();
         int rows = best.rows();
         double k = best.effectiveParameters();
@@ -175,6 +183,10 @@ public final class AdequacyTest {
         }
         if (!explained && outsideSpread(fit, spread)) {
             findings.add(ModelAdequacy.Finding.CORNER_OUTSIDE_SPREAD);
+            looksLike = false;
+        }
+        if (!explained && Math.abs(fit.midbandGainDb().value() - predictedMidbandGainDb) > FAR_GAIN_DB) {
+            findings.add(ModelAdequacy.Finding.GAIN_FAR_FROM_STAGE);
             looksLike = false;
         }
         OptionalDouble p = statedP.isPresent() ? statedP : freeP;

@@ -63,6 +63,8 @@ public record ModelAdequacy(boolean explained, boolean looksLikeStage, double ch
         /** The stage misses the sweep by orders of magnitude (against the free fit or the point σ). */
         FAR_FROM_EVERY_HYPOTHESIS,
         /** The measured lower corner lies far outside every board of the tolerance spread. */
-        CORNER_OUTSIDE_SPREAD
+        CORNER_OUTSIDE_SPREAD,
+        /** The measured midband gain lies further from the stage's than any board or probe mistake puts it. */
+        GAIN_FAR_FROM_STAGE
     }
 }

@@ -100,11 +100,13 @@ public final class Reconciler {
                 sweep);
         Diagnosis diagnosis = search.singles();
         FitResult fit = join(fitting);
-        ModelAdequacy adequacy = adequacyTest.assess(diagnosis, fit, sweep, predicted.spread());
+        ModelAdequacy adequacy = adequacyTest.assess(diagnosis, fit, sweep, predicted.spread(),
+                prediction.midbandGainDb());
         if (!adequacy.explained()) {
             // no single fault explains the sweep: pairs of the most probable ones, then the test again
             diagnosis = search.withPairs();
-            adequacy = adequacyTest.assess(diagnosis, fit, sweep, predicted.spread());
+            adequacy = adequacyTest.assess(diagnosis, fit, sweep, predicted.spread(),
+                prediction.midbandGainDb());
         }
         ModelMeasurement.Measured model = measurement.measure(predicted.stage(), predicted.operatingPoints(),
                 diagnosis.top().backSolve());

@@ -125,8 +125,9 @@ public final class DiagnosisText {
         evidence.add("residual structure along frequency (lag-1 autocorrelation) " + pEquals(adequacy.structurePValue()));
         for (ModelAdequacy.Finding finding : adequacy.findings()) {
             switch (finding) {
+                case GAIN_FAR_FROM_STAGE:
                 case CORNER_OUTSIDE_SPREAD:
-                    evidence.add("the measured lower corner lies far outside every board of the tolerance spread");
+                    evidence.add(finding(finding));
                     break;
                 case PARTS_OUTSIDE_TOLERANCE:
                     evidence.add(adequacy.partsOutsideTolerance().isEmpty()
@@ -136,13 +137,36 @@ public final class DiagnosisText {
                             + " would have to lie far outside their tolerances");
                     break;
                 case FAR_FROM_EVERY_HYPOTHESIS:
-                    evidence.add("every hypothesis misses the sweep by far more than the noise or a free fit allows");
+                    evidence.add(finding(finding));
                     break;
                 default:
                     break;
             }
         }
         return evidence;
+    }
+
+    /** @return one finding of the adequacy test in words: the terminal's and the report's */
+    public static String finding(ModelAdequacy.Finding finding) {
+        switch (finding) {
+            case CHI_SQUARED_ABOVE_STATED_NOISE:
+                return "χ² far above its distribution at the sweep's stated point uncertainties";
+            case WORSE_THAN_FREE_FIT:
+                return "the stage model fits far worse than a free rational model of the same sweep";
+            case RESIDUAL_RUNS:
+                return "the residuals run in long stretches of one sign along frequency";
+            case PARTS_OUTSIDE_TOLERANCE:
+                return "the best hypothesis fits only by moving parts it does not free far out of tolerance";
+            case WORSE_THAN_STATED_NOISE_BY_FAR:
+                return "the misfit's RMS is a hundred point σ or more";
+            case FAR_FROM_EVERY_HYPOTHESIS:
+                return "every hypothesis misses the sweep by far more than the noise or a free fit allows";
+            case CORNER_OUTSIDE_SPREAD:
+                return "the measured lower corner lies far outside every board of the tolerance spread";
+            default:
+                return "the measured midband gain lies further from the stage's than any board or a ×10 probe "
+                        + "mistake puts it";
+        }
     }
 
     /** @return "p = 0.4778", or "p < 0.0001" below what four decimals can show */

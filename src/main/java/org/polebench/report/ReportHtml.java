@@ -3,6 +3,7 @@ package org.polebench.report;
 import com.fasterxml.jackson.databind.JsonNode;
 import java.util.Locale;
 import org.polebench.reconcile.AdequacyTest;
+import org.polebench.reconcile.ModelAdequacy;
 import org.polebench.reconcile.FaultRanking;
 import org.polebench.units.EngineeringValue;
 
@@ -443,23 +444,12 @@ public final class ReportHtml {
                         + "extremes widened ").append(fraction(AdequacyTest.SPREAD_WIDENING)).append("×.</p>\n");
     }
 
-    /** One finding of the adequacy test, as the JSON names it, in words. */
+    /** One finding of the adequacy test, as the JSON names it, in the words the terminal uses. */
     private static String finding(String word) {
-        switch (word) {
-            case "chi_squared_above_stated_noise":
-                return "χ² far above its distribution at the sweep's stated point uncertainties";
-            case "worse_than_free_fit":
-                return "the stage model fits far worse than a free rational model of the same sweep";
-            case "residual_runs":
-                return "the residuals run in long stretches of one sign along frequency";
-            case "worse_than_stated_noise_by_far":
-                return "the misfit's RMS is a hundred point σ or more";
-            case "far_from_every_hypothesis":
-                return "every hypothesis misses the sweep by far more than the noise or a free fit allows";
-            case "corner_outside_spread":
-                return "the measured lower corner lies far outside every board of the tolerance spread";
-            default:
-                return word.replace('_', ' ');
+        try {
+            return DiagnosisText.finding(ModelAdequacy.Finding.valueOf(word.toUpperCase(Locale.ROOT)));
+        } catch (IllegalArgumentException unknown) {
+            return word.replace('_', ' ');
         }
     }
 
