@@ -171,16 +171,18 @@ public final class ReportHtml {
                 + "hypothesis (device spread), never blamed.</li>\n");
         h.append("<li><b>Hypotheses.</b> No fault; one capacitor, one resistor (the DC operating point solved again "
                 + "for every value tried), one bias current or the gain calibration freed with a wide prior; and, only "
-                + "when no single fault explains the sweep, pairs of the ").append(FaultRanking.PAIRED_SINGLES)
-                .append(" most probable single faults. They are ranked by their Laplace evidence with prior "
+                + "when no single fault explains the sweep, pairs: the most probable single faults with the parts "
+                + "that promise the largest further improvement beside them, with one another, and every pair of "
+                + "capacitors and the gain calibration. They are ranked by their Laplace evidence with prior "
                         + "probabilities ").append(fraction(FaultRanking.NO_FAULT_PRIOR)).append(" for no fault, ")
                 .append(fraction(FaultRanking.SINGLE_FAULTS_PRIOR)).append(" shared by the single faults and ")
                 .append(fraction(FaultRanking.DOUBLE_FAULTS_PRIOR)).append(" by the pairs.</li>\n");
-        h.append("<li><b>Adequacy.</b> Whether the most probable hypothesis explains the sweep is tested by three "
+        h.append("<li><b>Adequacy.</b> Whether the most probable hypothesis explains the sweep is tested by four "
                 + "checks, each at level ").append(fraction(AdequacyTest.ALPHA))
                 .append(": its χ² against the χ² distribution where the sweep states its point uncertainties; the "
-                        + "stage model against a free rational fit of the same sweep at the same weights; and the "
-                        + "lag-1 autocorrelation of its residuals along frequency. When it does not, the "
+                        + "stage model against a free rational fit of the same sweep at the same weights; the "
+                        + "lag-1 autocorrelation of its residuals along frequency; and whether the parts it does not "
+                        + "free are found within their tolerances. When it does not, the "
                         + "probabilities are relative among hypotheses that do not explain the sweep, and none is "
                         + "named as the fault.</li>\n");
         h.append("<li><b>Decision rule.</b> ").append(esc(verdict.path("rule_statement").asText()))
@@ -425,6 +427,12 @@ public final class ReportHtml {
         h.append("<tr><td>Residual structure along frequency (lag-1 autocorrelation)</td><td>")
                 .append(esc(DiagnosisText.pEquals(diagnosis.path("structure_p_value").asDouble())))
                 .append("</td><td>p &lt; ").append(alpha).append(" and a material misfit</td></tr>\n");
+        h.append("<tr><td>Parts held within tolerance</td><td>")
+                .append(esc(DiagnosisText.pEquals(diagnosis.path("tolerance_p_value").asDouble())))
+                .append(diagnosis.path("parts_outside_tolerance").size() > 0 ? "; outside: "
+                        + esc(String.join(", ", textList(diagnosis.path("parts_outside_tolerance")))) : "")
+                .append("</td><td>p &lt; ").append(alpha).append(" or one part beyond ")
+                .append(fraction(AdequacyTest.OUTSIDE_TOLERANCE_SIGMAS)).append(" σ</td></tr>\n");
         h.append("</tbody>\n</table>\n");
         JsonNode findings = diagnosis.path("findings");
         if (findings.size() > 0) {
@@ -440,8 +448,18 @@ public final class ReportHtml {
                         + "like a board of this stage when the most probable hypothesis misses it by a χ²/ν of ")
                 .append(MeasuredValueFormat.sixFigures(AdequacyTest.FAR_REDUCED_CHI_SQUARE))
                 .append(" or more, or by ").append(fraction(AdequacyTest.FAR_RATIO))
-                .append(" times the free fit's χ²/ν or more, or when its corner lies outside the tolerance spread's "
-                        + "extremes widened ").append(fraction(AdequacyTest.SPREAD_WIDENING)).append("×.</p>\n");
+                .append(" times the free fit's χ²/ν or more, when its corner lies outside the tolerance spread's "
+                        + "extremes widened ").append(fraction(AdequacyTest.SPREAD_WIDENING))
+                .append("×, or when its midband lies more than ").append(fraction(AdequacyTest.FAR_GAIN_DB))
+                .append(" dB from the stage's.</p>\n");
+    }
+
+    private static List<String> textList(JsonNode array) {
+        List<String> texts = new java.util.ArrayList<>();
+        for (JsonNode item : array) {
+            texts.add(item.asText());
+        }
+        return texts;
     }
 
     /** One finding of the adequacy test, as the JSON names it, in the words the terminal uses. */
@@ -506,8 +524,7 @@ public final class ReportHtml {
                 .append(fraction(FaultRanking.SINGLE_FAULTS_PRIOR)).append(", the pairs ")
                 .append(fraction(FaultRanking.DOUBLE_FAULTS_PRIOR))
                 .append(" over every pair that could be formed), normalised over the hypotheses ranked; ")
-                .append(pairs ? "pairs of the " + FaultRanking.PAIRED_SINGLES + " most probable single faults were ranked "
-                        + "because no single fault explains the sweep. "
+                .append(pairs ? "pairs of single faults were ranked because no single fault explains the sweep. "
                         : "pairs were not ranked, as a single fault or none explains the sweep. ");
         if (noise.path("stated_by_sweep").asBoolean()) {
             h.append("Point σ as the sweep states them, scaled by ")
