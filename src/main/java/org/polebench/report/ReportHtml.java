@@ -454,8 +454,8 @@ public final class ReportHtml {
                 .append(" dB from the stage's.</p>\n");
     }
 
-    private static List<String> textList(JsonNode array) {
-        List<String> texts = new java.util.ArrayList<>();
+    private static java.util.List<String> textList(JsonNode array) {
+        java.util.List<String> texts = new java.util.ArrayList<>();
         for (JsonNode item : array) {
             texts.add(item.asText());
         }
