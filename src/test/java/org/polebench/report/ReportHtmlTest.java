@@ -178,8 +178,8 @@ class ReportHtmlTest {
         // a stage the sweep is explained by needs no pairs (FaultRanking ranks them only otherwise)
         assertFalse(root.path("pairs_ranked").asBoolean());
         assertTrue(page.select("h3:contains(Ranked single-fault hypotheses)").size() == 1);
-        // the three checks of the adequacy test, one row each
-        assertEquals(3, page.select("#adequacy tbody tr").size());
+        // the four checks of the adequacy test (AdequacyTest's Javadoc), one row each
+        assertEquals(4, page.select("#adequacy tbody tr").size());
     }
 
     // issue 11's hand case "a sweep reconciled against the wrong stage file": the demo board of
