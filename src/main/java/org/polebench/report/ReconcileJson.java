@@ -49,43 +49,11 @@ public final class ReconcileJson {
                 ? apportionment(result.apportionment().get()) : nodes.nullNode());
         BackSolve backSolve = result.backSolve();
         root.put("back_solve_hypothesis", result.diagnosis().top().label());
-        ArrayNode capacitors = root.putArray("capacitors");
-        for (ParameterEstimate estimate : backSolve.of(ParameterKind.CAPACITOR)) {
-            ObjectNode row = capacitors.addObject();
-            row.put("id", estimate.parameter().label());
-            row.put("nominal_farads", estimate.parameter().nominal());
-            row.put("estimated_farads", estimate.value());
-            row.put("u_farads", estimate.uncertainty());
-            row.put("identifiable", estimate.identifiable());
-        }
+        estimates(root.putArray("capacitors"), backSolve, ParameterKind.CAPACITOR, "farads");
         ObjectNode nuisance = root.putObject("nuisance");
-        ArrayNode bias = nuisance.putArray("bias");
-        for (ParameterEstimate estimate : backSolve.of(ParameterKind.BIAS)) {
-            ObjectNode row = bias.addObject();
-            row.put("id", estimate.parameter().label());
-            row.put("nominal_a", estimate.parameter().nominal());
-            row.put("estimated_a", estimate.value());
-            row.put("u_a", estimate.uncertainty());
-            row.put("identifiable", estimate.identifiable());
-        }
-        ArrayNode beta = nuisance.putArray("current_gain");
-        for (ParameterEstimate estimate : backSolve.of(ParameterKind.CURRENT_GAIN)) {
-            ObjectNode row = beta.addObject();
-            row.put("id", estimate.parameter().label());
-            row.put("nominal_beta", estimate.parameter().nominal());
-            row.put("estimated_beta", estimate.value());
-            row.put("u_beta", estimate.uncertainty());
-            row.put("identifiable", estimate.identifiable());
-        }
-        ArrayNode resistors = root.putArray("resistors");
-        for (ParameterEstimate estimate : backSolve.of(ParameterKind.RESISTOR)) {
-            ObjectNode row = resistors.addObject();
-            row.put("id", estimate.parameter().label());
-            row.put("nominal_ohms", estimate.parameter().nominal());
-            row.put("estimated_ohms", estimate.value());
-            row.put("u_ohms", estimate.uncertainty());
-            row.put("identifiable", estimate.identifiable());
-        }
+        estimates(nuisance.putArray("bias"), backSolve, ParameterKind.BIAS, "a");
+        estimates(nuisance.putArray("current_gain"), backSolve, ParameterKind.CURRENT_GAIN, "beta");
+        estimates(root.putArray("resistors"), backSolve, ParameterKind.RESISTOR, "ohms");
         ParameterEstimate gain = backSolve.gain();
         ObjectNode gainNode = nuisance.putObject("gain");
         gainNode.put("estimated_db", gain.value());
@@ -114,6 +82,18 @@ public final class ReconcileJson {
         }
         root.set("verdict", verdict(result));
         return root;
+    }
+
+    // one row per estimate of one kind: id, nominal_UNIT, estimated_UNIT, u_UNIT, identifiable
+    private static void estimates(ArrayNode rows, BackSolve backSolve, ParameterKind kind, String unit) {
+        for (ParameterEstimate estimate : backSolve.of(kind)) {
+            ObjectNode row = rows.addObject();
+            row.put("id", estimate.parameter().label());
+            row.put("nominal_" + unit, estimate.parameter().nominal());
+            row.put("estimated_" + unit, estimate.value());
+            row.put("u_" + unit, estimate.uncertainty());
+            row.put("identifiable", estimate.identifiable());
+        }
     }
 
     // issue 11: {"explained", "statement", "chi_squared", "degrees_of_freedom", "p_value",
