@@ -13,7 +13,7 @@ import org.polebench.circuit.Transistor;
 /**
  * The exact lower corner of boards drawn from one nominal stage, each board given as numbers:
  * its part values ({@link Stage#partValues()}) and the factors on its given bias currents. The
- * kernel of the tolerance spread (DESIGN.md "Tolerance spread"). A draw changes values, never
+ * kernel of the tolerance spread (docs/method.md, "Tolerance spread"). A draw changes values, never
  * structure, so the DC network, the small-signal element list and the low-band reduction's
  * graph checks and MNA layout are made once here ({@link BiasSolver#prepare},
  * {@link SmallSignalExpansion#prepare}, {@link PortReduction#prepare}); a board then costs one

@@ -3,7 +3,7 @@ package org.polebench.analysis;
 import java.util.OptionalDouble;
 
 /**
- * The exact −3 dB corners of a state-space model (DESIGN.md, "Numerics"): where |H(jω)|
+ * The exact −3 dB corners of a state-space model (docs/method.md, "Exact corners"): where |H(jω)|
  * crosses |midband gain|/√2, bracketed by a scan in steps of 1/{@value #STEPS_PER_DECADE}
  * decade and solved with Brent's method (Brent, Algorithms for Minimization without
  * Derivatives, 1973, chapter 4: bisection, secant and inverse quadratic interpolation) on

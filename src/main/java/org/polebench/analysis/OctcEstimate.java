@@ -5,7 +5,7 @@ import java.util.List;
 
 /**
  * The open-circuit time-constant estimate of the upper corner, ωH ≈ 1/Σ τ_i° with
- * τ_i° = C_i·(Y⁻¹)_ii (DESIGN.md, "Numerics"). Σ τ_i° equals trace(−A⁻¹) = trace(Y⁻¹·Cf) = −Σ 1/poles
+ * τ_i° = C_i·(Y⁻¹)_ii (docs/method.md, "SCTC and OCTC estimates"). Σ τ_i° equals trace(−A⁻¹) = trace(Y⁻¹·Cf) = −Σ 1/poles
  * exactly, link capacitors included.
  *
  * @param terms          one per high-band port in port order, then one per link capacitor

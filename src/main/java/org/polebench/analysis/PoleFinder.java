@@ -10,7 +10,7 @@ import org.apache.commons.math3.linear.EigenDecomposition;
 import org.apache.commons.math3.linear.LUDecomposition;
 
 /**
- * Eigenvalues of a real non-symmetric matrix, the recipe of PITFALLS.md: Commons Math's
+ * Eigenvalues of a real non-symmetric matrix, the recipe of docs/method.md, "Poles and zeros": Commons Math's
  * {@link EigenDecomposition} tests 2×2 Schur blocks against an absolute 1e-12, so it runs on
  * A/‖A‖ and the eigenvalues are scaled back; |Im λ| below {@code realShare}·|λ| is taken as real;
  * Σλ is checked against trace A, Πλ against an LU determinant, and each eigenpair by its
@@ -19,7 +19,7 @@ import org.apache.commons.math3.linear.LUDecomposition;
  * A − μI and left ones from its transpose with the same factors. Immutable.
  */
 public final class PoleFinder {
-    /** |Im λ| below this share of |λ| is round-off: the root is real (PITFALLS.md). */
+    /** |Im λ| below this share of |λ| is round-off: the root is real (docs/method.md, "Poles and zeros"). */
     public static final double DEFAULT_REAL_SHARE = 1e-9;
     /** A scaled eigenvalue below this is taken as exactly zero (a structural zero at DC). */
     static final double ZERO_SHARE = 1e-9;

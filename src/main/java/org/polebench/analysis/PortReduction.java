@@ -14,7 +14,7 @@ import org.polebench.circuit.RealLu;
 
 /**
  * Reduces the resistive network around one band's capacitors to the state-space model
- * A = −Cd⁻¹·Y, B = −Cd⁻¹·b, C = cᵀ, D (DESIGN.md, "Port reduction"), with one real LU and
+ * A = −Cd⁻¹·Y, B = −Cd⁻¹·b, C = cᵀ, D (docs/method.md, "Port reduction"), with one real LU and
  * k + 1 solves; nothing is inverted but diag(C) and the k×k matrix Y.
  *
  * <p>Low band: the low-band capacitors are ports and the high-band ones open; a loop of them is

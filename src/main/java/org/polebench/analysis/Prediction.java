@@ -6,7 +6,7 @@ import java.util.OptionalDouble;
 import org.polebench.units.Decibels;
 
 /**
- * Everything the analysis predicts for one network (DESIGN.md, "Numerics"). Poles and zeros are
+ * Everything the analysis predicts for one network (docs/method.md). Poles and zeros are
  * complex in rad/s ({@link ComplexFrequency} has Hz accessors); corners are in Hz.
  *
  * @param midbandGain            D of the low-band model in V/V, signed (negative: inverting)

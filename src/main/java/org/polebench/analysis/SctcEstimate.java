@@ -5,7 +5,7 @@ import java.util.List;
 
 /**
  * The short-circuit time-constant estimate of the lower corner, ωL ≈ Σ 1/τ_i with
- * τ_i = C_i/Y_ii (DESIGN.md, "Numerics"). Σ 1/τ_i equals −Σ poles exactly (it is trace(−A));
+ * τ_i = C_i/Y_ii (docs/method.md, "SCTC and OCTC estimates"). Σ 1/τ_i equals −Σ poles exactly (it is trace(−A));
  * ωL itself is only estimated by it (a dominant-pole assumption).
  *
  * @param terms            one per low-band capacitor, in port order

@@ -1,6 +1,6 @@
 package org.polebench.analysis;
 
-/** Why a network has no finite state-space model in one band (DESIGN.md, "Numerics"). */
+/** Why a network has no finite state-space model in one band (docs/method.md, "Port reduction"). */
 public enum SingularCase {
     /**
      * Ports and ideal sources form a loop (for example two coupling capacitors in parallel, or a

@@ -3,7 +3,7 @@ package org.polebench.analysis;
 import java.util.List;
 
 /**
- * The eigenvalues of a state matrix with the checks of PITFALLS.md ("Commons Math 3.6.1").
+ * The eigenvalues of a state matrix with the checks of docs/method.md, "Poles and zeros".
  *
  * @param roots                    eigenvalues in rad/s, ascending in magnitude; conjugate pairs
  *                                 adjacent; a root with |Im| below 1e-9·|root| is made real

@@ -9,7 +9,7 @@ import org.polebench.circuit.SmallSignalNetwork;
 
 /**
  * The analysis entry point: port reduction of both bands, poles, zeros, the SCTC and OCTC
- * estimates, the exact corners and the sensitivities of one network (DESIGN.md, "Numerics").
+ * estimates, the exact corners and the sensitivities of one network (docs/method.md).
  * Immutable and stateless between calls; one instance serves any number of threads.
  */
 public final class StagePredictor {

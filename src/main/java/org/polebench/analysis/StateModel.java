@@ -9,7 +9,7 @@ import org.apache.commons.math3.linear.LUDecomposition;
 import org.polebench.circuit.Band;
 
 /**
- * The state-space model of one band's capacitor ports (DESIGN.md, "Port reduction"): with the
+ * The state-space model of one band's capacitor ports (docs/method.md, "Port reduction"): with the
  * port voltages v as states, Cd·dv/dt = −(Y·v + b·u), y = cᵀ·v + D·u, so
  * A = −Cd⁻¹·Y, B = −Cd⁻¹·b, C = cᵀ and D.
  *

@@ -12,7 +12,7 @@ import org.polebench.circuit.Tolerance;
 import org.polebench.circuit.Transistor;
 
 /**
- * A stage's tolerance bands in ln(value), read once for all its drawn boards (DESIGN.md
+ * A stage's tolerance bands in ln(value), read once for all its drawn boards (docs/method.md,
  * "Tolerance spread"). A board takes, in part order, each resistor's, capacitor's and BJT's β
  * factor uniform in ln across its band (one {@link SplittableRandom#nextDouble()} each, none
  * for a band of zero width), then one factor per transistor with a given bias current, in

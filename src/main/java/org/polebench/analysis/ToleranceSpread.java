@@ -12,7 +12,7 @@ import org.polebench.circuit.Stage;
 
 /**
  * Monte Carlo spread of the exact lower corner over the stage's part tolerances, β spreads and
- * given bias currents (DESIGN.md "Tolerance spread").
+ * given bias currents (docs/method.md, "Tolerance spread").
  *
  * <p>Each value is drawn uniformly in ln(value) across its tolerance band: the same rectangular
  * reading of a band that the back-solve's priors use (GUM, JCGM 100:2008, 4.3.7), so the spread

@@ -15,7 +15,7 @@ import org.polebench.InputProblem;
  * ideal source to ground; the generator's EMF 0 V behind its source resistance (an ideal 0 V
  * source when that is 0 Ω); the load a resistor to ground.
  *
- * <p>Transistors with {@code bias: auto} (DESIGN.md "Conventions"):
+ * <p>Transistors with {@code bias: auto} (docs/method.md, "The small-signal network"):
  * <ul>
  *   <li>BJT, forward active: an ideal VBE(on) source from base to emitter (emitter to base for a
  *       PNP) and a collector current β·IB; the Early effect is ignored. This part is linear and is

@@ -4,7 +4,7 @@ import java.util.List;
 import java.util.OptionalDouble;
 
 /**
- * A bipolar transistor with its DC and small-signal parameters (DESIGN.md "Conventions").
+ * A bipolar transistor with its DC and small-signal parameters (docs/method.md, "The small-signal network").
  *
  * @param polarity          NPN or PNP
  * @param collector         node of the collector
@@ -26,7 +26,7 @@ public record Bjt(String name, Polarity polarity, String collector, String base,
                   double rxOhms, double cpiFarads, double cmuFarads, Bias bias, Tolerance biasTolerance, int line)
         implements Part, Transistor {
 
-    /** VBE(on) when the stage file does not give {@code vbe-on} (DESIGN.md; common practice 0.6–0.7 V). */
+    /** VBE(on) when the stage file does not give {@code vbe-on} (docs/method.md, "The small-signal network"; common practice 0.6–0.7 V). */
     public static final double DEFAULT_VBE_ON_VOLTS = 0.65;
 
     public enum Polarity {

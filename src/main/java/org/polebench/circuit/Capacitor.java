@@ -13,7 +13,7 @@ import java.util.List;
  */
 public record Capacitor(String name, NodePair between, double farads, Tolerance tolerance, Band band, int line)
         implements Part {
-    /** Parts at or above this value are LOW band unless {@code band:} says otherwise (DESIGN.md). */
+    /** Parts at or above this value are LOW band unless {@code band:} says otherwise (docs/user-guide.md, "Bands"). */
     public static final double LOW_BAND_THRESHOLD_FARADS = 1e-9;
 
     public Capacitor {

@@ -1,6 +1,6 @@
 package org.polebench.circuit;
 
-/** What the stage's gain is measured against (DESIGN.md "Conventions"). */
+/** What the stage's gain is measured against (docs/method.md, "The small-signal network"). */
 public enum GainReference {
     /** V(output)/V(source EMF): the generator's open-circuit voltage behind the source resistance. */
     SOURCE_EMF,

@@ -4,8 +4,8 @@ import java.util.List;
 import java.util.Optional;
 
 /**
- * A MOSFET in the square-law model ID = (k/2)·(VGS − Vth)² in saturation (DESIGN.md
- * "Conventions"; Sedra and Smith, Microelectronic Circuits, the MOSFET chapter, from memory).
+ * A MOSFET in the square-law model ID = (k/2)·(VGS − Vth)² in saturation (docs/method.md,
+ * "The small-signal network"; Sedra and Smith, Microelectronic Circuits, the MOSFET chapter, from memory).
  *
  * @param channel               NMOS or PMOS
  * @param drain                 node of the drain

@@ -8,7 +8,7 @@ import org.polebench.InputProblem;
 
 /**
  * Expands a stage at its operating point into its linear {@link SmallSignalNetwork}
- * (DESIGN.md "Numerics", "Conventions"):
+ * (docs/method.md, "The small-signal network"):
  * <ul>
  *   <li>ground and every supply rail become node 0 (AC ground);</li>
  *   <li>resistors become conductances named by their id; the load is {@code load}; for gain

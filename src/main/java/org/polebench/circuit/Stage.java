@@ -9,7 +9,7 @@ import java.util.Set;
 
 /**
  * One amplifier stage as designed: its parts, supplies, input, output, limits and the
- * back-solve's top-level priors (DESIGN.md "Files", "Conventions").
+ * back-solve's top-level priors (docs/user-guide.md, "Top-level keys"; docs/method.md, "The back-solve").
  *
  * @param name                the stage file's {@code name}
  * @param sourceFile          the stage file it was read from; null when built in code

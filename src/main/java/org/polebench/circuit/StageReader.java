@@ -18,8 +18,8 @@ import org.polebench.yaml.YamlNode;
 import org.polebench.yaml.YamlReader;
 
 /**
- * Reads a {@code *.stage.yaml} file (DESIGN.md "Files"; the keys are listed in
- * docs-stage-format.md) into a {@link Stage}. Every refusal is an {@link InputProblem} naming
+ * Reads a {@code *.stage.yaml} file (docs/user-guide.md, "Stage files",
+ * which lists every key) into a {@link Stage}. Every refusal is an {@link InputProblem} naming
  * the file, the line, the part and what would fix it; implausible but possible values are
  * accepted with an {@link InputWarning} naming the line.
  *
@@ -62,7 +62,7 @@ public final class StageReader {
     static final Tolerance DEFAULT_CAPACITOR_TOLERANCE = Tolerance.symmetric(0.20);
     /** β spread when none is given: ±50 %, common practice (data-sheet hFE ranges span 2:1 to 3:1). */
     static final Tolerance DEFAULT_BETA_TOLERANCE = Tolerance.symmetric(0.50);
-    /** Bias-current prior when none is given: ±20 % (DESIGN.md "Conventions"). */
+    /** Bias-current prior when none is given: ±20 % (docs/method.md, "The small-signal network"). */
     static final Tolerance DEFAULT_BIAS_TOLERANCE = Tolerance.symmetric(0.20);
 
     private static final Pattern NUMBER = Pattern.compile("\\d+(?:\\.\\d*)?|\\.\\d+");

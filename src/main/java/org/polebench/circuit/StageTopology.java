@@ -16,8 +16,8 @@ import org.polebench.InputWarning;
 
 /**
  * The structural checks that can be made from the connections alone, before any number is
- * solved: every node has a DC path to ground, and no low-band capacitors form a loop (DESIGN.md,
- * "singular cases are named"). The analysis package still detects singular matrices; these
+ * solved: every node has a DC path to ground, and no low-band capacitors form a loop (docs/method.md,
+ * "Port reduction"). The analysis package still detects singular matrices; these
  * checks exist so that the user hears about the usual mistakes with the part and line.
  */
 final class StageTopology {

@@ -9,7 +9,7 @@ import java.util.Locale;
  *
  * <p>The back-solve works in ln-value, where a band is {@code [ln(1 + lower), ln(1 + upper)]}
  * ({@link #lnLower()}, {@link #lnUpper()}); how that band becomes a prior standard deviation is
- * the reconcile package's choice (stated in the README).
+ * the reconcile package's choice (stated in docs/method.md, "The back-solve").
  *
  * @param lowerFraction greater than −1 (a part cannot reach zero), at most {@code upperFraction}
  * @param upperFraction finite

@@ -11,7 +11,7 @@ public sealed interface Transistor permits Bjt, Mosfet {
 
     /**
      * @return the tolerance of the bias current, a nuisance parameter in the back-solve
-     *         (default ±20 %, DESIGN.md "Conventions")
+     *         (default ±20 %, docs/method.md, "The small-signal network")
      */
     Tolerance biasTolerance();
 }

@@ -11,7 +11,7 @@
  * {@link org.polebench.circuit.OperatingPoints}; {@link org.polebench.circuit.SmallSignalExpansion}
  * turns stage and operating points into the network.
  *
- * <p>Stage-file conventions this package owns (full list in docs-stage-format.md):
+ * <p>Stage-file conventions this package owns (full list in docs/user-guide.md, "Stage files"):
  * <ul>
  *   <li>tolerances: {@code tolerance: 5%} (also {@code ±5%}) or {@code -20%/+80%}; default ±5 %
  *       for resistors (IEC 60062 code J), ±20 % for capacitors (code M);</li>

@@ -2,7 +2,7 @@ package org.polebench.cli;
 
 import java.io.PrintWriter;
 
-/** The bench cautions of the README, shown before a sweep drives a real instrument. */
+/** The bench cautions of docs/user-guide.md ("Cautions for bench work"), shown before a sweep drives a real instrument. */
 final class BenchCautions {
     private BenchCautions() {
     }

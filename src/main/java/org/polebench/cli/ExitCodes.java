@@ -1,6 +1,6 @@
 package org.polebench.cli;
 
-/** The exit codes polebench documents in its README and {@code --help}. */
+/** The exit codes polebench documents in docs/user-guide.md ("Reading the output") and {@code --help}. */
 public final class ExitCodes {
     public static final int OK = 0;
     /** A verdict failed: the board does not meet its limits. */

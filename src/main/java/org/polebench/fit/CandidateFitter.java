@@ -68,7 +68,7 @@ final class CandidateFitter {
      * a factor 3 below the lowest swept frequency are indistinguishable from DC zeros there, and a
      * zero within a factor 3 of that edge is ambiguous, so the count with it at DC is tried too.
      * That estimate never puts a zero exactly at DC and can hide DC zeros in finite zeros low in
-     * the band (PITFALLS.md, "Fitting"), so the counts the data's own slope implies are added:
+     * the band (docs/method.md, "Model"), so the counts the data's own slope implies are added:
      * m DC zeros rise at 20·m dB per decade below every other root, finite zeros low in the band
      * steepen that and poles below it flatten it, so the integer nearest the slope over the
      * lowest decade of the sweep is tried, and both integers beside it when it lies between

@@ -21,9 +21,9 @@ import org.apache.commons.math3.util.Pair;
 /**
  * Weighted least squares on complex-log residuals rₖ = ln(H_meas,k / H_model,k): real part in
  * nepers over σ_gain, imaginary part (principal value, so no phase unwrapping) in radians over
- * σ_phase; a magnitude-only sweep uses the real part alone (DESIGN.md, "Measured model").
+ * σ_phase; a magnitude-only sweep uses the real part alone (docs/method.md, "Fitting").
  * Levenberg–Marquardt from Commons Math; its residual is target − model, so the target is zero
- * and the model value is −r/σ (PITFALLS.md, "Least squares").
+ * and the model value is −r/σ (docs/contributing.md, "Library behaviour the code works around").
  */
 final class LogResidualFit {
     // a low band of five close poles with a pole–zero doublet in its start needs about 75

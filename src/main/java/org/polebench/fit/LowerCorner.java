@@ -7,7 +7,7 @@ import org.apache.commons.math3.exception.MathIllegalStateException;
 /**
  * The lower −3 dB corner, two ways. Of the model: the highest normalised frequency below
  * midband at which the low band's gain is |K|/√2 (a response with peaking may cross more than
- * once; DESIGN.md, "Numerics"), bracketed by scanning down from well above every root and solved
+ * once; docs/method.md, "Exact corners"), bracketed by scanning down from well above every root and solved
  * with Brent's method in ln x; its gradient in the parameters follows from the implicit function
  * theorem, dx/dpᵢ = −(∂g/∂pᵢ)/(∂g/∂x) with g = ln|H_low| − ln|K| + ln√2. From the data: linear
  * interpolation in dB against log f between the two points straddling the same level.

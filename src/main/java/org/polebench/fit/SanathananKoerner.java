@@ -7,7 +7,7 @@ package org.polebench.fit;
  * at its fixed point, weighs the relative error as the complex-log residual does. The first
  * D_prev has real poles spread log-evenly over the band, as vector fitting starts (Gustavsen and
  * Semlyen, IEEE Trans. Power Delivery 14(3), 1999). The fixed point is a start, not the
- * least-squares optimum: Levenberg–Marquardt finishes the job (PITFALLS.md, "Fitting").
+ * least-squares optimum: Levenberg–Marquardt finishes the job (docs/method.md, "Fitting").
  */
 final class SanathananKoerner {
     static final int ITERATIONS = 4;

@@ -8,7 +8,7 @@ import org.polebench.measure.Sweep;
 import org.polebench.units.Decibels;
 
 /**
- * Fits the measured low-frequency poles and zeros of a sweep (DESIGN.md, "Measured model").
+ * Fits the measured low-frequency poles and zeros of a sweep (docs/method.md, "The fit").
  *
  * <ol>
  * <li>Keep the points inside the band; normalise frequency by f_ref, the band's geometric mean.</li>

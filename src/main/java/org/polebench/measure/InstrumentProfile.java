@@ -6,7 +6,7 @@ import java.util.Optional;
 /**
  * How to read one kind of instrument's output: a table layout or a serial line protocol.
  * Profiles live in {@code instrument-profiles/*.yaml} (this project's own format, see
- * docs-import.md) and are read by {@link ProfileReader}.
+ * docs/user-guide.md, "Instrument profiles") and are read by {@link ProfileReader}.
  */
 public sealed interface InstrumentProfile permits TableProfile, SerialProfile {
     /** @return the profile's name, used with {@code --profile} */

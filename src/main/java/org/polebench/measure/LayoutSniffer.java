@@ -206,7 +206,7 @@ final class LayoutSniffer {
             List<String> fitting = fittingProfiles(file);
             throw new InputProblem(file, headerLine, "cannot tell how to read this file: " + String.join("; ", ambiguities)
                     + (fitting.isEmpty() ? "" : "; shipped profiles that read it: " + String.join(", ", fitting)),
-                    "name a profile with --profile, or write one for this layout (docs-import.md)");
+                    "name a profile with --profile, or write one for this layout (docs/user-guide.md)");
         }
         FrequencyUnit unit = frequency.any(Set.of("khz")) ? FrequencyUnit.KHZ
                 : frequency.any(Set.of("mhz")) ? FrequencyUnit.MHZ : FrequencyUnit.HZ;

@@ -18,7 +18,7 @@ import org.polebench.yaml.YamlReader;
 
 /**
  * Reads an instrument profile ({@code instrument-profiles/*.yaml}, this project's own format,
- * described in docs-import.md). Unknown keys are refused, so that a misspelt option never
+ * described in docs/user-guide.md, "Instrument profiles"). Unknown keys are refused, so that a misspelt option never
  * silently does nothing; every problem names the file and line.
  */
 public final class ProfileReader {

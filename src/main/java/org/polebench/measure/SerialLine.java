@@ -14,7 +14,7 @@ import java.util.Optional;
  * <p>jSerialComm's own read timeouts are loose (a 500 ms read took about 850 ms here), so
  * reads are made in short semi-blocking slices against a deadline of our own; after the far
  * end vanishes a read returns −1 while the port still claims to be open, which is how a lost
- * port is told (PITFALLS.md, "jSerialComm"). A pseudo-terminal has no line settings, so the
+ * port is told (docs/contributing.md, "Library behaviour the code works around"). A pseudo-terminal has no line settings, so the
  * error code 25 (ENOTTY) that follows a successful open is not a failure there.
  */
 public final class SerialLine implements LineTransport {

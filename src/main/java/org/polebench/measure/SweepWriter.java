@@ -21,7 +21,7 @@ import org.polebench.InputProblem;
  * with {@link Double#toString}, the shortest text that reads back as the same double, so the
  * canonical file round-trips exactly.
  *
- * <p>Canonical layout (DESIGN.md, "Files"): a first line {@code # polebench sweep}, then
+ * <p>Canonical layout (docs/user-guide.md, "The canonical sweep CSV"): a first line {@code # polebench sweep}, then
  * {@code # key: value} provenance lines ({@code instrument}, {@code date} as ISO-8601,
  * {@code board}, {@code profile}, {@code source}, {@code source-sha256}, {@code stage},
  * {@code note}) and a {@code # units:} line, then the header

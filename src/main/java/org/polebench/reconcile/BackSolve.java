@@ -3,7 +3,7 @@ package org.polebench.reconcile;
 import java.util.List;
 
 /**
- * The MAP back-solve of one hypothesis on the stage's exact model (DESIGN.md "Back-solve").
+ * The MAP back-solve of one hypothesis on the stage's exact model (docs/method.md, "The back-solve").
  *
  * @param parameters   the hypothesis' parameters in model order: every capacitor, every
  *                     transistor's bias current, every BJT's β, the resistors it frees, the gain

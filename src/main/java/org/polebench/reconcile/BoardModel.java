@@ -16,7 +16,7 @@ import org.polebench.circuit.Stage;
  * The stage's own exact response at the sweep's frequencies as a function of the back-solve's
  * parameters θ = (φ_i = ln(C_i/C_i,nom) per low-band capacitor, the network parameters of
  * {@link BoardNetwork}: ln(I_j/I_j,nom) per transistor, ln(β/β_nom) per BJT, ln(R/R_nom) per
- * resistor; g = flat gain in nepers): H(jω; θ) = e^g · H_low(jω) · H_high(jω)/D (DESIGN.md "Back-solve").
+ * resistor; g = flat gain in nepers): H(jω; θ) = e^g · H_low(jω) · H_high(jω)/D (docs/method.md, "The back-solve").
  *
  * <p>H_low comes from the low-band port reduction: with A = −Cd⁻¹·Y and B = −Cd⁻¹·b,
  * H_low = D + cᵀ·(sI − A)⁻¹·B = D − cᵀ·(Y + s·Cd)⁻¹·b, and Y, b, c, D do not depend on the

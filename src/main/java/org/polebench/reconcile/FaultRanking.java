@@ -15,7 +15,7 @@ import org.polebench.measure.Sweep;
 import org.polebench.units.Decibels;
 
 /**
- * The full back-solve and the fault hypotheses (README, "The hypotheses").
+ * The full back-solve and the fault hypotheses (docs/method.md, "The hypotheses").
  *
  * <p>Parameters, on the stage's own exact model ({@link BoardModel}): φ_i = ln(C_i/C_nom) for
  * every low-band capacitor; ln(I_j/I_nom) for every transistor's bias current; ln(β/β_nom) for

@@ -9,7 +9,7 @@ import java.util.Optional;
  * @param kind             none, capacitor, resistor, bias, gain, bench or double
  * @param faults           what it frees: nothing for none, one part for a single fault, two for
  *                         a double
- * @param priorProbability its probability before the sweep (DESIGN.md "Conventions")
+ * @param priorProbability its probability before the sweep (docs/method.md, "The hypotheses")
  * @param logEvidence      ln of the Laplace evidence, up to a constant shared by all hypotheses
  * @param probability      its posterior probability among the ranked hypotheses
  * @param identifiable     whether the sweep identifies every part it frees; one that does not is

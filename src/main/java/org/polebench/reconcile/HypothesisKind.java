@@ -1,6 +1,6 @@
 package org.polebench.reconcile;
 
-/** The fault hypotheses the back-solve ranks (README, "The hypotheses"). */
+/** The fault hypotheses the back-solve ranks (docs/method.md, "The hypotheses"). */
 public enum HypothesisKind {
     /** Every parameter within its tolerance prior. */
     NONE,

@@ -7,7 +7,7 @@ import org.polebench.circuit.Limits;
 
 /**
  * Holds the lower corner, midband gain and upper corner against the stage's limits under one
- * decision rule (ILAC-G8:09/2019 §4.2; DESIGN.md "Verdict"). A limit is decided only from a
+ * decision rule (ILAC-G8:09/2019 §4.2; docs/method.md, "The verdict"). A limit is decided only from a
  * quantity the sweep determines ({@link MeasuredQuantity#determinedBySweep()}); every other
  * limit becomes a {@link NotDecidedCheck} with its reason, never a pass (issue 11). Stateless.
  */

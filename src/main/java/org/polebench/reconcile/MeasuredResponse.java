@@ -7,8 +7,8 @@ import org.polebench.units.Decibels;
 /**
  * A sweep as the back-solve reads it: ln|H| in nepers and arg H in radians per point, with
  * their standard uncertainties. Residuals are complex logarithms, so a 1 dB error (0.115 Np)
- * weighs as a 6.6° one (0.115 rad) and no phase unwrapping is needed (DESIGN.md "Measured
- * model"); σ of ln|H| in nepers is 0.1151 × σ in dB (PITFALLS.md "Fitting").
+ * weighs as a 6.6° one (0.115 rad) and no phase unwrapping is needed (docs/method.md,
+ * "Fitting"); σ of ln|H| in nepers is 0.1151 × σ in dB (ln 10/20).
  */
 final class MeasuredResponse {
     private final double[] frequenciesHz;

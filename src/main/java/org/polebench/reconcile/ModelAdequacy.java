@@ -4,7 +4,7 @@ import java.util.List;
 import java.util.OptionalDouble;
 
 /**
- * Whether the most probable hypothesis explains the sweep (README, "Does the stage explain the sweep?"), and
+ * Whether the most probable hypothesis explains the sweep (docs/method.md, "Does the stage explain the sweep?"), and
  * the evidence either way. The thresholds and how they were set are in {@link AdequacyTest}.
  *
  * @param explained          false when any finding below says the model does not describe the

@@ -11,8 +11,8 @@ import org.polebench.circuit.Tolerance;
  * @param nominal        the nominal value in {@link ParameterKind#unit()} terms: farads, amperes,
  *                       or 0 dB for the gain
  * @param tolerance      the part's tolerance band (capacitor or bias), empty for the gain
- * @param tolerancePrior the prior when the parameter is within its tolerance (DESIGN.md
- *                       "Conventions"), on ln(value/nominal), or on g in nepers
+ * @param tolerancePrior the prior when the parameter is within its tolerance (docs/method.md,
+ *                       "The back-solve"), on ln(value/nominal), or on g in nepers
  * @param faultPrior     the wide prior it gets when a single-fault hypothesis frees it
  */
 public record ModelParameter(ParameterKind kind, Optional<String> part, double nominal, Optional<Tolerance> tolerance,

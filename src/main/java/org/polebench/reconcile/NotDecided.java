@@ -4,7 +4,7 @@ import java.util.Locale;
 
 /**
  * Why a limit is not decided from this sweep (issue 11, "Verdicts only from what the sweep
- * shows"; DESIGN.md, "Honest diagnosis"). A limit is decided only from a quantity the sweep
+ * shows"; docs/method.md, "The verdict"). A limit is decided only from a quantity the sweep
  * itself determines; every other check is "not decided", never passed, and makes the overall
  * result {@link OverallResult#INCOMPLETE} unless a decided check fails.
  */

@@ -12,7 +12,7 @@ import org.polebench.measure.SweepPoint;
 
 /**
  * Whether the sweep itself determines each quantity a limit holds (issue 11, "Verdicts only from
- * what the sweep shows"; DESIGN.md, "Honest diagnosis"). The rules, each of which needs a fit
+ * what the sweep shows"; docs/method.md, "The verdict"). The rules, each of which needs a fit
  * that describes the sweep (χ²/ν at most {@link Reconciler#FIT_ADEQUATE_CHI_SQUARE}):
  * <ul>
  * <li><b>Lower corner</b>: the fit quotes it (its model's exact −3 dB corner, or the −3 dB point

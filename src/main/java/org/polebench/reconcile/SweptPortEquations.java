@@ -3,7 +3,7 @@ package org.polebench.reconcile;
 import java.util.Arrays;
 
 /**
- * The port equations (Y + jω·Cd)·x = r of a reduced model (DESIGN.md "Port reduction"; Y in
+ * The port equations (Y + jω·Cd)·x = r of a reduced model (docs/method.md, "Port reduction"; Y in
  * siemens, C in farads, ω in rad/s) factored and solved at every frequency of a sweep at once.
  * The elimination runs with the frequency as the innermost loop: long, branch-free loops over
  * flat arrays replace thousands of k×k ones, and the compiler can vectorise them. The same form

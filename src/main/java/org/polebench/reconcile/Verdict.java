@@ -3,7 +3,7 @@ package org.polebench.reconcile;
 import java.util.List;
 
 /**
- * The overall result against the stage's limits (issue 11, DESIGN.md "Honest diagnosis"):
+ * The overall result against the stage's limits (issue 11; docs/method.md, "The verdict"):
  * {@link OverallResult#FAIL} when any decided check fails; otherwise
  * {@link OverallResult#INCOMPLETE} when any limit is not decided from the sweep, or when the
  * stage names no limits (nothing was shown to pass); {@link OverallResult#PASS} only when every

@@ -45,7 +45,7 @@ import org.polebench.measure.SweepPoint;
  * or the nominal stage beside a faulty board).
  *
  * <p>SVG output goes through JFreeSVG with a fixed defs-key prefix, so the same chart gives the
- * same bytes on every run (PITFALLS.md, "JFreeChart"); the frequency axis gets an explicit
+ * same bytes on every run (docs/contributing.md, "Library behaviour the code works around"); the frequency axis gets an explicit
  * positive range (a log axis reaching 0 draws nothing).
  */
 public final class BodeChart {

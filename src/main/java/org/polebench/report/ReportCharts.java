@@ -51,7 +51,7 @@ import org.jfree.svg.ViewBox;
  * </ul>
  * SVG goes through JFreeSVG with a fixed defs-key prefix per chart, so the bytes repeat from run
  * to run and several charts can sit inline in one page without their ids colliding
- * (PITFALLS.md, "JFreeChart").
+ * (docs/contributing.md, "Library behaviour the code works around").
  */
 public final class ReportCharts {
     /** Width and height in CSS pixels of every chart as written. */
@@ -207,7 +207,7 @@ public final class ReportCharts {
     }
 
     /**
-     * An SVG canvas whose ids start with {@code idPrefix} (byte-identical output, PITFALLS.md)
+     * An SVG canvas whose ids start with {@code idPrefix} (byte-identical output; docs/contributing.md, "Library behaviour the code works around")
      * and whose coordinates are written to 0.01 px: JFreeSVG's default writes every double in
      * full (111.01863861083984), which tripled the report's size for detail no screen or
      * printer resolves.

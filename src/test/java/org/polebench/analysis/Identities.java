@@ -6,7 +6,7 @@ import org.apache.commons.math3.complex.Complex;
 import org.apache.commons.math3.linear.Array2DRowRealMatrix;
 import org.apache.commons.math3.linear.LUDecomposition;
 
-/** The exact identities between a low-band model and its poles (DESIGN.md; PITFALLS.md, "Fitting"). */
+/** The exact identities between a low-band model and its poles (docs/method.md, "Exact identities"). */
 final class Identities {
     // eigenvalues of a well-scaled matrix to round-off times their condition (below 1e4 on
     // these stages): 1e-9 relative
@@ -32,9 +32,9 @@ final class Identities {
                 pairs = pairs.add(pi.multiply(complex(poles.roots().get(j))));
             }
         }
-        // Σ 1/τ_i = −Σ p_i (DESIGN.md, exact: both are trace(−A))
+        // Σ 1/τ_i = −Σ p_i (docs/method.md, "Exact identities": both are trace(−A))
         assertEquals(sumInverseTau, -sum.getReal(), RELATIVE * sumInverseTau);
-        // Σ_{i<j} (Y_ii·Y_jj − Y_ij·Y_ji)/(C_i·C_j) = Σ_{i<j} p_i·p_j (PITFALLS.md)
+        // Σ_{i<j} (Y_ii·Y_jj − Y_ij·Y_ji)/(C_i·C_j) = Σ_{i<j} p_i·p_j (docs/method.md, "Exact identities")
         double pairSum = 0;
         for (int i = 0; i < k; i++) {
             for (int j = i + 1; j < k; j++) {
@@ -44,7 +44,7 @@ final class Identities {
         }
         double pairScale = sumInverseTau * sumInverseTau;
         assertEquals(pairSum, pairs.getReal(), RELATIVE * pairScale);
-        // det Y / Π C_i = Π(−p_i) (PITFALLS.md)
+        // det Y / Π C_i = Π(−p_i) (docs/method.md, "Exact identities")
         double[][] y = new double[k][k];
         double capacitanceProduct = 1;
         for (int i = 0; i < k; i++) {

@@ -14,7 +14,7 @@ import org.junit.jupiter.api.Test;
 class PoleFinderTest {
 
     /**
-     * Regression for the PITFALLS.md trap (Commons Math 3.6.1): on matrices whose eigenvalues
+     * Regression for the Commons Math 3.6.1 trap (docs/method.md, "Poles and zeros"): on matrices whose eigenvalues
      * span 10…10⁷, unscaled EigenDecomposition returned false complex pairs for about a quarter.
      */
     @Test
@@ -48,7 +48,7 @@ class PoleFinderTest {
                 // smallest is 10⁶ times below ‖A‖
                 assertEquals(sorted[i], root.realRadPerS(), 1e-6 * Math.abs(sorted[i]));
             }
-            // PITFALLS.md checks: trace, determinant, residual
+            // the checks of docs/method.md, "Poles and zeros": trace, determinant, residual
             assertTrue(s.traceRelativeError() < 1e-12, "trace " + s.traceRelativeError());
             assertTrue(s.determinantRelativeError() < 1e-6, "det " + s.determinantRelativeError());
             assertTrue(s.maxRelativeResidual() < 1e-9, "residual " + s.maxRelativeResidual());

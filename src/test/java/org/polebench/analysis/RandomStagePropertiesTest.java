@@ -72,7 +72,7 @@ class RandomStagePropertiesTest {
             double numeric = (Math.log(up) - Math.log(down)) / (2 * H);
             assertEquals(numeric, s.exactCornerPerLnC().getAsDouble(), DERIVATIVE_TOLERANCE, name);
             sum += s.exactCornerPerLnC().getAsDouble();
-            // ∂ωL,SCTC/∂ln C_i = −1/τ_i (DESIGN.md): ωL,SCTC = Σ 1/τ_j and τ_i ∝ C_i
+            // ∂ωL,SCTC/∂ln C_i = −1/τ_i (docs/method.md, "Sensitivities"): ωL,SCTC = Σ 1/τ_j and τ_i ∝ C_i
             double tau = p.sctc().terms().get(p.lowBand().capacitorNames().indexOf(name)).seconds();
             assertEquals(-1 / tau, s.sctcCornerRadPerSPerLnC(), 1e-12 / tau);
         }

@@ -61,7 +61,7 @@ class StagePredictorTest {
                 .transconductance("G1", "gnd", "x", "a", "gnd", 0.1).resistor("RX", "x", "gnd", 10)
                 .capacitor("C2", "x", "out", 1e-6).resistor("R2", "out", "gnd", 990).build("src", "out");
         Prediction p = predict(network);
-        // |H| = ω²/(ω² + p²) = 1/√2 gives ω = p/√(√2 − 1) ≈ 1.5538·p (PITFALLS.md, closed form)
+        // |H| = ω²/(ω² + p²) = 1/√2 gives ω = p/√(√2 − 1) ≈ 1.5538·p (closed form; docs/method.md, "SCTC and OCTC estimates")
         double exact = 1 / tau / Math.sqrt(Math.sqrt(2) - 1) / (2 * Math.PI);
         assertEquals(exact, p.exactLowerCornerHz().getAsDouble(), 1e-10 * exact);
         // SCTC: Σ 1/τ_i = 2p, 29 % high
@@ -127,7 +127,7 @@ class StagePredictorTest {
         SmallSignalNetwork network = commonEmitterWithDeviceCapacitances();
         Prediction p = predict(network);
         UpperBand upper = p.upperBand().orElseThrow();
-        // Σ τ_i° = trace(−A⁻¹) = −Σ 1/p_i (DESIGN.md, exact identity); 1e-9 relative for round-off
+        // Σ τ_i° = trace(−A⁻¹) = −Σ 1/p_i (docs/method.md, "Exact identities"); 1e-9 relative for round-off
         double sumReciprocal = 0;
         for (ComplexFrequency pole : upper.poles().roots()) {
             sumReciprocal += new Complex(pole.realRadPerS(), pole.imaginaryRadPerS()).reciprocal().getReal();

@@ -54,7 +54,7 @@ class ToleranceSpreadTest {
     @Test
     void theSpreadDoesNotDependOnTheNumberOfThreads() throws InputProblem {
         // every board is drawn before analysis, so one thread and three give the same order
-        // statistics bit for bit (a property of the method, DESIGN.md "Tolerance spread")
+        // statistics bit for bit (a property of the method, docs/method.md, "Tolerance spread")
         Stage stage = demo("geophone-two-stage.stage.yaml").withResistance("RC1", 8.1e3);
         CornerSpread one = new ToleranceSpread(1_000, 99L).withThreads(1).lowerCorner(stage);
         CornerSpread three = new ToleranceSpread(1_000, 99L).withThreads(3).lowerCorner(stage);
@@ -150,7 +150,7 @@ class ToleranceSpreadTest {
     }
 
     /**
-     * The highest −3 dB crossing below midband (DESIGN.md, "exact lower −3 dB frequency"): a scan
+     * The highest −3 dB crossing below midband (docs/method.md, "Exact corners"): a scan
      * down from 10 times the pole bound in CornerFinder's steps, then bisection in ln ω, all on
      * the dense complex solve; −1 when there is none within 6 decades.
      */

@@ -41,7 +41,7 @@ class StageReaderTest {
         assertEquals(600, stage.input().sourceOhms());
         assertEquals(GainReference.SOURCE_EMF, stage.input().reference());
         assertEquals(47e3, stage.output().loadOhms().getAsDouble());
-        // DESIGN.md defaults: 300 K, ±1 dB gain calibration, VBE(on) 0.65 V, bias tolerance ±20 %
+        // defaults of docs/method.md, "The small-signal network": 300 K, ±1 dB gain calibration, VBE(on) 0.65 V, bias tolerance ±20 %
         assertEquals(300, stage.temperatureKelvin());
         assertEquals(1, stage.gainCalibrationDb());
         assertEquals(0.65, stage.bjt("Q1").vbeOnVolts());

@@ -36,7 +36,7 @@ class PredictCommandTest {
                 "capacitors", "poles_hz", "zeros_hz", "tolerance_spread", "operating_points"}) {
             assertTrue(root.has(key), key);
         }
-        // exact identity Σ 1/τ_i = −Σ Re p_i (DESIGN.md "Numerics"), in Hz: Σ 1/(2π τ_i) = −Σ Re(p_i)/2π
+        // exact identity Σ 1/τ_i = −Σ Re p_i (docs/method.md, "Exact identities"), in Hz: Σ 1/(2π τ_i) = −Σ Re(p_i)/2π
         double sumInverseTau = 0;
         for (JsonNode capacitor : root.get("capacitors")) {
             sumInverseTau += 1 / capacitor.get("sctc_time_constant_s").asDouble();

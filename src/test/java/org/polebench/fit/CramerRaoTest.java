@@ -22,7 +22,7 @@ import org.polebench.InputProblem;
  * the fitter's own model, Jacobian or covariance is used.
  *
  * <p>Bands: a standard deviation from M = 500 trials has relative spread 1/√(2(M − 1)) ≈ 3.2 %
- * (PITFALLS.md, "Fitting"), so the spread must lie within [0.9, 1.2] × √CRB: the issue's 1.2 above,
+ * (normal data: var(s²) = 2σ⁴/(M − 1), common practice), so the spread must lie within [0.9, 1.2] × √CRB: the issue's 1.2 above,
  * and three of those spreads below (an efficient estimator cannot beat the bound without bias).
  * Coverage of k·u over 500 trials has binomial σ = √(0.95·0.05/500) ≈ 1 %: the issue's 95 ± 3 %.
  */

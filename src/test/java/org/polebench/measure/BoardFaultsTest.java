@@ -24,7 +24,7 @@ class BoardFaultsTest {
     private static final Path HYDROPHONE = Path.of("sample-measurements", "hydrophone-preamp-ce.stage.yaml");
     // VT = kT/q at 300 K from the exact SI values (BIPM, SI Brochure, 9th edition, 2019)
     private static final double VT = 1.380649e-23 * 300 / 1.602176634e-19;
-    // VBE(on) when the stage file gives none (DESIGN.md "Conventions")
+    // VBE(on) when the stage file gives none (docs/method.md, "The small-signal network")
     private static final double VBE_ON = 0.65;
 
     @TempDir

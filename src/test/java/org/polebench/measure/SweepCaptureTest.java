@@ -177,7 +177,7 @@ class SweepCaptureTest {
         Run run = capture(faulty, request, () -> false);
 
         // the independent reference: the port-reduced state-space model of the stage as built,
-        // H = C(jωI − A)⁻¹B + D (DESIGN.md "Port reduction"), where the simulator solves the full
+        // H = C(jωI − A)⁻¹B + D (docs/method.md, "Port reduction"), where the simulator solves the full
         // complex MNA system
         Stage built = designed.withCapacitance("C3", 47e-6);
         Reduction reduction = new PortReduction().reduce(new SmallSignalExpansion().expand(built), Band.LOW);

@@ -16,7 +16,7 @@ class PreferredSeriesTest {
 
     @Test
     void e24KeepsTheMembersThatRoundingWouldGetWrong() {
-        // IEC 60063:2015 E24 has 2.7, 4.7, 8.2 where round(10^(n/24)) gives 2.6, 4.6, 8.3 (PITFALLS.md)
+        // IEC 60063:2015 E24 has 2.7, 4.7, 8.2 where round(10^(n/24)) gives 2.6, 4.6, 8.3, so the tables are written out
         assertEquals(2.7, PreferredSeries.E24.nearest(2.65), 1e-12);
         assertEquals(4.7, PreferredSeries.E24.nearest(4.62), 1e-12);
         assertEquals(8.2, PreferredSeries.E24.nearest(8.28), 1e-12);

@@ -9,7 +9,7 @@ class PriorTest {
     @Test
     void asymmetricElectrolyticBandHasTheGumRectangularCentreAndWidth() {
         // GUM (JCGM 100:2008) 4.3.7 rectangular: centre (ln 0.8 + ln 1.8)/2 = 0.1823,
-        // u = (ln 1.8 − ln 0.8)/√12 = 0.2341 (figures also in PITFALLS.md)
+        // u = (ln 1.8 − ln 0.8)/√12 = 0.2341 (figures also in docs/method.md, "The back-solve")
         Prior prior = Prior.fromBand(-0.2, 0.8);
         assertEquals(0.5 * (Math.log(0.8) + Math.log(1.8)), prior.mean(), 1e-15);
         assertEquals(0.182, prior.mean(), 5e-4);

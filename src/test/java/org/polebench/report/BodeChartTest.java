@@ -32,7 +32,7 @@ class BodeChartTest {
         return BodeChart.ofFit("Demo stage, synthetic sweep", sweep, fit);
     }
 
-    // PITFALLS.md: JFreeSVG ids are time-based unless the defs key prefix is fixed
+    // JFreeSVG ids are time-based unless the defs key prefix is fixed (docs/contributing.md, "Library behaviour the code works around")
     @Test
     void svgIsByteIdenticalFromRunToRun() throws InputProblem {
         assertEquals(chart().svg(900, 700), chart().svg(900, 700));
@@ -50,7 +50,7 @@ class BodeChartTest {
         assertTrue(text.contains("measured"));
         assertTrue(text.contains("fitted model (3 poles, 2 DC zeros, 1 real zero)"));
         CombinedDomainXYPlot plot = (CombinedDomainXYPlot) chart().chart().getPlot();
-        // a log axis needs an explicit positive range (PITFALLS.md); the sweep starts at 1 Hz
+        // a log axis needs an explicit positive range (docs/contributing.md, "Library behaviour the code works around"); the sweep starts at 1 Hz
         assertTrue(plot.getDomainAxis().getLowerBound() > 0);
         assertTrue(plot.getDomainAxis().getLowerBound() < 1);
         assertEquals(2, plot.getSubplots().size());
