@@ -51,8 +51,18 @@ final class BoardModel {
     private final Map<BiasPoint, Reduced> cache = leastRecentlyUsed(CACHED_REDUCTIONS);
     // hypotheses alternate between a few bias points (the no-fault MAP's, the priors' means)
     private final Map<BiasPoint, HighFactor> highCache = leastRecentlyUsed(CACHED_HIGH_FACTORS);
+    /**
+     * The two bands' reductions laid out once, from the nominal network: every in-region board
+     * of the stage has the same elements in the same places and the same zero conductances
+     * ({@link PortReduction#prepare}), so each bias point only restamps numbers.
+     */
+    private final PortReduction.Prepared lowLayout;
+    private final PortReduction.Prepared highLayout;
+    private final boolean withHighBand;
+    /** Which of the nominal network's element values are zero: a layout holds only for this pattern. */
+    private final boolean[] nominalZeros;
     private BiasPoint lastExpanded;
-    private SmallSignalNetwork lastNetwork;
+    private double[] lastValues;
     private final SweptPortEquations ports;
     private SweptPortEquations highEquations;
     private int reductions;
@@ -82,6 +92,15 @@ final class BoardModel {
     BoardModel(Stage stage, OperatingPoints nominalPoints, StateModel nominalModel, double[] frequenciesHz) {
         this.capacitors = nominalModel.capacitorNames();
         this.board = new BoardNetwork(stage, nominalPoints, capacitors);
+        SmallSignalNetwork nominalNetwork = board.network(null, board.nominal());
+        this.lowLayout = reduction.prepare(nominalNetwork, Band.LOW);
+        this.highLayout = reduction.prepare(nominalNetwork, Band.HIGH);
+        this.withHighBand = !nominalNetwork.capacitances(Band.HIGH).isEmpty();
+        double[] nominalElements = nominalNetwork.elementValues();
+        this.nominalZeros = new boolean[nominalElements.length];
+        for (int e = 0; e < nominalElements.length; e++) {
+            nominalZeros[e] = nominalElements[e] == 0;
+        }
         int k = capacitors.size();
         this.nominalFarads = new double[k];
         for (int i = 0; i < k; i++) {
@@ -344,12 +363,11 @@ final class BoardModel {
     }
 
     private Reduced reduce(double[] lnBias) {
-        SmallSignalNetwork network = expanded(lnBias);
-        if (network == null) {
+        Reduction low = reduction(lnBias, Band.LOW);
+        if (low == null) {
             return null;
         }
         reductions++;
-        Reduction low = reduction.reduce(network, Band.LOW);
         if (!(low instanceof Reduction.StateSpace)) {
             return null;
         }
@@ -396,13 +414,12 @@ final class BoardModel {
         double[] re = new double[omegas.length];
         double[] im = new double[omegas.length];
         Arrays.fill(re, 1);
-        SmallSignalNetwork network = expanded(lnBias);
-        if (network == null) {
-            return null;
-        }
-        if (!network.capacitances(Band.HIGH).isEmpty()) {
+        if (withHighBand) {
+            Reduction high = reduction(lnBias, Band.HIGH);
+            if (high == null) {
+                return null;
+            }
             reductions++;
-            Reduction high = reduction.reduce(network, Band.HIGH);
             if (!(high instanceof Reduction.StateSpace)) {
                 return null;
             }
@@ -415,15 +432,26 @@ final class BoardModel {
         return lastHigh;
     }
 
-    // the low and the high band of one bias point come from one expansion; null where the
-    // transistors leave their amplifying region
-    private SmallSignalNetwork expanded(double[] lnBias) {
+    // one band's reduction at one bias point, restamped on the prepared layout; the low and the
+    // high band of one bias point come from one expansion. Null where the transistors leave
+    // their amplifying region.
+    private Reduction reduction(double[] lnBias, Band band) {
         BiasPoint key = new BiasPoint(lnBias);
         if (!key.equals(lastExpanded)) {
-            lastNetwork = board.network(null, lnBias);
+            lastValues = board.elementValues(lnBias);
             lastExpanded = key;
         }
-        return lastNetwork;
+        if (lastValues == null) {
+            return null;
+        }
+        for (int e = 0; e < lastValues.length; e++) {
+            if ((lastValues[e] == 0) != nominalZeros[e]) {
+                // a conductance that vanished or appeared: the layout does not hold, so this
+                // network is laid out afresh
+                return reduction.reduce(board.network(null, lnBias), band);
+            }
+        }
+        return (band == Band.LOW ? lowLayout : highLayout).reduce(lastValues);
     }
 
     // H_high(jω)/D with H_high = C·(jωI − A)⁻¹·B + D_high, from the high-band model's matrices
