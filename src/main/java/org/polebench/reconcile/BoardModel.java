@@ -25,7 +25,9 @@ import org.polebench.circuit.Stage;
  * H_high/D is the high-band model's response (low-band capacitors shorted) over the midband
  * gain: the product of the two bands is exact when they lie decades apart, as a low-band
  * sweep assumes. Only the network parameters need a new small-signal expansion and reduction
- * (a resistor or a β with a new bias solve); their derivative is a forward difference.
+ * (a resistor or a β with a new bias solve); their derivative is a forward difference of the
+ * reduction (Y, b, c, D), carried to H_low to first order with this point's x and u, so a
+ * column costs a reduction but no new factoring of the port equations.
  *
  * <p>Every evaluation solves the port equations at all the sweep's frequencies at once
  * ({@link SweptPortEquations}) into preallocated arrays: nothing is allocated per frequency.
@@ -49,8 +51,18 @@ final class BoardModel {
     private final Map<BiasPoint, Reduced> cache = leastRecentlyUsed(CACHED_REDUCTIONS);
     // hypotheses alternate between a few bias points (the no-fault MAP's, the priors' means)
     private final Map<BiasPoint, HighFactor> highCache = leastRecentlyUsed(CACHED_HIGH_FACTORS);
+    /**
+     * The two bands' reductions laid out once, from the nominal network: every in-region board
+     * of the stage has the same elements in the same places and the same zero conductances
+     * ({@link PortReduction#prepare}), so each bias point only restamps numbers.
+     */
+    private final PortReduction.Prepared lowLayout;
+    private final PortReduction.Prepared highLayout;
+    private final boolean withHighBand;
+    /** Which of the nominal network's element values are zero: a layout holds only for this pattern. */
+    private final boolean[] nominalZeros;
     private BiasPoint lastExpanded;
-    private SmallSignalNetwork lastNetwork;
+    private double[] lastValues;
     private final SweptPortEquations ports;
     private SweptPortEquations highEquations;
     private int reductions;
@@ -62,11 +74,11 @@ final class BoardModel {
     private final double[][] xi;
     private final double[][] ur;
     private final double[][] ui;
-    /** The low band times the gain, of the last evaluation with its high band: a bias difference's base. */
-    private final double[] lowRe;
-    private final double[] lowIm;
-    private final double[] steppedRe;
-    private final double[] steppedIm;
+    /** Work per frequency for a network column: ΔH_low, and ΔY·x + Δb of one port. */
+    private final double[] changeRe;
+    private final double[] changeIm;
+    private final double[] portRe;
+    private final double[] portIm;
     /** Work per frequency: the low band, and jω·conj(H_low)/|H_low|² (as ω·H_low/|H_low|²). */
     private final double[] responseRe;
     private final double[] responseIm;
@@ -80,6 +92,15 @@ final class BoardModel {
     BoardModel(Stage stage, OperatingPoints nominalPoints, StateModel nominalModel, double[] frequenciesHz) {
         this.capacitors = nominalModel.capacitorNames();
         this.board = new BoardNetwork(stage, nominalPoints, capacitors);
+        SmallSignalNetwork nominalNetwork = board.network(null, board.nominal());
+        this.lowLayout = reduction.prepare(nominalNetwork, Band.LOW);
+        this.highLayout = reduction.prepare(nominalNetwork, Band.HIGH);
+        this.withHighBand = !nominalNetwork.capacitances(Band.HIGH).isEmpty();
+        double[] nominalElements = nominalNetwork.elementValues();
+        this.nominalZeros = new boolean[nominalElements.length];
+        for (int e = 0; e < nominalElements.length; e++) {
+            nominalZeros[e] = nominalElements[e] == 0;
+        }
         int k = capacitors.size();
         this.nominalFarads = new double[k];
         for (int i = 0; i < k; i++) {
@@ -91,10 +112,10 @@ final class BoardModel {
         }
         this.ports = new SweptPortEquations(k, omegas);
         this.farads = new double[k];
-        this.lowRe = new double[omegas.length];
-        this.lowIm = new double[omegas.length];
-        this.steppedRe = new double[omegas.length];
-        this.steppedIm = new double[omegas.length];
+        this.changeRe = new double[omegas.length];
+        this.changeIm = new double[omegas.length];
+        this.portRe = new double[omegas.length];
+        this.portIm = new double[omegas.length];
         this.responseRe = new double[omegas.length];
         this.responseIm = new double[omegas.length];
         this.weightRe = new double[omegas.length];
@@ -171,20 +192,72 @@ final class BoardModel {
             boolean withHigh = exactHighBand && j >= firstResistor;
             HighFactor otherHigh = !withHigh || other == null ? null : highFactor(stepped, true, other.d);
             if (other == null || (withHigh && otherHigh == null)
-                    || !response(other, otherHigh, theta, steppedRe, steppedIm, null, null)) {
+                    || !lowBandDifference(reduced, other, dRe[k + j], dIm[k + j])) {
                 return false;
             }
-            double[] baseRe = withHigh ? hRe : lowRe;
-            double[] baseIm = withHigh ? hIm : lowIm;
-            for (int n = 0; n < omegas.length; n++) {
-                // ln(H'/H)/h against the response of this very call: a ratio, so no branch cut of
-                // the logarithm is crossed
-                double size = baseRe[n] * baseRe[n] + baseIm[n] * baseIm[n];
-                double qr = (steppedRe[n] * baseRe[n] + steppedIm[n] * baseIm[n]) / size;
-                double qi = (steppedIm[n] * baseRe[n] - steppedRe[n] * baseIm[n]) / size;
-                dRe[k + j][n] = 0.5 * Math.log(qr * qr + qi * qi) / BIAS_STEP;
-                dIm[k + j][n] = Math.atan2(qi, qr) / BIAS_STEP;
+            if (withHigh) {
+                for (int n = 0; n < omegas.length; n++) {
+                    // ln(H'_high/H_high)/h: a ratio, so no branch cut of the logarithm is crossed
+                    double size = high.re[n] * high.re[n] + high.im[n] * high.im[n];
+                    double qr = (otherHigh.re[n] * high.re[n] + otherHigh.im[n] * high.im[n]) / size;
+                    double qi = (otherHigh.im[n] * high.re[n] - otherHigh.re[n] * high.im[n]) / size;
+                    dRe[k + j][n] += 0.5 * Math.log(qr * qr + qi * qi) / BIAS_STEP;
+                    dIm[k + j][n] += Math.atan2(qi, qr) / BIAS_STEP;
+                }
             }
+        }
+        return true;
+    }
+
+    // The low band's change from one reduction to a nearby one, to first order, with the
+    // capacitors held: with M = Y + s·Cd, x = −M⁻¹·b and u = M⁻ᵀ·c of the last response (this
+    // call's), H_low = D + cᵀ·x moves by ΔH = ΔD + Δcᵀ·x − uᵀ·(ΔY·x + Δb) (the derivative of an
+    // inverse, Golub and Van Loan, Matrix Computations, 3rd ed., 2.3.4). Over a step of
+    // BIAS_STEP this is the forward difference of H_low less its second-order term (relative
+    // size ~BIAS_STEP, as the difference's own truncation), and it needs no factoring of M at
+    // the stepped point. Writes ΔH/(H_low·h), the column of ∂ln H/∂θ; false when H_low vanishes.
+    private boolean lowBandDifference(Reduced base, Reduced other, double[] outRe, double[] outIm) {
+        int k = capacitors.size();
+        int f = omegas.length;
+        double dd = other.d - base.d;
+        Arrays.fill(changeRe, dd);
+        Arrays.fill(changeIm, 0);
+        for (int i = 0; i < k; i++) {
+            // Δc_i·x_i − u_i·(Σ_l ΔY_il·x_l + Δb_i), accumulated per port i
+            double dc = other.c[i] - base.c[i];
+            double db = other.b[i] - base.b[i];
+            Arrays.fill(portRe, db);
+            Arrays.fill(portIm, 0);
+            for (int l = 0; l < k; l++) {
+                double dy = other.yFlat[i * k + l] - base.yFlat[i * k + l];
+                if (dy == 0) {
+                    continue;
+                }
+                double[] pr = xr[l];
+                double[] pi = xi[l];
+                for (int n = 0; n < f; n++) {
+                    portRe[n] += dy * pr[n];
+                    portIm[n] += dy * pi[n];
+                }
+            }
+            double[] pr = xr[i];
+            double[] pi = xi[i];
+            double[] qr = ur[i];
+            double[] qi = ui[i];
+            for (int n = 0; n < f; n++) {
+                changeRe[n] += dc * pr[n] - (qr[n] * portRe[n] - qi[n] * portIm[n]);
+                changeIm[n] += dc * pi[n] - (qr[n] * portIm[n] + qi[n] * portRe[n]);
+            }
+        }
+        for (int n = 0; n < f; n++) {
+            double hr = responseRe[n];
+            double hi = responseIm[n];
+            double size = hr * hr + hi * hi;
+            if (!(size > 0)) {
+                return false;
+            }
+            outRe[n] = (changeRe[n] * hr + changeIm[n] * hi) / (size * BIAS_STEP);
+            outIm[n] = (changeIm[n] * hr - changeRe[n] * hi) / (size * BIAS_STEP);
         }
         return true;
     }
@@ -198,7 +271,6 @@ final class BoardModel {
         return board.network(Arrays.copyOfRange(theta, 0, k), Arrays.copyOfRange(theta, k, k + board.size()));
     }
 
-    // high null: the low band alone
     private boolean response(Reduced reduced, HighFactor high, double[] theta, double[] hRe, double[] hIm,
                              double[][] dRe, double[][] dIm) {
         responses++;
@@ -235,12 +307,8 @@ final class BoardModel {
             if (!(lowSize > 0) || !Double.isFinite(lowSize)) {
                 return false;
             }
-            if (high != null) {
-                lowRe[n] = gain * lr;
-                lowIm[n] = gain * li;
-            }
-            double fr = high == null ? 1 : high.re[n];
-            double fi = high == null ? 0 : high.im[n];
+            double fr = high.re[n];
+            double fi = high.im[n];
             hRe[n] = gain * (lr * fr - li * fi);
             hIm[n] = gain * (lr * fi + li * fr);
             // ∂H_low/∂φ_i = −jω·C_i·u_i·x_i; times conj(H_low)/|H_low|² for ∂ln H/∂φ_i
@@ -295,12 +363,11 @@ final class BoardModel {
     }
 
     private Reduced reduce(double[] lnBias) {
-        SmallSignalNetwork network = expanded(lnBias);
-        if (network == null) {
+        Reduction low = reduction(lnBias, Band.LOW);
+        if (low == null) {
             return null;
         }
         reductions++;
-        Reduction low = reduction.reduce(network, Band.LOW);
         if (!(low instanceof Reduction.StateSpace)) {
             return null;
         }
@@ -347,13 +414,12 @@ final class BoardModel {
         double[] re = new double[omegas.length];
         double[] im = new double[omegas.length];
         Arrays.fill(re, 1);
-        SmallSignalNetwork network = expanded(lnBias);
-        if (network == null) {
-            return null;
-        }
-        if (!network.capacitances(Band.HIGH).isEmpty()) {
+        if (withHighBand) {
+            Reduction high = reduction(lnBias, Band.HIGH);
+            if (high == null) {
+                return null;
+            }
             reductions++;
-            Reduction high = reduction.reduce(network, Band.HIGH);
             if (!(high instanceof Reduction.StateSpace)) {
                 return null;
             }
@@ -366,15 +432,26 @@ final class BoardModel {
         return lastHigh;
     }
 
-    // the low and the high band of one bias point come from one expansion; null where the
-    // transistors leave their amplifying region
-    private SmallSignalNetwork expanded(double[] lnBias) {
+    // one band's reduction at one bias point, restamped on the prepared layout; the low and the
+    // high band of one bias point come from one expansion. Null where the transistors leave
+    // their amplifying region.
+    private Reduction reduction(double[] lnBias, Band band) {
         BiasPoint key = new BiasPoint(lnBias);
         if (!key.equals(lastExpanded)) {
-            lastNetwork = board.network(null, lnBias);
+            lastValues = board.elementValues(lnBias);
             lastExpanded = key;
         }
-        return lastNetwork;
+        if (lastValues == null) {
+            return null;
+        }
+        for (int e = 0; e < lastValues.length; e++) {
+            if ((lastValues[e] == 0) != nominalZeros[e]) {
+                // a conductance that vanished or appeared: the layout does not hold, so this
+                // network is laid out afresh
+                return reduction.reduce(board.network(null, lnBias), band);
+            }
+        }
+        return (band == Band.LOW ? lowLayout : highLayout).reduce(lastValues);
     }
 
     // H_high(jω)/D with H_high = C·(jωI − A)⁻¹·B + D_high, from the high-band model's matrices

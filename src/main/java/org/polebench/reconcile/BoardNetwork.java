@@ -122,15 +122,43 @@ final class BoardNetwork {
      * @return the small-signal network, or null when a transistor leaves its amplifying region
      */
     SmallSignalNetwork network(double[] lnCapacitor, double[] lnNetwork) {
-        int m = transistors.size();
-        int nb = bjts.size();
-        boolean moved = lnCapacitor != null;
-        for (int j = m; j < lnNetwork.length && !moved; j++) {
-            moved = lnNetwork[j] != 0;
-        }
-        if (!moved) {
+        if (!moved(lnCapacitor, lnNetwork)) {
             return expansion.expand(stage, scaled(nominalPoints, lnNetwork));
         }
+        Drawn drawn = drawn(lnCapacitor, lnNetwork);
+        return drawn == null ? null : expansion.network(drawn.values, drawn.currents, drawn.sourceBody);
+    }
+
+    /**
+     * The numbers of {@link #network}'s network alone, in its element order, with the capacitors
+     * nominal: what a prepared port reduction restamps ({@link SmallSignalExpansion.Prepared#elementValues}),
+     * without the records.
+     *
+     * @return per element, siemens or farads; null when a transistor leaves its amplifying region
+     */
+    double[] elementValues(double[] lnNetwork) {
+        if (!moved(null, lnNetwork)) {
+            return expansion.expand(stage, scaled(nominalPoints, lnNetwork)).elementValues();
+        }
+        Drawn drawn = drawn(null, lnNetwork);
+        return drawn == null ? null : expansion.elementValues(drawn.values, drawn.currents, drawn.sourceBody);
+    }
+
+    // whether a β, a resistor or a capacitor is off nominal (a bias current alone keeps the
+    // stage's own operating points, scaled)
+    private boolean moved(double[] lnCapacitor, double[] lnNetwork) {
+        boolean moved = lnCapacitor != null;
+        for (int j = transistors.size(); j < lnNetwork.length && !moved; j++) {
+            moved = lnNetwork[j] != 0;
+        }
+        return moved;
+    }
+
+    // the part values and the bias solved again for them, each current times its nuisance
+    // factor; null out of region
+    private Drawn drawn(double[] lnCapacitor, double[] lnNetwork) {
+        int m = transistors.size();
+        int nb = bjts.size();
         double[] values = nominalValues.clone();
         for (int b = 0; b < nb; b++) {
             values[bjtParts[b]] *= Math.exp(lnNetwork[m + b]);
@@ -161,7 +189,20 @@ final class BoardNetwork {
         for (int t = 0; t < m; t++) {
             currents[t] *= Math.exp(lnNetwork[t]);
         }
-        return expansion.network(values, currents, sourceBody);
+        return new Drawn(values, currents, sourceBody);
+    }
+
+    /** One board's part values, collector or drain currents and source–body voltages. */
+    private static final class Drawn {
+        final double[] values;
+        final double[] currents;
+        final double[] sourceBody;
+
+        Drawn(double[] values, double[] currents, double[] sourceBody) {
+            this.values = values;
+            this.currents = currents;
+            this.sourceBody = sourceBody;
+        }
     }
 
     private OperatingPoints scaled(OperatingPoints points, double[] lnNetwork) {
