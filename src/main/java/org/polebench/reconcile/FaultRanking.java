@@ -96,9 +96,20 @@ public final class FaultRanking {
 
     /** @return a search over this sweep's hypotheses, for one thread: singles first, pairs on request */
     HypothesisSearch search(Stage stage, OperatingPoints nominalPoints, StateModel nominalModel, Sweep sweep) {
+        return search(stage, nominalPoints, nominalModel, sweep, null);
+    }
+
+    /**
+     * @param helper runs half the single faults beside the calling thread, on a board model of
+     *               its own; null for everything on the calling thread. The ranking is the same
+     *               either way up to round-off in the board models' cached high-band factors.
+     */
+    HypothesisSearch search(Stage stage, OperatingPoints nominalPoints, StateModel nominalModel, Sweep sweep,
+                            java.util.concurrent.Executor helper) {
         MeasuredResponse measured = new MeasuredResponse(sweep, DEFAULT_GAIN_SIGMA_DB, DEFAULT_PHASE_SIGMA_DEG);
         BoardModel model = new BoardModel(stage, nominalPoints, nominalModel, measured.frequenciesHz());
-        return new HypothesisSearch(model, measured, parameters(stage, nominalPoints, model));
+        return new HypothesisSearch(model, measured, parameters(stage, nominalPoints, model),
+                () -> new BoardModel(stage, nominalPoints, nominalModel, measured.frequenciesHz()), helper);
     }
 
     /** @return the back-solve's parameters for this stage, in model order */

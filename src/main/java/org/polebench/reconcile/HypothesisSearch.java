@@ -4,6 +4,9 @@ import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.List;
 import java.util.Optional;
+import java.util.concurrent.CompletableFuture;
+import java.util.concurrent.Executor;
+import java.util.function.Supplier;
 
 /**
  * The hypotheses of one sweep on one stage, searched as {@link FaultRanking} describes: the
@@ -29,6 +32,9 @@ final class HypothesisSearch {
     private final List<Candidate> candidates = new ArrayList<>();
     private boolean pairsRanked;
     private Diagnosis last;
+    /** A second board model and the thread it runs on, for half the single faults; null for one thread. */
+    private final Supplier<BoardModel> secondModel;
+    private final Executor helper;
 
     /** One hypothesis: what it frees, its priors, and its MAP at the stated σ. */
     private static final class Candidate {
@@ -38,6 +44,8 @@ final class HypothesisSearch {
         final boolean[] active;
         final double logPrior;
         final Misfit misfit;
+        /** Whether its misfit belongs to the second board model (and so to the helper thread). */
+        boolean second;
         MapPoint stated;
         /** Its point needs no convergence run (a resistor judged by one Gauss–Newton step). */
         boolean settled;
@@ -53,6 +61,19 @@ final class HypothesisSearch {
     }
 
     HypothesisSearch(BoardModel model, MeasuredResponse measured, List<ModelParameter> parameters) {
+        this(model, measured, parameters, null, null);
+    }
+
+    /**
+     * @param secondModel makes a second board model of the same stage and sweep, for the helper
+     *                    thread; null to do everything on the calling thread
+     * @param helper      runs half the single faults' screens and convergence runs beside the
+     *                    calling thread (each board model stays on one thread); null for none
+     */
+    HypothesisSearch(BoardModel model, MeasuredResponse measured, List<ModelParameter> parameters,
+                     Supplier<BoardModel> secondModel, Executor helper) {
+        this.secondModel = helper == null ? null : secondModel;
+        this.helper = secondModel == null ? null : helper;
         this.model = model;
         this.measured = measured;
         this.parameters = List.copyOf(parameters);
@@ -85,27 +106,63 @@ final class HypothesisSearch {
         }
         candidates.add(none);
         for (int j : faultable) {
+            if (parameters.get(j).kind() == ParameterKind.RESISTOR) {
+                // made here, before the single faults are shared out: both threads read it
+                atNoFault = QuadraticModel.at(misfit(model, tolerance, allActive(), 1, 1), none.stated.theta());
+                break;
+            }
+        }
+        List<Integer> own = new ArrayList<>();
+        List<Integer> shared = new ArrayList<>();
+        for (int j : faultable) {
+            (helper != null && (own.size() + shared.size()) % 2 == 1 ? shared : own).add(j);
+        }
+        MapPoint noFault = none.stated;
+        CompletableFuture<List<Candidate>> theirs = shared.isEmpty() ? null
+                : CompletableFuture.supplyAsync(() -> screened(shared, secondModel.get(), noFault, singlePrior, true),
+                helper);
+        List<Candidate> made = new ArrayList<>(screened(own, model, noFault, singlePrior, false));
+        if (theirs != null) {
+            made.addAll(theirs.join());
+        }
+        // in parameter order, whichever thread made them: the ranking does not depend on the split
+        for (int j : faultable) {
+            for (Candidate candidate : made) {
+                if (candidate.freed[0] == j) {
+                    candidates.add(candidate);
+                }
+            }
+        }
+        convergeNear();
+        last = finish();
+        return last;
+    }
+
+    // the single faults of these parameters screened on one board model (one thread)
+    private List<Candidate> screened(List<Integer> indices, BoardModel on, MapPoint none, double singlePrior,
+                                     boolean second) {
+        List<Candidate> made = new ArrayList<>();
+        for (int j : indices) {
             Prior[] priors = tolerance.clone();
             priors[j] = parameters.get(j).faultPrior();
             boolean[] active = baseActive.clone();
             active[j] = true;
             Candidate single = new Candidate(parameters.get(j).kind().faultKind(), new int[] {j}, priors, active,
-                    singlePrior, misfit(priors, active, 1, 1));
+                    singlePrior, misfit(on, priors, active, 1, 1));
+            single.second = second;
             boolean[] free = networkHeld.clone();
             if (parameters.get(j).kind() != ParameterKind.CAPACITOR && parameters.get(j).kind() != ParameterKind.GAIN) {
                 // screen with only the freed network parameter moving among the network ones
                 free[j] = true;
             }
             if (parameters.get(j).kind() == ParameterKind.RESISTOR) {
-                resistor(single, none.stated, free);
+                resistor(single, none, free);
             } else {
-                single.stated = screen(single.misfit, starts(none.stated.theta(), j), free);
+                single.stated = screen(single.misfit, starts(none.theta(), j), free);
             }
-            candidates.add(single);
+            made.add(single);
         }
-        convergeNear();
-        last = finish();
-        return last;
+        return made;
     }
 
     /**
@@ -292,9 +349,6 @@ final class HypothesisSearch {
     private void resistor(Candidate single, MapPoint none, boolean[] free) {
         int j = single.freed[0];
         double[] theta = none.theta();
-        if (atNoFault == null) {
-            atNoFault = QuadraticModel.at(misfit(tolerance, allActive(), 1, 1), theta);
-        }
         QuadraticModel.Step step = atNoFault == null ? null : atNoFault.step(single.priors, single.active);
         if (step == null || step.drop >= RESISTOR_SCREEN_DROP) {
             List<double[]> starts = starts(theta, j);
@@ -328,7 +382,11 @@ final class HypothesisSearch {
     }
 
     private Misfit misfit(Prior[] priors, boolean[] active, double magnitudeScale, double phaseScale) {
-        return new Misfit(model, measured, priors, active, magnitudeScale, phaseScale);
+        return misfit(model, priors, active, magnitudeScale, phaseScale);
+    }
+
+    private Misfit misfit(BoardModel on, Prior[] priors, boolean[] active, double magnitudeScale, double phaseScale) {
+        return new Misfit(on, measured, priors, active, magnitudeScale, phaseScale);
     }
 
     // a hypothesis far behind after screening keeps its screened point: its probability is below
@@ -339,13 +397,28 @@ final class HypothesisSearch {
         for (int h = 0; h < candidates.size(); h++) {
             best = Math.max(best, candidates.get(h).logPrior + lnZ[h]);
         }
+        List<Candidate> own = new ArrayList<>();
+        List<Candidate> shared = new ArrayList<>();
         for (int h = 1; h < candidates.size(); h++) {
             Candidate candidate = candidates.get(h);
             if (!candidate.settled && candidate.logPrior + lnZ[h] > best - FaultRanking.SKIP_NATS) {
-                MapPoint converged = solve(candidate.misfit, List.of(candidate.stated.theta()), networkHeld);
-                if (converged != null) {
-                    candidate.stated = converged;
-                }
+                (candidate.second ? shared : own).add(candidate);
+            }
+        }
+        // each on the thread of the board model its misfit belongs to
+        CompletableFuture<Void> theirs = shared.isEmpty() ? null
+                : CompletableFuture.runAsync(() -> converge(shared), helper);
+        converge(own);
+        if (theirs != null) {
+            theirs.join();
+        }
+    }
+
+    private void converge(List<Candidate> near) {
+        for (Candidate candidate : near) {
+            MapPoint converged = solve(candidate.misfit, List.of(candidate.stated.theta()), networkHeld);
+            if (converged != null) {
+                candidate.stated = converged;
             }
         }
     }

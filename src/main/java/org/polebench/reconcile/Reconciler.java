@@ -7,6 +7,8 @@ import java.util.OptionalDouble;
 import java.util.concurrent.CompletableFuture;
 import java.util.concurrent.CompletionException;
 import java.util.concurrent.Executor;
+import java.util.concurrent.ExecutorService;
+import java.util.concurrent.Executors;
 import java.util.concurrent.ForkJoinPool;
 import org.apache.commons.math3.complex.Complex;
 import org.polebench.InputProblem;
@@ -44,19 +46,25 @@ public final class Reconciler {
     private final ModelMeasurement measurement = new ModelMeasurement();
     private final SweepDetermination determination = new SweepDetermination();
     private final Executor fitExecutor;
+    private final boolean rankingThread;
 
-    /** Fits on the common fork-join pool while the back-solve runs on the calling thread. */
+    /**
+     * Fits on the common fork-join pool while the back-solve runs on the calling thread and on a
+     * thread of its own for half the single faults (the common pool of a 2-core machine has one
+     * worker, which the fit holds).
+     */
     public Reconciler() {
-        this(ForkJoinPool.commonPool());
+        this(ForkJoinPool.commonPool(), true);
     }
 
-    private Reconciler(Executor fitExecutor) {
+    private Reconciler(Executor fitExecutor, boolean rankingThread) {
         this.fitExecutor = fitExecutor;
+        this.rankingThread = rankingThread;
     }
 
     /** @return a reconciler that does everything on the calling thread (for one-core timing) */
     public static Reconciler onOneThread() {
-        return new Reconciler(Runnable::run);
+        return new Reconciler(Runnable::run, false);
     }
 
     /**
@@ -96,17 +104,29 @@ public final class Reconciler {
                 throw new CompletionException(problem);
             }
         }, fitExecutor);
-        HypothesisSearch search = ranking.search(predicted.stage(), predicted.operatingPoints(), prediction.lowBand(),
-                sweep);
-        Diagnosis diagnosis = search.singles();
-        FitResult fit = join(fitting);
-        ModelAdequacy adequacy = adequacyTest.assess(diagnosis, fit, sweep, predicted.spread(),
-                prediction.midbandGainDb());
-        if (!adequacy.explained()) {
-            // no single fault explains the sweep: pairs of the most probable ones, then the test again
-            diagnosis = search.withPairs();
-            adequacy = adequacyTest.assess(diagnosis, fit, sweep, predicted.spread(),
-                prediction.midbandGainDb());
+        ExecutorService helper = rankingThread ? Executors.newSingleThreadExecutor(runnable -> {
+            Thread thread = new Thread(runnable, "polebench-ranking");
+            thread.setDaemon(true);
+            return thread;
+        }) : null;
+        Diagnosis diagnosis;
+        FitResult fit;
+        ModelAdequacy adequacy;
+        try {
+            HypothesisSearch search = ranking.search(predicted.stage(), predicted.operatingPoints(),
+                    prediction.lowBand(), sweep, helper);
+            diagnosis = search.singles();
+            fit = join(fitting);
+            adequacy = adequacyTest.assess(diagnosis, fit, sweep, predicted.spread(), prediction.midbandGainDb());
+            if (!adequacy.explained()) {
+                // no single fault explains the sweep: pairs of the most probable ones, then the test again
+                diagnosis = search.withPairs();
+                adequacy = adequacyTest.assess(diagnosis, fit, sweep, predicted.spread(), prediction.midbandGainDb());
+            }
+        } finally {
+            if (helper != null) {
+                helper.shutdown();
+            }
         }
         ModelMeasurement.Measured model = measurement.measure(predicted.stage(), predicted.operatingPoints(),
                 diagnosis.top().backSolve());
