@@ -6,12 +6,15 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.List;
+import java.util.Locale;
 import java.util.Random;
 import java.util.stream.Collectors;
+import java.util.stream.IntStream;
 import org.ejml.data.DMatrixRMaj;
 import org.ejml.dense.row.CommonOps_DDRM;
 import org.junit.jupiter.api.Test;
 import org.polebench.InputProblem;
+import org.polebench.TestFigures;
 
 /**
  * Monte Carlo over 500 seeded noisy sweeps of a known common-emitter response, against the
@@ -113,20 +116,31 @@ class CramerRaoTest {
         // BIC adds a spurious pole–zero pair when noise alone lowers χ² by 2·ln N ≈ 10.6 (χ² with 2
         // degrees of freedom: e^−5.3 ≈ 0.5 %), about 1 % with the DC-zero alternatives; 97 % is that
         // plus three binomial σ (0.45 %) and a margin
-        assertTrue(rightOrder >= 0.97 * TRIALS, "right order in " + rightOrder + " of " + TRIALS);
+        double[] ratio = new double[3];
+        double[] coverage = new double[3];
+        StringBuilder figures = new StringBuilder("right order in " + rightOrder + " of " + TRIALS);
         for (int i = 0; i < 3; i++) {
             final int pole = i;
             double[] values = poles.stream().mapToDouble(v -> v[pole]).toArray();
-            double ratio = standardDeviation(values) / bound[i + 1];
-            assertTrue(ratio >= 0.9 && ratio <= 1.2, "pole " + POLES_HZ[i] + " Hz: spread / CRB = " + ratio);
-            double coverage = covered[i] / (double) rightOrder;
-            assertEquals(0.95, coverage, 0.03, "coverage of pole " + POLES_HZ[i] + " Hz");
+            ratio[i] = standardDeviation(values) / bound[i + 1];
+            coverage[i] = covered[i] / (double) rightOrder;
+            figures.append(String.format(Locale.ROOT, "%npole %s Hz: spread / CRB = %.4f, coverage %.4f",
+                    POLES_HZ[i], ratio[i], coverage[i]));
         }
-        assertEquals(0.95, zeroCovered / (double) rightOrder, 0.03, "coverage of the zero");
-        // the corner's propagated u against its Monte Carlo spread: the same 3.2 % statistics,
-        // ±10 % leaves room for the first-order propagation's own error
+        double zeroCoverage = zeroCovered / (double) rightOrder;
         double spread = standardDeviation(corners.stream().mapToDouble(Double::doubleValue).toArray());
         double meanU = cornerU.stream().mapToDouble(Double::doubleValue).average().orElseThrow();
+        figures.append(String.format(Locale.ROOT, "%ncoverage of the zero %.4f%ncorner spread / propagated u = %.4f",
+                zeroCoverage, spread / meanU));
+        TestFigures.keep(getClass(), "poleSpreadMeetsTheCramerRaoBoundAndCoverageIsNinetyFivePercent", figures.toString());
+        assertTrue(rightOrder >= 0.97 * TRIALS, "right order in " + rightOrder + " of " + TRIALS);
+        for (int i = 0; i < 3; i++) {
+            assertTrue(ratio[i] >= 0.9 && ratio[i] <= 1.2, "pole " + POLES_HZ[i] + " Hz: spread / CRB = " + ratio[i]);
+            assertEquals(0.95, coverage[i], 0.03, "coverage of pole " + POLES_HZ[i] + " Hz");
+        }
+        assertEquals(0.95, zeroCoverage, 0.03, "coverage of the zero");
+        // the corner's propagated u against its Monte Carlo spread: the same 3.2 % statistics,
+        // ±10 % leaves room for the first-order propagation's own error
         assertEquals(1, spread / meanU, 0.1, "corner spread / propagated u");
     }
 
@@ -148,6 +162,9 @@ class CramerRaoTest {
                 covered[i] += Math.abs(sorted.get(i).magnitudeHz() - POLES_HZ[i]) <= expanded ? 1 : 0;
             }
         }
+        TestFigures.keep(getClass(), "typeAUncertaintiesAlsoCoverNinetyFivePercent", IntStream.range(0, 3)
+                .mapToObj(i -> String.format(Locale.ROOT, "pole %s Hz: coverage %.4f", POLES_HZ[i], covered[i] / (double) TRIALS))
+                .collect(Collectors.joining("\n")));
         for (int i = 0; i < 3; i++) {
             assertEquals(0.95, covered[i] / (double) TRIALS, 0.03, "coverage of pole " + POLES_HZ[i] + " Hz");
         }

@@ -12,6 +12,7 @@ import java.util.stream.Collectors;
 import java.util.stream.IntStream;
 import org.junit.jupiter.api.Test;
 import org.polebench.InputProblem;
+import org.polebench.TestFigures;
 import org.polebench.analysis.StageAnalysis;
 import org.polebench.analysis.StagePrediction;
 import org.polebench.analysis.ToleranceSpread;
@@ -88,7 +89,7 @@ class AdequacyDetectionTest {
         String summary = rates.entrySet().stream().map(e -> e.getKey() + ": " + e.getValue()[0] + "/"
                 + e.getValue()[1] + " not explained").collect(Collectors.joining("; "))
                 + "\n  named with confidence while explained: " + confident;
-        System.out.println(summary);
+        TestFigures.keep(getClass(), "boardsWithAModelErrorAreNotExplainedOrNotBlamedOnAPart", summary);
         // AC couplings at 3.3 Hz and above and the wrong stage file change the response by far
         // more than the noise: at least 80 % must be caught (measured figures in the note)
         assertTrue(rates.get("ac 3.3 Hz")[0] >= 0.8 * PER_EFFECT, summary);

@@ -9,6 +9,7 @@ import java.util.Locale;
 import java.util.SplittableRandom;
 import org.junit.jupiter.api.Test;
 import org.polebench.InputProblem;
+import org.polebench.TestFigures;
 import org.polebench.measure.Fault;
 import org.polebench.measure.Sweep;
 import org.polebench.measure.SweepNoise;
@@ -95,7 +96,7 @@ class SyntheticBoardsTest {
         double median = errors[errors.length / 2];
         String summary = String.format(Locale.ROOT, "faulty %d/%d right, healthy %d/%d right, median value error %.4f%s",
                 faultyRight, faulty, healthyRight, healthy, median, misses);
-        System.out.println(summary);
+        TestFigures.keep(getClass(), "faultyBoardsPutTheTrueFaultOnTopAndHealthyBoardsNoFault", summary);
         // issue 5: at least 95 % of faulty boards with the true fault on top
         assertTrue(faultyRight >= 0.95 * faulty, summary);
         // issue 5: at least 90 % of healthy boards with "no fault" on top
