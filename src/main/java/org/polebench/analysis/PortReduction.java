@@ -3,6 +3,7 @@ package org.polebench.analysis;
 import java.util.ArrayList;
 import java.util.LinkedHashSet;
 import java.util.List;
+import java.util.Locale;
 import java.util.Optional;
 import java.util.Set;
 import org.apache.commons.math3.linear.Array2DRowRealMatrix;
@@ -100,8 +101,8 @@ public final class PortReduction {
             List<String> nodes = topology.nodeNames(floating);
             List<String> parts = topology.elementsTouching(floating);
             return new Prepared(this, new Reduction.Singular(SingularCase.NO_DC_PATH, band, parts, nodes,
-                    "no resistor or source ties node(s) " + nodes + " to ground in the " + band.name().toLowerCase()
-                            + "-band network; parts there: " + parts));
+                    "no resistor or source ties node(s) " + nodes + " to ground in the "
+                            + band.name().toLowerCase(Locale.ROOT) + "-band network; parts there: " + parts));
         }
         return new Prepared(this, band, network, ports, shorted, links, linked);
     }
@@ -223,7 +224,8 @@ public final class PortReduction {
         parts.add(closing);
         return new Reduction.Singular(SingularCase.CAPACITOR_LOOP, band, parts, new ArrayList<>(nodes),
                 "capacitors " + parts + " form a loop of voltage-defined branches in the "
-                        + band.name().toLowerCase() + "-band analysis, so their voltages are not independent");
+                        + band.name().toLowerCase(Locale.ROOT)
+                        + "-band analysis, so their voltages are not independent");
     }
 
     // Row equilibration makes the pivot test relative to each row's size: a port seen through
@@ -283,7 +285,7 @@ public final class PortReduction {
             }
         }
         return new Reduction.Singular(SingularCase.NO_DC_PATH, band, parts, nodes,
-                "the " + band.name().toLowerCase() + "-band network does not fix the DC voltage of node(s) "
+                "the " + band.name().toLowerCase(Locale.ROOT) + "-band network does not fix the DC voltage of node(s) "
                         + nodes + (parts.isEmpty() ? "" : " (sources involved: " + parts + ")"));
     }
 

@@ -2,6 +2,7 @@ package org.polebench.analysis;
 
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Locale;
 import java.util.Optional;
 import java.util.OptionalDouble;
 import org.polebench.circuit.Band;
@@ -115,8 +116,8 @@ public final class StagePredictor {
 
     private static Reduction.Singular noEigenvalues(StateModel model) {
         return new Reduction.Singular(SingularCase.EIGENVALUES_NOT_FOUND, model.band(), model.capacitorNames(),
-                List.of(), "the eigenvalue iteration did not converge on the " + model.band().name().toLowerCase()
-                        + "-band state matrix");
+                List.of(), "the eigenvalue iteration did not converge on the "
+                        + model.band().name().toLowerCase(Locale.ROOT) + "-band state matrix");
     }
 
     /**

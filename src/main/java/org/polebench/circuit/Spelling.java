@@ -23,12 +23,12 @@ public final class Spelling {
     public static Optional<String> closest(String word, Collection<String> candidates) {
         String best = null;
         int bestDistance = Integer.MAX_VALUE;
-        String lowered = word.toLowerCase();
+        String lowered = word.toLowerCase(Locale.ROOT);
         for (String candidate : candidates) {
             if (candidate.equals(word)) {
                 continue;
             }
-            int distance = distance(lowered, candidate.toLowerCase());
+            int distance = distance(lowered, candidate.toLowerCase(Locale.ROOT));
             if (distance < bestDistance) {
                 best = candidate;
                 bestDistance = distance;

@@ -4,6 +4,7 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.LinkedHashSet;
 import java.util.List;
+import java.util.Locale;
 import java.util.Optional;
 import java.util.Set;
 
@@ -242,7 +243,7 @@ public record Stage(String name, Path sourceFile, String ground, List<Supply> su
     private <T extends Part> T partOf(String id, Class<T> kind) {
         Part part = part(id).orElseThrow(() -> new IllegalArgumentException("no part " + id + " in " + name));
         if (!kind.isInstance(part)) {
-            throw new IllegalArgumentException(id + " is not a " + kind.getSimpleName().toLowerCase());
+            throw new IllegalArgumentException(id + " is not a " + kind.getSimpleName().toLowerCase(Locale.ROOT));
         }
         return kind.cast(part);
     }

@@ -1,6 +1,7 @@
 package org.polebench.cli;
 
 import java.io.PrintWriter;
+import java.util.Locale;
 import java.util.concurrent.Callable;
 import org.polebench.InputProblem;
 import org.polebench.measure.InstrumentProfile;
@@ -19,10 +20,11 @@ public final class ProfilesCommand implements Callable<Integer> {
     @Override
     public Integer call() throws InputProblem {
         PrintWriter out = spec.commandLine().getOut();
-        out.printf("%-26s %-7s %s%n", "auto", "table", "sniff the layout from the header's words (the default)");
+        out.printf(Locale.ROOT, "%-26s %-7s %s%n", "auto", "table",
+                "sniff the layout from the header's words (the default)");
         for (InstrumentProfile profile : SweepLayoutOption.profiles().profiles()) {
-            out.printf("%-26s %-7s %s%n", profile.name(), profile instanceof TableProfile ? "table" : "serial",
-                    profile.description());
+            out.printf(Locale.ROOT, "%-26s %-7s %s%n", profile.name(),
+                    profile instanceof TableProfile ? "table" : "serial", profile.description());
         }
         out.flush();
         return ExitCodes.OK;

@@ -3,6 +3,7 @@ package org.polebench.fit;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
+import java.util.Locale;
 import java.util.Optional;
 import java.util.OptionalDouble;
 import org.apache.commons.math3.complex.Complex;
@@ -44,7 +45,7 @@ final class FitStatement {
                 basis = UncertaintyBasis.STATED_SCALED_BY_RESIDUALS;
                 scale = reduced;
                 k = studentK(nu);
-                warnings.add(InputWarning.general(String.format(
+                warnings.add(InputWarning.general(String.format(Locale.ROOT,
                         "the residuals scatter more than the stated point uncertainties allow (chi-square/nu = %.3g);"
                                 + " uncertainties are scaled by sqrt(chi-square/nu)", reduced)));
             }

@@ -4,6 +4,7 @@ import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.JsonNodeFactory;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.util.List;
+import java.util.Locale;
 import java.util.OptionalDouble;
 import org.polebench.InputWarning;
 import org.polebench.analysis.CapacitorSensitivity;
@@ -74,7 +75,7 @@ public final class PredictionJson {
     private ObjectNode operatingPoint(OperatingPoint point) {
         ObjectNode row = nodes.objectNode();
         row.put("id", point.transistor());
-        row.put("region", point.region().name().toLowerCase().replace('_', '-'));
+        row.put("region", point.region().name().toLowerCase(Locale.ROOT).replace('_', '-'));
         row.put("current_given", point.currentGiven());
         if (point instanceof OperatingPoint.BjtPoint) {
             OperatingPoint.BjtPoint bjt = (OperatingPoint.BjtPoint) point;

@@ -201,7 +201,7 @@ public final class ReconcileJson {
                 row.put("measured_re", match.measured().get().realHz());
                 row.put("measured_im", match.measured().get().imaginaryHz());
                 row.put("measured_u", match.measured().get().uMagnitudeHz());
-                row.put("measured_status", match.measured().get().status().name().toLowerCase());
+                row.put("measured_status", match.measured().get().status().name().toLowerCase(Locale.ROOT));
             } else {
                 row.putNull("measured_re");
                 row.putNull("measured_im");
@@ -238,7 +238,7 @@ public final class ReconcileJson {
         node.put("overall", verdict.overall().word());
         node.put("lower_corner_source", result.cornerSource());
         node.put("midband_gain_source", result.midbandSource());
-        node.put("rule", verdict.rule().name().toLowerCase());
+        node.put("rule", verdict.rule().name().toLowerCase(Locale.ROOT));
         node.put("rule_statement", verdict.rule().statement());
         ArrayNode checks = node.putArray("checks");
         for (LimitCheck check : verdict.checks()) {
