@@ -41,7 +41,7 @@ public record Prediction(double midbandGain, StateModel lowBand, SctcEstimate sc
         return Decibels.fromRatio(midbandGain);
     }
 
-    /** @return true when the midband output is in antiphase with the input (D < 0) */
+    /** @return true when the midband output is in antiphase with the input ({@code D < 0}) */
     public boolean inverting() {
         return midbandGain < 0;
     }
