@@ -143,6 +143,8 @@ class CaptureCommandTest {
         assertFalse(r.out().contains("listening"), r.out());
     }
 
+    // the pseudo-terminals are closed early on purpose (the simulator ends when its port vanishes)
+    @SuppressWarnings("try")
     @Test
     void aPortLostMidSweepStopsWithExitCode3AndResumeCompletesIt() throws Exception {
         String profile = resource("scpi-test-bench.yaml");
@@ -180,6 +182,8 @@ class CaptureCommandTest {
         }
     }
 
+    // the pseudo-terminals are closed early on purpose (the simulator ends when its port vanishes)
+    @SuppressWarnings("try")
     @Test
     void aCapturedSweepOfAFaultyBoardIsDiagnosedByReconcile() throws Exception {
         // the demo hydrophone preamp (invented) built with a 47 µF emitter bypass instead of 470 µF

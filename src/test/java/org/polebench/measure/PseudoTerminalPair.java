@@ -77,12 +77,18 @@ public final class PseudoTerminalPair implements AutoCloseable {
         return socat.waitFor(millis, TimeUnit.MILLISECONDS);
     }
 
+    /** Ends socat; interrupted while waiting, it kills socat and keeps the thread's interrupt. */
     @Override
-    public void close() throws InterruptedException {
+    public void close() {
         socat.destroy();
-        if (!socat.waitFor(5, TimeUnit.SECONDS)) {
+        try {
+            if (!socat.waitFor(5, TimeUnit.SECONDS)) {
+                socat.destroyForcibly();
+                socat.waitFor(5, TimeUnit.SECONDS);
+            }
+        } catch (InterruptedException interrupted) {
             socat.destroyForcibly();
-            socat.waitFor(5, TimeUnit.SECONDS);
+            Thread.currentThread().interrupt();
         }
     }
 }

@@ -48,10 +48,15 @@ final class SimulatorThread implements AutoCloseable {
         return !thread.isAlive();
     }
 
+    /** Stops serving and closes the line; interrupted while waiting, it keeps the thread's interrupt. */
     @Override
-    public void close() throws InterruptedException {
+    public void close() {
         stop.set(true);
-        thread.join(10_000);
+        try {
+            thread.join(10_000);
+        } catch (InterruptedException interrupted) {
+            Thread.currentThread().interrupt();
+        }
         line.close();
     }
 }

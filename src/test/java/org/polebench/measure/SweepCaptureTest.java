@@ -50,6 +50,8 @@ class SweepCaptureTest {
                 new SweepNoise(gainSigmaDb, phaseSigmaDeg), 7, faults);
     }
 
+    // the pseudo-terminals are closed early on purpose: the port vanishing is what the run tests
+    @SuppressWarnings("try")
     private Run capture(InstrumentSimulator simulator, CaptureRequest request, BooleanSupplier stop) throws Exception {
         SerialProfile profile = CaptureBench.scpiProfile();
         PortSettings settings = new SweepCapture(profile).portSettings("generator");
@@ -303,6 +305,8 @@ class SweepCaptureTest {
         assertEquals(5, AppendedSweep.reopen(stopped.sweepFile()).points().size());
     }
 
+    // the simulator is a resource only to be stopped at the end: it serves on its own thread
+    @SuppressWarnings("try")
     @Test
     void aStopRequestEndsCleanlyWithTheCompletedPointsOnDiskAndTheGeneratorOff() throws Exception {
         AtomicInteger points = new AtomicInteger();

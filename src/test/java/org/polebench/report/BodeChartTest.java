@@ -54,7 +54,7 @@ class BodeChartTest {
         assertTrue(plot.getDomainAxis().getLowerBound() > 0);
         assertTrue(plot.getDomainAxis().getLowerBound() < 1);
         assertEquals(2, plot.getSubplots().size());
-        XYPlot gain = (XYPlot) plot.getSubplots().get(0);
+        XYPlot gain = plot.getSubplots().get(0);
         assertEquals(100, gain.getDataset().getItemCount(0));
     }
 
@@ -86,7 +86,7 @@ class BodeChartTest {
         }
         BodeChart chart = new BodeChart("branch").with(new BodeSeries.Measured("m", measured))
                 .with(new BodeSeries.Curve("c", curve));
-        XYPlot phase = (XYPlot) ((CombinedDomainXYPlot) chart.chart().getPlot()).getSubplots().get(1);
+        XYPlot phase = ((CombinedDomainXYPlot) chart.chart().getPlot()).getSubplots().get(1);
         for (int i = 0; i < 20; i++) {
             double y = phase.getDataset().getYValue(0, i);
             // 179.5° and −179.5° (≡ 180.5°) lie 0.5° and 1.5° from the curve's 179° on its branch;
