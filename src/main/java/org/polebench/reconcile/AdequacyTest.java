@@ -16,8 +16,9 @@ import org.polebench.measure.SweepPoint;
 import org.polebench.units.Decibels;
 
 /**
- * Tests whether the most probable hypothesis explains the sweep (docs/method.md, "Does the stage explain the sweep?"),
- * by three checks, each at the level {@value #ALPHA}:
+ * Tests whether the most probable hypothesis explains the sweep
+ * (docs/method.md, "Does the stage explain the sweep?"), by four checks, each at the level
+ * {@value #ALPHA}:
  * <ol>
  * <li>where every point states its σ: χ² of the best hypothesis against the χ² distribution with
  *     ν = N − k, k the effective number of parameters the data fix;</li>
