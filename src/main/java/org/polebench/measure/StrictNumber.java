@@ -22,30 +22,12 @@ final class StrictNumber {
     private static final long FAST_MANTISSA_LIMIT = 1L << 53;
     private static final int MIN_EXP10 = -348;
     private static final int MAX_EXP10 = 347;
-    /** 10^e as a 128-bit mantissa rounded down, top bit set: [2i] high 64 bits, [2i+1] low. */
-    private static final long[] POWERS_128 = new long[2 * (MAX_EXP10 - MIN_EXP10 + 1)];
 
     static {
         double power = 1;
         for (int i = 0; i < POWERS_OF_TEN.length; i++) {
             POWERS_OF_TEN[i] = power;
             power *= 10;
-        }
-        java.math.BigInteger ten = java.math.BigInteger.TEN;
-        java.math.BigInteger mask = java.math.BigInteger.ONE.shiftLeft(64).subtract(java.math.BigInteger.ONE);
-        for (int e = MIN_EXP10; e <= MAX_EXP10; e++) {
-            java.math.BigInteger v;
-            if (e >= 0) {
-                v = ten.pow(e);
-                int bits = v.bitLength();
-                v = bits >= 128 ? v.shiftRight(bits - 128) : v.shiftLeft(128 - bits);
-            } else {
-                java.math.BigInteger d = ten.pow(-e);
-                v = java.math.BigInteger.ONE.shiftLeft(127 + d.bitLength()).divide(d);
-            }
-            int i = 2 * (e - MIN_EXP10);
-            POWERS_128[i] = v.shiftRight(64).longValue();
-            POWERS_128[i + 1] = v.and(mask).longValue();
         }
     }
 
@@ -161,8 +143,8 @@ final class StrictNumber {
         long man = mantissa << clz;
         long retExp2 = ((217706L * exp10) >> 16) + 64 + 1023 - clz;
         int row = 2 * (exp10 - MIN_EXP10);
-        long powHi = POWERS_128[row];
-        long powLo = POWERS_128[row + 1];
+        long powHi = Powers128.TABLE[row];
+        long powLo = Powers128.TABLE[row + 1];
         long xHi = unsignedMultiplyHigh(man, powHi);
         long xLo = man * powHi;
         if ((xHi & 0x1FF) == 0x1FF && Long.compareUnsigned(xLo + man, man) < 0) {
@@ -208,5 +190,36 @@ final class StrictNumber {
 
     private static boolean isBlank(char c) {
         return c == ' ' || c == '\t';
+    }
+
+    /**
+     * 10^e as a 128-bit mantissa rounded down, top bit set: [2i] high 64 bits, [2i+1] low. A
+     * holder class, so that the 696 BigInteger divisions run only when a number first needs the
+     * Eisel–Lemire step (JLS 12.4.1: a class is initialised on first use), not on every start.
+     */
+    private static final class Powers128 {
+        static final long[] TABLE = new long[2 * (MAX_EXP10 - MIN_EXP10 + 1)];
+
+        static {
+            java.math.BigInteger ten = java.math.BigInteger.TEN;
+            java.math.BigInteger mask = java.math.BigInteger.ONE.shiftLeft(64).subtract(java.math.BigInteger.ONE);
+            for (int e = MIN_EXP10; e <= MAX_EXP10; e++) {
+                java.math.BigInteger v;
+                if (e >= 0) {
+                    v = ten.pow(e);
+                    int bits = v.bitLength();
+                    v = bits >= 128 ? v.shiftRight(bits - 128) : v.shiftLeft(128 - bits);
+                } else {
+                    java.math.BigInteger d = ten.pow(-e);
+                    v = java.math.BigInteger.ONE.shiftLeft(127 + d.bitLength()).divide(d);
+                }
+                int i = 2 * (e - MIN_EXP10);
+                TABLE[i] = v.shiftRight(64).longValue();
+                TABLE[i + 1] = v.and(mask).longValue();
+            }
+        }
+
+        private Powers128() {
+        }
     }
 }

@@ -30,6 +30,18 @@ class ProfileLibraryTest {
     }
 
     @Test
+    void everyShippedProfileIsNamedForItsFile() throws Exception {
+        // the library finds a shipped profile by name without reading the others, which holds only
+        // while name and file agree (ProfileLibrary's Javadoc)
+        List<String> stems = Files.readAllLines(Path.of("instrument-profiles", "index.txt")).stream()
+                .filter(l -> !l.isBlank() && !l.startsWith("#")).map(l -> l.replaceFirst("\\.yaml$", "")).toList();
+        assertEquals(stems, ProfileLibrary.bundled().profiles().stream().map(InstrumentProfile::name).toList());
+        for (String stem : stems) {
+            assertEquals(stem, new ProfileReader().read(Path.of("instrument-profiles", stem + ".yaml")).name());
+        }
+    }
+
+    @Test
     void shipsAtLeastSixTableLayoutsAndTwoSerialProtocols() {
         ProfileLibrary library = ProfileLibrary.bundled();
         assertTrue(library.tableProfiles().size() - 1 >= 6, "six table profiles besides canonical");
