@@ -142,9 +142,10 @@ final class StrictNumber {
         int clz = Long.numberOfLeadingZeros(mantissa);
         long man = mantissa << clz;
         long retExp2 = ((217706L * exp10) >> 16) + 64 + 1023 - clz;
-        int row = 2 * (exp10 - MIN_EXP10);
-        long powHi = Powers128.TABLE[row];
-        long powLo = Powers128.TABLE[row + 1];
+        long[] table = Math.abs(exp10) <= Powers128Near.REACH ? Powers128Near.TABLE : Powers128.TABLE;
+        int row = 2 * (exp10 - (table == Powers128.TABLE ? MIN_EXP10 : -Powers128Near.REACH));
+        long powHi = table[row];
+        long powLo = table[row + 1];
         long xHi = unsignedMultiplyHigh(man, powHi);
         long xLo = man * powHi;
         if ((xHi & 0x1FF) == 0x1FF && Long.compareUnsigned(xLo + man, man) < 0) {
@@ -192,32 +193,46 @@ final class StrictNumber {
         return c == ' ' || c == '\t';
     }
 
-    /**
-     * 10^e as a 128-bit mantissa rounded down, top bit set: [2i] high 64 bits, [2i+1] low. A
-     * holder class, so that the 696 BigInteger divisions run only when a number first needs the
-     * Eisel–Lemire step (JLS 12.4.1: a class is initialised on first use), not on every start.
-     */
-    private static final class Powers128 {
-        static final long[] TABLE = new long[2 * (MAX_EXP10 - MIN_EXP10 + 1)];
-
-        static {
-            java.math.BigInteger ten = java.math.BigInteger.TEN;
-            java.math.BigInteger mask = java.math.BigInteger.ONE.shiftLeft(64).subtract(java.math.BigInteger.ONE);
-            for (int e = MIN_EXP10; e <= MAX_EXP10; e++) {
-                java.math.BigInteger v;
-                if (e >= 0) {
-                    v = ten.pow(e);
-                    int bits = v.bitLength();
-                    v = bits >= 128 ? v.shiftRight(bits - 128) : v.shiftLeft(128 - bits);
-                } else {
-                    java.math.BigInteger d = ten.pow(-e);
-                    v = java.math.BigInteger.ONE.shiftLeft(127 + d.bitLength()).divide(d);
-                }
-                int i = 2 * (e - MIN_EXP10);
-                TABLE[i] = v.shiftRight(64).longValue();
-                TABLE[i + 1] = v.and(mask).longValue();
-            }
+    /** 10^e as a 128-bit mantissa rounded down, top bit set: [0] high 64 bits, [1] low. */
+    private static long[] power128(int e) {
+        java.math.BigInteger v;
+        if (e >= 0) {
+            v = java.math.BigInteger.TEN.pow(e);
+            int bits = v.bitLength();
+            v = bits >= 128 ? v.shiftRight(bits - 128) : v.shiftLeft(128 - bits);
+        } else {
+            java.math.BigInteger d = java.math.BigInteger.TEN.pow(-e);
+            v = java.math.BigInteger.ONE.shiftLeft(127 + d.bitLength()).divide(d);
         }
+        return new long[] {v.shiftRight(64).longValue(), v.longValue()};
+    }
+
+    private static long[] table(int from, int to) {
+        long[] table = new long[2 * (to - from + 1)];
+        for (int e = from; e <= to; e++) {
+            long[] row = power128(e);
+            table[2 * (e - from)] = row[0];
+            table[2 * (e - from) + 1] = row[1];
+        }
+        return table;
+    }
+
+    /**
+     * The rows for 10^-40 … 10^40, which every sweep's numbers fall in, apart from the full table:
+     * holder classes are initialised on first use (JLS 12.4.1), so a start-up builds 81 rows with
+     * BigInteger arithmetic, not 696.
+     */
+    private static final class Powers128Near {
+        static final int REACH = 40;
+        static final long[] TABLE = table(-REACH, REACH);
+
+        private Powers128Near() {
+        }
+    }
+
+    /** Every row, 10^{@value #MIN_EXP10} … 10^{@value #MAX_EXP10}, built when a number needs one beyond the near rows. */
+    private static final class Powers128 {
+        static final long[] TABLE = table(MIN_EXP10, MAX_EXP10);
 
         private Powers128() {
         }
