@@ -3,6 +3,7 @@ package org.polebench.cli;
 import java.io.IOException;
 import java.io.PrintWriter;
 import java.io.UncheckedIOException;
+import java.util.List;
 import org.polebench.InputProblem;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
@@ -14,18 +15,6 @@ import picocli.CommandLine.Command;
         description = "Reconciles an amplifier stage as designed with the same stage as built: "
                 + "predicts its low-frequency response, fits a bench sweep, finds the capacitor "
                 + "that explains the difference and writes a test report.",
-        subcommands = {
-                CommandLine.HelpCommand.class,
-                PredictCommand.class,
-                InspectCommand.class,
-                ProfilesCommand.class,
-                FitCommand.class,
-                ReconcileCommand.class,
-                ReportCommand.class,
-                SynthesizeCommand.class,
-                CaptureCommand.class,
-                SimulateCommand.class,
-        },
         exitCodeListHeading = "%nExit codes:%n",
         exitCodeList = {
                 "0:done; every verdict passed",
@@ -35,6 +24,24 @@ import picocli.CommandLine.Command;
                 "4:a verdict is incomplete: no check failed, but the sweep does not decide a limit (or the stage "
                         + "names none); never a pass"})
 public final class Main implements Runnable {
+
+    /**
+     * The subcommands, in the order the usage lists them. They are added in {@link #run}, not
+     * named in {@code @Command}: picocli builds the whole model of every command it is given
+     * (options, mixins, help sections) by reflection, which cost about a tenth of a second of
+     * every start; a command line that names its subcommand gets only that one's model.
+     */
+    private static final List<Class<?>> SUBCOMMANDS = List.of(
+            CommandLine.HelpCommand.class,
+            PredictCommand.class,
+            InspectCommand.class,
+            ProfilesCommand.class,
+            FitCommand.class,
+            ReconcileCommand.class,
+            ReportCommand.class,
+            SynthesizeCommand.class,
+            CaptureCommand.class,
+            SimulateCommand.class);
 
     @CommandLine.Spec
     CommandLine.Model.CommandSpec spec;
@@ -46,6 +53,9 @@ public final class Main implements Runnable {
     /** Runs one command line with the given writers; returns the exit code. Tests call this. */
     public static int run(String[] args, PrintWriter out, PrintWriter err) {
         CommandLine line = new CommandLine(new Main());
+        for (Class<?> subcommand : subcommandsFor(args)) {
+            line.addSubcommand(subcommand);
+        }
         line.setOut(out);
         line.setErr(err);
         line.setExecutionExceptionHandler(Main::handle);
@@ -53,6 +63,22 @@ public final class Main implements Runnable {
         out.flush();
         err.flush();
         return code;
+    }
+
+    /**
+     * @return the one subcommand the first argument names, when it names one other than
+     *         {@code help}; otherwise all of them (usage, help, a misspelt name's suggestions)
+     */
+    static List<Class<?>> subcommandsFor(String[] args) {
+        if (args.length > 0) {
+            for (Class<?> subcommand : SUBCOMMANDS) {
+                Command command = subcommand.getAnnotation(Command.class);
+                if (command != null && command.name().equals(args[0]) && subcommand != CommandLine.HelpCommand.class) {
+                    return List.of(subcommand);
+                }
+            }
+        }
+        return SUBCOMMANDS;
     }
 
     @Override
