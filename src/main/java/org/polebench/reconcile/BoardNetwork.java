@@ -215,6 +215,58 @@ final class BoardNetwork {
         return result;
     }
 
+    /** |d ln I / d ln R| from which a resistor counts as setting a transistor's bias current. */
+    static final double BIAS_SETTER_SENSITIVITY = 0.3;
+    /** The ± step of the central difference, on ln R: 10 %. */
+    private static final double SENSITIVITY_STEP = Math.log(1.1);
+
+    /**
+     * Which resistors set each transistor's bias current: each resistor goes to the transistor
+     * whose current it moves most, when |d ln I / d ln R| (a central difference over ±10 % at the
+     * nominal parts, the bias solved again for each) is at least {@value #BIAS_SETTER_SENSITIVITY}:
+     * a divider or emitter resistor moves the current about one for one or more, a collector or
+     * load resistor hardly at all. A sweep shows the current, not which of these set it.
+     *
+     * @return per transistor in the stage's order, the resistors in the stage's order; a
+     *         transistor no resistor sets has an empty list
+     */
+    List<BiasSetters> biasSetters() {
+        int m = transistors.size();
+        List<List<String>> setters = new ArrayList<>();
+        for (int t = 0; t < m; t++) {
+            setters.add(new ArrayList<>());
+        }
+        double[] up = new double[m];
+        double[] down = new double[m];
+        double[] sourceBody = new double[m];
+        for (int r = 0; r < resistors.size(); r++) {
+            double[] values = nominalValues.clone();
+            values[resistorParts[r]] *= Math.exp(SENSITIVITY_STEP);
+            boolean upSolved = bias.solveInRegion(values, up, sourceBody);
+            values[resistorParts[r]] = nominalValues[resistorParts[r]] * Math.exp(-SENSITIVITY_STEP);
+            if (!upSolved || !bias.solveInRegion(values, down, sourceBody)) {
+                continue;   // a step of 10 % leaves the amplifying region: no sensitivity to speak of
+            }
+            int most = -1;
+            double largest = 0;
+            for (int t = 0; t < m; t++) {
+                double sensitivity = Math.abs(Math.log(up[t] / down[t])) / (2 * SENSITIVITY_STEP);
+                if (sensitivity > largest) {
+                    largest = sensitivity;
+                    most = t;
+                }
+            }
+            if (most >= 0 && largest >= BIAS_SETTER_SENSITIVITY) {
+                setters.get(most).add(resistors.get(r));
+            }
+        }
+        List<BiasSetters> out = new ArrayList<>();
+        for (int t = 0; t < m; t++) {
+            out.add(new BiasSetters(transistors.get(t), setters.get(t)));
+        }
+        return out;
+    }
+
     /** @return the network parameters all at their nominal values (zeros) */
     double[] nominal() {
         double[] zeros = new double[size()];

@@ -32,6 +32,8 @@ final class HypothesisSearch {
     private final List<Candidate> candidates = new ArrayList<>();
     private boolean pairsRanked;
     private Diagnosis last;
+    /** Made at the first ranking, on the calling thread. */
+    private List<BiasSetters> biasSetters;
     /** A second board model and the thread it runs on, for half the single faults; null for one thread. */
     private final Supplier<BoardModel> secondModel;
     private final Executor helper;
@@ -505,7 +507,10 @@ final class HypothesisSearch {
         BestResiduals residuals = residuals(scaled.get(topIndex), points.get(topIndex), candidates.get(topIndex));
         NoiseBasis noise = new NoiseBasis(measured.stated(), FaultRanking.DEFAULT_GAIN_SIGMA_DB,
                 FaultRanking.DEFAULT_PHASE_SIGMA_DEG, magnitudeScale, phaseScale);
-        return new Diagnosis(hypotheses, noise, measured.withPhase(), pairsRanked, residuals);
+        if (biasSetters == null) {
+            biasSetters = model.board().biasSetters();
+        }
+        return new Diagnosis(hypotheses, noise, measured.withPhase(), pairsRanked, residuals, biasSetters);
     }
 
     /** Gain and phase scales further apart than this ratio: the near hypotheses are solved again. */

@@ -3,6 +3,7 @@ package org.polebench.report;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
+import java.util.Optional;
 import org.polebench.reconcile.Diagnosis;
 import org.polebench.reconcile.Hypothesis;
 import org.polebench.reconcile.HypothesisKind;
@@ -10,6 +11,7 @@ import org.polebench.reconcile.ModelAdequacy;
 import org.polebench.reconcile.ParameterEstimate;
 import org.polebench.reconcile.ParameterKind;
 import org.polebench.reconcile.PartReading;
+import org.polebench.reconcile.SharedCause;
 import org.polebench.units.EngineeringValue;
 
 /**
@@ -191,10 +193,35 @@ public final class DiagnosisText {
             return "no hypothesis explains the sweep; the closest is \"" + closest.label()
                     + "\" (probabilities are relative among hypotheses that do not explain it)";
         }
+        Optional<SharedCause> shared = diagnosis.sharedCause();
+        if (shared.isPresent()) {
+            return sharedCause(shared.get());
+        }
         if (diagnosis.mostLikely().isEmpty()) {
             return "none can be named: the most probable, \"" + diagnosis.top().label()
                     + "\", is not identifiable from this sweep";
         }
         return statement(diagnosis.mostLikely().get());
+    }
+
+    /**
+     * @return "Q1's bias current is off (reads ×0.58), and this sweep cannot tell which part set
+     *         it: R2 55.1 %, Q1 bias current 13.4 %, RE 4.0 % (together 72.5 %); …"
+     */
+    static String sharedCause(SharedCause shared) {
+        StringBuilder parts = new StringBuilder();
+        String reads = "";
+        for (Hypothesis member : shared.members()) {
+            ParameterEstimate estimate = member.culprit().orElseThrow();
+            if (estimate.parameter().kind() == ParameterKind.BIAS) {
+                reads = " (reads ×" + factor(estimate.factor()) + ")";
+            }
+            parts.append(parts.length() == 0 ? "" : ", ").append(member.label())
+                    .append(String.format(Locale.ROOT, " %.1f %%", 100 * member.probability()));
+        }
+        return shared.transistor() + "'s bias current is off" + reads + ", and this sweep cannot tell which part set "
+                + "it: " + parts + String.format(Locale.ROOT, " (together %.1f %%)", 100 * shared.probability())
+                + "; the sweep shows the current, not its cause: measure " + shared.transistor()
+                + "'s terminal voltages and the resistors named to tell";
     }
 }

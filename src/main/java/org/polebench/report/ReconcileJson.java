@@ -23,6 +23,7 @@ import org.polebench.reconcile.ParameterEstimate;
 import org.polebench.reconcile.ParameterKind;
 import org.polebench.reconcile.ReconcileResult;
 import org.polebench.reconcile.RootMatch;
+import org.polebench.reconcile.SharedCause;
 import org.polebench.reconcile.SideBySide;
 import org.polebench.reconcile.Verdict;
 
@@ -76,6 +77,23 @@ public final class ReconcileJson {
         root.put("pairs_ranked", result.diagnosis().pairsRanked());
         root.put("probabilities_relative", !result.adequacy().explained());
         root.put("most_likely", DiagnosisText.mostLikely(result.diagnosis(), result.adequacy()));
+        // the "most likely" line names a transistor's bias current, not one part, when the
+        // evidence splits among the parts that set it (only where the stage explains the sweep)
+        Optional<SharedCause> shared = result.adequacy().explained() ? result.diagnosis().sharedCause() : Optional.empty();
+        if (shared.isPresent()) {
+            ObjectNode cause = root.putObject("shared_cause");
+            cause.put("transistor", shared.get().transistor());
+            cause.put("probability", shared.get().probability());
+            ArrayNode members = cause.putArray("hypotheses");
+            for (Hypothesis member : shared.get().members()) {
+                ObjectNode row = members.addObject();
+                row.put("kind", member.kind().word());
+                row.put("part", member.culprit().orElseThrow().parameter().label());
+                row.put("probability", member.probability());
+            }
+        } else {
+            root.putNull("shared_cause");
+        }
         ArrayNode hypotheses = root.putArray("hypotheses");
         for (Hypothesis hypothesis : result.diagnosis().hypotheses()) {
             hypotheses.add(hypothesis(hypothesis));

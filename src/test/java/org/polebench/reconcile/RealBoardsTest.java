@@ -6,6 +6,7 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
+import java.util.Optional;
 import java.util.Set;
 import java.util.SplittableRandom;
 import java.util.TreeSet;
@@ -133,6 +134,7 @@ class RealBoardsTest {
         int wrong = 0;
         int dividers = 0;
         int dividersRight = 0;
+        int dividersShared = 0;
         for (int i = 0; i < results.size(); i++) {
             String[] c = cases[i % cases.length];
             Hypothesis top = results.get(i).diagnosis().top();
@@ -141,6 +143,12 @@ class RealBoardsTest {
             dividers += divider ? 1 : 0;
             if (parts(top).equals(Set.of(c[1])) && divider) {
                 dividersRight++;
+            }
+            // or the "most likely" line names Q1's bias current and R2 among its causes
+            Optional<SharedCause> shared = results.get(i).diagnosis().sharedCause();
+            if (divider && !parts(top).equals(Set.of(c[1])) && results.get(i).adequacy().explained()
+                    && shared.isPresent() && shared.get().members().stream().anyMatch(h -> parts(h).equals(Set.of(c[1])))) {
+                dividersShared++;
             }
             if (parts(top).equals(Set.of(c[1])) && !divider) {
                 right++;
@@ -152,15 +160,19 @@ class RealBoardsTest {
         }
         int emitterAndSource = results.size() - dividers;
         String summary = right + "/" + emitterAndSource + " emitter and source resistors right, " + covered
-                + " within U (k = 2); divider " + dividersRight + "/" + dividers + "\n  " + String.join("\n  ", lines);
+                + " within U (k = 2); divider " + dividersRight + "/" + dividers + " alone on top, "
+                + dividersShared + " more named as a cause of Q1's bias current\n  " + String.join("\n  ", lines);
         TestFigures.keep(getClass(), "resistorFaultsPutTheResistorOnTopWithinItsUncertainty", summary);
         // issue 11: the resistor on top in at least 90 %, its value within its expanded uncertainty
         assertTrue(right >= 0.9 * emitterAndSource, summary);
-        // A wrong divider resistor moves only the bias current, which R1, R2 and the bias
-        // hypothesis move alike: the evidence splits between them (measured 5/10 with R2 on
-        // top, the rest shared, none confidently wrong). Issue 11 asks 90 % here: NOT MET; this
-        // floor only keeps the present rate from falling.
+        // A wrong divider resistor moves only the bias current, which R1, R2, RE and the bias
+        // hypothesis move alike, and β spread hides the input resistance R2 also changes: the
+        // evidence splits between them. Issue 11 asks R2 on top in 90 % here: NOT MET (measured
+        // 5/10 alone). What the sweep does show is Q1's current: the "most likely" line then
+        // names Q1's bias current with R2 among its causes (Diagnosis.sharedCause), and R2 alone
+        // or that shared cause must be the answer on 80 % of these boards (measured 8/10).
         assertTrue(dividersRight >= 0.4 * dividers, summary);
+        assertTrue(dividersRight + dividersShared >= 0.8 * dividers, summary);
         // U at k = 2 covers about 95 % (GUM 6.3); 85 % of the right ones leaves room for 40 boards' scatter
         assertTrue(covered >= 0.85 * right, summary);
         assertTrue(wrong == 0, summary);
@@ -182,12 +194,16 @@ class RealBoardsTest {
         }, results);
         long noFault = results.stream().filter(r -> r.diagnosis().top().kind() == HypothesisKind.NONE).count();
         long wrong = lines.stream().filter(l -> l.endsWith("WRONG")).count();
-        String summary = noFault + "/" + results.size() + " no fault on top\n  " + String.join("\n  ", lines);
+        long shared = results.stream().filter(r -> r.diagnosis().sharedCause().isPresent()).count();
+        String summary = noFault + "/" + results.size() + " no fault on top, " + shared
+                + " named a transistor's bias current as the shared cause\n  " + String.join("\n  ", lines);
         TestFigures.keep(getClass(), "healthyBoardsWithBetaAtHalfAndTwiceNominalSayNoFault", summary);
         // issue 11: "no fault" on top for healthy boards with β at 0.5× and 2×; 90 % allows the
         // 10 % a Bayesian ranking at these priors may give a part within tolerance
         assertTrue(noFault >= 0.9 * results.size(), summary);
         assertTrue(wrong == 0, summary);
+        // nor is a healthy board's current called off (measured 0/24; the same 10 % allowance)
+        assertTrue(shared <= 0.1 * results.size(), summary);
     }
 
     @Test
