@@ -103,7 +103,12 @@ public final class DiagnosisText {
         } else if (!adequacy.looksLikeStage()) {
             text.append("This sweep does not look like a board of this stage: ");
         } else {
-            text.append("The stage does not explain the sweep: no hypothesis fits it as well as the noise allows; ");
+            boolean onlyParts = adequacy.findings().stream()
+                    .allMatch(f -> f == ModelAdequacy.Finding.PARTS_OUTSIDE_TOLERANCE);
+            text.append(onlyParts
+                    ? "The stage does not explain the sweep: the best hypothesis fits it only with parts it holds "
+                    + "within tolerance far outside it; "
+                    : "The stage does not explain the sweep: no hypothesis fits it as well as the noise allows; ");
         }
         text.append(String.join("; ", evidence(adequacy))).append('.');
         if (!adequacy.explained()) {
@@ -132,11 +137,12 @@ public final class DiagnosisText {
                     evidence.add(finding(finding));
                     break;
                 case PARTS_OUTSIDE_TOLERANCE:
-                    evidence.add(adequacy.partsOutsideTolerance().isEmpty()
+                    List<String> parts = adequacy.partsOutsideTolerance();
+                    evidence.add(parts.isEmpty()
                             ? "the parts it holds within tolerance sit far from their tolerances as a set ("
                             + pEquals(adequacy.tolerancePValue()) + ")"
-                            : String.join(", ", adequacy.partsOutsideTolerance())
-                            + " would have to lie far outside their tolerances");
+                            : String.join(", ", parts) + " would have to lie far outside "
+                            + (parts.size() == 1 ? "its tolerance" : "their tolerances"));
                     break;
                 case FAR_FROM_EVERY_HYPOTHESIS:
                     evidence.add(finding(finding));
