@@ -23,7 +23,7 @@ import org.junit.jupiter.api.Test;
  * The package layout of docs/contributing.md, "Layout": every main source file uses only the
  * polebench packages its own package may use, so dependencies run one way. A plain scan of
  * {@code import org.polebench.x…} lines and of fully qualified {@code org.polebench.x.Type} uses
- * in code (comments left out); the table below is the one in contributing.md and in each
+ * in code (comments left out); the table below is the one in docs/contributing.md and in each
  * {@code package-info.java}.
  */
 class LayoutTest {
