@@ -4,9 +4,9 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.OptionalDouble;
 import java.util.Random;
-import org.polebench.measure.Provenance;
-import org.polebench.measure.Sweep;
-import org.polebench.measure.SweepPoint;
+import org.polebench.sweep.Provenance;
+import org.polebench.sweep.Sweep;
+import org.polebench.sweep.SweepPoint;
 
 /**
  * Sweeps for the benchmarks: a common-emitter stage (K = 42, two DC zeros, a zero at 4.2 Hz,

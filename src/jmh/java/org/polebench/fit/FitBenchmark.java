@@ -16,9 +16,9 @@ import org.openjdk.jmh.annotations.Setup;
 import org.openjdk.jmh.annotations.State;
 import org.polebench.InputProblem;
 import org.polebench.ThreadCpuTime;
-import org.polebench.measure.ProfileLibrary;
-import org.polebench.measure.Sweep;
-import org.polebench.measure.SweepReader;
+import org.polebench.profile.ProfileLibrary;
+import org.polebench.sweep.Sweep;
+import org.polebench.sweepfile.SweepReader;
 
 /**
  * One fit of a 100-point sweep with order selection up to four poles (issue 4 target: under

@@ -15,14 +15,14 @@ import org.openjdk.jmh.annotations.State;
 import org.openjdk.jmh.annotations.Warmup;
 import org.polebench.InputProblem;
 import org.polebench.ThreadCpuTime;
-import org.polebench.analysis.StageAnalysis;
-import org.polebench.analysis.StagePrediction;
-import org.polebench.analysis.ToleranceSpread;
+import org.polebench.spread.StageAnalysis;
+import org.polebench.spread.StagePrediction;
+import org.polebench.spread.ToleranceSpread;
 import org.polebench.circuit.StageReader;
-import org.polebench.measure.BoardSynthesizer;
-import org.polebench.measure.Fault;
-import org.polebench.measure.Sweep;
-import org.polebench.measure.SweepNoise;
+import org.polebench.synth.BoardSynthesizer;
+import org.polebench.synth.Fault;
+import org.polebench.sweep.Sweep;
+import org.polebench.synth.SweepNoise;
 
 /**
  * Issue 5's speed target: the full reconcile of a five-capacitor stage (the Ostrova demo stage,

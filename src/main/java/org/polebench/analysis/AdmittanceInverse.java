@@ -1,6 +1,6 @@
 package org.polebench.analysis;
 
-import org.polebench.circuit.RealLu;
+import org.polebench.linalg.RealLu;
 
 /**
  * Y⁻¹ (ohms) of one port reduction, from the LU of the row-equilibrated Y that the reduction's

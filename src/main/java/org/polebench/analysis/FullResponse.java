@@ -5,6 +5,7 @@ import java.util.Optional;
 import org.apache.commons.math3.complex.Complex;
 import org.polebench.circuit.NetworkElement;
 import org.polebench.circuit.SmallSignalNetwork;
+import org.polebench.linalg.ComplexLu;
 
 /**
  * The response V(out)/V(stimulus) of the whole network at one frequency, every capacitor (both

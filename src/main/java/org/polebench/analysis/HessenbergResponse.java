@@ -12,7 +12,7 @@ package org.polebench.analysis;
  *
  * <p>The reduction holds one loop level per method, and the evaluation, whose loops run k
  * times per level, no outer iteration with an empty inner range (as in
- * {@link org.polebench.circuit.RealLu}, which says why): a tolerance spread builds one of these
+ * {@link org.polebench.linalg.RealLu}, which says why): a tolerance spread builds one of these
  * per board and evaluates it a few dozen times, in a cold JVM.
  */
 final class HessenbergResponse {

@@ -1,7 +1,7 @@
 package org.polebench.analysis;
 
 import java.util.Optional;
-import org.polebench.circuit.RealLu;
+import org.polebench.linalg.RealLu;
 
 /**
  * Factors an {@link MnaSystem} once (LU with partial pivoting, {@link RealLu}: the arithmetic of

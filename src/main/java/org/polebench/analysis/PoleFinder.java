@@ -1,38 +1,28 @@
 package org.polebench.analysis;
 
-import java.util.Arrays;
-import java.util.Comparator;
+import java.util.ArrayList;
+import java.util.List;
 import java.util.Optional;
-import org.apache.commons.math3.exception.MathIllegalStateException;
-import org.apache.commons.math3.exception.MathArithmeticException;
-import org.apache.commons.math3.linear.Array2DRowRealMatrix;
-import org.apache.commons.math3.linear.EigenDecomposition;
-import org.apache.commons.math3.linear.LUDecomposition;
+import org.polebench.linalg.EigenSolver;
+import org.polebench.linalg.Eigenpairs;
 
 /**
- * Eigenvalues of a real non-symmetric matrix, the recipe of docs/method.md, "Poles and zeros": Commons Math's
- * {@link EigenDecomposition} tests 2×2 Schur blocks against an absolute 1e-12, so it runs on
- * A/‖A‖ and the eigenvalues are scaled back; |Im λ| below {@code realShare}·|λ| is taken as real;
- * Σλ is checked against trace A, Πλ against an LU determinant, and each eigenpair by its
- * residual. Eigenvectors come from two steps of inverse iteration at a shift just off each
- * eigenvalue (Golub and Van Loan, Matrix Computations, 4th ed., §7.6.1), right ones from
- * A − μI and left ones from its transpose with the same factors. Immutable.
+ * Poles (or zeros) of a state matrix as a {@link Spectrum} in rad/s: the eigenvalues that
+ * {@link EigenSolver} finds by the recipe of docs/method.md, "Poles and zeros", with its checks.
+ * Immutable.
  */
 public final class PoleFinder {
     /** |Im λ| below this share of |λ| is round-off: the root is real (docs/method.md, "Poles and zeros"). */
-    public static final double DEFAULT_REAL_SHARE = 1e-9;
-    /** A scaled eigenvalue below this is taken as exactly zero (a structural zero at DC). */
-    static final double ZERO_SHARE = 1e-9;
-    private static final int INVERSE_ITERATIONS = 3;
+    public static final double DEFAULT_REAL_SHARE = EigenSolver.DEFAULT_REAL_SHARE;
 
-    private final double realShare;
+    private final EigenSolver solver;
 
     public PoleFinder() {
         this(DEFAULT_REAL_SHARE);
     }
 
     public PoleFinder(double realShare) {
-        this.realShare = realShare;
+        this.solver = new EigenSolver(realShare);
     }
 
     /**
@@ -41,161 +31,21 @@ public final class PoleFinder {
      * does not converge
      */
     public Optional<Spectrum> spectrum(double[][] a) {
-        return eigenpairs(a, false).map(Eigenpairs::spectrum);
+        return eigenpairs(a, false).map(PoleFinder::spectrum);
     }
 
-    /** @param snapZeros make eigenvalues below {@link #ZERO_SHARE}·‖A‖ exactly 0 (for zeros at DC) */
+    /** @param snapZeros make eigenvalues below {@link EigenSolver#ZERO_SHARE}·‖A‖ exactly 0 (for zeros at DC) */
     Optional<Eigenpairs> eigenpairs(double[][] a, boolean snapZeros) {
-        int n = a.length;
-        if (n == 0) {
-            return Optional.of(new Eigenpairs(new double[0], new double[0], new double[0][][], new double[0][][], 0, 0, 0));
-        }
-        double scale = 0;
-        for (double[] row : a) {
-            for (double v : row) {
-                scale = Math.max(scale, Math.abs(v));
-            }
-        }
-        if (scale == 0) {
-            scale = 1;
-        }
-        double[][] scaled = new double[n][n];
-        double frobenius = 0;
-        double trace = 0;
-        for (int i = 0; i < n; i++) {
-            for (int j = 0; j < n; j++) {
-                scaled[i][j] = a[i][j] / scale;
-                frobenius += scaled[i][j] * scaled[i][j];
-            }
-            trace += scaled[i][i];
-        }
-        frobenius = Math.sqrt(frobenius);
-        double[] re;
-        double[] im;
-        try {
-            EigenDecomposition eigen = new EigenDecomposition(new Array2DRowRealMatrix(scaled, false));
-            re = eigen.getRealEigenvalues();
-            im = eigen.getImagEigenvalues();
-        } catch (MathIllegalStateException | MathArithmeticException e) {
-            return Optional.empty();
-        }
-        Integer[] order = new Integer[n];
-        for (int i = 0; i < n; i++) {
-            order[i] = i;
-            double magnitude = Math.hypot(re[i], im[i]);
-            if (Math.abs(im[i]) < realShare * magnitude) {
-                im[i] = 0;
-            }
-            if (snapZeros && magnitude < ZERO_SHARE) {
-                re[i] = 0;
-                im[i] = 0;
-            }
-        }
-        final double[] r0 = re;
-        final double[] i0 = im;
-        Arrays.sort(order, Comparator.<Integer>comparingDouble(i -> Math.hypot(r0[i], i0[i]))
-                .thenComparingDouble(i -> -i0[i]));
-        double[] sre = new double[n];
-        double[] sim = new double[n];
-        double absSum = 0;
-        double sumRe = 0;
-        double prodRe = 1;
-        double prodIm = 0;
-        for (int i = 0; i < n; i++) {
-            sre[i] = re[order[i]];
-            sim[i] = im[order[i]];
-            absSum += Math.hypot(sre[i], sim[i]);
-            sumRe += sre[i];
-            double pr = prodRe * sre[i] - prodIm * sim[i];
-            prodIm = prodRe * sim[i] + prodIm * sre[i];
-            prodRe = pr;
-        }
-        double traceError = absSum > 0 ? Math.abs(sumRe - trace) / absSum : 0;
-        double det = new LUDecomposition(new Array2DRowRealMatrix(scaled, false), 0).getDeterminant();
-        double detSize = Math.max(Math.abs(det), Math.hypot(prodRe, prodIm));
-        double detError = detSize > 1e-300 ? Math.hypot(prodRe - det, prodIm) / detSize : 0;
-
-        double[][][] right = new double[n][][];
-        double[][][] left = new double[n][][];
-        double maxResidual = 0;
-        double[][] mr = new double[n][n];
-        double[][] mi = new double[n][n];
-        for (int m = 0; m < n; m++) {
-            double[][] vectors = eigenvectors(scaled, sre[m], sim[m], mr, mi);
-            right[m] = new double[][] {vectors[0], vectors[1]};
-            left[m] = new double[][] {vectors[2], vectors[3]};
-            maxResidual = Math.max(maxResidual, residual(scaled, sre[m], sim[m], vectors[0], vectors[1]) / frobenius);
-        }
-        for (int i = 0; i < n; i++) {
-            sre[i] *= scale;
-            sim[i] *= scale;
-        }
-        return Optional.of(new Eigenpairs(sre, sim, right, left, traceError, detError, maxResidual));
+        return solver.eigenpairs(a, snapZeros);
     }
 
-    // Inverse iteration at μ = λ + δ: δ is far below the gap to any other eigenvalue of a stage,
-    // and keeps the factors away from an exactly zero pivot.
-    private static double[][] eigenvectors(double[][] a, double lr, double li, double[][] mr, double[][] mi) {
-        int n = a.length;
-        double shift = 1e-11 * Math.hypot(lr, li) + 1e-14;
-        ComplexLu lu = new ComplexLu(mr, mi);
-        // an exactly zero pivot needs a larger shift; three tries cover any matrix (the third is 1e6 larger)
-        for (int attempt = 0; attempt < 3; attempt++, shift *= 1e3) {
-            for (int i = 0; i < n; i++) {
-                for (int j = 0; j < n; j++) {
-                    mr[i][j] = a[i][j];
-                    mi[i][j] = 0;
-                }
-                mr[i][i] -= lr + shift;
-                mi[i][i] -= li + shift;
-            }
-            if (lu.factor()) {
-                break;
-            }
+    /** @return the eigenvalues of {@code eigen} as roots in rad/s, in its order, with its checks */
+    static Spectrum spectrum(Eigenpairs eigen) {
+        List<ComplexFrequency> roots = new ArrayList<>(eigen.size());
+        for (int i = 0; i < eigen.size(); i++) {
+            roots.add(new ComplexFrequency(eigen.re(i), eigen.im(i)));
         }
-        double[] vr = new double[n];
-        double[] vi = new double[n];
-        double[] wr = new double[n];
-        double[] wi = new double[n];
-        for (int i = 0; i < n; i++) {
-            // a start vector with no special direction
-            vr[i] = 1 + 0.37 * i;
-            vi[i] = 0.11 * (n - i);
-            wr[i] = vr[i];
-            wi[i] = vi[i];
-        }
-        for (int step = 0; step < INVERSE_ITERATIONS; step++) {
-            lu.solve(vr, vi);
-            normalise(vr, vi);
-            lu.solveTransposed(wr, wi);
-            normalise(wr, wi);
-        }
-        return new double[][] {vr, vi, wr, wi};
-    }
-
-    private static void normalise(double[] xr, double[] xi) {
-        double norm = 0;
-        for (int i = 0; i < xr.length; i++) {
-            norm += xr[i] * xr[i] + xi[i] * xi[i];
-        }
-        norm = 1 / Math.sqrt(norm);
-        for (int i = 0; i < xr.length; i++) {
-            xr[i] *= norm;
-            xi[i] *= norm;
-        }
-    }
-
-    private static double residual(double[][] a, double lr, double li, double[] vr, double[] vi) {
-        double sum = 0;
-        for (int i = 0; i < a.length; i++) {
-            double rr = -(lr * vr[i] - li * vi[i]);
-            double ri = -(lr * vi[i] + li * vr[i]);
-            for (int j = 0; j < a.length; j++) {
-                rr += a[i][j] * vr[j];
-                ri += a[i][j] * vi[j];
-            }
-            sum += rr * rr + ri * ri;
-        }
-        return Math.sqrt(sum);
+        return new Spectrum(roots, eigen.traceRelativeError(), eigen.determinantRelativeError(),
+                eigen.maxRelativeResidual());
     }
 }

@@ -11,7 +11,7 @@ import org.apache.commons.math3.linear.SingularValueDecomposition;
 import org.polebench.circuit.Band;
 import org.polebench.circuit.NetworkElement;
 import org.polebench.circuit.SmallSignalNetwork;
-import org.polebench.circuit.RealLu;
+import org.polebench.linalg.RealLu;
 
 /**
  * Reduces the resistive network around one band's capacitors to the state-space model

@@ -1,5 +1,7 @@
 package org.polebench.analysis;
 
+import org.polebench.linalg.ComplexLu;
+
 /**
  * Evaluates H(jω) = C·(jωI − A)⁻¹·B + D of one {@link StateModel} at many frequencies with
  * preallocated work arrays, and keeps x = (jωI − A)⁻¹·B and, on request,

@@ -73,7 +73,7 @@ final class SpectralBound {
 
     /**
      * Raises {@code sums} to row i's Σ_j |b_ij| and column i's Σ_j |b_ji| (one loop per call:
-     * see {@link org.polebench.circuit.RealLu}).
+     * see {@link org.polebench.linalg.RealLu}).
      */
     private static void addSums(double[][] b, int i, double[] sums) {
         double row = 0;

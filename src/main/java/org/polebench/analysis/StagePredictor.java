@@ -7,6 +7,7 @@ import java.util.Optional;
 import java.util.OptionalDouble;
 import org.polebench.circuit.Band;
 import org.polebench.circuit.SmallSignalNetwork;
+import org.polebench.linalg.Eigenpairs;
 
 /**
  * The analysis entry point: port reduction of both bands, poles, zeros, the SCTC and OCTC
@@ -45,7 +46,7 @@ public final class StagePredictor {
             return noEigenvalues(model);
         }
         double d = model.directGain();
-        Optional<Spectrum> zeros = d == 0 ? Optional.empty() : zerosOf(model, eigen.get().spectrum());
+        Optional<Spectrum> zeros = d == 0 ? Optional.empty() : zerosOf(model, PoleFinder.spectrum(eigen.get()));
 
         SctcEstimate sctc = SctcEstimate.of(model);
         OptionalDouble lowerRadPerS = cornerFinder.lowerCornerRadPerS(model);
@@ -78,8 +79,8 @@ public final class StagePredictor {
                 }
             }
         }
-        return new Prediction(d, model, sctc, hz(lowerRadPerS), eigen.get().spectrum(), zeros, capacitorSensitivities,
-                poleSensitivities(eigen.get()), upper, upperProblem);
+        return new Prediction(d, model, sctc, hz(lowerRadPerS), PoleFinder.spectrum(eigen.get()), zeros,
+                capacitorSensitivities, poleSensitivities(eigen.get()), upper, upperProblem);
     }
 
     /**
@@ -94,7 +95,7 @@ public final class StagePredictor {
     }
 
     /** @return the low-band reduction of {@code network} laid out for many value sets ({@link PortReduction#prepare}) */
-    PortReduction.Prepared lowBandLayout(SmallSignalNetwork network) {
+    public PortReduction.Prepared lowBandLayout(SmallSignalNetwork network) {
         return reduction.prepare(network, Band.LOW);
     }
 
@@ -103,7 +104,7 @@ public final class StagePredictor {
      *            layout, {@link PortReduction#prepare})
      * @return as {@link #exactLowerCornerHz(SmallSignalNetwork)}
      */
-    OptionalDouble exactLowerCornerHz(Reduction low) {
+    public OptionalDouble exactLowerCornerHz(Reduction low) {
         if (low instanceof Reduction.Singular) {
             return OptionalDouble.empty();
         }
@@ -129,7 +130,7 @@ public final class StagePredictor {
      * that starts within three decades of the lowest pole could tell it from one.
      */
     private Optional<Spectrum> zerosOf(StateModel model, Spectrum poles) {
-        Optional<Spectrum> found = poleFinder.eigenpairs(zeroMatrix(model), true).map(Eigenpairs::spectrum);
+        Optional<Spectrum> found = poleFinder.eigenpairs(zeroMatrix(model), true).map(PoleFinder::spectrum);
         if (found.isEmpty() || poles.roots().isEmpty()) {
             return found;
         }
@@ -166,10 +167,10 @@ public final class StagePredictor {
         int n = eigen.size();
         List<PoleSensitivity> result = new ArrayList<>(n);
         for (int m = 0; m < n; m++) {
-            double[] vr = eigen.right[m][0];
-            double[] vi = eigen.right[m][1];
-            double[] wr = eigen.left[m][0];
-            double[] wi = eigen.left[m][1];
+            double[] vr = eigen.right(m)[0];
+            double[] vi = eigen.right(m)[1];
+            double[] wr = eigen.left(m)[0];
+            double[] wi = eigen.left(m)[1];
             double sr = 0;
             double si = 0;
             double[] pr = new double[n];
@@ -180,7 +181,7 @@ public final class StagePredictor {
                 sr += pr[i];
                 si += pi[i];
             }
-            ComplexFrequency pole = new ComplexFrequency(eigen.re[m], eigen.im[m]);
+            ComplexFrequency pole = new ComplexFrequency(eigen.re(m), eigen.im(m));
             double size = sr * sr + si * si;
             if (Math.sqrt(size) < REPEATED_POLE_CONDITION) {
                 result.add(new PoleSensitivity(pole, true, List.of()));

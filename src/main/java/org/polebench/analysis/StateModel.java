@@ -264,7 +264,7 @@ public final class StateModel {
     }
 
     /** @return an upper bound in rad/s on every pole's magnitude ({@link SpectralBound}) */
-    double largestPoleBound() {
+    public double largestPoleBound() {
         return largestPoleBound;
     }
 

@@ -8,6 +8,7 @@ import java.util.List;
 import java.util.Map;
 import java.util.Optional;
 import org.polebench.InputProblem;
+import org.polebench.linalg.RealLu;
 
 /**
  * Solves a stage's DC operating point by modified nodal analysis (MNA: Ho, Ruehli and Brennan,

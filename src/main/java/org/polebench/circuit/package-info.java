@@ -1,7 +1,7 @@
 /**
  * The stage model: nodes, parts, transistors, bias and the small-signal expansion, and the
  * stage-file reader. Produces a {@link org.polebench.circuit.SmallSignalNetwork} for analysis.
- * Uses units and yaml.
+ * Uses units, yaml and linalg.
  *
  * <p>Flow: {@link org.polebench.circuit.StageReader} reads a {@code *.stage.yaml} file into a
  * {@link org.polebench.circuit.Stage} (records; {@link org.polebench.circuit.Part} is sealed over

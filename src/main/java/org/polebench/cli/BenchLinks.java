@@ -8,10 +8,10 @@ import java.util.List;
 import java.util.Map;
 import java.util.function.Function;
 import org.polebench.InputProblem;
-import org.polebench.measure.LineTransport;
-import org.polebench.measure.PortSettings;
-import org.polebench.measure.SerialLine;
-import org.polebench.measure.TcpLine;
+import org.polebench.capture.LineTransport;
+import org.polebench.profile.PortSettings;
+import org.polebench.capture.SerialLine;
+import org.polebench.capture.TcpLine;
 
 /**
  * The links named on a command line, opened: {@code --port [NAME=]PATH} and

@@ -3,8 +3,8 @@ package org.polebench.cli;
 import java.io.PrintWriter;
 import java.time.Duration;
 import java.util.Locale;
-import org.polebench.measure.CaptureListener;
-import org.polebench.measure.CaptureProgress;
+import org.polebench.capture.CaptureListener;
+import org.polebench.capture.CaptureProgress;
 import org.polebench.units.EngineeringValue;
 
 /**

@@ -13,7 +13,7 @@ import org.polebench.fit.FitBand;
 import org.polebench.fit.FitResult;
 import org.polebench.fit.FitSettings;
 import org.polebench.fit.SweepFitter;
-import org.polebench.measure.ImportedSweep;
+import org.polebench.sweepfile.ImportedSweep;
 import org.polebench.report.BodeChart;
 import org.polebench.report.FitJson;
 import org.polebench.report.FitText;

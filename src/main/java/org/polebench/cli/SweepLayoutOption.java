@@ -2,9 +2,9 @@ package org.polebench.cli;
 
 import java.nio.file.Path;
 import org.polebench.InputProblem;
-import org.polebench.measure.ImportedSweep;
-import org.polebench.measure.ProfileLibrary;
-import org.polebench.measure.SweepReader;
+import org.polebench.sweepfile.ImportedSweep;
+import org.polebench.profile.ProfileLibrary;
+import org.polebench.sweepfile.SweepReader;
 import picocli.CommandLine.Option;
 
 /**

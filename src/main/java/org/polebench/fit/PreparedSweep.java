@@ -4,8 +4,8 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import org.polebench.InputProblem;
-import org.polebench.measure.Sweep;
-import org.polebench.measure.SweepPoint;
+import org.polebench.sweep.Sweep;
+import org.polebench.sweep.SweepPoint;
 import org.polebench.units.Decibels;
 
 /**

@@ -4,7 +4,7 @@ import java.util.ArrayList;
 import java.util.List;
 import org.polebench.InputProblem;
 import org.polebench.InputWarning;
-import org.polebench.measure.Sweep;
+import org.polebench.sweep.Sweep;
 import org.polebench.units.Decibels;
 
 /**

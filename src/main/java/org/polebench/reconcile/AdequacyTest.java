@@ -7,12 +7,12 @@ import org.apache.commons.math3.complex.Complex;
 import org.apache.commons.math3.distribution.ChiSquaredDistribution;
 import org.apache.commons.math3.distribution.FDistribution;
 import org.apache.commons.math3.distribution.NormalDistribution;
-import org.polebench.analysis.CornerSpread;
+import org.polebench.spread.CornerSpread;
 import org.polebench.fit.DroppedPoint;
 import org.polebench.fit.Estimate;
 import org.polebench.fit.FitResult;
-import org.polebench.measure.Sweep;
-import org.polebench.measure.SweepPoint;
+import org.polebench.sweep.Sweep;
+import org.polebench.sweep.SweepPoint;
 import org.polebench.units.Decibels;
 
 /**

@@ -11,6 +11,7 @@ import org.polebench.circuit.Band;
 import org.polebench.circuit.OperatingPoints;
 import org.polebench.circuit.SmallSignalNetwork;
 import org.polebench.circuit.Stage;
+import org.polebench.linalg.SweptPortEquations;
 
 /**
  * The stage's own exact response at the sweep's frequencies as a function of the back-solve's

@@ -11,7 +11,7 @@ import org.polebench.circuit.Resistor;
 import org.polebench.circuit.Stage;
 import org.polebench.circuit.Tolerance;
 import org.polebench.circuit.Transistor;
-import org.polebench.measure.Sweep;
+import org.polebench.sweep.Sweep;
 import org.polebench.units.Decibels;
 
 /**

@@ -7,6 +7,7 @@ import java.util.Optional;
 import java.util.concurrent.CompletableFuture;
 import java.util.concurrent.Executor;
 import java.util.function.Supplier;
+import org.polebench.linalg.Cholesky;
 
 /**
  * The hypotheses of one sweep on one stage, searched as {@link FaultRanking} describes: the

@@ -1,5 +1,7 @@
 package org.polebench.reconcile;
 
+import org.polebench.linalg.Cholesky;
+
 /**
  * The maximum a posteriori point of one hypothesis, with what the Laplace approximation needs.
  * Arrays are owned by this object and copied out.

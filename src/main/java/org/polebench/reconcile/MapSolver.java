@@ -1,6 +1,7 @@
 package org.polebench.reconcile;
 
 import java.util.Optional;
+import org.polebench.linalg.Cholesky;
 
 /**
  * Levenberg–Marquardt on a {@link Misfit} (Marquardt, J. SIAM 11(2), 1963; Nocedal and Wright,

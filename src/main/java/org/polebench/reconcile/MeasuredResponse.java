@@ -1,7 +1,7 @@
 package org.polebench.reconcile;
 
-import org.polebench.measure.Sweep;
-import org.polebench.measure.SweepPoint;
+import org.polebench.sweep.Sweep;
+import org.polebench.sweep.SweepPoint;
 import org.polebench.units.Decibels;
 
 /**

@@ -1,6 +1,7 @@
 package org.polebench.reconcile;
 
 import java.util.Optional;
+import org.polebench.linalg.Cholesky;
 
 /**
  * The misfit's quadratic model at one point θ₀: JᵀJ and Jᵀr of the data rows, with the gain

@@ -2,9 +2,9 @@ package org.polebench.reconcile;
 
 import java.util.List;
 import java.util.Optional;
-import org.polebench.analysis.StagePrediction;
+import org.polebench.spread.StagePrediction;
 import org.polebench.fit.FitResult;
-import org.polebench.measure.Sweep;
+import org.polebench.sweep.Sweep;
 
 /**
  * Everything {@code polebench reconcile} shows: the prediction, the measurement, their

@@ -13,16 +13,16 @@ import java.util.concurrent.ForkJoinPool;
 import org.apache.commons.math3.complex.Complex;
 import org.polebench.InputProblem;
 import org.polebench.analysis.ComplexFrequency;
-import org.polebench.analysis.CornerSpread;
+import org.polebench.spread.CornerSpread;
 import org.polebench.analysis.Prediction;
-import org.polebench.analysis.StagePrediction;
+import org.polebench.spread.StagePrediction;
 import org.polebench.fit.Estimate;
 import org.polebench.fit.FitResult;
 import org.polebench.fit.FitSettings;
 import org.polebench.fit.FittedRoot;
 import org.polebench.fit.RootStatus;
 import org.polebench.fit.SweepFitter;
-import org.polebench.measure.Sweep;
+import org.polebench.sweep.Sweep;
 
 /**
  * The whole reconcile job for one stage and one sweep (issue 5): fit the sweep starting from

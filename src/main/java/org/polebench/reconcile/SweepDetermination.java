@@ -7,8 +7,8 @@ import org.polebench.fit.FitBand;
 import org.polebench.fit.FitResult;
 import org.polebench.fit.FittedRoot;
 import org.polebench.fit.RootStatus;
-import org.polebench.measure.Sweep;
-import org.polebench.measure.SweepPoint;
+import org.polebench.sweep.Sweep;
+import org.polebench.sweep.SweepPoint;
 
 /**
  * Whether the sweep itself determines each quantity a limit holds (issue 11, "Verdicts only from

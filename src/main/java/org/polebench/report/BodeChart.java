@@ -31,8 +31,8 @@ import org.jfree.data.xy.YIntervalSeriesCollection;
 import org.polebench.InputProblem;
 import org.polebench.fit.FitResult;
 import org.polebench.fit.FittedModel;
-import org.polebench.measure.Sweep;
-import org.polebench.measure.SweepPoint;
+import org.polebench.sweep.Sweep;
+import org.polebench.sweep.SweepPoint;
 
 /**
  * A Bode plot: gain (dB) above phase (°) on a shared logarithmic frequency axis, with any number

@@ -9,10 +9,10 @@ import java.util.OptionalDouble;
 import org.polebench.InputWarning;
 import org.polebench.analysis.CapacitorSensitivity;
 import org.polebench.analysis.ComplexFrequency;
-import org.polebench.analysis.CornerSpread;
+import org.polebench.spread.CornerSpread;
 import org.polebench.analysis.Prediction;
 import org.polebench.analysis.SctcTerm;
-import org.polebench.analysis.StagePrediction;
+import org.polebench.spread.StagePrediction;
 import org.polebench.analysis.UpperBand;
 import org.polebench.circuit.OperatingPoint;
 

@@ -8,9 +8,9 @@ import java.util.List;
 import java.util.Optional;
 import org.apache.commons.math3.complex.Complex;
 import org.polebench.analysis.FullResponse;
-import org.polebench.analysis.GainSpread;
+import org.polebench.spread.GainSpread;
 import org.polebench.analysis.Prediction;
-import org.polebench.analysis.ResponseSpread;
+import org.polebench.spread.ResponseSpread;
 import org.polebench.fit.FittedModel;
 import org.polebench.reconcile.ReconcileResult;
 

@@ -10,9 +10,9 @@ import java.time.format.DateTimeFormatter;
 import java.time.temporal.ChronoUnit;
 import java.util.List;
 import java.util.Optional;
-import org.polebench.analysis.ResponseSpread;
-import org.polebench.measure.Provenance;
-import org.polebench.measure.SweepPoint;
+import org.polebench.spread.ResponseSpread;
+import org.polebench.sweep.Provenance;
+import org.polebench.sweep.SweepPoint;
 import org.polebench.reconcile.ParameterEstimate;
 import org.polebench.reconcile.ReconcileResult;
 

@@ -13,6 +13,7 @@ import org.ejml.dense.row.CommonOps_ZDRM;
 import org.junit.jupiter.api.Test;
 import org.polebench.circuit.Band;
 import org.polebench.circuit.SmallSignalNetwork;
+import org.polebench.linalg.ComplexLu;
 
 /** Our MNA solves against EJML (an independent linear-algebra library) on the same matrices. */
 class MnaSolverTest {

@@ -16,11 +16,11 @@ import java.util.regex.Pattern;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.Timeout;
 import org.junit.jupiter.api.io.TempDir;
-import org.polebench.measure.ProfileLibrary;
-import org.polebench.measure.PseudoTerminalPair;
-import org.polebench.measure.Sweep;
-import org.polebench.measure.SweepPoint;
-import org.polebench.measure.SweepReader;
+import org.polebench.profile.ProfileLibrary;
+import org.polebench.capture.PseudoTerminalPair;
+import org.polebench.sweep.Sweep;
+import org.polebench.sweep.SweepPoint;
+import org.polebench.sweepfile.SweepReader;
 
 /** The capture and simulate commands end to end: real pseudo-terminals and loopback sockets, no mocks. */
 @Timeout(180)

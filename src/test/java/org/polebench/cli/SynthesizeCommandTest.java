@@ -11,9 +11,9 @@ import java.nio.file.Path;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.polebench.InputProblem;
-import org.polebench.measure.ProfileLibrary;
-import org.polebench.measure.Sweep;
-import org.polebench.measure.SweepReader;
+import org.polebench.profile.ProfileLibrary;
+import org.polebench.sweep.Sweep;
+import org.polebench.sweepfile.SweepReader;
 
 class SynthesizeCommandTest {
     private static final String STAGE = "sample-measurements/hydrophone-preamp-ce.stage.yaml";

@@ -14,9 +14,9 @@ import org.apache.commons.math3.complex.Complex;
 import org.junit.jupiter.api.Test;
 import org.polebench.InputProblem;
 import org.polebench.InputWarning;
-import org.polebench.measure.Provenance;
-import org.polebench.measure.Sweep;
-import org.polebench.measure.SweepPoint;
+import org.polebench.sweep.Provenance;
+import org.polebench.sweep.Sweep;
+import org.polebench.sweep.SweepPoint;
 
 class FitScenarioTest {
     // a common-emitter stage: two coupling zeros at DC, a bypass zero, three poles (synthetic truth)

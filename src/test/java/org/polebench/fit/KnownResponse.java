@@ -4,9 +4,9 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.OptionalDouble;
 import java.util.Random;
-import org.polebench.measure.Provenance;
-import org.polebench.measure.Sweep;
-import org.polebench.measure.SweepPoint;
+import org.polebench.sweep.Provenance;
+import org.polebench.sweep.Sweep;
+import org.polebench.sweep.SweepPoint;
 
 /**
  * A test's ground truth: H(s) = K·sᵐ·Π(s − zᵢ)/Π(s − pᵢ)·1/(1 + s/ω_h) written out directly in

@@ -13,8 +13,8 @@ import org.ejml.interfaces.linsol.LinearSolverDense;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.ValueSource;
 import org.polebench.InputProblem;
-import org.polebench.measure.Sweep;
-import org.polebench.measure.SweepPoint;
+import org.polebench.sweep.Sweep;
+import org.polebench.sweep.SweepPoint;
 
 class LinearisedStepTest {
     // a common-emitter stage, noisy (seed 21), so the system is a real overdetermined one

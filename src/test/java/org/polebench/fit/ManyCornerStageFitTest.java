@@ -10,9 +10,9 @@ import java.util.Random;
 import org.apache.commons.math3.analysis.solvers.BrentSolver;
 import org.junit.jupiter.api.Test;
 import org.polebench.InputProblem;
-import org.polebench.measure.Provenance;
-import org.polebench.measure.Sweep;
-import org.polebench.measure.SweepPoint;
+import org.polebench.sweep.Provenance;
+import org.polebench.sweep.Sweep;
+import org.polebench.sweep.SweepPoint;
 
 /**
  * A two-stage amplifier's low band with five closely spaced poles, three zeros at DC and two

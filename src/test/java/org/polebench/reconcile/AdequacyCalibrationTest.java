@@ -11,13 +11,13 @@ import java.util.stream.IntStream;
 import org.junit.jupiter.api.Test;
 import org.polebench.InputProblem;
 import org.polebench.TestFigures;
-import org.polebench.analysis.StageAnalysis;
-import org.polebench.analysis.StagePrediction;
-import org.polebench.analysis.ToleranceSpread;
+import org.polebench.spread.StageAnalysis;
+import org.polebench.spread.StagePrediction;
+import org.polebench.spread.ToleranceSpread;
 import org.polebench.circuit.StageFile;
-import org.polebench.measure.Fault;
-import org.polebench.measure.Sweep;
-import org.polebench.measure.SweepNoise;
+import org.polebench.synth.Fault;
+import org.polebench.sweep.Sweep;
+import org.polebench.synth.SweepNoise;
 
 /**
  * Issue 11: the adequacy test's false-alarm rate on boards the stage does explain. Each board is

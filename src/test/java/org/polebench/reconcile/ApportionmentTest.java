@@ -17,9 +17,9 @@ import org.polebench.InputProblem;
 import org.polebench.analysis.StagePredictor;
 import org.polebench.circuit.SmallSignalExpansion;
 import org.polebench.circuit.Stage;
-import org.polebench.measure.Fault;
-import org.polebench.measure.Sweep;
-import org.polebench.measure.SweepNoise;
+import org.polebench.synth.Fault;
+import org.polebench.sweep.Sweep;
+import org.polebench.synth.SweepNoise;
 
 /**
  * Issue 5: the linearised apportionment agrees with the full back-solve for a 1 % change in one

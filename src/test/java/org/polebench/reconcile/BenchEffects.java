@@ -3,8 +3,8 @@ package org.polebench.reconcile;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.OptionalDouble;
-import org.polebench.measure.Sweep;
-import org.polebench.measure.SweepPoint;
+import org.polebench.sweep.Sweep;
+import org.polebench.sweep.SweepPoint;
 
 /**
  * Things real benches do to a sweep that the stage's model does not know, applied to a

@@ -8,7 +8,7 @@ import org.apache.commons.math3.complex.Complex;
 import org.junit.jupiter.api.Test;
 import org.polebench.InputProblem;
 import org.polebench.analysis.FullResponse;
-import org.polebench.measure.BoardSynthesizer;
+import org.polebench.synth.BoardSynthesizer;
 
 /**
  * The back-solve's board model, evaluated over a whole sweep at once, against the complex MNA

@@ -12,13 +12,13 @@ import java.util.Optional;
 import java.util.SplittableRandom;
 import org.junit.jupiter.api.Test;
 import org.polebench.InputProblem;
-import org.polebench.measure.Fault;
-import org.polebench.measure.ProfileLibrary;
-import org.polebench.measure.Provenance;
-import org.polebench.measure.Sweep;
-import org.polebench.measure.SweepNoise;
-import org.polebench.measure.SweepReader;
-import org.polebench.measure.SweepWriter;
+import org.polebench.synth.Fault;
+import org.polebench.profile.ProfileLibrary;
+import org.polebench.sweep.Provenance;
+import org.polebench.sweep.Sweep;
+import org.polebench.synth.SweepNoise;
+import org.polebench.sweepfile.SweepReader;
+import org.polebench.sweepfile.SweepWriter;
 
 /**
  * The bundled faulty-board sweep that {@code polebench reconcile} runs on with no arguments:
@@ -36,7 +36,7 @@ class BundledDemoSweepTest {
         SplittableRandom random = new SplittableRandom(SEED);
         List<Fault> faults = demo.boardWith(new Fault.CapacitorValue("C2", 220e-9), random);
         Sweep sweep = demo.sweep(faults, SweepNoise.BENCH,
-                org.polebench.measure.BoardSynthesizer.logSpaced(0.5, 5000, 81), random.nextLong());
+                org.polebench.synth.BoardSynthesizer.logSpaced(0.5, 5000, 81), random.nextLong());
         List<String> notes = new ArrayList<>();
         notes.add("demo data, invented: board GF2-0417 of the made-up Ostrova geophone front end, as if swept at "
                 + "the invented Kellmarra field station");

@@ -20,10 +20,10 @@ import org.polebench.circuit.Stage;
 import org.polebench.circuit.StageReader;
 import org.polebench.circuit.Tolerance;
 import org.polebench.circuit.Transistor;
-import org.polebench.measure.BoardSynthesizer;
-import org.polebench.measure.Fault;
-import org.polebench.measure.Sweep;
-import org.polebench.measure.SweepNoise;
+import org.polebench.synth.BoardSynthesizer;
+import org.polebench.synth.Fault;
+import org.polebench.sweep.Sweep;
+import org.polebench.synth.SweepNoise;
 
 /**
  * One demo stage (sample-measurements/, invented demo data) with what a back-solve needs, and

@@ -7,12 +7,12 @@ import java.nio.file.Path;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.CsvSource;
 import org.polebench.InputProblem;
-import org.polebench.analysis.StageAnalysis;
-import org.polebench.analysis.ToleranceSpread;
+import org.polebench.spread.StageAnalysis;
+import org.polebench.spread.ToleranceSpread;
 import org.polebench.circuit.StageReader;
-import org.polebench.measure.ProfileLibrary;
-import org.polebench.measure.Sweep;
-import org.polebench.measure.SweepReader;
+import org.polebench.profile.ProfileLibrary;
+import org.polebench.sweep.Sweep;
+import org.polebench.sweepfile.SweepReader;
 
 /**
  * The bundled demo boards (sample-measurements/boards/, invented demo data), read with the

@@ -7,9 +7,9 @@ import java.util.List;
 import java.util.SplittableRandom;
 import org.junit.jupiter.api.Test;
 import org.polebench.InputProblem;
-import org.polebench.measure.Fault;
-import org.polebench.measure.Sweep;
-import org.polebench.measure.SweepNoise;
+import org.polebench.synth.Fault;
+import org.polebench.sweep.Sweep;
+import org.polebench.synth.SweepNoise;
 
 /**
  * Issue 11: where the sweep states no point σ, the gain and the phase noise are estimated apart

@@ -8,10 +8,10 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.polebench.InputProblem;
-import org.polebench.measure.BoardSynthesizer;
-import org.polebench.measure.Fault;
-import org.polebench.measure.Sweep;
-import org.polebench.measure.SweepNoise;
+import org.polebench.synth.BoardSynthesizer;
+import org.polebench.synth.Fault;
+import org.polebench.sweep.Sweep;
+import org.polebench.synth.SweepNoise;
 
 /** Parameters a sweep cannot see are flagged and never blamed (issue 5, item 3). */
 class NotIdentifiableTest {

@@ -6,13 +6,13 @@ import java.util.List;
 import java.util.SplittableRandom;
 import org.junit.jupiter.api.Test;
 import org.polebench.InputProblem;
-import org.polebench.analysis.StageAnalysis;
-import org.polebench.analysis.StagePrediction;
-import org.polebench.analysis.ToleranceSpread;
+import org.polebench.spread.StageAnalysis;
+import org.polebench.spread.StagePrediction;
+import org.polebench.spread.ToleranceSpread;
 import org.polebench.circuit.StageFile;
-import org.polebench.measure.Fault;
-import org.polebench.measure.Sweep;
-import org.polebench.measure.SweepNoise;
+import org.polebench.synth.Fault;
+import org.polebench.sweep.Sweep;
+import org.polebench.synth.SweepNoise;
 
 /**
  * The ranking shares half its single faults out to a second thread with a board model of its

@@ -10,9 +10,9 @@ import java.util.SplittableRandom;
 import org.junit.jupiter.api.Test;
 import org.polebench.InputProblem;
 import org.polebench.TestFigures;
-import org.polebench.measure.Fault;
-import org.polebench.measure.Sweep;
-import org.polebench.measure.SweepNoise;
+import org.polebench.synth.Fault;
+import org.polebench.sweep.Sweep;
+import org.polebench.synth.SweepNoise;
 
 /**
  * Issue 5's acceptance check: seeded synthetic boards from the demo stages, each with one known

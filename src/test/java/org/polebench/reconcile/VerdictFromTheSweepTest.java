@@ -13,17 +13,17 @@ import java.util.SplittableRandom;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.polebench.InputProblem;
-import org.polebench.analysis.StageAnalysis;
-import org.polebench.analysis.StagePrediction;
-import org.polebench.analysis.ToleranceSpread;
+import org.polebench.spread.StageAnalysis;
+import org.polebench.spread.StagePrediction;
+import org.polebench.spread.ToleranceSpread;
 import org.polebench.circuit.StageReader;
-import org.polebench.measure.BoardSynthesizer;
-import org.polebench.measure.Fault;
-import org.polebench.measure.ProfileLibrary;
-import org.polebench.measure.Sweep;
-import org.polebench.measure.SweepNoise;
-import org.polebench.measure.SweepReader;
-import org.polebench.measure.SweepWriter;
+import org.polebench.synth.BoardSynthesizer;
+import org.polebench.synth.Fault;
+import org.polebench.profile.ProfileLibrary;
+import org.polebench.sweep.Sweep;
+import org.polebench.synth.SweepNoise;
+import org.polebench.sweepfile.SweepReader;
+import org.polebench.sweepfile.SweepWriter;
 
 /**
  * Issue 11, "Verdicts only from what the sweep shows": a limit is decided only from a quantity

@@ -22,7 +22,7 @@ import org.polebench.InputProblem;
 import org.polebench.fit.FitResult;
 import org.polebench.fit.FitSettings;
 import org.polebench.fit.SweepFitter;
-import org.polebench.measure.Sweep;
+import org.polebench.sweep.Sweep;
 
 class BodeChartTest {
 

@@ -16,8 +16,8 @@ import org.polebench.fit.FitResult;
 import org.polebench.fit.FitSettings;
 import org.polebench.fit.KnownResponse;
 import org.polebench.fit.SweepFitter;
-import org.polebench.measure.Sweep;
-import org.polebench.measure.SweepPoint;
+import org.polebench.sweep.Sweep;
+import org.polebench.sweep.SweepPoint;
 
 class FitTextTest {
 

@@ -1,7 +1,7 @@
 package org.polebench.report;
 
 import org.polebench.fit.KnownResponse;
-import org.polebench.measure.Sweep;
+import org.polebench.sweep.Sweep;
 
 /**
  * Sweeps of a known common-emitter response for the report tests (synthetic truth):

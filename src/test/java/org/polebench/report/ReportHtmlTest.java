@@ -22,13 +22,13 @@ import org.jsoup.nodes.Document;
 import org.jsoup.nodes.Element;
 import org.jsoup.select.Elements;
 import org.junit.jupiter.api.Test;
-import org.polebench.analysis.StageAnalysis;
+import org.polebench.spread.StageAnalysis;
 import org.polebench.circuit.Stage;
 import org.polebench.circuit.StageReader;
-import org.polebench.measure.BoardSynthesizer;
-import org.polebench.measure.Fault;
-import org.polebench.measure.Sweep;
-import org.polebench.measure.SweepNoise;
+import org.polebench.synth.BoardSynthesizer;
+import org.polebench.synth.Fault;
+import org.polebench.sweep.Sweep;
+import org.polebench.synth.SweepNoise;
 
 class ReportHtmlTest {
     private static final ReportStamp STAMP = new ReportStamp("PB-20260314-0A1B2C3D", Instant.parse("2026-03-14T09:30:00Z"));

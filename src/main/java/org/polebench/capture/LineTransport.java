@@ -1,0 +1,50 @@
+package org.polebench.capture;
+
+import java.io.Closeable;
+import java.io.IOException;
+import java.util.Optional;
+
+/**
+ * A line-oriented link to an instrument: a serial port ({@link SerialLine}) or a raw TCP
+ * socket ({@link TcpLine}, the form networked instruments offer, commonly on port 5025).
+ * Lines go out with the profile's line ending; lines come in split at it, decoded as UTF-8
+ * with undecodable bytes replaced (line noise or a wrong baud rate), so a garbled line is
+ * still a line to log.
+ *
+ * <p>One transport belongs to one thread at a time.
+ */
+public sealed interface LineTransport extends Closeable permits SerialLine, TcpLine {
+
+    /** @return what the link is, for messages and the transcript, such as {@code serial /dev/ttyUSB0} */
+    String describe();
+
+    /**
+     * @return true when the far end is on this machine (a pseudo-terminal or a loopback
+     *         socket), so no instrument of the bench is behind it
+     */
+    boolean local();
+
+    /**
+     * Sends one line and its line ending.
+     *
+     * @throws PortLostException when the port or connection is gone
+     */
+    void send(String line) throws IOException;
+
+    /**
+     * Waits for the next complete line.
+     *
+     * @param timeoutMs how long to wait, in milliseconds; 0 only takes a line already received
+     * @return the line without its ending, or empty when none is complete within the time
+     * @throws PortLostException when the port or connection is gone (any partial line is then
+     *                           in {@link #unfinishedLine()})
+     */
+    Optional<String> receive(long timeoutMs) throws IOException;
+
+    /** @return text received after the last complete line, empty when there is none */
+    String unfinishedLine();
+
+    /** Closes the link; closing twice does nothing. */
+    @Override
+    void close();
+}

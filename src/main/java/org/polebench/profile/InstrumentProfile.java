@@ -1,0 +1,27 @@
+package org.polebench.profile;
+
+import java.nio.file.Path;
+import java.util.Optional;
+
+/**
+ * How to read one kind of instrument's output: a table layout or a serial line protocol.
+ * Profiles live in {@code instrument-profiles/*.yaml} (this project's own format, see
+ * docs/user-guide.md, "Instrument profiles") and are read by {@link ProfileReader}.
+ */
+public sealed interface InstrumentProfile permits TableProfile, SerialProfile {
+    /** @return the profile's name, used with {@code --profile} */
+    String name();
+
+    /** @return one line saying what layout or protocol it reads */
+    String description();
+
+    /** @return the YAML file it was read from; empty for profiles made in code */
+    Optional<Path> source();
+
+    /** @return how raw readings become Hz, dB and degrees */
+    ReadingScale scale();
+
+    InstrumentAccuracy accuracy();
+
+    ReadingLimits limits();
+}

@@ -1,0 +1,31 @@
+package org.polebench.profile;
+
+import java.nio.file.Path;
+import java.util.Objects;
+import java.util.Optional;
+
+/** A profile that maps a delimited text table onto a sweep. */
+public record TableProfile(String name, String description, TableLayout layout, TableColumns columns,
+                           ReadingScale scale, InstrumentAccuracy accuracy, ReadingLimits limits,
+                           Optional<Path> source) implements InstrumentProfile {
+    public TableProfile {
+        Objects.requireNonNull(name);
+        Objects.requireNonNull(description);
+        if ((scale.gainForm() == GainForm.AMPLITUDES) != columns.inputAmplitude().isPresent()) {
+            throw new IllegalArgumentException("profile " + name + ": the gain form and the columns disagree");
+        }
+        if (!layout.header() && anyByName(columns)) {
+            throw new IllegalArgumentException("profile " + name + ": without a header, columns must be numbered");
+        }
+    }
+
+    private static boolean anyByName(TableColumns c) {
+        return !c.frequency().byNumber()
+                || c.gain().map(r -> !r.byNumber()).orElse(false)
+                || c.inputAmplitude().map(r -> !r.byNumber()).orElse(false)
+                || c.outputAmplitude().map(r -> !r.byNumber()).orElse(false)
+                || c.phase().map(r -> !r.byNumber()).orElse(false)
+                || c.gainUncertainty().map(r -> !r.byNumber()).orElse(false)
+                || c.phaseUncertainty().map(r -> !r.byNumber()).orElse(false);
+    }
+}

@@ -1,0 +1,8 @@
+/**
+ * Instrument profiles: how a table file or a serial instrument lays out its readings
+ * ({@link org.polebench.profile.TableProfile}, {@link org.polebench.profile.SerialProfile}), the
+ * reading scale and limits, the instrument's accuracy, SCPI command templates, the profile
+ * reader (every key with its line) and the bundled {@link org.polebench.profile.ProfileLibrary}.
+ * Uses units, yaml and sweep; reads and writes no sweep file.
+ */
+package org.polebench.profile;

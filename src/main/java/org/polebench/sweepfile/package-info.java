@@ -1,0 +1,9 @@
+/**
+ * Import and export of sweep files: layout sniffing, the streaming table parser and the
+ * serial-log parser, the conversion of readings into sweep points with the data checks,
+ * {@link org.polebench.sweepfile.SweepReader}, {@link org.polebench.sweepfile.SweepWriter} and
+ * the canonical file that a live capture fills row by row
+ * ({@link org.polebench.sweepfile.AppendedSweep}).
+ * Uses units, sweep and profile; knows nothing of serial ports, circuits or fits.
+ */
+package org.polebench.sweepfile;

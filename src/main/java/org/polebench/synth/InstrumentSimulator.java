@@ -1,0 +1,462 @@
+package org.polebench.synth;
+
+import java.io.IOException;
+import java.util.ArrayDeque;
+import java.util.ArrayList;
+import java.util.Deque;
+import java.util.List;
+import java.util.Locale;
+import java.util.Optional;
+import java.util.Set;
+import java.util.SplittableRandom;
+import java.util.function.BooleanSupplier;
+import java.util.function.Consumer;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
+import org.apache.commons.math3.complex.Complex;
+import org.polebench.capture.LineTransport;
+import org.polebench.capture.PortLostException;
+import org.polebench.capture.SweepPlan;
+import org.polebench.profile.CommandRole;
+import org.polebench.profile.GainForm;
+import org.polebench.profile.LineProtocol;
+import org.polebench.profile.ReadingScale;
+import org.polebench.profile.ScpiCommand;
+import org.polebench.profile.SerialProfile;
+import org.polebench.units.Decibels;
+import org.polebench.units.StrictNumber;
+
+/**
+ * Plays the instruments of a serial profile on a line: answers the profile's commands as the
+ * instruments would, measuring a {@link BoardResponse}, with Gaussian noise on gain and phase,
+ * and on request misbehaves ({@link Misbehaviour}). It never measures anything real: its
+ * identity says it is a simulation, and it exists for tests, demos and trying a profile.
+ *
+ * <p>SCPI profiles: every command of the setup, step and finish lists, the identity queries
+ * and the error query is recognised by its template (blanks and letter case are free, as
+ * SCPI-99 vol. 1 §6.1 allows; from memory). The frequency command sets the frequency; a level
+ * command sets the level unless it is above the profile's maximum, which queues the error
+ * {@code -222,"Data out of range"} (SCPI-99 error numbers, from memory); {@code *OPC?} answers
+ * 1; {@code *CLS} empties the error queue; readings answer in the profile's units (amplitudes in
+ * its kind, phase in its unit and sign, folded into one turn when it says so), an amplitude at or
+ * above the profile's full scale as SCPI's overrange value 9.9E37; an unknown command queues
+ * {@code -113,"Undefined header"}.
+ *
+ * <p>Streaming profiles: the simulator answers the identity query and, on the start command,
+ * streams {@code BEGIN <n>}, then {@code PT <i> <Hz> <dB> <deg>} per log-spaced point and
+ * {@code END <n>} (the line format of the shipped {@code streaming-sweeper} profile; a profile
+ * whose point pattern does not read these lines is refused). The stop command ends a sweep.
+ *
+ * <p>Noise is drawn per frequency from a generator seeded by the seed and the frequency's bits,
+ * gain first, then phase, so the same frequency always reads the same: a resumed capture sees
+ * exactly what an uninterrupted one would have.
+ *
+ * <p>Holds configuration only; {@link #session()} holds a bench's state, shared by the ports
+ * its instruments are on.
+ */
+public final class InstrumentSimulator {
+    private static final Pattern NUMBER_GROUP = Pattern.compile("\\{(start_hz_nr3|stop_hz_nr3|points|amplitude_nr3)\\}");
+    private static final String NO_ERROR = "0,\"No error\"";
+    /** How long a closing simulator lets its last lines travel before it closes, in ms. */
+    private static final long LINGER_MS = 500;
+
+    private final SerialProfile profile;
+    private final BoardResponse board;
+    private final SweepNoise noise;
+    private final long seed;
+    private final List<Misbehaviour> misbehaviours;
+
+    /**
+     * @param noise the Gaussian noise on gain and phase
+     * @param seed  seed of the noise
+     * @throws IllegalArgumentException for a streaming profile whose point pattern does not
+     *                                  read the simulator's point lines
+     */
+    public InstrumentSimulator(SerialProfile profile, BoardResponse board, SweepNoise noise, long seed,
+                               List<Misbehaviour> misbehaviours) {
+        this.profile = profile;
+        this.board = board;
+        this.noise = noise;
+        this.seed = seed;
+        this.misbehaviours = List.copyOf(misbehaviours);
+        if (profile.protocol() instanceof LineProtocol.StreamedLines) {
+            LineProtocol.StreamedLines stream = (LineProtocol.StreamedLines) profile.protocol();
+            String sample = pointLine(1, 1234.5, -3.25, 45.5);
+            Matcher m = stream.point().matcher(sample);
+            if (profile.scale().gainForm() == GainForm.AMPLITUDES || !m.matches()
+                    || Math.abs(StrictNumber.parse(m.group("frequency"), false) - 1234.5) > 1e-6) {
+                throw new IllegalArgumentException("the simulator streams lines such as '" + sample
+                        + "', which the profile's point pattern does not read");
+            }
+        }
+    }
+
+    /**
+     * @return the identity the simulator gives, in the four fields of IEEE 488.2 {@code *IDN?}:
+     *         one for every instrument, since instruments sharing a line cannot be told apart
+     */
+    public String identity() {
+        return "polebench,simulated bench (no real instrument),SIM-0001,1.0";
+    }
+
+    /** @return a fresh bench: frequency, level, error queue, misbehaviour counters */
+    public Session session() {
+        return new Session();
+    }
+
+    /** Why {@link Session#serve} returned. */
+    public enum End {
+        /** The far end closed the line. */
+        LINE_LOST,
+        /** A {@link Misbehaviour.Kind#CLOSE} misbehaviour closed it. */
+        CLOSED_ON_PURPOSE,
+        /** The stop signal was raised. */
+        STOPPED
+    }
+
+    /**
+     * The state of one simulated bench. Its instruments may sit on several lines, each
+     * served on its own thread; the state is shared and guarded by the session's lock.
+     */
+    public final class Session {
+        private double frequencyHz = 1000;
+        private double level;
+        private final Deque<String> errors = new ArrayDeque<>();
+        private final List<Known> commands = new ArrayList<>();
+        private final Set<Misbehaviour> fired = java.util.Collections.newSetFromMap(new java.util.IdentityHashMap<>());
+        private final List<Misbehaviour> armed = new ArrayList<>();
+        private int frequencyCommands;
+        private int pointsStreamed;
+
+        private Session() {
+            if (profile.protocol() instanceof LineProtocol.ScpiExchange) {
+                LineProtocol.ScpiExchange scpi = (LineProtocol.ScpiExchange) profile.protocol();
+                level = scpi.amplitude();
+                for (LineProtocol.ScpiInstrument instrument : scpi.instruments()) {
+                    commands.add(new Known(new ScpiCommand(instrument.name(), instrument.identify(),
+                            CommandRole.IDENTIFIES)));
+                }
+                scpi.step().forEach(c -> commands.add(new Known(c)));
+                scpi.setup().forEach(c -> commands.add(new Known(c)));
+                scpi.finish().forEach(c -> commands.add(new Known(c)));
+                commands.add(new Known(new ScpiCommand(scpi.instruments().get(0).name(), scpi.errorQuery(),
+                        CommandRole.READS_ERROR_QUEUE)));
+            } else {
+                level = ((LineProtocol.StreamedLines) profile.protocol()).amplitude();
+            }
+        }
+
+        /**
+         * Answers the line until it is lost, a close misbehaviour closes it, or stop is raised.
+         *
+         * @param sent receives every line the simulator sends, as sent, on the serving thread
+         */
+        public End serve(LineTransport line, BooleanSupplier stop, Consumer<String> sent) throws IOException {
+            try {
+                while (!stop.getAsBoolean()) {
+                    Optional<String> received;
+                    try {
+                        received = line.receive(50);
+                    } catch (PortLostException e) {
+                        return End.LINE_LOST;
+                    }
+                    if (received.isEmpty()) {
+                        continue;
+                    }
+                    boolean open = profile.protocol() instanceof LineProtocol.ScpiExchange
+                            ? scpiLine(line, received.get().strip(), sent)
+                            : streamLine(line, received.get().strip(), stop, sent);
+                    if (!open) {
+                        // lines written just before are still on their way through the port;
+                        // closing at once could discard them, which the misbehaviour is not
+                        // meant to do
+                        pause(LINGER_MS);
+                        line.close();
+                        return End.CLOSED_ON_PURPOSE;
+                    }
+                }
+                return End.STOPPED;
+            } catch (PortLostException e) {
+                return End.LINE_LOST;
+            }
+        }
+
+        // ---- SCPI -----------------------------------------------------------------------
+
+        /** @return false when a misbehaviour closed the line */
+        private boolean scpiLine(LineTransport line, String text, Consumer<String> sent) throws IOException {
+            Optional<String> answer;
+            synchronized (this) {
+                Known known = match(text);
+                if (known == null) {
+                    errors.add("-113,\"Undefined header\"");
+                    return true;
+                }
+                if (known.command.role() == CommandRole.SETS_FREQUENCY) {
+                    frequencyCommands++;
+                    arm(frequencyCommands);
+                    if (take(Misbehaviour.Kind.CLOSE).isPresent()) {
+                        return false;
+                    }
+                }
+                answer = answer(known, text);
+            }
+            if (answer.isPresent()) {
+                send(line, answer.get(), sent);
+            }
+            return true;
+        }
+
+        private Known match(String text) {
+            for (Known known : commands) {
+                if (known.pattern.matcher(text).matches()) {
+                    return known;
+                }
+            }
+            return null;
+        }
+
+        private Optional<String> answer(Known known, String text) {
+            LineProtocol.ScpiExchange scpi = (LineProtocol.ScpiExchange) profile.protocol();
+            ReadingScale scale = profile.scale();
+            switch (known.command.role()) {
+                case SETS_FREQUENCY: {
+                    double value = argument(known, text);
+                    if (value > 0 && Double.isFinite(value)) {
+                        frequencyHz = scale.hertz(value);
+                    } else {
+                        errors.add("-222,\"Data out of range\"");
+                    }
+                    return Optional.empty();
+                }
+                case SETS_AMPLITUDE: {
+                    double value = argument(known, text);
+                    if (value > 0 && value <= scpi.maxAmplitude()) {
+                        level = value;
+                    } else {
+                        errors.add("-222,\"Data out of range\"");
+                    }
+                    return Optional.empty();
+                }
+                case SETTING:
+                    // the setup sets the level after any *RST; resetting it here would let the
+                    // meter's *RST undo the generator's level, since the bench shares one state
+                    if (text.equalsIgnoreCase("*CLS")) {
+                        errors.clear();
+                    }
+                    return Optional.empty();
+                case IDENTIFIES:
+                    return Optional.of(identity());
+                case WAITS_FOR_COMPLETION:
+                    return Optional.of("1");
+                case READS_ERROR_QUEUE:
+                    return Optional.of(errors.isEmpty() ? NO_ERROR : errors.poll());
+                case READS_INPUT_AMPLITUDE:
+                    return Optional.of(amplitude(level));
+                case READS_OUTPUT_AMPLITUDE:
+                    return Optional.of(amplitude(level * Decibels.toRatio(measuredGainDb(frequencyHz))));
+                case READS_GAIN:
+                    return Optional.of(ScpiCommand.nr3(scale.gainForm() == GainForm.RATIO
+                            ? Decibels.toRatio(measuredGainDb(frequencyHz)) : measuredGainDb(frequencyHz)));
+                case READS_PHASE:
+                    return Optional.of(ScpiCommand.nr3(scale.rawPhase(measuredPhaseDeg(frequencyHz))));
+                default:
+                    throw new IllegalStateException("no answer for role " + known.command.role());
+            }
+        }
+
+        /** @return the reading, or SCPI's overrange value 9.9E37 at or above the profile's full scale */
+        private String amplitude(double volts) {
+            if (profile.limits().fullScale().isPresent() && volts >= profile.limits().fullScale().getAsDouble()) {
+                return "9.9E37";
+            }
+            return ScpiCommand.nr3(volts);
+        }
+
+        private double argument(Known known, String text) {
+            Matcher m = known.pattern.matcher(text);
+            return m.matches() ? ScpiCommand.argumentOf(m) : Double.NaN;
+        }
+
+        // ---- streaming ------------------------------------------------------------------
+
+        private boolean streamLine(LineTransport line, String text, BooleanSupplier stop, Consumer<String> sent)
+                throws IOException {
+            LineProtocol.StreamedLines stream = (LineProtocol.StreamedLines) profile.protocol();
+            if (!stream.identify().isBlank() && text.equalsIgnoreCase(stream.identify())) {
+                send(line, identity(), sent);
+                return true;
+            }
+            Matcher start = startPattern(stream.start()).matcher(text);
+            if (!start.matches()) {
+                if (!text.equalsIgnoreCase(stream.stop())) {
+                    send(line, "ERR -113 unknown command", sent);
+                }
+                return true;
+            }
+            double from = profile.scale().hertz(StrictNumber.parse(start.group("start"), false));
+            double to = profile.scale().hertz(StrictNumber.parse(start.group("stop"), false));
+            int n;
+            try {
+                n = Integer.parseInt(start.group("points"));
+            } catch (NumberFormatException e) {
+                n = -1;
+            }
+            double requested = start.group("amplitude") == null ? level : StrictNumber.parse(start.group("amplitude"), false);
+            if (!(from > 0) || !(to > from) || n < 2 || !(requested > 0) || requested > stream.maxAmplitude()) {
+                send(line, "ERR -222 data out of range", sent);
+                return true;
+            }
+            level = requested;
+            SweepPlan plan = new SweepPlan(from, to, n);
+            send(line, "BEGIN " + n, sent);
+            for (int i = 0; i < n; i++) {
+                if (stop.getAsBoolean()) {
+                    return true;
+                }
+                Optional<String> interrupt = line.receive(0);
+                if (interrupt.isPresent() && interrupt.get().strip().equalsIgnoreCase(stream.stop())) {
+                    send(line, "END " + i, sent);
+                    return true;
+                }
+                synchronized (this) {
+                    pointsStreamed++;
+                    arm(pointsStreamed);
+                    if (take(Misbehaviour.Kind.CLOSE).isPresent()) {
+                        return false;
+                    }
+                }
+                double hz = Double.parseDouble(ScpiCommand.nr3(plan.frequencyHz(i)));
+                String point = pointLine(i + 1, profile.scale().rawFrequency(hz), measuredGainDb(hz),
+                        profile.scale().rawPhase(measuredPhaseDeg(hz)));
+                send(line, point, sent);
+            }
+            send(line, "END " + n, sent);
+            return true;
+        }
+
+        private Pattern startPattern(String template) {
+            StringBuilder regex = new StringBuilder("(?i)");
+            Matcher m = NUMBER_GROUP.matcher(template.strip());
+            int last = 0;
+            while (m.find()) {
+                regex.append(quoteLoosely(template.strip().substring(last, m.start())));
+                String name = m.group(1).equals("start_hz_nr3") ? "start" : m.group(1).equals("stop_hz_nr3") ? "stop"
+                        : m.group(1).equals("points") ? "points" : "amplitude";
+                regex.append("(?<").append(name).append(">\\S+)");
+                last = m.end();
+            }
+            regex.append(quoteLoosely(template.strip().substring(last)));
+            return Pattern.compile(regex.toString());
+        }
+
+        /** @return the text as a pattern in which each run of blanks matches any run of blanks */
+        private String quoteLoosely(String text) {
+            StringBuilder b = new StringBuilder();
+            Matcher blanks = Pattern.compile("\\s+").matcher(text);
+            int last = 0;
+            while (blanks.find()) {
+                if (blanks.start() > last) {
+                    b.append(Pattern.quote(text.substring(last, blanks.start())));
+                }
+                b.append("\\s+");
+                last = blanks.end();
+            }
+            if (last < text.length()) {
+                b.append(Pattern.quote(text.substring(last)));
+            }
+            return b.toString();
+        }
+
+        // ---- misbehaviour and noise ---------------------------------------------------
+
+        private void arm(int count) {
+            for (Misbehaviour m : misbehaviours) {
+                if (m.step() == count && !fired.contains(m)) {
+                    fired.add(m);
+                    armed.add(m);
+                }
+            }
+        }
+
+        private Optional<Misbehaviour> take(Misbehaviour.Kind kind) {
+            for (Misbehaviour m : armed) {
+                if (m.kind() == kind) {
+                    armed.remove(m);
+                    return Optional.of(m);
+                }
+            }
+            return Optional.empty();
+        }
+
+        private void send(LineTransport line, String text, Consumer<String> sent) throws IOException {
+            Optional<Misbehaviour> drop;
+            Optional<Misbehaviour> garbage;
+            Optional<Misbehaviour> stall;
+            synchronized (this) {
+                drop = take(Misbehaviour.Kind.DROP);
+                garbage = drop.isPresent() ? Optional.empty() : take(Misbehaviour.Kind.GARBAGE);
+                stall = drop.isPresent() ? Optional.empty() : take(Misbehaviour.Kind.STALL);
+            }
+            if (drop.isPresent()) {
+                return;
+            }
+            if (stall.isPresent()) {
+                pause(stall.get().stallMs());
+            }
+            String out = garbage.isPresent() ? garbage(text) : text;
+            line.send(out);
+            sent.accept(out);
+        }
+
+        private String garbage(String text) {
+            SplittableRandom random = new SplittableRandom(seed ^ text.hashCode());
+            StringBuilder b = new StringBuilder("#?");
+            for (int i = 0; i < 8; i++) {
+                b.append((char) ('!' + random.nextInt(14)));
+            }
+            return b.toString();
+        }
+    }
+
+    private static void pause(long millis) {
+        try {
+            Thread.sleep(millis);
+        } catch (InterruptedException e) {
+            Thread.currentThread().interrupt();
+        }
+    }
+
+    private double measuredGainDb(double frequencyHz) {
+        Complex h = board.atHz(frequencyHz);
+        return Decibels.fromRatio(h.abs()) + noise.gainSigmaDb() * draws(frequencyHz)[0];
+    }
+
+    private double measuredPhaseDeg(double frequencyHz) {
+        Complex h = board.atHz(frequencyHz);
+        return Math.toDegrees(h.getArgument()) + noise.phaseSigmaDeg() * draws(frequencyHz)[1];
+    }
+
+    /** @return two standard normal draws for this frequency: gain's, then phase's */
+    private double[] draws(double frequencyHz) {
+        SplittableRandom random = new SplittableRandom(seed * 0x9E3779B97F4A7C15L ^ Double.doubleToLongBits(frequencyHz));
+        double gain = random.nextGaussian();
+        double phase = random.nextGaussian();
+        return new double[] {gain, phase};
+    }
+
+    private static String pointLine(int index, double frequency, double gainDb, double phaseDeg) {
+        return String.format(Locale.ROOT, "PT %d %s %.6f %.4f", index, ScpiCommand.nr3(frequency), gainDb, phaseDeg);
+    }
+
+    /** A command template with its compiled pattern. */
+    private static final class Known {
+        final ScpiCommand command;
+        final Pattern pattern;
+
+        Known(ScpiCommand command) {
+            this.command = command;
+            this.pattern = command.logPattern();
+        }
+    }
+}
