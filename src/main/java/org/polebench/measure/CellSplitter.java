@@ -1,122 +1,132 @@
 package org.polebench.measure;
 
-import java.util.Arrays;
+import com.opencsv.RFC4180Parser;
+import com.opencsv.RFC4180ParserBuilder;
+import com.opencsv.enums.CSVReaderNullFieldIndicator;
+import java.io.IOException;
+import java.io.UncheckedIOException;
 
 /**
- * Finds the cells of one table row without copying them: each cell is a character range of
- * the line. Quoted cells follow RFC 4180 (a doubled quote stands for one; the range then
- * excludes the outer quotes and {@link #text} undoes the doubling). Backslash is an ordinary
- * character, unlike OpenCSV's default parser (PITFALLS, OpenCSV).
+ * Splits one table row into cells with OpenCSV's {@link RFC4180Parser} (RFC 4180: a quoted cell
+ * may hold the separator, a doubled quote stands for one). The RFC parser, not OpenCSV's
+ * default one, because the default treats backslash as an escape character, and a backslash in
+ * a header or a note is ordinary text here.
  *
- * <p>Why not OpenCSV: its parser builds a {@code String[]} per row and cannot split on runs
- * of spaces or know a decimal comma; this finds ranges in one pass and lets
- * {@link StrictNumber} read the digits in place. A quoted cell cannot span lines here; an
- * unclosed quote is reported for its row.
+ * <p>What is ours on top: one physical line is one row (a quoted cell cannot span lines in the
+ * formats we read, so {@link RFC4180Parser#parseLine} is called per line and an unclosed quote
+ * is reported for its row, keeping line numbers exact); blanks before an opening quote are
+ * allowed and the quotes still removed; {@link Delimiter#SPACES} splits on runs of spaces or
+ * tabs, which OpenCSV has no separator for: tabs become spaces, and the empty cells that a run
+ * of separators leaves are dropped (so a quoted empty cell {@code ""} is dropped as well). Numbers
+ * are read by {@link StrictNumber}, never by OpenCSV's locale-based conversion.
+ *
+ * <p>A cell holding blanks before an opening quote is not split inside its quotes: RFC 4180
+ * (§2.5) allows no blanks there, and OpenCSV reads such a cell as unquoted text.
  *
  * <p>One instance per import; reused for every row.
  */
 final class CellSplitter {
+    private static final char QUOTE = '"';
+    private static final String[] NONE = new String[0];
+
     private final Delimiter delimiter;
-    private int[] starts = new int[16];
-    private int[] ends = new int[16];
+    private final RFC4180Parser parser;
+    private String[] cells = NONE;
     private int count;
     private boolean unclosedQuote;
 
     CellSplitter(Delimiter delimiter) {
         this.delimiter = delimiter;
+        this.parser = new RFC4180ParserBuilder()
+                .withSeparator(delimiter.character())
+                .withQuoteChar(QUOTE)
+                .withFieldAsNull(CSVReaderNullFieldIndicator.NEITHER)
+                .build();
     }
 
     /** @return the number of cells found in the line */
     int split(String line) {
-        count = 0;
         unclosedQuote = false;
-        int n = line.length();
-        if (delimiter == Delimiter.SPACES) {
-            int i = 0;
-            while (true) {
-                while (i < n && isBlank(line.charAt(i))) {
-                    i++;
-                }
-                if (i >= n) {
-                    break;
-                }
-                if (line.charAt(i) == '"') {
-                    i = quoted(line, i);
-                } else {
-                    int start = i;
-                    while (i < n && !isBlank(line.charAt(i))) {
-                        i++;
-                    }
-                    add(start, i);
-                }
-            }
-            return count;
+        boolean quoted = line.indexOf(QUOTE) >= 0;
+        String text = line;
+        if (delimiter == Delimiter.SPACES && line.indexOf('\t') >= 0) {
+            text = line.replace('\t', ' ');
         }
-        char separator = delimiter.character();
-        int i = 0;
-        while (true) {
-            int start = i;
-            while (i < n && line.charAt(i) == ' ') {
-                i++;    // blanks before an opening quote; only spaces, since a tab may be the separator
-            }
-            if (i < n && line.charAt(i) == '"') {
-                i = quoted(line, i);
-                while (i < n && line.charAt(i) != separator) {
-                    i++;    // text after the closing quote, such as blanks, is ignored
-                }
-            } else {
-                int end = i;
-                while (end < n && line.charAt(end) != separator) {
-                    end++;
-                }
-                add(start, end);
-                i = end;
-            }
-            if (i >= n) {
-                break;
-            }
-            i++;    // past the separator; a trailing one leaves an empty last cell
-            if (i == n) {
-                add(n, n);
-                break;
+        String[] parsed;
+        try {
+            parsed = parser.parseLine(text);
+        } catch (IOException e) {
+            // RFC4180Parser reads a String without I/O; it declares the exception for its interface
+            throw new UncheckedIOException(e);
+        }
+        if (parsed == null) {
+            parsed = NONE;
+        }
+        if (delimiter == Delimiter.SPACES) {
+            parsed = withoutEmpty(parsed);
+        }
+        cells = parsed;
+        count = parsed.length;
+        if (quoted) {
+            unclosedQuote = openedAndNotClosed(text);
+            for (int i = 0; i < count; i++) {
+                cells[i] = unquoteAfterBlanks(cells[i]);
             }
         }
         return count;
     }
 
-    /** Adds the quoted cell starting at the quote; @return the index just past its closing quote */
-    private int quoted(String line, int quote) {
-        int n = line.length();
-        int i = quote + 1;
-        while (i < n) {
-            if (line.charAt(i) == '"') {
-                if (i + 1 < n && line.charAt(i + 1) == '"') {
-                    i += 2;
-                    continue;
-                }
-                add(quote + 1, i);
-                return i + 1;
+    /**
+     * RFC4180Parser hands back an unclosed quoted field as it stands, from its opening quote to
+     * the end of the line. A closed one loses at least its outer quotes, so the line's tail then
+     * begins inside the field, never right after a separator or at the line's start.
+     */
+    private boolean openedAndNotClosed(String line) {
+        if (count == 0) {
+            return false;
+        }
+        String last = cells[count - 1];
+        if (last.isEmpty() || last.charAt(0) != QUOTE || !line.endsWith(last)) {
+            return false;
+        }
+        int at = line.length() - last.length();
+        return at == 0 || line.charAt(at - 1) == delimiter.character();
+    }
+
+    /** A cell with blanks before its opening quote reaches us unquoted (see the class comment). */
+    private String unquoteAfterBlanks(String cell) {
+        if (cell.isEmpty() || cell.charAt(0) != ' ') {
+            return cell;
+        }
+        String stripped = cell.strip();
+        if (stripped.isEmpty() || stripped.charAt(0) != QUOTE) {
+            return cell;
+        }
+        if (stripped.length() < 2 || stripped.charAt(stripped.length() - 1) != QUOTE) {
+            unclosedQuote = true;
+            return stripped.substring(1);
+        }
+        return stripped.substring(1, stripped.length() - 1).replace("\"\"", "\"");
+    }
+
+    private static String[] withoutEmpty(String[] parsed) {
+        int kept = 0;
+        for (String cell : parsed) {
+            if (!cell.isEmpty()) {
+                kept++;
             }
-            i++;
         }
-        unclosedQuote = true;
-        add(quote + 1, n);
-        return n;
-    }
-
-    private void add(int start, int end) {
-        if (count == starts.length) {
-            starts = Arrays.copyOf(starts, count * 2);
-            ends = Arrays.copyOf(ends, count * 2);
+        if (kept == parsed.length) {
+            return parsed;
         }
-        starts[count] = start;
-        ends[count] = end;
-        count++;
-    }
-
-    /** Blanks between cells of a {@link Delimiter#SPACES} row. */
-    private static boolean isBlank(char c) {
-        return c == ' ' || c == '\t';
+        String[] out = new String[kept];
+        int i = 0;
+        for (String cell : parsed) {
+            if (!cell.isEmpty()) {
+                out[i++] = cell;
+            }
+        }
+        return out;
     }
 
     int count() {
@@ -128,26 +138,23 @@ final class CellSplitter {
         return unclosedQuote;
     }
 
-    int start(int cell) {
-        return starts[cell];
+    /** @return the cell as OpenCSV gave it (quotes removed, blanks kept) */
+    String cell(int cell) {
+        return cells[cell];
     }
 
-    int end(int cell) {
-        return ends[cell];
+    /** @return the cell's number read by {@link StrictNumber} (NaN when it is none) */
+    double number(int cell, boolean decimalComma) {
+        return StrictNumber.parse(cells[cell], decimalComma);
     }
 
     /** @return true when the cell holds nothing but blanks */
-    boolean blank(String line, int cell) {
-        for (int i = starts[cell]; i < ends[cell]; i++) {
-            if (!Character.isWhitespace(line.charAt(i))) {
-                return false;
-            }
-        }
-        return true;
+    boolean blank(int cell) {
+        return cells[cell].isBlank();
     }
 
-    /** @return the cell's text, stripped, with doubled quotes undone */
-    String text(String line, int cell) {
-        return line.substring(starts[cell], ends[cell]).replace("\"\"", "\"").strip();
+    /** @return the cell's text, stripped */
+    String text(int cell) {
+        return cells[cell].strip();
     }
 }
