@@ -16,8 +16,7 @@ import java.io.UncheckedIOException;
  * formats we read, so {@link RFC4180Parser#parseLine} is called per line and an unclosed quote
  * is reported for its row, keeping line numbers exact); blanks before an opening quote are
  * allowed and the quotes still removed; {@link Delimiter#SPACES} splits on runs of spaces or
- * tabs, which OpenCSV has no separator for: tabs become spaces, and the empty cells that a run
- * of separators leaves are dropped (so a quoted empty cell {@code ""} is dropped as well). Numbers
+ * tabs, which OpenCSV has no separator for: each run outside quotes becomes one space first. Numbers
  * are read by {@link StrictNumber}, never by OpenCSV's locale-based conversion.
  *
  * <p>A cell holding blanks before an opening quote is not split inside its quotes: RFC 4180
@@ -49,8 +48,13 @@ final class CellSplitter {
         unclosedQuote = false;
         boolean quoted = line.indexOf(QUOTE) >= 0;
         String text = line;
-        if (delimiter == Delimiter.SPACES && line.indexOf('\t') >= 0) {
-            text = line.replace('\t', ' ');
+        if (delimiter == Delimiter.SPACES) {
+            text = singleSpaced(line);
+            if (text.isEmpty()) {
+                cells = NONE;
+                count = 0;
+                return 0;
+            }
         }
         String[] parsed;
         try {
@@ -61,9 +65,6 @@ final class CellSplitter {
         }
         if (parsed == null) {
             parsed = NONE;
-        }
-        if (delimiter == Delimiter.SPACES) {
-            parsed = withoutEmpty(parsed);
         }
         cells = parsed;
         count = parsed.length;
@@ -109,24 +110,31 @@ final class CellSplitter {
         return stripped.substring(1, stripped.length() - 1).replace("\"\"", "\"");
     }
 
-    private static String[] withoutEmpty(String[] parsed) {
-        int kept = 0;
-        for (String cell : parsed) {
-            if (!cell.isEmpty()) {
-                kept++;
+    /**
+     * One space for each run of spaces and tabs outside quotes, none at either end, so that
+     * OpenCSV's one-character separator sees one space between cells. A doubled quote toggles
+     * twice and so leaves the state as it was.
+     */
+    private static String singleSpaced(String line) {
+        StringBuilder out = new StringBuilder(line.length());
+        boolean inQuotes = false;
+        boolean pendingBlank = false;
+        for (int i = 0; i < line.length(); i++) {
+            char c = line.charAt(i);
+            if (!inQuotes && (c == ' ' || c == '\t')) {
+                pendingBlank = out.length() > 0;
+                continue;
             }
-        }
-        if (kept == parsed.length) {
-            return parsed;
-        }
-        String[] out = new String[kept];
-        int i = 0;
-        for (String cell : parsed) {
-            if (!cell.isEmpty()) {
-                out[i++] = cell;
+            if (pendingBlank) {
+                out.append(' ');
+                pendingBlank = false;
             }
+            if (c == QUOTE) {
+                inQuotes = !inQuotes;
+            }
+            out.append(c);
         }
-        return out;
+        return out.toString();
     }
 
     int count() {
