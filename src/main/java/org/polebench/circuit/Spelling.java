@@ -21,21 +21,7 @@ public final class Spelling {
      *         to the first candidate
      */
     public static Optional<String> closest(String word, Collection<String> candidates) {
-        String best = null;
-        int bestDistance = Integer.MAX_VALUE;
-        String lowered = word.toLowerCase(Locale.ROOT);
-        for (String candidate : candidates) {
-            if (candidate.equals(word)) {
-                continue;
-            }
-            int distance = distance(lowered, candidate.toLowerCase(Locale.ROOT));
-            if (distance < bestDistance) {
-                best = candidate;
-                bestDistance = distance;
-            }
-        }
-        int allowed = Math.min(3, Math.max(1, word.length() / 3));
-        return best != null && bestDistance <= allowed ? Optional.of(best) : Optional.empty();
+        return closestAll(word, candidates).stream().findFirst();
     }
 
     /** @return " Did you mean 'x'?" (with a leading space, to follow a sentence) or an empty text */
@@ -44,8 +30,8 @@ public final class Spelling {
     }
 
     /**
-     * @return every candidate at the smallest distance, within the allowance of {@link #closest},
-     *         in the candidates' order: {@code RE1} suggests both {@code R1} and {@code RE}
+     * @return every candidate at the smallest distance, within a distance of max(1, length/3) (at
+     *         most 3), in the candidates' order: {@code RE1} suggests both {@code R1} and {@code RE}
      */
     public static List<String> closestAll(String word, Collection<String> candidates) {
         List<String> best = new ArrayList<>();

@@ -96,7 +96,6 @@ final class HypothesisSearch {
 
     /** @return the single-fault ranking (also kept, for {@link #withPairs()}) */
     Diagnosis singles() {
-        int p = parameters.size();
         double singlePrior = Math.log(FaultRanking.SINGLE_FAULTS_PRIOR / faultable.size());
         Candidate none = new Candidate(HypothesisKind.NONE, new int[0], tolerance, baseActive,
                 Math.log(FaultRanking.NO_FAULT_PRIOR), misfit(tolerance, baseActive, 1, 1));

@@ -238,7 +238,7 @@ public final class ReportHtml {
         capacitors(root, h);
         DiagnosisHtml.adequacy(root.path("diagnosis"), h);
         DiagnosisHtml.hypotheses(root, h);
-        verdict(root, h);
+        VerdictHtml.verdict(root, h);
         h.append("</section>\n");
     }
 
@@ -402,51 +402,6 @@ public final class ReportHtml {
         h.append("</tbody>\n</table>\n");
     }
 
-    private static void verdict(JsonNode root, StringBuilder h) {
-        JsonNode verdict = root.path("verdict");
-        h.append("<h3>4.6 Verdict against the stage's limits</h3>\n<table id=\"verdict\" class=\"data\">\n<thead><tr>"
-                + "<th>Check</th><th>Value</th><th>U (k = 2)</th><th>Limit</th><th>Margin to limit</th><th>Guard band</th>"
-                + "<th>Decision</th></tr></thead>\n<tbody>\n");
-        for (JsonNode c : verdict.path("checks")) {
-            String unit = c.path("unit").asText();
-            if (!c.path("decided").asBoolean(true)) {
-                // not decided (issue 11): a value only for information, no margin and no decision
-                h.append("<tr class=\"undecided\"><td>").append(esc(c.path("quantity").asText()))
-                        .append("</td><td>").append(c.path("value").isNumber()
-                                ? quantity(c.path("value").asDouble(), c.path("expanded_uncertainty").asDouble(), unit)
-                                + " <span class=\"note\">(not from the sweep)</span>" : NONE)
-                        .append("</td><td>").append(c.path("value").isNumber()
-                                ? uncertainty(c.path("expanded_uncertainty").asDouble(), unit) : NONE)
-                        .append("</td><td>").append(limit(c.path("min"), c.path("max"), unit))
-                        .append("</td><td>").append(NONE).append("</td><td>").append(NONE)
-                        .append("</td><td><b>not decided</b></td></tr>\n");
-                continue;
-            }
-            boolean pass = c.path("pass").asBoolean();
-            h.append("<tr class=\"").append(pass ? "pass" : "fail").append("\"><td>").append(esc(c.path("quantity").asText()))
-                    .append("</td><td>").append(quantity(c.path("value").asDouble(), c.path("expanded_uncertainty").asDouble(), unit))
-                    .append("</td><td>").append(uncertainty(c.path("expanded_uncertainty").asDouble(), unit))
-                    .append("</td><td>").append(limit(c.path("min"), c.path("max"), unit))
-                    .append("</td><td>").append(quantity(c.path("margin").asDouble(), c.path("expanded_uncertainty").asDouble(), unit))
-                    .append("</td><td>").append(c.path("guard_band").asDouble() == 0 ? "none"
-                            : uncertainty(c.path("guard_band").asDouble(), unit))
-                    .append("</td><td><b>").append(pass ? "pass" : "FAIL").append("</b></td></tr>\n");
-        }
-        if (verdict.path("checks").size() == 0) {
-            h.append("<tr><td colspan=\"7\">The stage file names no limits: nothing was decided, so the result is "
-                    + "incomplete.</td></tr>\n");
-        }
-        h.append("</tbody>\n</table>\n");
-        for (JsonNode line : verdict.path("not_checked")) {
-            h.append("<p class=\"note\">").append(esc(capitalised(line.asText()))).append(".</p>\n");
-        }
-        h.append("<p>Rule: ").append(esc(verdict.path("rule_statement").asText()))
-                .append(". Margin is the distance from the value to the nearest limit, positive inside. A limit is decided "
-                        + "only from a quantity the sweep itself determines; one it does not decide is never passed, "
-                        + "and makes the result incomplete unless a decided check fails. Overall: <b>")
-                .append(esc(verdict.path("overall").asText().toUpperCase(Locale.ROOT))).append("</b>.</p>\n");
-    }
-
     private static void traceability(JsonNode root, String resultSha256, StringBuilder h) {
         JsonNode run = root.path("run");
         JsonNode curves = root.path("curves");
@@ -557,19 +512,19 @@ public final class ReportHtml {
     }
 
     /** A value rounded to its uncertainty's last digit (GUM 7.2.6), with unit. */
-    private static String quantity(double value, double expanded, String unit) {
+    static String quantity(double value, double expanded, String unit) {
         return MeasuredValueFormat.value(value, expanded) + " " + esc(unit);
     }
 
-    private static String capitalised(String sentence) {
+    static String capitalised(String sentence) {
         return sentence.isEmpty() ? sentence : sentence.substring(0, 1).toUpperCase(Locale.ROOT) + sentence.substring(1);
     }
 
-    private static String uncertainty(double expanded, String unit) {
+    static String uncertainty(double expanded, String unit) {
         return MeasuredValueFormat.uncertainty(expanded) + " " + esc(unit);
     }
 
-    private static String limit(JsonNode min, JsonNode max, String unit) {
+    static String limit(JsonNode min, JsonNode max, String unit) {
         if (min.isNumber() && max.isNumber()) {
             return MeasuredValueFormat.sixFigures(min.asDouble()) + " to " + MeasuredValueFormat.sixFigures(max.asDouble())
                     + " " + esc(unit);
