@@ -317,7 +317,7 @@ final class LayoutSniffer {
         int count = splitter.split(line);
         List<Column> columns = new ArrayList<>();
         for (int i = 0; i < count; i++) {
-            Column column = new Column(i + 1, splitter.text(line, i));
+            Column column = new Column(i + 1, splitter.text(i));
             column.role = roleOf(column);
             columns.add(column);
         }
@@ -459,7 +459,7 @@ final class LayoutSniffer {
         if (column >= count) {
             return OptionalDouble.empty();
         }
-        double value = StrictNumber.parse(row, splitter.start(column), splitter.end(column), decimalComma);
+        double value = splitter.number(column, decimalComma);
         return Double.isNaN(value) ? OptionalDouble.empty() : OptionalDouble.of(value);
     }
 

@@ -1,5 +1,6 @@
 package org.polebench.sweepfile;
 
+import com.opencsv.CSVWriter;
 import java.io.BufferedWriter;
 import java.io.IOException;
 import java.io.OutputStreamWriter;
@@ -156,12 +157,13 @@ public final class SweepWriter {
         }
         c.gainUncertainty().ifPresent(r -> slots.add(new Slot(r, "u_gain", Field.U_GAIN)));
         Slot[] positions = place(slots);
+        CSVWriter rows = rowWriter(layout, out);
         if (layout.header()) {
             String[] header = new String[positions.length];
             for (int i = 0; i < positions.length; i++) {
                 header[i] = positions[i] == null ? "" : positions[i].title();
             }
-            writeRow(header, layout, out);
+            writeRow(header, rows);
         }
         double level = inputAmplitude;
         if (profile.limits().fullScale().isPresent()) {
@@ -174,8 +176,9 @@ public final class SweepWriter {
             for (int i = 0; i < positions.length; i++) {
                 cells[i] = positions[i] == null ? "" : cell(positions[i].field, p, ratio, level, scale, layout);
             }
-            writeRow(cells, layout, out);
+            writeRow(cells, rows);
         }
+        rows.flush();
     }
 
     private static String cell(Field field, SweepPoint p, double ratio, double level, ReadingScale scale,
@@ -263,22 +266,36 @@ public final class SweepWriter {
         return Arrays.copyOf(positions, used);
     }
 
-    private static void writeRow(String[] cells, TableLayout layout, Writer out) throws IOException {
-        char delimiter = layout.delimiter().character();
-        for (int i = 0; i < cells.length; i++) {
-            if (i > 0) {
-                out.write(delimiter);
-            }
-            out.write(quoteIfNeeded(cells[i], layout.delimiter()));
-        }
-        out.write('\n');
+    /**
+     * Rows go through OpenCSV's {@link CSVWriter}: RFC 4180 quoting (a cell holding the delimiter,
+     * a quote or a line break is quoted, inner quotes doubled), only where needed, so plain
+     * numbers are written bare. The caller closes {@code out}; the table is flushed at its end.
+     */
+    private static CSVWriter rowWriter(TableLayout layout, Writer out) {
+        return new RowWriter(out, layout.delimiter());
     }
 
-    /** RFC 4180 quoting, needed when a cell holds the delimiter, a quote, or (space-delimited) a blank. */
-    private static String quoteIfNeeded(String cell, Delimiter delimiter) {
-        boolean needs = cell.indexOf('"') >= 0 || cell.indexOf(delimiter.character()) >= 0
-                || delimiter == Delimiter.SPACES && (cell.isEmpty() || cell.indexOf('\t') >= 0);
-        return needs ? '"' + cell.replace("\"", "\"\"") + '"' : cell;
+    private static void writeRow(String[] cells, CSVWriter rows) throws IOException {
+        rows.writeNext(cells, false);
+    }
+
+    /**
+     * Space-delimited rows also quote an empty cell and a cell holding a tab: the reader takes a
+     * run of blanks as one separator, so such a cell would otherwise vanish or split.
+     */
+    private static final class RowWriter extends CSVWriter {
+        private final boolean spaces;
+
+        RowWriter(Writer out, Delimiter delimiter) {
+            super(out, delimiter.character(), DEFAULT_QUOTE_CHARACTER, DEFAULT_ESCAPE_CHARACTER, "\n");
+            this.spaces = delimiter == Delimiter.SPACES;
+        }
+
+        @Override
+        protected boolean stringContainsSpecialCharacters(String cell) {
+            return super.stringContainsSpecialCharacters(cell)
+                    || spaces && (cell.isEmpty() || cell.indexOf('\t') >= 0);
+        }
     }
 
     private static void provenance(Provenance source, String prefix, Writer out) throws IOException {

@@ -175,7 +175,7 @@ final class TableSweepParser {
         int count = splitter.split(line);
         List<String> header = new ArrayList<>(count);
         for (int i = 0; i < count; i++) {
-            header.add(splitter.text(line, i));
+            header.add(splitter.text(i));
         }
         TableColumns columns = profile.columns();
         frequencyColumn = resolve(columns.frequency(), header, lineNo, "frequency");
@@ -233,7 +233,7 @@ final class TableSweepParser {
         }
         boolean blank = true;
         for (int i = 0; i < count && blank; i++) {
-            blank = splitter.blank(line, i);
+            blank = splitter.blank(i);
         }
         if (blank) {
             tally.add("empty rows", lineNo, "empty row (delimiters only); skipped");
@@ -285,14 +285,14 @@ final class TableSweepParser {
                     + ") is missing; row skipped");
             return Double.NaN;
         }
-        if (splitter.blank(line, column)) {
+        if (splitter.blank(column)) {
             tally.add("rows with missing cells", lineNo, "the " + what + " cell (column " + (column + 1)
                     + ") is empty; row skipped");
             return Double.NaN;
         }
-        double value = StrictNumber.parse(line, splitter.start(column), splitter.end(column), layout.decimalComma());
+        double value = splitter.number(column, layout.decimalComma());
         if (Double.isNaN(value)) {
-            String text = splitter.text(line, column);
+            String text = splitter.text(column);
             if (mayOverload && profile.limits().isOverloadMarker(text)) {
                 tally.add("clipped readings", lineNo, "the " + what + " reads '" + text
                         + "': the instrument was saturated; row dropped");
@@ -312,13 +312,13 @@ final class TableSweepParser {
      *         a cell that is not a number is warned about and sets {@link #rowRejected}
      */
     private double uncertainty(String line, int lineNo, int column, String what) {
-        if (column < 0 || column >= splitter.count() || splitter.blank(line, column)) {
+        if (column < 0 || column >= splitter.count() || splitter.blank(column)) {
             return Double.NaN;
         }
-        double value = StrictNumber.parse(line, splitter.start(column), splitter.end(column), layout.decimalComma());
+        double value = splitter.number(column, layout.decimalComma());
         if (Double.isNaN(value)) {
             tally.add("non-numeric cells", lineNo, "the " + what + " (column " + (column + 1) + ") '"
-                    + printable(splitter.text(line, column)) + "' is not a number; row skipped");
+                    + printable(splitter.text(column)) + "' is not a number; row skipped");
             rowRejected = true;
         }
         return value;

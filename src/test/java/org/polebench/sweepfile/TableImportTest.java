@@ -100,6 +100,25 @@ class TableImportTest {
     }
 
     @Test
+    void blanksAroundQuotedCellsReadAndAnUnclosedQuoteSkipsOnlyItsRow() throws Exception {
+        // The two odd inputs of the OpenCSV change (CellSplitter's class comment): blanks after a
+        // closing quote are dropped as before, and a row whose quote is never closed is skipped
+        // with its own warning even when a separator ends it.
+        StringBuilder text = new StringBuilder("\"Frequency (Hz)\" , \"Gain (dB)\" , \"Phase (deg)\"\n");
+        for (double[] r : rows()) {
+            text.append('"').append(r[0]).append("\" , \"").append(r[1]).append("\" ,").append(r[2]).append('\n');
+        }
+        text.append("\"7.5,-1.0,-2.0,\n");
+        Path file = write("blanks.csv", text.toString(), StandardCharsets.UTF_8);
+        ImportedSweep imported = READER.read(file, "db-degrees");
+        assertRows(imported.sweep());
+        int broken = rows().size() + 2;
+        assertTrue(imported.warnings().stream().anyMatch(w -> w.line() == broken && w.message().contains("never closed")),
+                imported.warnings().toString());
+        assertRows(READER.read(file, "auto").sweep());
+    }
+
+    @Test
     void spanishAndFrenchHeadersAreSniffed() throws Exception {
         assertRows(READER.read(write("es.csv", table("Frecuencia (Hz),Ganancia (dB),Fase (grados)", ",", false, "\n"),
                 StandardCharsets.UTF_8), "auto").sweep());
