@@ -181,19 +181,35 @@ public final class SmallSignalExpansion {
             int t = 0;
             for (int p = 0; p < parts.size(); p++) {
                 Part part = parts.get(p);
-                if (part instanceof Resistor) {
-                    Resistor r = (Resistor) part;
-                    twoTerminal(Kind.RESISTOR, p, -1, r.name(), nodes.of(r.between().a()), nodes.of(r.between().b()),
-                            null);
-                } else if (part instanceof Capacitor) {
-                    Capacitor c = (Capacitor) part;
-                    twoTerminal(Kind.CAPACITOR, p, -1, c.name(), nodes.of(c.between().a()), nodes.of(c.between().b()),
-                            c.band());
-                } else if (part instanceof Bjt) {
-                    bjt((Bjt) part, p, t++);
-                } else {
-                    mosfet((Mosfet) part, p, t++);
-                }
+                int partIndex = p;
+                int transistorIndex = part.asTransistor().isPresent() ? t++ : -1;
+                part.match(new Part.Cases<Void>() {
+                    @Override
+                    public Void resistor(Resistor r) {
+                        twoTerminal(Kind.RESISTOR, partIndex, -1, r.name(), nodes.of(r.between().a()),
+                                nodes.of(r.between().b()), null);
+                        return null;
+                    }
+
+                    @Override
+                    public Void capacitor(Capacitor c) {
+                        twoTerminal(Kind.CAPACITOR, partIndex, -1, c.name(), nodes.of(c.between().a()),
+                                nodes.of(c.between().b()), c.band());
+                        return null;
+                    }
+
+                    @Override
+                    public Void bjt(Bjt bjt) {
+                        Layout.this.bjt(bjt, partIndex, transistorIndex);
+                        return null;
+                    }
+
+                    @Override
+                    public Void mosfet(Mosfet mosfet) {
+                        Layout.this.mosfet(mosfet, partIndex, transistorIndex);
+                        return null;
+                    }
+                });
             }
         }
 
@@ -255,14 +271,9 @@ public final class SmallSignalExpansion {
             double[] currentAmps = new double[transistors.size()];
             double[] sourceBodyVolts = new double[transistors.size()];
             for (int t = 0; t < currentAmps.length; t++) {
-                Transistor transistor = transistors.get(t);
-                if (transistor instanceof Bjt) {
-                    currentAmps[t] = points.bjt(transistor.name()).collectorAmps();
-                } else {
-                    OperatingPoint.MosfetPoint point = points.mosfet(transistor.name());
-                    currentAmps[t] = point.drainAmps();
-                    sourceBodyVolts[t] = point.vsbVolts();
-                }
+                OperatingPoint point = points.point(transistors.get(t).name());
+                currentAmps[t] = point.currentAmps();
+                sourceBodyVolts[t] = point.sourceBodyVolts();
             }
             return network(stage, stage.partValues(), currentAmps, sourceBodyVolts);
         }
@@ -376,9 +387,9 @@ public final class SmallSignalExpansion {
                 }
             }
             sourceNode = StageTopology.inputIsDriven(stage) ? -1 : internal(SOURCE_NODE);
-            for (Part part : stage.parts()) {
-                if (part instanceof Bjt && ((Bjt) part).rxOhms() > 0) {
-                    innerBases.put(part.name(), internal(part.name() + ".b'"));
+            for (Bjt bjt : stage.bjts()) {
+                if (bjt.rxOhms() > 0) {
+                    innerBases.put(bjt.name(), internal(bjt.name() + ".b'"));
                 }
             }
             frozenNames = List.copyOf(names);
