@@ -22,9 +22,9 @@ public sealed interface Part permits Resistor, Capacitor, Bjt, Mosfet {
     Optional<Transistor> asTransistor();
 
     /**
-     * @return the value a tolerance spread draws for this part (docs/method.md, "Tolerance
-     *         spread"): a resistor's ohms, a capacitor's farads, a BJT's β; NaN for a part of
-     *         which nothing is drawn (a MOSFET)
+     * @return the value a tolerance spread draws for this part: a resistor's ohms, a
+     *         capacitor's farads, a BJT's β; NaN for a part of which nothing is drawn (a MOSFET);
+     *         see docs/method.md, "Tolerance spread"
      */
     double drawnValue();
 
