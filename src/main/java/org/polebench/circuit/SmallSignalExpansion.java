@@ -283,17 +283,13 @@ public final class SmallSignalExpansion {
             List<NetworkElement> elements = new ArrayList<>(slots.size());
             for (int i = 0; i < values.length; i++) {
                 Slot slot = slots.get(i);
-                switch (slot.kind.form) {
-                    case CONDUCTANCE:
-                        elements.add(new NetworkElement.Conductance(slot.name, slot.a, slot.b, values[i]));
-                        break;
-                    case CAPACITANCE:
-                        elements.add(new NetworkElement.Capacitance(slot.name, slot.a, slot.b, values[i], slot.band));
-                        break;
-                    default:
-                        elements.add(new NetworkElement.Transconductance(slot.name, slot.a, slot.b, slot.plus,
-                                slot.minus, values[i]));
-                }
+                // a switch expression over an enum: javac refuses it when a form is missing
+                elements.add(switch (slot.kind.form) {
+                    case CONDUCTANCE -> new NetworkElement.Conductance(slot.name, slot.a, slot.b, values[i]);
+                    case CAPACITANCE -> new NetworkElement.Capacitance(slot.name, slot.a, slot.b, values[i], slot.band);
+                    case TRANSCONDUCTANCE -> new NetworkElement.Transconductance(slot.name, slot.a, slot.b, slot.plus,
+                            slot.minus, values[i]);
+                });
             }
             return new SmallSignalNetwork(nodes.names(), elements, driven, output);
         }
@@ -319,44 +315,32 @@ public final class SmallSignalExpansion {
          */
         private static double value(Kind kind, Stage stage, Part part, double drawn, double amps, double vsbVolts,
                                     double vt) {
-            switch (kind) {
-                case SOURCE_RESISTANCE:
-                    return 1 / stage.input().sourceOhms();
-                case LOAD:
-                    return 1 / stage.output().loadOhms().getAsDouble();
-                case RESISTOR:
-                    return 1 / drawn;
-                case CAPACITOR:
-                    return drawn;
-                case BJT_RX:
-                    return 1 / ((Bjt) part).rxOhms();
-                case BJT_RPI:
-                    // gπ = gm/β with gm = IC/VT
-                    return amps / vt / drawn;
-                case BJT_GM:
-                    return amps / vt;
-                case BJT_RO:
-                    return amps / ((Bjt) part).earlyVolts().getAsDouble();
-                case BJT_CPI:
-                    return ((Bjt) part).cpiFarads();
-                case BJT_CMU:
-                    return ((Bjt) part).cmuFarads();
-                case MOSFET_GM:
-                    return Math.sqrt(2 * ((Mosfet) part).kAmpsPerVoltSquared() * amps);
-                case MOSFET_GMB: {
+            // a switch expression over an enum: javac refuses it when a kind is missing; each
+            // kind comes from one part type (see bjt and mosfet above), so the casts hold
+            return switch (kind) {
+                case SOURCE_RESISTANCE -> 1 / stage.input().sourceOhms();
+                case LOAD -> 1 / stage.output().loadOhms().getAsDouble();
+                case RESISTOR -> 1 / drawn;
+                case CAPACITOR -> drawn;
+                case BJT_RX -> 1 / ((Bjt) part).rxOhms();
+                // gπ = gm/β with gm = IC/VT
+                case BJT_RPI -> amps / vt / drawn;
+                case BJT_GM -> amps / vt;
+                case BJT_RO -> amps / ((Bjt) part).earlyVolts().getAsDouble();
+                case BJT_CPI -> ((Bjt) part).cpiFarads();
+                case BJT_CMU -> ((Bjt) part).cmuFarads();
+                case MOSFET_GM -> Math.sqrt(2 * ((Mosfet) part).kAmpsPerVoltSquared() * amps);
+                case MOSFET_GMB -> {
                     Mosfet mosfet = (Mosfet) part;
                     double gm = Math.sqrt(2 * mosfet.kAmpsPerVoltSquared() * amps);
                     double argument = Math.max(mosfet.surfacePotentialVolts() + vsbVolts,
                             0.01 * mosfet.surfacePotentialVolts());
-                    return mosfet.gammaRootVolts() * gm / (2 * Math.sqrt(argument));
+                    yield mosfet.gammaRootVolts() * gm / (2 * Math.sqrt(argument));
                 }
-                case MOSFET_RO:
-                    return ((Mosfet) part).lambdaPerVolt() * amps;
-                case MOSFET_CGS:
-                    return ((Mosfet) part).cgsFarads();
-                default:
-                    return ((Mosfet) part).cgdFarads();
-            }
+                case MOSFET_RO -> ((Mosfet) part).lambdaPerVolt() * amps;
+                case MOSFET_CGS -> ((Mosfet) part).cgsFarads();
+                case MOSFET_CGD -> ((Mosfet) part).cgdFarads();
+            };
         }
     }
 
