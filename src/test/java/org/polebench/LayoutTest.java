@@ -50,8 +50,11 @@ class LayoutTest {
 
     private static final Pattern IMPORT = Pattern.compile("^import\\s+(?:static\\s+)?org\\.polebench\\.([a-z]\\w*)\\.");
     private static final Pattern QUALIFIED = Pattern.compile("\\borg\\.polebench\\.([a-z]\\w*)\\.[A-Z]");
-    private static final Pattern BLOCK_COMMENT = Pattern.compile("/\\*.*?\\*/", Pattern.DOTALL);
-    private static final Pattern STRING = Pattern.compile("\"(?:\\\\.|[^\"\\\\])*\"");
+    // unrolled loops (Friedl, Mastering Regular Expressions, 3rd ed., 6.7): java.util.regex
+    // recurses once per repetition of a group, so "(?:a|b)*" overflows the stack on a long
+    // string or comment, where a possessive character class does not
+    private static final Pattern BLOCK_COMMENT = Pattern.compile("/\\*[^*]*+\\*++(?:[^/*][^*]*+\\*++)*+/");
+    private static final Pattern STRING = Pattern.compile("\"[^\"\\\\\n]*+(?:\\\\.[^\"\\\\\n]*+)*+\"");
 
     @Test
     void everyMainFileUsesOnlyThePackagesItsPackageMayUse() throws IOException {

@@ -27,11 +27,25 @@ public final class FullResponse {
     double[][][] matrixAt(double omegaRadPerS) {
         double[][] re = resistive.matrix();
         double[][] im = new double[re.length][re.length];
-        for (NetworkElement element : network.elements()) {
-            if (element instanceof NetworkElement.Capacitance) {
-                NetworkElement.Capacitance c = (NetworkElement.Capacitance) element;
-                MnaSystem.stampConductance(im, c.a(), c.b(), omegaRadPerS * c.farads());
+        NetworkElement.Cases<Void> stamp = new NetworkElement.Cases<>() {
+            @Override
+            public Void conductance(NetworkElement.Conductance g) {
+                return null;   // in the resistive system already
             }
+
+            @Override
+            public Void capacitance(NetworkElement.Capacitance c) {
+                MnaSystem.stampConductance(im, c.a(), c.b(), omegaRadPerS * c.farads());
+                return null;
+            }
+
+            @Override
+            public Void transconductance(NetworkElement.Transconductance t) {
+                return null;   // in the resistive system already
+            }
+        };
+        for (NetworkElement element : network.elements()) {
+            element.match(stamp);
         }
         return new double[][][] {re, im};
     }

@@ -82,18 +82,27 @@ public final class MnaSystem {
             List<NetworkElement> elements = network.elements();
             form = new int[elements.size()];
             terminals = new int[elements.size()][];
+            NetworkElement.Cases<Integer> formOf = new NetworkElement.Cases<>() {
+                @Override
+                public Integer conductance(NetworkElement.Conductance g) {
+                    return CONDUCTANCE;
+                }
+
+                @Override
+                public Integer capacitance(NetworkElement.Capacitance c) {
+                    return OPEN;   // a port, a short, or open in the resistive system
+                }
+
+                @Override
+                public Integer transconductance(NetworkElement.Transconductance t) {
+                    return TRANSCONDUCTANCE;
+                }
+            };
             for (int i = 0; i < form.length; i++) {
                 NetworkElement element = elements.get(i);
-                if (element instanceof NetworkElement.Conductance) {
-                    NetworkElement.Conductance g = (NetworkElement.Conductance) element;
-                    form[i] = CONDUCTANCE;
-                    terminals[i] = new int[] {g.a(), g.b()};
-                } else if (element instanceof NetworkElement.Transconductance) {
-                    NetworkElement.Transconductance t = (NetworkElement.Transconductance) element;
-                    form[i] = TRANSCONDUCTANCE;
-                    terminals[i] = new int[] {t.from(), t.to(), t.controlPlus(), t.controlMinus()};
-                } else {
-                    form[i] = OPEN;
+                form[i] = element.match(formOf);
+                if (form[i] != OPEN) {
+                    terminals[i] = element.terminals();
                 }
             }
             int sources = 1 + ports.size() + shorted.size();

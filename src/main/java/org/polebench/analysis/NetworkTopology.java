@@ -119,20 +119,32 @@ final class NetworkTopology {
      * conductances) and returns the nodes left apart from ground, in index order.
      */
     List<Integer> nodesWithoutDcPath() {
-        for (NetworkElement element : network.elements()) {
-            if (element instanceof NetworkElement.Conductance) {
-                NetworkElement.Conductance g = (NetworkElement.Conductance) element;
+        NetworkElement.Cases<Void> joinResistive = new NetworkElement.Cases<>() {
+            @Override
+            public Void conductance(NetworkElement.Conductance g) {
                 if (g.siemens() > 0) {
                     join(g.a(), g.b());
                 }
-            } else if (element instanceof NetworkElement.Transconductance) {
-                NetworkElement.Transconductance t = (NetworkElement.Transconductance) element;
+                return null;
+            }
+
+            @Override
+            public Void capacitance(NetworkElement.Capacitance c) {
+                return null;   // open at DC
+            }
+
+            @Override
+            public Void transconductance(NetworkElement.Transconductance t) {
                 boolean sameTerminals = (t.from() == t.controlPlus() && t.to() == t.controlMinus())
                         || (t.from() == t.controlMinus() && t.to() == t.controlPlus());
                 if (sameTerminals && t.siemens() != 0) {
                     join(t.from(), t.to());
                 }
+                return null;
             }
+        };
+        for (NetworkElement element : network.elements()) {
+            element.match(joinResistive);
         }
         List<Integer> floating = new ArrayList<>();
         for (int node = 1; node < parent.length; node++) {
@@ -147,7 +159,7 @@ final class NetworkTopology {
     List<String> elementsTouching(List<Integer> nodes) {
         Set<String> names = new LinkedHashSet<>();
         for (NetworkElement element : network.elements()) {
-            for (int terminal : terminals(element)) {
+            for (int terminal : element.terminals()) {
                 if (nodes.contains(terminal)) {
                     names.add(element.name());
                 }
@@ -162,18 +174,5 @@ final class NetworkTopology {
             names.add(network.nodes().get(node));
         }
         return names;
-    }
-
-    private static int[] terminals(NetworkElement element) {
-        if (element instanceof NetworkElement.Conductance) {
-            NetworkElement.Conductance g = (NetworkElement.Conductance) element;
-            return new int[] {g.a(), g.b()};
-        }
-        if (element instanceof NetworkElement.Capacitance) {
-            NetworkElement.Capacitance c = (NetworkElement.Capacitance) element;
-            return new int[] {c.a(), c.b()};
-        }
-        NetworkElement.Transconductance t = (NetworkElement.Transconductance) element;
-        return new int[] {t.from(), t.to(), t.controlPlus(), t.controlMinus()};
     }
 }

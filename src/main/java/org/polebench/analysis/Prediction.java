@@ -36,6 +36,16 @@ public record Prediction(double midbandGain, StateModel lowBand, SctcEstimate sc
         poleSensitivities = List.copyOf(poleSensitivities);
     }
 
+    @Override
+    public Optional<Prediction> prediction() {
+        return Optional.of(this);
+    }
+
+    @Override
+    public Optional<Reduction.Singular> singular() {
+        return Optional.empty();
+    }
+
     /** @return 20·log10|D| in dB */
     public double midbandGainDb() {
         return Decibels.fromRatio(midbandGain);

@@ -37,10 +37,10 @@ public final class StagePredictor {
     /** @return the full prediction, or the named singular case of the low band */
     public PredictionOutcome predict(SmallSignalNetwork network) {
         Reduction low = reduction.reduce(network, Band.LOW);
-        if (low instanceof Reduction.Singular) {
-            return (Reduction.Singular) low;
+        if (low.singular().isPresent()) {
+            return low.singular().get();
         }
-        StateModel model = ((Reduction.StateSpace) low).model();
+        StateModel model = low.stateModel().orElseThrow();
         Optional<Eigenpairs> eigen = poleFinder.eigenpairs(model.aView(), false);
         if (eigen.isEmpty()) {
             return noEigenvalues(model);
@@ -63,10 +63,10 @@ public final class StagePredictor {
         Optional<Reduction.Singular> upperProblem = Optional.empty();
         if (!network.capacitances(Band.HIGH).isEmpty()) {
             Reduction high = reduction.reduce(network, Band.HIGH);
-            if (high instanceof Reduction.Singular) {
-                upperProblem = Optional.of((Reduction.Singular) high);
+            if (high.singular().isPresent()) {
+                upperProblem = high.singular();
             } else {
-                StateModel highModel = ((Reduction.StateSpace) high).model();
+                StateModel highModel = high.stateModel().orElseThrow();
                 if (highModel.order() > 0) {
                     Optional<Spectrum> highPoles = poleFinder.spectrum(highModel.aView());
                     if (highPoles.isEmpty()) {
@@ -105,10 +105,10 @@ public final class StagePredictor {
      * @return as {@link #exactLowerCornerHz(SmallSignalNetwork)}
      */
     public OptionalDouble exactLowerCornerHz(Reduction low) {
-        if (low instanceof Reduction.Singular) {
+        if (low.stateModel().isEmpty()) {
             return OptionalDouble.empty();
         }
-        return hz(cornerFinder.lowerCornerRadPerS(((Reduction.StateSpace) low).model()));
+        return hz(cornerFinder.lowerCornerRadPerS(low.stateModel().get()));
     }
 
     private static OptionalDouble hz(OptionalDouble radPerS) {

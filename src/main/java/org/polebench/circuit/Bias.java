@@ -1,10 +1,22 @@
 package org.polebench.circuit;
 
-/** How a transistor's DC operating point is found. */
+import java.util.OptionalDouble;
+
+/**
+ * How a transistor's DC operating point is found. Code asks {@link #givenAmps()} rather than
+ * testing the type, so a new kind of bias must say what it gives before anything compiles.
+ */
 public sealed interface Bias permits Bias.Auto, Bias.Given {
+
+    /** @return the given collector or drain current in amperes, empty when the bias is solved */
+    OptionalDouble givenAmps();
 
     /** {@code bias: auto}: solved from the DC network (VBE(on) and β; square law for MOSFETs). */
     record Auto() implements Bias {
+        @Override
+        public OptionalDouble givenAmps() {
+            return OptionalDouble.empty();
+        }
     }
 
     /**
@@ -18,6 +30,11 @@ public sealed interface Bias permits Bias.Auto, Bias.Given {
             if (!(amps > 0) || !Double.isFinite(amps)) {
                 throw new IllegalArgumentException("a given bias current must be positive and finite, was " + amps);
             }
+        }
+
+        @Override
+        public OptionalDouble givenAmps() {
+            return OptionalDouble.of(amps);
         }
     }
 }

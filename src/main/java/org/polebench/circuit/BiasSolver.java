@@ -7,6 +7,7 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
+import java.util.OptionalDouble;
 import org.polebench.InputProblem;
 import org.polebench.linalg.RealLu;
 
@@ -191,7 +192,7 @@ public final class BiasSolver {
     private static String givenTransistorsAt(Stage stage, String node) {
         List<String> names = new ArrayList<>();
         for (Transistor transistor : stage.transistors()) {
-            if (transistor.bias() instanceof Bias.Given && ((Part) transistor).terminalNodes().contains(node)) {
+            if (transistor.bias().givenAmps().isPresent() && transistor.terminalNodes().contains(node)) {
                 names.add(transistor.name());
             }
         }
@@ -201,26 +202,40 @@ public final class BiasSolver {
     /** The problem {@link #solve} reports for transistor t of {@code stage}, out of its region by {@code fault}. */
     private static InputProblem problem(Stage stage, int t, Fault fault, Circuit circuit, double[] values,
                                         double[] x) {
-        Transistor transistor = circuit.transistor(t);
-        if (transistor instanceof Bjt) {
-            Bjt bjt = (Bjt) transistor;
-            String vbe = bjt.polarity() == Bjt.Polarity.NPN ? "VBE" : "VEB";
-            String vce = bjt.polarity() == Bjt.Polarity.NPN ? "VCE" : "VEC";
-            if (fault == Fault.CUT_OFF) {
-                return new InputProblem(stage.sourceFile(), bjt.line(), bjt.name() + " is cut off: its "
-                        + bjt.polarity().word() + " base–emitter junction would need a base current of "
-                        + amps(circuit.baseCurrent(t, x)) + " to sit at " + vbe + "(on) = " + volts(bjt.vbeOnVolts()),
-                        cutOffHint(stage, bjt, bjt.base(), vbe + "(on)", bjt.vbeOnVolts()));
+        return circuit.transistor(t).match(new Transistor.Cases<>() {
+            @Override
+            public InputProblem bjt(Bjt bjt) {
+                return bjtProblem(stage, t, fault, circuit, values, x, bjt);
             }
-            return new InputProblem(stage.sourceFile(), bjt.line(), bjt.name() + " is saturated: " + vce
-                    + " would be " + volts(circuit.mainVolts(t, x)) + ", under " + vce + "(sat) = "
-                    + volts(VCE_SAT_VOLTS) + ", at IC = " + amps(circuit.currentAmps(t, values, x)),
-                    "the resistors at the collector and emitter (" + resistorsAt(stage, bjt.collector(),
-                            bjt.emitter()) + ") drop too much at this current: less bias current (a lower"
-                            + " base bias or a larger emitter resistor) or a smaller collector resistor would"
-                            + " bring it into the active region");
+
+            @Override
+            public InputProblem mosfet(Mosfet mosfet) {
+                return mosfetProblem(stage, t, fault, circuit, values, x, mosfet);
+            }
+        });
+    }
+
+    private static InputProblem bjtProblem(Stage stage, int t, Fault fault, Circuit circuit, double[] values,
+                                           double[] x, Bjt bjt) {
+        String vbe = bjt.polarity() == Bjt.Polarity.NPN ? "VBE" : "VEB";
+        String vce = bjt.polarity() == Bjt.Polarity.NPN ? "VCE" : "VEC";
+        if (fault == Fault.CUT_OFF) {
+            return new InputProblem(stage.sourceFile(), bjt.line(), bjt.name() + " is cut off: its "
+                    + bjt.polarity().word() + " base–emitter junction would need a base current of "
+                    + amps(circuit.baseCurrent(t, x)) + " to sit at " + vbe + "(on) = " + volts(bjt.vbeOnVolts()),
+                    cutOffHint(stage, bjt, bjt.base(), vbe + "(on)", bjt.vbeOnVolts()));
         }
-        Mosfet mosfet = (Mosfet) transistor;
+        return new InputProblem(stage.sourceFile(), bjt.line(), bjt.name() + " is saturated: " + vce
+                + " would be " + volts(circuit.mainVolts(t, x)) + ", under " + vce + "(sat) = "
+                + volts(VCE_SAT_VOLTS) + ", at IC = " + amps(circuit.currentAmps(t, values, x)),
+                "the resistors at the collector and emitter (" + resistorsAt(stage, bjt.collector(),
+                        bjt.emitter()) + ") drop too much at this current: less bias current (a lower"
+                        + " base bias or a larger emitter resistor) or a smaller collector resistor would"
+                        + " bring it into the active region");
+    }
+
+    private static InputProblem mosfetProblem(Stage stage, int t, Fault fault, Circuit circuit, double[] values,
+                                              double[] x, Mosfet mosfet) {
         String vgsName = mosfet.channel().sign() > 0 ? "VGS" : "VSG";
         String vdsName = mosfet.channel().sign() > 0 ? "VDS" : "VSD";
         if (fault == Fault.CUT_OFF) {
@@ -246,18 +261,10 @@ public final class BiasSolver {
         try {
             Circuit without = new Circuit(stage, transistor.name());
             double[] x = without.solve(stage.partValues());
-            int s;
-            String common;
-            String pair;
-            if (transistor instanceof Bjt) {
-                s = ((Bjt) transistor).polarity().sign();
-                common = ((Bjt) transistor).emitter();
-                pair = s > 0 ? "base–emitter" : "emitter–base";
-            } else {
-                s = ((Mosfet) transistor).channel().sign();
-                common = ((Mosfet) transistor).source();
-                pair = s > 0 ? "gate–source" : "source–gate";
-            }
+            int s = transistor.sign();
+            String common = transistor.commonNode();
+            String pair = s > 0 ? transistor.controlTerminal() + "–" + transistor.commonTerminal()
+                    : transistor.commonTerminal() + "–" + transistor.controlTerminal();
             double applied = s * (without.volts(controlNode, x) - without.volts(common, x));
             held = "with " + transistor.name() + " off, the network holds its " + pair + " at " + volts(applied)
                     + ", short of " + needed + " (" + volts(neededVolts) + "); ";
@@ -265,7 +272,7 @@ public final class BiasSolver {
             // without the transistor the network may have floating nodes: the hint goes without the number
             held = "";
         }
-        return held + "raise the bias at the " + (transistor instanceof Bjt ? "base" : "gate") + " (check "
+        return held + "raise the bias at the " + transistor.controlTerminal() + " (check "
                 + resistorsAt(stage, controlNode) + ")";
     }
 
@@ -347,9 +354,30 @@ public final class BiasSolver {
                 for (int i = 0; i < terminals.size(); i++) {
                     partRows[p][i] = index.row(terminals.get(i));
                 }
-                if (part instanceof Resistor) {
-                    resistors.add(p);
-                } else if (part instanceof Transistor) {
+                int partIndex = p;
+                boolean transistor = part.match(new Part.Cases<Boolean>() {
+                    @Override
+                    public Boolean resistor(Resistor resistor) {
+                        resistors.add(partIndex);   // a conductance between its rows
+                        return false;
+                    }
+
+                    @Override
+                    public Boolean capacitor(Capacitor capacitor) {
+                        return false;   // open at DC
+                    }
+
+                    @Override
+                    public Boolean bjt(Bjt bjt) {
+                        return true;
+                    }
+
+                    @Override
+                    public Boolean mosfet(Mosfet mosfet) {
+                        return true;
+                    }
+                });
+                if (transistor) {
                     transistorPart[t++] = p;
                 }
             }
@@ -369,20 +397,28 @@ public final class BiasSolver {
                 Transistor transistor = transistors.get(t);
                 included[t] = !transistor.name().equals(excluded);
                 junctionColumn[t] = -1;
-                if (!included[t] || !(transistor.bias() instanceof Bias.Auto)) {
+                if (!included[t] || transistor.bias().givenAmps().isPresent()) {
                     continue;
                 }
-                if (transistor instanceof Bjt) {
-                    Bjt bjt = (Bjt) transistor;
-                    int[] rows = partRows[transistorPart[t]];
-                    junctionColumn[t] = nodeCount + sources.size();
-                    // the VBE(on) source from base to emitter (emitter to base for a PNP)
-                    sources.add(bjt.polarity() == Bjt.Polarity.NPN
-                            ? new Source(rows[1], rows[2], bjt.vbeOnVolts())
-                            : new Source(rows[2], rows[1], bjt.vbeOnVolts()));
-                } else {
-                    mosfets.add(t);
-                }
+                int index = t;
+                transistor.match(new Transistor.Cases<Void>() {
+                    @Override
+                    public Void bjt(Bjt bjt) {
+                        int[] rows = partRows[transistorPart[index]];
+                        junctionColumn[index] = nodeCount + sources.size();
+                        // the VBE(on) source from base to emitter (emitter to base for a PNP)
+                        sources.add(bjt.polarity() == Bjt.Polarity.NPN
+                                ? new Source(rows[1], rows[2], bjt.vbeOnVolts())
+                                : new Source(rows[2], rows[1], bjt.vbeOnVolts()));
+                        return null;
+                    }
+
+                    @Override
+                    public Void mosfet(Mosfet mosfet) {
+                        mosfets.add(index);   // solved by Newton
+                        return null;
+                    }
+                });
             }
             nonlinear = mosfets.stream().mapToInt(Integer::intValue).toArray();
             size = nodeCount + sources.size();
@@ -419,38 +455,49 @@ public final class BiasSolver {
                 if (!included[t]) {
                     continue;
                 }
-                Transistor transistor = transistors.get(t);
+                int index = t;
                 int[] rows = partRows[transistorPart[t]];
-                if (transistor instanceof Bjt) {
-                    Bjt bjt = (Bjt) transistor;
-                    double beta = values[transistorPart[t]];
-                    boolean npn = bjt.polarity() == Bjt.Polarity.NPN;
-                    if (transistor.bias() instanceof Bias.Auto) {
-                        // collector current β·IB, with IB the junction source's current
-                        int from = npn ? rows[0] : rows[2];
-                        int to = npn ? rows[2] : rows[0];
-                        add(g, from, junctionColumn[t], beta);
-                        add(g, to, junctionColumn[t], -beta);
-                    } else {
-                        double ic = ((Bias.Given) bjt.bias()).amps();
-                        double ib = ic / beta;
-                        if (npn) {
-                            inject(b, rows[1], rows[2], ib);
-                            inject(b, rows[0], rows[2], ic);
+                transistors.get(t).match(new Transistor.Cases<Void>() {
+                    @Override
+                    public Void bjt(Bjt bjt) {
+                        double beta = values[transistorPart[index]];
+                        boolean npn = bjt.polarity() == Bjt.Polarity.NPN;
+                        OptionalDouble given = bjt.bias().givenAmps();
+                        if (given.isEmpty()) {
+                            // collector current β·IB, with IB the junction source's current
+                            int from = npn ? rows[0] : rows[2];
+                            int to = npn ? rows[2] : rows[0];
+                            add(g, from, junctionColumn[index], beta);
+                            add(g, to, junctionColumn[index], -beta);
                         } else {
-                            inject(b, rows[2], rows[1], ib);
-                            inject(b, rows[2], rows[0], ic);
+                            double ic = given.getAsDouble();
+                            double ib = ic / beta;
+                            if (npn) {
+                                inject(b, rows[1], rows[2], ib);
+                                inject(b, rows[0], rows[2], ic);
+                            } else {
+                                inject(b, rows[2], rows[1], ib);
+                                inject(b, rows[2], rows[0], ic);
+                            }
                         }
+                        return null;
                     }
-                } else if (transistor.bias() instanceof Bias.Given) {
-                    Mosfet mosfet = (Mosfet) transistor;
-                    double id = ((Bias.Given) mosfet.bias()).amps();
-                    if (mosfet.channel() == Mosfet.Channel.NMOS) {
-                        inject(b, rows[0], rows[2], id);
-                    } else {
-                        inject(b, rows[2], rows[0], id);
+
+                    @Override
+                    public Void mosfet(Mosfet mosfet) {
+                        // an auto MOSFET's square law is stamped by the Newton step, not here
+                        OptionalDouble given = mosfet.bias().givenAmps();
+                        if (given.isPresent()) {
+                            double id = given.getAsDouble();
+                            if (mosfet.channel() == Mosfet.Channel.NMOS) {
+                                inject(b, rows[0], rows[2], id);
+                            } else {
+                                inject(b, rows[2], rows[0], id);
+                            }
+                        }
+                        return null;
                     }
-                }
+                });
             }
             return g;
         }
@@ -513,39 +560,51 @@ public final class BiasSolver {
 
         /** @return +1 for NPN and NMOS, −1 for PNP and PMOS */
         private int sign(int t) {
-            Transistor transistor = transistors.get(t);
-            return transistor instanceof Bjt ? ((Bjt) transistor).polarity().sign()
-                    : ((Mosfet) transistor).channel().sign();
+            return transistors.get(t).sign();
         }
 
         /** @return IC or ID in amperes: given, β·IB, or the square law at the solved VGS */
         double currentAmps(int t, double[] values, double[] x) {
             Transistor transistor = transistors.get(t);
-            if (transistor.bias() instanceof Bias.Given) {
-                return ((Bias.Given) transistor.bias()).amps();
+            if (transistor.bias().givenAmps().isPresent()) {
+                return transistor.bias().givenAmps().getAsDouble();
             }
-            if (transistor instanceof Bjt) {
-                return values[transistorPart[t]] * baseCurrent(t, x);
-            }
-            double u = overdrive(t, x);
-            return 0.5 * ((Mosfet) transistor).kAmpsPerVoltSquared() * u * u;
+            return transistor.match(new Transistor.Cases<Double>() {
+                @Override
+                public Double bjt(Bjt bjt) {
+                    return values[transistorPart[t]] * baseCurrent(t, x);
+                }
+
+                @Override
+                public Double mosfet(Mosfet mosfet) {
+                    double u = overdrive(t, x);
+                    return 0.5 * mosfet.kAmpsPerVoltSquared() * u * u;
+                }
+            });
         }
 
         /** @return the region test of the class comment for transistor t of a solved circuit */
         Fault fault(int t, double[] values, double[] x) {
             Transistor transistor = transistors.get(t);
-            boolean given = transistor.bias() instanceof Bias.Given;
-            if (transistor instanceof Bjt) {
-                if (!given && !(baseCurrent(t, x) > 0)) {
-                    return Fault.CUT_OFF;
+            boolean given = transistor.bias().givenAmps().isPresent();
+            return transistor.match(new Transistor.Cases<>() {
+                @Override
+                public Fault bjt(Bjt bjt) {
+                    if (!given && !(baseCurrent(t, x) > 0)) {
+                        return Fault.CUT_OFF;
+                    }
+                    return mainVolts(t, x) < VCE_SAT_VOLTS ? Fault.SATURATED : Fault.NONE;
                 }
-                return mainVolts(t, x) < VCE_SAT_VOLTS ? Fault.SATURATED : Fault.NONE;
-            }
-            double overdrive = testedOverdrive(t, x);
-            if (!given && !(overdrive > 0)) {
-                return Fault.CUT_OFF;
-            }
-            return mainVolts(t, x) < overdrive ? Fault.TRIODE : Fault.NONE;
+
+                @Override
+                public Fault mosfet(Mosfet mosfet) {
+                    double overdrive = testedOverdrive(t, x);
+                    if (!given && !(overdrive > 0)) {
+                        return Fault.CUT_OFF;
+                    }
+                    return mainVolts(t, x) < overdrive ? Fault.TRIODE : Fault.NONE;
+                }
+            });
         }
 
         /**
@@ -554,8 +613,9 @@ public final class BiasSolver {
          */
         double testedOverdrive(int t, double[] x) {
             Mosfet mosfet = (Mosfet) transistors.get(t);
-            if (mosfet.bias() instanceof Bias.Given) {
-                return Math.sqrt(2 * ((Bias.Given) mosfet.bias()).amps() / mosfet.kAmpsPerVoltSquared());
+            OptionalDouble given = mosfet.bias().givenAmps();
+            if (given.isPresent()) {
+                return Math.sqrt(2 * given.getAsDouble() / mosfet.kAmpsPerVoltSquared());
             }
             return overdrive(t, x);
         }
@@ -567,12 +627,21 @@ public final class BiasSolver {
 
         /** @return VSB of MOSFET t in the device's sense; 0 for a BJT and without a body terminal */
         double sourceBody(int t, double[] x) {
-            Transistor transistor = transistors.get(t);
-            if (!(transistor instanceof Mosfet) || ((Mosfet) transistor).body().isEmpty()) {
-                return 0;
-            }
-            int[] rows = partRows[transistorPart[t]];
-            return sign(t) * (volts(rows[2], x) - volts(rows[3], x));
+            return transistors.get(t).match(new Transistor.Cases<Double>() {
+                @Override
+                public Double bjt(Bjt bjt) {
+                    return 0.0;
+                }
+
+                @Override
+                public Double mosfet(Mosfet mosfet) {
+                    if (mosfet.body().isEmpty()) {
+                        return 0.0;
+                    }
+                    int[] rows = partRows[transistorPart[t]];
+                    return sign(t) * (volts(rows[2], x) - volts(rows[3], x));
+                }
+            });
         }
 
         private static double thresholdAt(Mosfet mosfet, double vsb) {
@@ -766,31 +835,36 @@ public final class BiasSolver {
             List<OperatingPoint> points = new ArrayList<>();
             for (int t = 0; t < transistors.size(); t++) {
                 Transistor transistor = transistors.get(t);
-                boolean given = transistor.bias() instanceof Bias.Given;
+                boolean given = transistor.bias().givenAmps().isPresent();
                 double current = currentAmps(t, values, x);
-                if (transistor instanceof Bjt) {
-                    Bjt bjt = (Bjt) transistor;
-                    int s = bjt.polarity().sign();
-                    Map<String, Double> terminals = new LinkedHashMap<>();
-                    terminals.put("c", volts(bjt.collector(), x));
-                    terminals.put("b", volts(bjt.base(), x));
-                    terminals.put("e", volts(bjt.emitter(), x));
-                    points.add(new OperatingPoint.BjtPoint(bjt.name(), Region.FORWARD_ACTIVE, current,
-                            current / values[transistorPart[t]], s * (terminals.get("c") - terminals.get("e")),
-                            s * (terminals.get("b") - terminals.get("e")), given, terminals));
-                } else {
-                    Mosfet mosfet = (Mosfet) transistor;
-                    int s = mosfet.channel().sign();
-                    double vgs = s * (volts(mosfet.gate(), x) - volts(mosfet.source(), x));
-                    Map<String, Double> terminals = new LinkedHashMap<>();
-                    terminals.put("d", volts(mosfet.drain(), x));
-                    terminals.put("g", volts(mosfet.gate(), x));
-                    terminals.put("s", volts(mosfet.source(), x));
-                    mosfet.body().ifPresent(body -> terminals.put("b", volts(body, x)));
-                    points.add(new OperatingPoint.MosfetPoint(mosfet.name(), Region.SATURATION, current,
-                            s * (terminals.get("d") - terminals.get("s")), vgs, sourceBody(t, x), threshold(t, x),
-                            given, terminals));
-                }
+                int index = t;
+                points.add(transistor.match(new Transistor.Cases<OperatingPoint>() {
+                    @Override
+                    public OperatingPoint bjt(Bjt bjt) {
+                        int s = bjt.polarity().sign();
+                        Map<String, Double> terminals = new LinkedHashMap<>();
+                        terminals.put("c", volts(bjt.collector(), x));
+                        terminals.put("b", volts(bjt.base(), x));
+                        terminals.put("e", volts(bjt.emitter(), x));
+                        return new OperatingPoint.BjtPoint(bjt.name(), Region.FORWARD_ACTIVE, current,
+                                current / values[transistorPart[index]], s * (terminals.get("c") - terminals.get("e")),
+                                s * (terminals.get("b") - terminals.get("e")), given, terminals);
+                    }
+
+                    @Override
+                    public OperatingPoint mosfet(Mosfet mosfet) {
+                        int s = mosfet.channel().sign();
+                        double vgs = s * (volts(mosfet.gate(), x) - volts(mosfet.source(), x));
+                        Map<String, Double> terminals = new LinkedHashMap<>();
+                        terminals.put("d", volts(mosfet.drain(), x));
+                        terminals.put("g", volts(mosfet.gate(), x));
+                        terminals.put("s", volts(mosfet.source(), x));
+                        mosfet.body().ifPresent(body -> terminals.put("b", volts(body, x)));
+                        return new OperatingPoint.MosfetPoint(mosfet.name(), Region.SATURATION, current,
+                                s * (terminals.get("d") - terminals.get("s")), vgs, sourceBody(index, x),
+                                threshold(index, x), given, terminals);
+                    }
+                }));
             }
             return new OperatingPoints(nodeVolts, points);
         }

@@ -1,6 +1,7 @@
 package org.polebench.circuit;
 
 import java.util.List;
+import java.util.Optional;
 import java.util.OptionalDouble;
 
 /**
@@ -67,5 +68,66 @@ public record Bjt(String name, Polarity polarity, String collector, String base,
     @Override
     public List<String> terminalNodes() {
         return List.of(collector, base, emitter);
+    }
+
+    @Override
+    public Optional<Transistor> asTransistor() {
+        return Optional.of(this);
+    }
+
+    /** @return β: a BJT's current gain is drawn over its {@code beta-tolerance} */
+    @Override
+    public double drawnValue() {
+        return beta;
+    }
+
+    @Override
+    public Optional<Tolerance> drawnTolerance() {
+        return Optional.of(betaTolerance);
+    }
+
+    @Override
+    public Bjt withDrawnValue(double value) {
+        return withBeta(value);
+    }
+
+    @Override
+    public <R> R match(Part.Cases<R> cases) {
+        return cases.bjt(this);
+    }
+
+    @Override
+    public int sign() {
+        return polarity.sign();
+    }
+
+    @Override
+    public String controlNode() {
+        return base;
+    }
+
+    @Override
+    public String commonNode() {
+        return emitter;
+    }
+
+    @Override
+    public String controlTerminal() {
+        return "base";
+    }
+
+    @Override
+    public String commonTerminal() {
+        return "emitter";
+    }
+
+    @Override
+    public String terminalRole(String node) {
+        return node.equals(collector) ? "collector" : node.equals(base) ? "base" : "emitter";
+    }
+
+    @Override
+    public <R> R match(Transistor.Cases<R> cases) {
+        return cases.bjt(this);
     }
 }

@@ -1,6 +1,7 @@
 package org.polebench.circuit;
 
 import java.util.List;
+import java.util.Optional;
 
 /**
  * A part capacitor.
@@ -34,5 +35,30 @@ public record Capacitor(String name, NodePair between, double farads, Tolerance 
     @Override
     public List<String> terminalNodes() {
         return between.asList();
+    }
+
+    @Override
+    public Optional<Transistor> asTransistor() {
+        return Optional.empty();
+    }
+
+    @Override
+    public double drawnValue() {
+        return farads;
+    }
+
+    @Override
+    public Optional<Tolerance> drawnTolerance() {
+        return Optional.of(tolerance);
+    }
+
+    @Override
+    public Capacitor withDrawnValue(double value) {
+        return withFarads(value);
+    }
+
+    @Override
+    public <R> R match(Cases<R> cases) {
+        return cases.capacitor(this);
     }
 }

@@ -79,4 +79,65 @@ public record Mosfet(String name, Channel channel, String drain, String gate, St
     public List<String> terminalNodes() {
         return body.isPresent() ? List.of(drain, gate, source, body.get()) : List.of(drain, gate, source);
     }
+
+    @Override
+    public Optional<Transistor> asTransistor() {
+        return Optional.of(this);
+    }
+
+    /** @return NaN: a tolerance spread draws nothing of a MOSFET */
+    @Override
+    public double drawnValue() {
+        return Double.NaN;
+    }
+
+    @Override
+    public Optional<Tolerance> drawnTolerance() {
+        return Optional.empty();
+    }
+
+    @Override
+    public Mosfet withDrawnValue(double value) {
+        return this;
+    }
+
+    @Override
+    public <R> R match(Part.Cases<R> cases) {
+        return cases.mosfet(this);
+    }
+
+    @Override
+    public int sign() {
+        return channel.sign();
+    }
+
+    @Override
+    public String controlNode() {
+        return gate;
+    }
+
+    @Override
+    public String commonNode() {
+        return source;
+    }
+
+    @Override
+    public String controlTerminal() {
+        return "gate";
+    }
+
+    @Override
+    public String commonTerminal() {
+        return "source";
+    }
+
+    @Override
+    public String terminalRole(String node) {
+        return node.equals(drain) ? "drain" : node.equals(gate) ? "gate" : node.equals(source) ? "source" : "body";
+    }
+
+    @Override
+    public <R> R match(Transistor.Cases<R> cases) {
+        return cases.mosfet(this);
+    }
 }

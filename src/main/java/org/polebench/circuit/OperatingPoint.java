@@ -7,7 +7,9 @@ import java.util.Map;
 /**
  * One transistor's DC operating point. Voltages and currents are in the device's own sense:
  * for an NPN VCE and VBE, for a PNP VEC and VEB; for an NMOS VDS and VGS, for a PMOS VSD and
- * VSG; currents are magnitudes. In the accepted regions all of them are positive.
+ * VSG; currents are magnitudes. In the accepted regions all of them are positive. Code that
+ * treats the two kinds differently calls {@link #match} with a {@link Cases}, so a new kind
+ * fails to compile until every such place handles it.
  */
 public sealed interface OperatingPoint permits OperatingPoint.BjtPoint, OperatingPoint.MosfetPoint {
 
@@ -31,6 +33,19 @@ public sealed interface OperatingPoint permits OperatingPoint.BjtPoint, Operatin
      *         voltages are left as solved, since only the small-signal parameters follow the current
      */
     OperatingPoint withCurrentScaled(double factor);
+
+    /** @return VSB (VBS for a PMOS) in volts; 0 for a BJT and for a MOSFET whose body is its source */
+    double sourceBodyVolts();
+
+    /** @return what {@code cases} gives for this point's kind */
+    <R> R match(Cases<R> cases);
+
+    /** One method per kind of point: adding one breaks every implementation until it handles it. */
+    interface Cases<R> {
+        R bjt(BjtPoint point);
+
+        R mosfet(MosfetPoint point);
+    }
 
     /**
      * @param collectorAmps IC, positive
@@ -56,6 +71,16 @@ public sealed interface OperatingPoint permits OperatingPoint.BjtPoint, Operatin
             checkFactor(factor);
             return new BjtPoint(transistor, region, collectorAmps * factor, baseAmps * factor, vceVolts, vbeVolts,
                     currentGiven, terminalVolts);
+        }
+
+        @Override
+        public double sourceBodyVolts() {
+            return 0;
+        }
+
+        @Override
+        public <R> R match(Cases<R> cases) {
+            return cases.bjt(this);
         }
     }
 
@@ -84,6 +109,16 @@ public sealed interface OperatingPoint permits OperatingPoint.BjtPoint, Operatin
             checkFactor(factor);
             return new MosfetPoint(transistor, region, drainAmps * factor, vdsVolts, vgsVolts, vsbVolts,
                     thresholdVolts, currentGiven, terminalVolts);
+        }
+
+        @Override
+        public double sourceBodyVolts() {
+            return vsbVolts;
+        }
+
+        @Override
+        public <R> R match(Cases<R> cases) {
+            return cases.mosfet(this);
         }
     }
 

@@ -1,6 +1,7 @@
 package org.polebench.circuit;
 
 import java.util.List;
+import java.util.Optional;
 
 /**
  * @param ohms      nominal resistance, positive
@@ -21,5 +22,30 @@ public record Resistor(String name, NodePair between, double ohms, Tolerance tol
     @Override
     public List<String> terminalNodes() {
         return between.asList();
+    }
+
+    @Override
+    public Optional<Transistor> asTransistor() {
+        return Optional.empty();
+    }
+
+    @Override
+    public double drawnValue() {
+        return ohms;
+    }
+
+    @Override
+    public Optional<Tolerance> drawnTolerance() {
+        return Optional.of(tolerance);
+    }
+
+    @Override
+    public Resistor withDrawnValue(double value) {
+        return withOhms(value);
+    }
+
+    @Override
+    public <R> R match(Cases<R> cases) {
+        return cases.resistor(this);
     }
 }

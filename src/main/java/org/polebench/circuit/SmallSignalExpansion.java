@@ -181,19 +181,35 @@ public final class SmallSignalExpansion {
             int t = 0;
             for (int p = 0; p < parts.size(); p++) {
                 Part part = parts.get(p);
-                if (part instanceof Resistor) {
-                    Resistor r = (Resistor) part;
-                    twoTerminal(Kind.RESISTOR, p, -1, r.name(), nodes.of(r.between().a()), nodes.of(r.between().b()),
-                            null);
-                } else if (part instanceof Capacitor) {
-                    Capacitor c = (Capacitor) part;
-                    twoTerminal(Kind.CAPACITOR, p, -1, c.name(), nodes.of(c.between().a()), nodes.of(c.between().b()),
-                            c.band());
-                } else if (part instanceof Bjt) {
-                    bjt((Bjt) part, p, t++);
-                } else {
-                    mosfet((Mosfet) part, p, t++);
-                }
+                int partIndex = p;
+                int transistorIndex = part.asTransistor().isPresent() ? t++ : -1;
+                part.match(new Part.Cases<Void>() {
+                    @Override
+                    public Void resistor(Resistor r) {
+                        twoTerminal(Kind.RESISTOR, partIndex, -1, r.name(), nodes.of(r.between().a()),
+                                nodes.of(r.between().b()), null);
+                        return null;
+                    }
+
+                    @Override
+                    public Void capacitor(Capacitor c) {
+                        twoTerminal(Kind.CAPACITOR, partIndex, -1, c.name(), nodes.of(c.between().a()),
+                                nodes.of(c.between().b()), c.band());
+                        return null;
+                    }
+
+                    @Override
+                    public Void bjt(Bjt bjt) {
+                        Layout.this.bjt(bjt, partIndex, transistorIndex);
+                        return null;
+                    }
+
+                    @Override
+                    public Void mosfet(Mosfet mosfet) {
+                        Layout.this.mosfet(mosfet, partIndex, transistorIndex);
+                        return null;
+                    }
+                });
             }
         }
 
@@ -255,14 +271,9 @@ public final class SmallSignalExpansion {
             double[] currentAmps = new double[transistors.size()];
             double[] sourceBodyVolts = new double[transistors.size()];
             for (int t = 0; t < currentAmps.length; t++) {
-                Transistor transistor = transistors.get(t);
-                if (transistor instanceof Bjt) {
-                    currentAmps[t] = points.bjt(transistor.name()).collectorAmps();
-                } else {
-                    OperatingPoint.MosfetPoint point = points.mosfet(transistor.name());
-                    currentAmps[t] = point.drainAmps();
-                    sourceBodyVolts[t] = point.vsbVolts();
-                }
+                OperatingPoint point = points.point(transistors.get(t).name());
+                currentAmps[t] = point.currentAmps();
+                sourceBodyVolts[t] = point.sourceBodyVolts();
             }
             return network(stage, stage.partValues(), currentAmps, sourceBodyVolts);
         }
@@ -272,17 +283,13 @@ public final class SmallSignalExpansion {
             List<NetworkElement> elements = new ArrayList<>(slots.size());
             for (int i = 0; i < values.length; i++) {
                 Slot slot = slots.get(i);
-                switch (slot.kind.form) {
-                    case CONDUCTANCE:
-                        elements.add(new NetworkElement.Conductance(slot.name, slot.a, slot.b, values[i]));
-                        break;
-                    case CAPACITANCE:
-                        elements.add(new NetworkElement.Capacitance(slot.name, slot.a, slot.b, values[i], slot.band));
-                        break;
-                    default:
-                        elements.add(new NetworkElement.Transconductance(slot.name, slot.a, slot.b, slot.plus,
-                                slot.minus, values[i]));
-                }
+                // a switch expression over an enum: javac refuses it when a form is missing
+                elements.add(switch (slot.kind.form) {
+                    case CONDUCTANCE -> new NetworkElement.Conductance(slot.name, slot.a, slot.b, values[i]);
+                    case CAPACITANCE -> new NetworkElement.Capacitance(slot.name, slot.a, slot.b, values[i], slot.band);
+                    case TRANSCONDUCTANCE -> new NetworkElement.Transconductance(slot.name, slot.a, slot.b, slot.plus,
+                            slot.minus, values[i]);
+                });
             }
             return new SmallSignalNetwork(nodes.names(), elements, driven, output);
         }
@@ -308,44 +315,32 @@ public final class SmallSignalExpansion {
          */
         private static double value(Kind kind, Stage stage, Part part, double drawn, double amps, double vsbVolts,
                                     double vt) {
-            switch (kind) {
-                case SOURCE_RESISTANCE:
-                    return 1 / stage.input().sourceOhms();
-                case LOAD:
-                    return 1 / stage.output().loadOhms().getAsDouble();
-                case RESISTOR:
-                    return 1 / drawn;
-                case CAPACITOR:
-                    return drawn;
-                case BJT_RX:
-                    return 1 / ((Bjt) part).rxOhms();
-                case BJT_RPI:
-                    // gπ = gm/β with gm = IC/VT
-                    return amps / vt / drawn;
-                case BJT_GM:
-                    return amps / vt;
-                case BJT_RO:
-                    return amps / ((Bjt) part).earlyVolts().getAsDouble();
-                case BJT_CPI:
-                    return ((Bjt) part).cpiFarads();
-                case BJT_CMU:
-                    return ((Bjt) part).cmuFarads();
-                case MOSFET_GM:
-                    return Math.sqrt(2 * ((Mosfet) part).kAmpsPerVoltSquared() * amps);
-                case MOSFET_GMB: {
+            // a switch expression over an enum: javac refuses it when a kind is missing; each
+            // kind comes from one part type (see bjt and mosfet above), so the casts hold
+            return switch (kind) {
+                case SOURCE_RESISTANCE -> 1 / stage.input().sourceOhms();
+                case LOAD -> 1 / stage.output().loadOhms().getAsDouble();
+                case RESISTOR -> 1 / drawn;
+                case CAPACITOR -> drawn;
+                case BJT_RX -> 1 / ((Bjt) part).rxOhms();
+                // gπ = gm/β with gm = IC/VT
+                case BJT_RPI -> amps / vt / drawn;
+                case BJT_GM -> amps / vt;
+                case BJT_RO -> amps / ((Bjt) part).earlyVolts().getAsDouble();
+                case BJT_CPI -> ((Bjt) part).cpiFarads();
+                case BJT_CMU -> ((Bjt) part).cmuFarads();
+                case MOSFET_GM -> Math.sqrt(2 * ((Mosfet) part).kAmpsPerVoltSquared() * amps);
+                case MOSFET_GMB -> {
                     Mosfet mosfet = (Mosfet) part;
                     double gm = Math.sqrt(2 * mosfet.kAmpsPerVoltSquared() * amps);
                     double argument = Math.max(mosfet.surfacePotentialVolts() + vsbVolts,
                             0.01 * mosfet.surfacePotentialVolts());
-                    return mosfet.gammaRootVolts() * gm / (2 * Math.sqrt(argument));
+                    yield mosfet.gammaRootVolts() * gm / (2 * Math.sqrt(argument));
                 }
-                case MOSFET_RO:
-                    return ((Mosfet) part).lambdaPerVolt() * amps;
-                case MOSFET_CGS:
-                    return ((Mosfet) part).cgsFarads();
-                default:
-                    return ((Mosfet) part).cgdFarads();
-            }
+                case MOSFET_RO -> ((Mosfet) part).lambdaPerVolt() * amps;
+                case MOSFET_CGS -> ((Mosfet) part).cgsFarads();
+                case MOSFET_CGD -> ((Mosfet) part).cgdFarads();
+            };
         }
     }
 
@@ -376,9 +371,9 @@ public final class SmallSignalExpansion {
                 }
             }
             sourceNode = StageTopology.inputIsDriven(stage) ? -1 : internal(SOURCE_NODE);
-            for (Part part : stage.parts()) {
-                if (part instanceof Bjt && ((Bjt) part).rxOhms() > 0) {
-                    innerBases.put(part.name(), internal(part.name() + ".b'"));
+            for (Bjt bjt : stage.bjts()) {
+                if (bjt.rxOhms() > 0) {
+                    innerBases.put(bjt.name(), internal(bjt.name() + ".b'"));
                 }
             }
             frozenNames = List.copyOf(names);

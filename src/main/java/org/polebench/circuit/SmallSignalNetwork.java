@@ -2,6 +2,7 @@ package org.polebench.circuit;
 
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Optional;
 
 /**
  * The linear small-signal equivalent of a stage at its operating point: supplies are AC
@@ -34,9 +35,7 @@ public record SmallSignalNetwork(List<String> nodes, List<NetworkElement> elemen
     public List<NetworkElement.Capacitance> capacitances(Band band) {
         List<NetworkElement.Capacitance> result = new ArrayList<>();
         for (NetworkElement element : elements) {
-            if (element instanceof NetworkElement.Capacitance && ((NetworkElement.Capacitance) element).band() == band) {
-                result.add((NetworkElement.Capacitance) element);
-            }
+            element.asCapacitance().filter(c -> c.band() == band).ifPresent(result::add);
         }
         return result;
     }
@@ -49,14 +48,7 @@ public record SmallSignalNetwork(List<String> nodes, List<NetworkElement> elemen
     public double[] elementValues() {
         double[] values = new double[elements.size()];
         for (int i = 0; i < values.length; i++) {
-            NetworkElement element = elements.get(i);
-            if (element instanceof NetworkElement.Conductance) {
-                values[i] = ((NetworkElement.Conductance) element).siemens();
-            } else if (element instanceof NetworkElement.Capacitance) {
-                values[i] = ((NetworkElement.Capacitance) element).farads();
-            } else {
-                values[i] = ((NetworkElement.Transconductance) element).siemens();
-            }
+            values[i] = elements.get(i).value();
         }
         return values;
     }
@@ -66,8 +58,10 @@ public record SmallSignalNetwork(List<String> nodes, List<NetworkElement> elemen
         List<NetworkElement> changed = new ArrayList<>(elements.size());
         boolean found = false;
         for (NetworkElement element : elements) {
-            if (element instanceof NetworkElement.Capacitance && element.name().equals(name)) {
-                changed.add(((NetworkElement.Capacitance) element).withFarads(farads));
+            Optional<NetworkElement.Capacitance> capacitance =
+                    element.asCapacitance().filter(c -> c.name().equals(name));
+            if (capacitance.isPresent()) {
+                changed.add(capacitance.get().withFarads(farads));
                 found = true;
             } else {
                 changed.add(element);

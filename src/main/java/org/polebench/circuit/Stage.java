@@ -81,10 +81,7 @@ public record Stage(String name, Path sourceFile, String ground, List<Supply> su
     /** @throws IllegalArgumentException when no transistor has this id */
     public Transistor transistor(String id) {
         Part part = part(id).orElseThrow(() -> new IllegalArgumentException("no part " + id + " in " + name));
-        if (!(part instanceof Transistor)) {
-            throw new IllegalArgumentException(id + " is not a transistor");
-        }
-        return (Transistor) part;
+        return part.asTransistor().orElseThrow(() -> new IllegalArgumentException(id + " is not a transistor"));
     }
 
     public List<Capacitor> capacitors() {
@@ -106,13 +103,16 @@ public record Stage(String name, Path sourceFile, String ground, List<Supply> su
         return partsOf(Resistor.class);
     }
 
+    /** @return the BJTs, in file order */
+    public List<Bjt> bjts() {
+        return partsOf(Bjt.class);
+    }
+
     /** @return the BJTs and MOSFETs, in file order */
     public List<Transistor> transistors() {
         List<Transistor> result = new ArrayList<>();
         for (Part part : parts) {
-            if (part instanceof Transistor) {
-                result.add((Transistor) part);
-            }
+            part.asTransistor().ifPresent(result::add);
         }
         return result;
     }
@@ -175,31 +175,23 @@ public record Stage(String name, Path sourceFile, String ground, List<Supply> su
     }
 
     /**
-     * The values a tolerance spread draws, one per part in part order: a resistor's ohms, a
-     * capacitor's farads, a BJT's β; NaN for a MOSFET, of which nothing is drawn. A draw of a
+     * The values a tolerance spread draws, one per part in part order ({@link Part#drawnValue()}):
+     * a resistor's ohms, a capacitor's farads, a BJT's β; NaN for a MOSFET, of which nothing is
+     * drawn. A draw of a
      * stage is this array with other numbers: the kernels that solve many draws take it instead
      * of a copied stage.
      */
     public double[] partValues() {
         double[] values = new double[parts.size()];
         for (int p = 0; p < values.length; p++) {
-            Part part = parts.get(p);
-            if (part instanceof Resistor) {
-                values[p] = ((Resistor) part).ohms();
-            } else if (part instanceof Capacitor) {
-                values[p] = ((Capacitor) part).farads();
-            } else if (part instanceof Bjt) {
-                values[p] = ((Bjt) part).beta();
-            } else {
-                values[p] = Double.NaN;
-            }
+            values[p] = parts.get(p).drawnValue();
         }
         return values;
     }
 
     /**
      * @param values one per part, as {@link #partValues()} orders them (a MOSFET's entry is ignored)
-     * @return a copy whose resistors, capacitors and BJTs take those values
+     * @return a copy whose resistors, capacitors and BJTs take those values ({@link Part#withDrawnValue})
      */
     public Stage withPartValues(double[] values) {
         if (values.length != parts.size()) {
@@ -207,16 +199,7 @@ public record Stage(String name, Path sourceFile, String ground, List<Supply> su
         }
         List<Part> changed = new ArrayList<>(parts.size());
         for (int p = 0; p < values.length; p++) {
-            Part part = parts.get(p);
-            if (part instanceof Resistor) {
-                changed.add(((Resistor) part).withOhms(values[p]));
-            } else if (part instanceof Capacitor) {
-                changed.add(((Capacitor) part).withFarads(values[p]));
-            } else if (part instanceof Bjt) {
-                changed.add(((Bjt) part).withBeta(values[p]));
-            } else {
-                changed.add(part);
-            }
+            changed.add(parts.get(p).withDrawnValue(values[p]));
         }
         return withParts(changed);
     }

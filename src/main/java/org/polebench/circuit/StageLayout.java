@@ -45,25 +45,34 @@ final class StageLayout {
         if (part.getClass() != was.getClass() || !part.name().equals(was.name())) {
             return false;
         }
-        if (part instanceof Resistor) {
-            return same(((Resistor) part).between(), ((Resistor) was).between());
-        }
-        if (part instanceof Capacitor) {
-            Capacitor c = (Capacitor) part;
-            Capacitor w = (Capacitor) was;
-            return same(c.between(), w.between()) && c.band() == w.band();
-        }
-        if (part instanceof Bjt) {
-            Bjt q = (Bjt) part;
-            Bjt w = (Bjt) was;
-            return q.polarity() == w.polarity() && q.collector().equals(w.collector()) && q.base().equals(w.base())
-                    && q.emitter().equals(w.emitter()) && (q.rxOhms() > 0) == (w.rxOhms() > 0)
-                    && q.bias().getClass() == w.bias().getClass();
-        }
-        Mosfet m = (Mosfet) part;
-        Mosfet w = (Mosfet) was;
-        return m.channel() == w.channel() && m.drain().equals(w.drain()) && m.gate().equals(w.gate())
-                && m.source().equals(w.source()) && m.body().equals(w.body())
-                && m.hasBodyEffect() == w.hasBodyEffect() && m.bias().getClass() == w.bias().getClass();
+        // the classes are equal, so each case may cast the nominal part to its own type
+        return part.match(new Part.Cases<Boolean>() {
+            @Override
+            public Boolean resistor(Resistor r) {
+                return same(r.between(), ((Resistor) was).between());
+            }
+
+            @Override
+            public Boolean capacitor(Capacitor c) {
+                Capacitor w = (Capacitor) was;
+                return same(c.between(), w.between()) && c.band() == w.band();
+            }
+
+            @Override
+            public Boolean bjt(Bjt q) {
+                Bjt w = (Bjt) was;
+                return q.polarity() == w.polarity() && q.collector().equals(w.collector())
+                        && q.base().equals(w.base()) && q.emitter().equals(w.emitter())
+                        && (q.rxOhms() > 0) == (w.rxOhms() > 0) && q.bias().getClass() == w.bias().getClass();
+            }
+
+            @Override
+            public Boolean mosfet(Mosfet m) {
+                Mosfet w = (Mosfet) was;
+                return m.channel() == w.channel() && m.drain().equals(w.drain()) && m.gate().equals(w.gate())
+                        && m.source().equals(w.source()) && m.body().equals(w.body())
+                        && m.hasBodyEffect() == w.hasBodyEffect() && m.bias().getClass() == w.bias().getClass();
+            }
+        });
     }
 }

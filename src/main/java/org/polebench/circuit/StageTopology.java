@@ -46,9 +46,28 @@ final class StageTopology {
             for (String node : part.terminalNodes()) {
                 dc.add(node);
             }
-            if (part instanceof Resistor) {
-                dc.join(((Resistor) part).between().a(), ((Resistor) part).between().b());
-            }
+            part.match(new Part.Cases<Void>() {
+                @Override
+                public Void resistor(Resistor resistor) {
+                    dc.join(resistor.between().a(), resistor.between().b());
+                    return null;
+                }
+
+                @Override
+                public Void capacitor(Capacitor capacitor) {
+                    return null;   // open at DC
+                }
+
+                @Override
+                public Void bjt(Bjt bjt) {
+                    return null;   // its junction is joined below, when its base or emitter side is
+                }
+
+                @Override
+                public Void mosfet(Mosfet mosfet) {
+                    return null;   // as a BJT, with gate and source
+                }
+            });
         }
         for (Supply supply : stage.supplies()) {
             dc.join(supply.node(), ground);
@@ -61,11 +80,11 @@ final class StageTopology {
         while (changed) {
             changed = false;
             for (Transistor transistor : stage.transistors()) {
-                if (!junctionsOfGivenBiasLink && transistor.bias() instanceof Bias.Given) {
+                if (!junctionsOfGivenBiasLink && transistor.bias().givenAmps().isPresent()) {
                     continue;
                 }
-                String control = transistor instanceof Bjt ? ((Bjt) transistor).base() : ((Mosfet) transistor).gate();
-                String common = transistor instanceof Bjt ? ((Bjt) transistor).emitter() : ((Mosfet) transistor).source();
+                String control = transistor.controlNode();
+                String common = transistor.commonNode();
                 if (dc.same(control, ground) && !dc.same(common, ground)) {
                     dc.join(control, common);
                     changed = true;
@@ -93,16 +112,9 @@ final class StageTopology {
             if (line == 0) {
                 line = part.line();
             }
-            if (part instanceof Bjt) {
-                Bjt bjt = (Bjt) part;
-                String role = node.equals(bjt.collector()) ? "collector" : node.equals(bjt.base()) ? "base" : "emitter";
-                touching.add(part.name() + " (" + role + ")");
-                onlyCapacitors = false;
-                transistorHint = hintFor(part.name(), role);
-            } else if (part instanceof Mosfet) {
-                Mosfet mosfet = (Mosfet) part;
-                String role = node.equals(mosfet.drain()) ? "drain" : node.equals(mosfet.gate()) ? "gate"
-                        : node.equals(mosfet.source()) ? "source" : "body";
+            Optional<Transistor> transistor = part.asTransistor();
+            if (transistor.isPresent()) {
+                String role = transistor.get().terminalRole(node);
                 touching.add(part.name() + " (" + role + ")");
                 onlyCapacitors = false;
                 transistorHint = hintFor(part.name(), role);
@@ -214,12 +226,22 @@ final class StageTopology {
 
     private static List<HighCapacitor> highCapacitors(Stage stage) {
         List<HighCapacitor> result = new ArrayList<>();
-        for (Part part : stage.parts()) {
-            if (part instanceof Capacitor && ((Capacitor) part).band() == Band.HIGH) {
-                Capacitor c = (Capacitor) part;
-                result.add(new HighCapacitor(c.name(), c.between().a(), c.between().b(), c.line()));
-            } else if (part instanceof Bjt) {
-                Bjt bjt = (Bjt) part;
+        Part.Cases<Void> add = new Part.Cases<>() {
+            @Override
+            public Void resistor(Resistor resistor) {
+                return null;
+            }
+
+            @Override
+            public Void capacitor(Capacitor c) {
+                if (c.band() == Band.HIGH) {
+                    result.add(new HighCapacitor(c.name(), c.between().a(), c.between().b(), c.line()));
+                }
+                return null;
+            }
+
+            @Override
+            public Void bjt(Bjt bjt) {
                 String innerBase = bjt.rxOhms() > 0 ? bjt.name() + ".b'" : bjt.base();
                 if (bjt.cpiFarads() > 0) {
                     result.add(new HighCapacitor(bjt.name() + ".cpi", innerBase, bjt.emitter(), bjt.line()));
@@ -227,15 +249,22 @@ final class StageTopology {
                 if (bjt.cmuFarads() > 0) {
                     result.add(new HighCapacitor(bjt.name() + ".cmu", innerBase, bjt.collector(), bjt.line()));
                 }
-            } else if (part instanceof Mosfet) {
-                Mosfet m = (Mosfet) part;
+                return null;
+            }
+
+            @Override
+            public Void mosfet(Mosfet m) {
                 if (m.cgsFarads() > 0) {
                     result.add(new HighCapacitor(m.name() + ".cgs", m.gate(), m.source(), m.line()));
                 }
                 if (m.cgdFarads() > 0) {
                     result.add(new HighCapacitor(m.name() + ".cgd", m.gate(), m.drain(), m.line()));
                 }
+                return null;
             }
+        };
+        for (Part part : stage.parts()) {
+            part.match(add);
         }
         return result;
     }

@@ -369,10 +369,10 @@ final class BoardModel {
             return null;
         }
         reductions++;
-        if (!(low instanceof Reduction.StateSpace)) {
+        if (low.stateModel().isEmpty()) {
             return null;
         }
-        StateModel model = ((Reduction.StateSpace) low).model();
+        StateModel model = low.stateModel().get();
         int k = model.order();
         if (k != capacitors.size()) {
             return null;
@@ -421,10 +421,10 @@ final class BoardModel {
                 return null;
             }
             reductions++;
-            if (!(high instanceof Reduction.StateSpace)) {
+            if (high.stateModel().isEmpty()) {
                 return null;
             }
-            if (midbandGain != 0 && !highFactor(((Reduction.StateSpace) high).model(), midbandGain, re, im)) {
+            if (midbandGain != 0 && !highFactor(high.stateModel().get(), midbandGain, re, im)) {
                 return null;
             }
         }

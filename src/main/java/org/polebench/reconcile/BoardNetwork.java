@@ -6,7 +6,6 @@ import java.util.List;
 import org.polebench.InputProblem;
 import org.polebench.circuit.Bjt;
 import org.polebench.circuit.BiasSolver;
-import org.polebench.circuit.OperatingPoint;
 import org.polebench.circuit.OperatingPoints;
 import org.polebench.circuit.Part;
 import org.polebench.circuit.Resistor;
@@ -54,9 +53,9 @@ final class BoardNetwork {
         List<String> bjtNames = new ArrayList<>();
         for (Transistor transistor : stage.transistors()) {
             transistorNames.add(transistor.name());
-            if (transistor instanceof Bjt) {
-                bjtNames.add(transistor.name());
-            }
+        }
+        for (Bjt bjt : stage.bjts()) {
+            bjtNames.add(bjt.name());
         }
         this.transistors = List.copyOf(transistorNames);
         this.bjts = List.copyOf(bjtNames);
@@ -71,10 +70,7 @@ final class BoardNetwork {
         this.nominalValues = stage.partValues();
         this.nominalSourceBody = new double[transistors.size()];
         for (int t = 0; t < transistors.size(); t++) {
-            OperatingPoint point = nominalPoints.point(transistors.get(t));
-            if (point instanceof OperatingPoint.MosfetPoint) {
-                nominalSourceBody[t] = ((OperatingPoint.MosfetPoint) point).vsbVolts();
-            }
+            nominalSourceBody[t] = nominalPoints.point(transistors.get(t)).sourceBodyVolts();
         }
         try {
             this.bias = new BiasSolver().prepare(stage);

@@ -56,10 +56,10 @@ public final class CornerApportionment {
             expected = expected.withCapacitance(capacitor.label(), capacitor.valueOf(capacitor.tolerancePrior().mean()));
         }
         Reduction low = reduction.reduce(expansion.expand(expected, points), Band.LOW);
-        if (!(low instanceof Reduction.StateSpace)) {
+        if (low.stateModel().isEmpty()) {
             return Optional.empty();
         }
-        StateModel model = ((Reduction.StateSpace) low).model();
+        StateModel model = low.stateModel().get();
         OptionalDouble cornerRadPerS = corners.lowerCornerRadPerS(model);
         if (cornerRadPerS.isEmpty()) {
             return Optional.empty();

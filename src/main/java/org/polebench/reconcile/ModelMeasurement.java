@@ -6,7 +6,6 @@ import java.util.Optional;
 import java.util.OptionalDouble;
 import org.polebench.analysis.CornerFinder;
 import org.polebench.analysis.PortReduction;
-import org.polebench.analysis.Reduction;
 import org.polebench.analysis.StateModel;
 import org.polebench.circuit.Band;
 import org.polebench.circuit.OperatingPoints;
@@ -142,9 +141,7 @@ public final class ModelMeasurement {
         if (network == null) {
             return Optional.empty();
         }
-        Reduction low = reduction.reduce(network, Band.LOW);
-        return low instanceof Reduction.StateSpace ? Optional.of(((Reduction.StateSpace) low).model())
-                : Optional.empty();
+        return reduction.reduce(network, Band.LOW).stateModel();
     }
 
     /**

@@ -118,17 +118,19 @@ public final class BodeChart {
         double[][] reference = null;
         int index = 0;
         for (BodeSeries s : series) {
-            if (s instanceof BodeSeries.Curve curve) {
-                double[][] unwrapped = unwrappedPhases(curve.points());
+            Drawing drawing = s.match(DRAWING);
+            if (drawing.curve()) {
+                double[][] unwrapped = unwrappedPhases(drawing.points());
                 if (reference == null && unwrapped != null) {
                     reference = unwrapped;
                 }
             }
         }
         for (BodeSeries s : series) {
-            if (s instanceof BodeSeries.GainBand shaded) {
+            Drawing drawing = s.match(DRAWING);
+            if (drawing.band() != null) {
                 YIntervalSeries band = new YIntervalSeries(s.label());
-                for (GainBandPoint p : shaded.points()) {
+                for (GainBandPoint p : drawing.band()) {
                     band.add(p.frequencyHz(), 0.5 * (p.lowDb() + p.highDb()), p.lowDb(), p.highDb());
                     low = Math.min(low, p.frequencyHz());
                     high = Math.max(high, p.frequencyHz());
@@ -136,8 +138,8 @@ public final class BodeChart {
                 bands.addSeries(band);
                 continue;
             }
-            boolean isCurve = s instanceof BodeSeries.Curve;
-            List<ResponsePoint> points = isCurve ? ((BodeSeries.Curve) s).points() : ((BodeSeries.Measured) s).points();
+            boolean isCurve = drawing.curve();
+            List<ResponsePoint> points = drawing.points();
             XYSeries gain = new XYSeries(s.label(), false, true);
             XYSeries phase = new XYSeries(s.label(), false, true);
             double[][] curvePhase = isCurve ? unwrappedPhases(points) : null;
@@ -232,6 +234,30 @@ public final class BodeChart {
                     "name the plot file FILE.svg or FILE.png");
         }
     }
+
+    /**
+     * A series as the chart draws it: a shaded gain band ({@code band} set), or response points
+     * drawn as a line ({@code curve}) or as markers.
+     */
+    private record Drawing(List<GainBandPoint> band, List<ResponsePoint> points, boolean curve) {
+    }
+
+    private static final BodeSeries.Cases<Drawing> DRAWING = new BodeSeries.Cases<>() {
+        @Override
+        public Drawing measured(BodeSeries.Measured measured) {
+            return new Drawing(null, measured.points(), false);
+        }
+
+        @Override
+        public Drawing curve(BodeSeries.Curve curve) {
+            return new Drawing(null, curve.points(), true);
+        }
+
+        @Override
+        public Drawing gainBand(BodeSeries.GainBand band) {
+            return new Drawing(band.points(), null, false);
+        }
+    };
 
     private static void style(XYLineAndShapeRenderer renderer, int index, boolean curve) {
         Color[] palette = {new Color(0, 0, 0), new Color(200, 40, 40), new Color(30, 90, 200), new Color(20, 140, 60),

@@ -77,20 +77,25 @@ public final class PredictionJson {
         row.put("id", point.transistor());
         row.put("region", point.region().name().toLowerCase(Locale.ROOT).replace('_', '-'));
         row.put("current_given", point.currentGiven());
-        if (point instanceof OperatingPoint.BjtPoint) {
-            OperatingPoint.BjtPoint bjt = (OperatingPoint.BjtPoint) point;
-            row.put("ic_a", bjt.collectorAmps());
-            row.put("ib_a", bjt.baseAmps());
-            row.put("vce_v", bjt.vceVolts());
-            row.put("vbe_v", bjt.vbeVolts());
-        } else {
-            OperatingPoint.MosfetPoint mosfet = (OperatingPoint.MosfetPoint) point;
-            row.put("id_a", mosfet.drainAmps());
-            row.put("vds_v", mosfet.vdsVolts());
-            row.put("vgs_v", mosfet.vgsVolts());
-            row.put("vsb_v", mosfet.vsbVolts());
-        }
-        return row;
+        return point.match(new OperatingPoint.Cases<>() {
+            @Override
+            public ObjectNode bjt(OperatingPoint.BjtPoint bjt) {
+                row.put("ic_a", bjt.collectorAmps());
+                row.put("ib_a", bjt.baseAmps());
+                row.put("vce_v", bjt.vceVolts());
+                row.put("vbe_v", bjt.vbeVolts());
+                return row;
+            }
+
+            @Override
+            public ObjectNode mosfet(OperatingPoint.MosfetPoint mosfet) {
+                row.put("id_a", mosfet.drainAmps());
+                row.put("vds_v", mosfet.vdsVolts());
+                row.put("vgs_v", mosfet.vgsVolts());
+                row.put("vsb_v", mosfet.vsbVolts());
+                return row;
+            }
+        });
     }
 
     ArrayNode roots(List<ComplexFrequency> roots) {

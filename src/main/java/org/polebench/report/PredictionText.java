@@ -107,15 +107,20 @@ public final class PredictionText {
 
     private static String describe(OperatingPoint point) {
         String given = point.currentGiven() ? " (current given)" : "";
-        if (point instanceof OperatingPoint.BjtPoint) {
-            OperatingPoint.BjtPoint bjt = (OperatingPoint.BjtPoint) point;
-            return String.format(Locale.ROOT, "%-4s IC %s, VCE %.2f V, VBE %.2f V, %s%s", bjt.transistor(),
-                    EngineeringValue.format(bjt.collectorAmps(), "A"), bjt.vceVolts(), bjt.vbeVolts(),
-                    regionWords(point), given);
-        }
-        OperatingPoint.MosfetPoint mosfet = (OperatingPoint.MosfetPoint) point;
-        return String.format(Locale.ROOT, "%-4s ID %s, VDS %.2f V, VGS %.2f V, %s%s", mosfet.transistor(),
-                EngineeringValue.format(mosfet.drainAmps(), "A"), mosfet.vdsVolts(), mosfet.vgsVolts(),
-                regionWords(point), given);
+        return point.match(new OperatingPoint.Cases<>() {
+            @Override
+            public String bjt(OperatingPoint.BjtPoint bjt) {
+                return String.format(Locale.ROOT, "%-4s IC %s, VCE %.2f V, VBE %.2f V, %s%s", bjt.transistor(),
+                        EngineeringValue.format(bjt.collectorAmps(), "A"), bjt.vceVolts(), bjt.vbeVolts(),
+                        regionWords(point), given);
+            }
+
+            @Override
+            public String mosfet(OperatingPoint.MosfetPoint mosfet) {
+                return String.format(Locale.ROOT, "%-4s ID %s, VDS %.2f V, VGS %.2f V, %s%s", mosfet.transistor(),
+                        EngineeringValue.format(mosfet.drainAmps(), "A"), mosfet.vdsVolts(), mosfet.vgsVolts(),
+                        regionWords(point), given);
+            }
+        });
     }
 }

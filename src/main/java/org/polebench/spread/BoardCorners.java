@@ -6,7 +6,6 @@ import java.util.OptionalDouble;
 import org.polebench.InputProblem;
 import org.polebench.analysis.PortReduction;
 import org.polebench.analysis.StagePredictor;
-import org.polebench.circuit.Bias;
 import org.polebench.circuit.BiasSolver;
 import org.polebench.circuit.SmallSignalExpansion;
 import org.polebench.circuit.Stage;
@@ -61,9 +60,9 @@ final class BoardCorners {
         }
         SmallSignalExpansion.Prepared expansion = new SmallSignalExpansion().prepare(nominal);
         List<Transistor> all = nominal.transistors();
-        int[] given = new int[(int) all.stream().filter(t -> t.bias() instanceof Bias.Given).count()];
+        int[] given = new int[(int) all.stream().filter(t -> t.bias().givenAmps().isPresent()).count()];
         for (int t = 0, g = 0; t < all.size(); t++) {
-            if (all.get(t).bias() instanceof Bias.Given) {
+            if (all.get(t).bias().givenAmps().isPresent()) {
                 given[g++] = t;
             }
         }

@@ -54,12 +54,12 @@ public final class StageAnalysis {
      */
     public Prediction predictNetwork(Stage stage, SmallSignalNetwork network) throws InputProblem {
         PredictionOutcome outcome = predictor.predict(network);
-        if (outcome instanceof Reduction.Singular) {
-            Reduction.Singular singular = (Reduction.Singular) outcome;
+        if (outcome.singular().isPresent()) {
+            Reduction.Singular singular = outcome.singular().get();
             throw new InputProblem(stage.sourceFile(), lineOf(stage, singular.parts()),
                     singular.detail(), hintFor(singular));
         }
-        return (Prediction) outcome;
+        return outcome.prediction().orElseThrow();
     }
 
     private static int lineOf(Stage stage, List<String> parts) {

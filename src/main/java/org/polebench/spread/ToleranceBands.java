@@ -1,12 +1,9 @@
 package org.polebench.spread;
 
 import java.util.List;
+import java.util.Optional;
 import java.util.SplittableRandom;
-import org.polebench.circuit.Bias;
-import org.polebench.circuit.Bjt;
-import org.polebench.circuit.Capacitor;
 import org.polebench.circuit.Part;
-import org.polebench.circuit.Resistor;
 import org.polebench.circuit.Stage;
 import org.polebench.circuit.Tolerance;
 import org.polebench.circuit.Transistor;
@@ -37,11 +34,11 @@ final class ToleranceBands {
         lnLower = new double[nominal.length];
         lnUpper = new double[nominal.length];
         for (int p = 0; p < nominal.length; p++) {
-            Tolerance band = band(parts.get(p));
-            if (band != null) {
+            Optional<Tolerance> band = parts.get(p).drawnTolerance();
+            if (band.isPresent()) {
                 drawn[p] = true;
-                lnLower[p] = band.lnLower();
-                lnUpper[p] = band.lnUpper();
+                lnLower[p] = band.get().lnLower();
+                lnUpper[p] = band.get().lnUpper();
             }
         }
         List<Transistor> given = givenBias(stage);
@@ -53,20 +50,9 @@ final class ToleranceBands {
         }
     }
 
-    /** @return the band a part's drawn value spreads over; null for a MOSFET, of which nothing is drawn */
-    private static Tolerance band(Part part) {
-        if (part instanceof Resistor) {
-            return ((Resistor) part).tolerance();
-        }
-        if (part instanceof Capacitor) {
-            return ((Capacitor) part).tolerance();
-        }
-        return part instanceof Bjt ? ((Bjt) part).betaTolerance() : null;
-    }
-
     /** @return the transistors whose bias current the stage file gives, in transistor order */
     static List<Transistor> givenBias(Stage stage) {
-        return stage.transistors().stream().filter(t -> t.bias() instanceof Bias.Given).toList();
+        return stage.transistors().stream().filter(t -> t.bias().givenAmps().isPresent()).toList();
     }
 
     /** @return one board's part values ({@link Stage#partValues()} order): each nominal times its drawn factor */
