@@ -45,6 +45,12 @@ public record Diagnosis(List<Hypothesis> hypotheses, NoiseBasis noise, boolean u
         return first.kind() == HypothesisKind.NONE || first.identifiable() ? Optional.of(first) : Optional.empty();
     }
 
+    /** @return whether a bench hypothesis explains the sweep (see {@link ReconcileResult#chainTakenOut}) */
+    static boolean chainTakenOut(Diagnosis diagnosis, ModelAdequacy adequacy) {
+        Hypothesis top = diagnosis.top();
+        return adequacy.explained() && top.kind() == HypothesisKind.BENCH && top.identifiable();
+    }
+
     /**
      * A wrong divider resistor, a wrong emitter resistor and a transistor whose current is off
      * for its own reasons give nearly the same sweep: each moves the bias current, and β spread

@@ -69,7 +69,22 @@ public final class FaultRanking {
     public static final double RESISTOR_FAULT_SIGMA = Math.log(10);
     public static final double BIAS_FAULT_SIGMA = Math.log(3);
     public static final double GAIN_FAULT_SIGMA_DB = 20;
-    public static final double NO_FAULT_PRIOR = 0.5;
+    public static final double NO_FAULT_PRIOR = 0.45;
+    /**
+     * The measuring-chain hypotheses' share: an AC-coupled output channel takes
+     * {@value #AC_CHANNEL_SHARE} of it, a coupling mismatch between two channels the rest. Taken
+     * from "no fault": a bench mistake is a healthy board measured wrongly.
+     */
+    public static final double BENCH_PRIOR = 0.05;
+    static final double AC_CHANNEL_SHARE = 0.7;
+    /**
+     * The prior of an AC coupling's corner: log-normal about 3.3 Hz, σ = ln 3 (a scope's AC
+     * coupling sits at a few hertz, about 1 to 10 Hz; common practice, from memory).
+     */
+    static final double CHANNEL_CORNER_HZ = 3.3;
+    static final double CHANNEL_CORNER_SIGMA = Math.log(3);
+    /** The channels, in parameter order: the output channel's coupling, then the input channel's. */
+    static final List<String> CHANNELS = List.of("output-channel", "input-channel");
     public static final double SINGLE_FAULTS_PRIOR = 0.4;
     public static final double DOUBLE_FAULTS_PRIOR = 0.1;
     /**
@@ -145,6 +160,12 @@ public final class FaultRanking {
         result.add(new ModelParameter(ParameterKind.GAIN, Optional.empty(), 0, Optional.empty(),
                 new Prior(0, Decibels.toNepers(gainDb.standardDeviation())),
                 new Prior(0, Decibels.toNepers(GAIN_FAULT_SIGMA_DB))));
+        // the measuring channels' AC couplings, after the board model's own parameters (ChannelCouplings)
+        Prior coupling = new Prior(Math.log(CHANNEL_CORNER_HZ), CHANNEL_CORNER_SIGMA);
+        for (String channel : CHANNELS) {
+            result.add(new ModelParameter(ParameterKind.CHANNEL_CORNER, Optional.of(channel), 1, Optional.empty(),
+                    coupling, coupling));
+        }
         return result;
     }
 

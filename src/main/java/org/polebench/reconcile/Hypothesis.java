@@ -32,7 +32,10 @@ public record Hypothesis(HypothesisKind kind, List<PartReading> faults, double p
         return faults.size() == 1 ? Optional.of(faults.get(0).estimate()) : Optional.empty();
     }
 
-    /** @return "no fault", a part id, "Q1 bias current", "gain calibration", or "C2 and RE1" */
+    /**
+     * @return "no fault", a part id, "Q1 bias current", "gain calibration", "C2 and RE1", or a
+     *         measuring-chain element ("AC-coupled output channel")
+     */
     public String label() {
         if (kind == HypothesisKind.NONE) {
             return "no fault";
@@ -40,7 +43,19 @@ public record Hypothesis(HypothesisKind kind, List<PartReading> faults, double p
         if (kind == HypothesisKind.DOUBLE) {
             return label(faults.get(0)) + " and " + label(faults.get(1));
         }
+        if (kind == HypothesisKind.BENCH) {
+            return faults.size() > 1 ? "unequal channel AC couplings" : "AC-coupled output channel";
+        }
         return label(faults.get(0));
+    }
+
+    /** @return the measuring-chain element a bench hypothesis names: "output-channel", or both channels */
+    public Optional<String> element() {
+        if (kind != HypothesisKind.BENCH) {
+            return Optional.empty();
+        }
+        return Optional.of(faults.stream().map(f -> f.estimate().parameter().label())
+                .collect(java.util.stream.Collectors.joining(" and ")));
     }
 
     private static String label(PartReading reading) {

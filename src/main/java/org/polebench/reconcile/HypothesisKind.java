@@ -12,7 +12,10 @@ public enum HypothesisKind {
     BIAS,
     /** The flat gain calibration freed (a probe or level mistake), the rest within tolerance. */
     GAIN,
-    /** A part of the measuring chain (reserved for the bench hypotheses; none is ranked yet). */
+    /**
+     * The measuring chain, not the board: an AC-coupled output channel of unknown corner, or a
+     * ratio of two channels AC-coupled at different corners (a pole–zero doublet).
+     */
     BENCH,
     /** Two of the single faults at once, ranked only when no single one explains the sweep. */
     DOUBLE;

@@ -30,6 +30,9 @@ final class HypothesisSearch {
     private final boolean[] networkHeld;
     /** The parameters a hypothesis may free: all but β. */
     private final List<Integer> faultable = new ArrayList<>();
+    /** The channel couplings' parameters, freed only by the bench hypotheses. */
+    private final List<Integer> couplingIndices = new ArrayList<>();
+    private final ChannelCouplings couplings;
     private final List<Candidate> candidates = new ArrayList<>();
     private boolean pairsRanked;
     private Diagnosis last;
@@ -89,12 +92,24 @@ final class HypothesisSearch {
             ModelParameter parameter = parameters.get(j);
             tolerance[j] = parameter.tolerancePrior();
             mean[j] = parameter.kind() == ParameterKind.RESISTOR ? 0 : tolerance[j].mean();
-            baseActive[j] = parameter.kind() != ParameterKind.RESISTOR;
-            networkHeld[j] = parameter.kind() == ParameterKind.CAPACITOR || parameter.kind() == ParameterKind.GAIN;
-            if (parameter.kind() != ParameterKind.CURRENT_GAIN) {
+            baseActive[j] = parameter.kind() != ParameterKind.RESISTOR && parameter.kind() != ParameterKind.CHANNEL_CORNER;
+            // a coupling's corner needs no reduction either: it moves with the network held
+            networkHeld[j] = parameter.kind() == ParameterKind.CAPACITOR || parameter.kind() == ParameterKind.GAIN
+                    || parameter.kind() == ParameterKind.CHANNEL_CORNER;
+            if (parameter.kind() == ParameterKind.CHANNEL_CORNER) {
+                couplingIndices.add(j);
+            } else if (parameter.kind() != ParameterKind.CURRENT_GAIN) {
                 faultable.add(j);
             }
         }
+        int[] signs = new int[couplingIndices.size()];
+        for (int c = 0; c < signs.length; c++) {
+            signs[c] = parameters.get(couplingIndices.get(c)).label().equals(FaultRanking.CHANNELS.get(0)) ? 1 : -1;
+            if (couplingIndices.get(c) != model.parameterCount() + c) {
+                throw new IllegalArgumentException("the channel couplings follow the board model's parameters");
+            }
+        }
+        this.couplings = new ChannelCouplings(model.parameterCount(), signs);
     }
 
     /** @return the single-fault ranking (also kept, for {@link #withPairs()}) */
@@ -135,9 +150,53 @@ final class HypothesisSearch {
                 }
             }
         }
+        bench(noFault);
         convergeNear();
         last = finish();
         return last;
+    }
+
+    /**
+     * The measuring-chain hypotheses: the output channel AC-coupled at an unknown corner, and a
+     * ratio of two channels AC-coupled at different corners; each screened from the no-fault
+     * estimate with its corners at a few hertz apart (FaultRanking's priors).
+     */
+    private void bench(MapPoint noFault) {
+        if (couplingIndices.size() < 2) {
+            return;
+        }
+        int output = couplingIndices.get(0);
+        int input = couplingIndices.get(1);
+        double[][] corners = {{1, 0}, {3.3, 0}, {10, 0}};
+        double[][] pairs = {{2, 5}, {5, 2}, {1, 10}, {10, 1}};
+        addBench(new int[] {output}, FaultRanking.BENCH_PRIOR * FaultRanking.AC_CHANNEL_SHARE, corners, noFault);
+        addBench(new int[] {output, input}, FaultRanking.BENCH_PRIOR * (1 - FaultRanking.AC_CHANNEL_SHARE), pairs,
+                noFault);
+    }
+
+    private void addBench(int[] freed, double prior, double[][] startsHz, MapPoint noFault) {
+        Prior[] priors = tolerance.clone();
+        boolean[] active = baseActive.clone();
+        for (int j : freed) {
+            priors[j] = parameters.get(j).faultPrior();
+            active[j] = true;
+        }
+        Candidate bench = new Candidate(HypothesisKind.BENCH, freed, priors, active, Math.log(prior),
+                misfit(priors, active, 1, 1));
+        // from the no-fault estimate and from the tolerance means: the no-fault estimate has bent
+        // the coupling capacitors to mimic the channel, and a coupling added there counts it twice
+        List<double[]> starts = new ArrayList<>();
+        for (double[] from : List.of(noFault.theta(), mean)) {
+            for (double[] hz : startsHz) {
+                double[] start = from.clone();
+                for (int i = 0; i < freed.length; i++) {
+                    start[freed[i]] = Math.log(hz[i]);
+                }
+                starts.add(start);
+            }
+        }
+        bench.stated = screen(bench.misfit, starts, networkHeld);
+        candidates.add(bench);
     }
 
     // the single faults of these parameters screened on one board model (one thread)
@@ -183,7 +242,9 @@ final class HypothesisSearch {
         }
         List<Candidate> singles = new ArrayList<>();
         for (Hypothesis hypothesis : last.hypotheses()) {
-            if (hypothesis.kind() != HypothesisKind.NONE && hypothesis.kind() != HypothesisKind.DOUBLE) {
+            // the measuring chain is not paired with a part: a bench mistake is its own explanation
+            if (hypothesis.kind() != HypothesisKind.NONE && hypothesis.kind() != HypothesisKind.DOUBLE
+                    && hypothesis.kind() != HypothesisKind.BENCH) {
                 singles.add(candidateOf(hypothesis));
             }
         }
@@ -377,9 +438,13 @@ final class HypothesisSearch {
     /** The quadratic model at the no-fault MAP with every resistor active; made on first use. */
     private QuadraticModel atNoFault;
 
+    // every board parameter, resistors included; the channels stay DC-coupled
     private boolean[] allActive() {
         boolean[] all = new boolean[parameters.size()];
         java.util.Arrays.fill(all, true);
+        for (int j : couplingIndices) {
+            all[j] = false;
+        }
         return all;
     }
 
@@ -388,7 +453,7 @@ final class HypothesisSearch {
     }
 
     private Misfit misfit(BoardModel on, Prior[] priors, boolean[] active, double magnitudeScale, double phaseScale) {
-        return new Misfit(on, measured, priors, active, magnitudeScale, phaseScale);
+        return new Misfit(on, measured, priors, active, magnitudeScale, phaseScale, couplings);
     }
 
     // a hypothesis far behind after screening keeps its screened point: its probability is below

@@ -23,6 +23,14 @@ final class Misfit {
     /** 1/σ per point (the stated σ times the scale): weights multiply, divisions are slow. */
     private final double[] magnitudeWeight;
     private final double[] phaseWeight;
+    /** The measuring channels' couplings, after the board model's parameters; none for count 0. */
+    private final ChannelCouplings couplings;
+    private final double[] modelTheta;
+    private final double[] omegas;
+    private final double[] lnCoupling;
+    private final double[] argCoupling;
+    private final double[][] dLnCoupling;
+    private final double[][] dArgCoupling;
     /** Per transistor, the bias at which its Jacobian column was last made; null before. */
     private final double[][] columnBias;
     static final double BIAS_REFRESH = 0.1;
@@ -36,9 +44,27 @@ final class Misfit {
      */
     Misfit(BoardModel model, MeasuredResponse measured, Prior[] priors, boolean[] active, double magnitudeScale,
            double phaseScale) {
-        if (priors.length != model.parameterCount()) {
+        this(model, measured, priors, active, magnitudeScale, phaseScale,
+                new ChannelCouplings(model.parameterCount(), new int[0]));
+    }
+
+    /** @param couplings the measuring channels' couplings, whose parameters follow the board model's */
+    Misfit(BoardModel model, MeasuredResponse measured, Prior[] priors, boolean[] active, double magnitudeScale,
+           double phaseScale, ChannelCouplings couplings) {
+        if (priors.length != model.parameterCount() + couplings.count() || couplings.first() != model.parameterCount()) {
             throw new IllegalArgumentException("one prior per parameter");
         }
+        this.couplings = couplings;
+        this.modelTheta = new double[model.parameterCount()];
+        int points = measured.size();
+        this.omegas = new double[points];
+        for (int k = 0; k < points; k++) {
+            omegas[k] = 2 * Math.PI * measured.frequenciesHz()[k];
+        }
+        this.lnCoupling = new double[points];
+        this.argCoupling = new double[points];
+        this.dLnCoupling = new double[couplings.count()][points];
+        this.dArgCoupling = new double[couplings.count()][points];
         this.model = model;
         this.measured = measured;
         this.priors = priors.clone();
@@ -144,8 +170,9 @@ final class Misfit {
                 }
             }
         }
-        boolean ok = model.evaluate(theta, hr, hi, jacobian == null ? null : dr, jacobian == null ? null : di, fresh,
-                exact);
+        System.arraycopy(theta, 0, modelTheta, 0, modelTheta.length);
+        boolean ok = model.evaluate(modelTheta, hr, hi, jacobian == null ? null : dr, jacobian == null ? null : di,
+                fresh, exact);
         if (!ok) {
             return false;
         }
@@ -156,13 +183,21 @@ final class Misfit {
         }
         int n = measured.size();
         int p = priors.length;
+        int own = modelTheta.length;
+        java.util.Arrays.fill(lnCoupling, 0);
+        java.util.Arrays.fill(argCoupling, 0);
+        if (couplings.count() > 0) {
+            couplings.apply(theta, active, omegas, lnCoupling, argCoupling, jacobian == null ? null : dLnCoupling,
+                    dArgCoupling);
+        }
         for (int k = 0; k < n; k++) {
-            residuals[k] = (measured.lnMagnitude(k) - 0.5 * Math.log(hr[k] * hr[k] + hi[k] * hi[k]))
+            residuals[k] = (measured.lnMagnitude(k) - 0.5 * Math.log(hr[k] * hr[k] + hi[k] * hi[k]) - lnCoupling[k])
                     * magnitudeWeight[k];
         }
         if (measured.withPhase()) {
             for (int k = 0; k < n; k++) {
-                residuals[n + k] = wrap(measured.phaseRad(k) - Math.atan2(hi[k], hr[k])) * phaseWeight[k];
+                residuals[n + k] = wrap(measured.phaseRad(k) - Math.atan2(hi[k], hr[k]) - argCoupling[k])
+                        * phaseWeight[k];
             }
         }
         int priorRow = measured.rows();
@@ -174,12 +209,12 @@ final class Misfit {
         }
         for (int j = 0; j < p; j++) {
             double[] column = jacobian[j];
-            double[] magnitude = dr[j];
+            double[] magnitude = j < own ? dr[j] : dLnCoupling[j - own];
             for (int k = 0; k < n; k++) {
                 column[k] = -magnitude[k] * magnitudeWeight[k];
             }
             if (measured.withPhase()) {
-                double[] phase = di[j];
+                double[] phase = j < own ? di[j] : dArgCoupling[j - own];
                 for (int k = 0; k < n; k++) {
                     column[n + k] = -phase[k] * phaseWeight[k];
                 }

@@ -11,7 +11,12 @@ public enum ParameterKind {
     /** ln(R/R_nom) of one resistor, freed only by its own hypothesis; reported in ohms. */
     RESISTOR("Ω"),
     /** A flat gain calibration g in nepers (probe or level mistakes); reported in dB. */
-    GAIN("dB");
+    GAIN("dB"),
+    /**
+     * ln(f_c/1 Hz) of a measuring channel's AC coupling, a first-order high-pass on its reading;
+     * freed only by a bench hypothesis; reported in hertz.
+     */
+    CHANNEL_CORNER("Hz");
 
     private final String unit;
 
@@ -35,6 +40,8 @@ public enum ParameterKind {
                 return HypothesisKind.BIAS;
             case GAIN:
                 return HypothesisKind.GAIN;
+            case CHANNEL_CORNER:
+                return HypothesisKind.BENCH;
             default:
                 return HypothesisKind.NONE;
         }

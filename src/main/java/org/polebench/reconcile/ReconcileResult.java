@@ -32,6 +32,16 @@ public record ReconcileResult(StagePrediction predicted, Sweep sweep, FitResult 
         return diagnosis.top().backSolve();
     }
 
+    /**
+     * @return whether the sweep was read through the measuring chain: a bench hypothesis is the
+     *         most probable, identifiable, and the stage explains the sweep with it; the board's
+     *         own corner is then the back-solved model's, with the chain taken out, and the fit's
+     *         is the corner as measured
+     */
+    public boolean chainTakenOut() {
+        return Diagnosis.chainTakenOut(diagnosis, adequacy);
+    }
+
     /** @return the capacitor estimates of that back-solve, in port order */
     public List<ParameterEstimate> capacitors() {
         return backSolve().of(ParameterKind.CAPACITOR);

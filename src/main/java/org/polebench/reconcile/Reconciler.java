@@ -135,7 +135,13 @@ public final class Reconciler {
                 : fit.lowerCornerDataHz();
         Optional<Estimate> corner;
         String cornerSource;
-        if (adequate && fitCorner.isPresent()) {
+        boolean chainTakenOut = Diagnosis.chainTakenOut(diagnosis, adequacy) && model.lowerCornerHz().isPresent();
+        if (chainTakenOut) {
+            // the sweep shows the board through an AC-coupled channel: the limit is the board's
+            corner = model.lowerCornerHz();
+            cornerSource = "the board's own exact −3 dB corner: the back-solved stage model with the measuring "
+                    + "channel's AC coupling taken out (the fitted corner is the one the bench showed)";
+        } else if (adequate && fitCorner.isPresent()) {
             corner = fitCorner;
             cornerSource = fit.lowerCornerModelHz().isPresent() ? "the fitted model's exact −3 dB corner"
                     : "the −3 dB point read between measured points";
@@ -168,7 +174,9 @@ public final class Reconciler {
         }
         // a limit is decided only from a quantity the sweep itself determines (issue 11); the
         // others are still shown, labelled with their source, and the verdict names them
-        boolean cornerFromFit = adequate && fitCorner.isPresent();
+        // the board's own corner under a bench hypothesis that explains the sweep is the sweep's
+        // too: the channel is part of the model that explains it
+        boolean cornerFromFit = adequate && (chainTakenOut || fitCorner.isPresent());
         MeasuredQuantity lower = corner.isEmpty()
                 ? MeasuredQuantity.absent(adequate ? NotDecided.OUTSIDE_SWEPT_BAND : NotDecided.FIT_DOES_NOT_DESCRIBE_SWEEP)
                 : quantity(corner.get(), cornerSource, determination.lowerCorner(adequate, cornerFromFit,

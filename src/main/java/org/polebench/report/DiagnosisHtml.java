@@ -134,7 +134,8 @@ final class DiagnosisHtml {
         JsonNode noise = root.path("noise");
         h.append("<p class=\"note\">Probabilities from the Laplace evidence of each hypothesis with the priors shown (no "
                         + "fault ").append(ReportHtml.fraction(FaultRanking.NO_FAULT_PRIOR)).append("; the single faults share ")
-                .append(ReportHtml.fraction(FaultRanking.SINGLE_FAULTS_PRIOR)).append(", the pairs ")
+                .append(ReportHtml.fraction(FaultRanking.SINGLE_FAULTS_PRIOR)).append(", the measuring chain ")
+                .append(ReportHtml.fraction(FaultRanking.BENCH_PRIOR)).append(", the pairs ")
                 .append(ReportHtml.fraction(FaultRanking.DOUBLE_FAULTS_PRIOR))
                 .append(" over every pair that could be formed), normalised over the hypotheses ranked; ")
                 .append(pairs ? "pairs of single faults were ranked because no single fault explains the sweep. "

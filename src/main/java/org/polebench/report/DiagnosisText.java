@@ -32,7 +32,34 @@ public final class DiagnosisText {
             return "two faults at once: " + reading(hypothesis.faults().get(0)) + "; and "
                     + reading(hypothesis.faults().get(1));
         }
+        if (hypothesis.kind() == HypothesisKind.BENCH) {
+            return bench(hypothesis);
+        }
         return reading(hypothesis.faults().get(0));
+    }
+
+    // what a measuring-chain hypothesis looks like on the bench, and what to do about it
+    private static String bench(Hypothesis hypothesis) {
+        for (PartReading reading : hypothesis.faults()) {
+            if (!reading.estimate().identifiable()) {
+                return "a measuring channel's AC coupling cannot be identified from this sweep (its corner lies "
+                        + "outside the swept band or is masked by the board's own): not blamed";
+            }
+        }
+        if (hypothesis.faults().size() == 1) {
+            return "looks measured through an AC-coupled output channel at about " + corner(hypothesis.faults().get(0))
+                    + ": measure with DC coupling, or declare the coupling in a bench file; the board's own corner is "
+                    + "the one with the channel taken out";
+        }
+        return "looks like the ratio of two channels AC-coupled at different corners (output channel "
+                + corner(hypothesis.faults().get(0)) + ", input channel " + corner(hypothesis.faults().get(1))
+                + "): use DC coupling on both, or declare them in a bench file";
+    }
+
+    private static String corner(PartReading reading) {
+        ParameterEstimate estimate = reading.estimate();
+        return EngineeringValue.format(estimate.value(), "Hz", 3) + " ± "
+                + EngineeringValue.format(estimate.uncertainty(), "Hz", 1);
     }
 
     private static String reading(PartReading reading) {
@@ -48,6 +75,8 @@ public final class DiagnosisText {
             case CAPACITOR:
             case RESISTOR:
                 return valued(reading);
+            case CHANNEL_CORNER:
+                return label + " AC coupling at " + corner(reading);
             case BIAS:
                 return String.format(Locale.ROOT, "%s bias current reads %s ± %s against %s designed (×%s): "
                                 + "check its bias network and supply", label,

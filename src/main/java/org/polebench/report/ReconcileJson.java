@@ -44,7 +44,17 @@ public final class ReconcileJson {
         ObjectNode root = nodes.objectNode();
         root.set("diagnosis", diagnosis(result.adequacy()));
         root.set("predicted", new PredictionJson().of(result.predicted()));
-        root.set("measured", new FitJson().toJson(result.measured()));
+        ObjectNode measured = new FitJson().toJson(result.measured());
+        // the corner the bench showed, and, when a measuring-chain hypothesis explains the sweep,
+        // the board's own in lower_corner_hz (the back-solved model with the chain taken out)
+        measured.set("as_measured_lower_corner_hz", measured.path("lower_corner_hz").deepCopy());
+        if (result.chainTakenOut() && result.sideBySide().backSolvedLowerCornerHz().isPresent()) {
+            ObjectNode own = measured.putObject("lower_corner_hz");
+            own.put("value", result.sideBySide().backSolvedLowerCornerHz().get().value());
+            own.put("u", result.sideBySide().backSolvedLowerCornerHz().get().standardUncertainty());
+        }
+        measured.put("chain_taken_out", result.chainTakenOut());
+        root.set("measured", measured);
         root.set("side_by_side", sideBySide(result.sideBySide()));
         root.set("apportionment", result.apportionment().isPresent()
                 ? apportionment(result.apportionment().get()) : nodes.nullNode());
@@ -141,7 +151,9 @@ public final class ReconcileJson {
     private ObjectNode hypothesis(Hypothesis hypothesis) {
         ObjectNode row = nodes.objectNode();
         row.put("kind", hypothesis.kind().word());
-        if (hypothesis.part().isPresent()) {
+        if (hypothesis.element().isPresent()) {
+            row.put("part", hypothesis.element().get());
+        } else if (hypothesis.part().isPresent()) {
             row.put("part", hypothesis.part().get());
         } else {
             row.putNull("part");
@@ -166,7 +178,7 @@ public final class ReconcileJson {
             row.putNull("nearest_preferred");
             row.put("decade_slip", false);
         }
-        if (hypothesis.kind() == HypothesisKind.DOUBLE) {
+        if (hypothesis.kind() == HypothesisKind.DOUBLE || hypothesis.faults().size() > 1) {
             ArrayNode faults = row.putArray("faults");
             for (PartReading reading : hypothesis.faults()) {
                 ParameterEstimate estimate = reading.estimate();

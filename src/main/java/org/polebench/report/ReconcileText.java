@@ -10,6 +10,7 @@ import org.polebench.fit.RootStatus;
 import org.polebench.reconcile.Apportionment;
 import org.polebench.reconcile.BackSolve;
 import org.polebench.reconcile.CapacitorShare;
+import org.polebench.reconcile.FaultRanking;
 import org.polebench.reconcile.Hypothesis;
 import org.polebench.reconcile.HypothesisKind;
 import org.polebench.reconcile.LimitCheck;
@@ -45,7 +46,7 @@ public final class ReconcileText {
         }
         out.println();
         diagnosis(result, out);
-        sideBySide(result.sideBySide(), out);
+        sideBySide(result.sideBySide(), result.chainTakenOut(), out);
         if (result.apportionment().isPresent()) {
             apportionment(result.apportionment().get(), out);
         }
@@ -62,7 +63,7 @@ public final class ReconcileText {
         out.println();
     }
 
-    private static void sideBySide(SideBySide side, PrintWriter out) {
+    private static void sideBySide(SideBySide side, boolean chainTakenOut, PrintWriter out) {
         out.println("Predicted against measured");
         out.println(String.format(Locale.ROOT, "  %-26s %14s %24s", "", "predicted", "measured (± U, k = "
                 + MeasuredValueFormat.fixed(side.measuredMidbandGainDb().coverageFactor(), 2) + ")"));
@@ -81,6 +82,10 @@ public final class ReconcileText {
         if (side.backSolvedLowerCornerHz().isPresent()) {
             out.println(String.format(Locale.ROOT, "  %-26s %14s %24s", "lower corner, back-solved", "",
                     estimate(side.backSolvedLowerCornerHz().get(), "Hz")));
+        }
+        if (chainTakenOut) {
+            out.println("  the measured corner is the one the bench showed, through an AC-coupled channel; the board's "
+                    + "own is the back-solved one, with the channel taken out, and the limits are decided on it");
         }
         if (!side.fitAdequate()) {
             out.println("  the rational fit does not describe this sweep (χ²/ν above "
@@ -174,10 +179,17 @@ public final class ReconcileText {
         out.println();
     }
 
+    // a prior share as the shortest decimal that gives it back (0.45, 0.4, 0.05)
+    private static String share(double fraction) {
+        return java.math.BigDecimal.valueOf(fraction).stripTrailingZeros().toPlainString();
+    }
+
     private static void hypotheses(ReconcileResult result, PrintWriter out) {
         boolean explained = result.adequacy().explained();
         out.println((result.diagnosis().pairsRanked() ? "Fault hypotheses, single and double" : "Single-fault hypotheses")
-                + " (Laplace evidence; prior: no fault 0.5, single faults share 0.4, pairs share 0.1)"
+                + " (Laplace evidence; prior: no fault " + share(FaultRanking.NO_FAULT_PRIOR) + ", single faults share "
+                + share(FaultRanking.SINGLE_FAULTS_PRIOR) + ", the measuring chain " + share(FaultRanking.BENCH_PRIOR)
+                + ", pairs share " + share(FaultRanking.DOUBLE_FAULTS_PRIOR) + ")"
                 + (explained ? "" : "; RELATIVE probabilities: none of these explains the sweep"));
         // every single fault is listed; of the pairs, the ones that carry any probability and the
         // few closest: a full list of pairs would bury the lines that matter (the JSON and the

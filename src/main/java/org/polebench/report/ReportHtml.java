@@ -170,12 +170,15 @@ public final class ReportHtml {
                 + "stage's own exact model, each within its tolerance prior; β is a nuisance parameter of every "
                 + "hypothesis (device spread), never blamed.</li>\n");
         h.append("<li><b>Hypotheses.</b> No fault; one capacitor, one resistor (the DC operating point solved again "
-                + "for every value tried), one bias current or the gain calibration freed with a wide prior; and, only "
+                + "for every value tried), one bias current or the gain calibration freed with a wide prior; the "
+                + "measuring chain (an AC-coupled output channel of unknown corner, or two channels AC-coupled at "
+                + "different corners); and, only "
                 + "when no single fault explains the sweep, pairs: the most probable single faults with the parts "
                 + "that promise the largest further improvement beside them, with one another, and every pair of "
                 + "capacitors and the gain calibration. They are ranked by their Laplace evidence with prior "
                         + "probabilities ").append(fraction(FaultRanking.NO_FAULT_PRIOR)).append(" for no fault, ")
-                .append(fraction(FaultRanking.SINGLE_FAULTS_PRIOR)).append(" shared by the single faults and ")
+                .append(fraction(FaultRanking.SINGLE_FAULTS_PRIOR)).append(" shared by the single faults, ")
+                .append(fraction(FaultRanking.BENCH_PRIOR)).append(" by the measuring chain and ")
                 .append(fraction(FaultRanking.DOUBLE_FAULTS_PRIOR)).append(" by the pairs.</li>\n");
         h.append("<li><b>Adequacy.</b> Whether the most probable hypothesis explains the sweep is tested by four "
                 + "checks, each at level ").append(fraction(AdequacyTest.ALPHA))

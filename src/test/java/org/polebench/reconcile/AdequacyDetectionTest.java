@@ -30,7 +30,8 @@ import org.polebench.synth.SweepNoise;
  * channel's AC coupling (a first-order high-pass at 1, 3.3 or 10 Hz on the reading), the
  * generator's 50 Ω output resistance in series with the stage's source resistance (a
  * 600 Ω source becomes 650 Ω), and the sweep reconciled against another stage's file. The rule
- * checked on every board: "not explained", or no part named with confidence. The rates are
+ * checked on every board: "not explained" (or, for the AC couplings, the measuring chain on top,
+ * since issue 13 gave it hypotheses), or no part named with confidence. The rates are
  * printed for the closing note; floors below keep them from falling.
  */
 class AdequacyDetectionTest {
@@ -74,8 +75,12 @@ class AdequacyDetectionTest {
                             DecisionRule.SIMPLE);
                     Hypothesis top = result.diagnosis().top();
                     boolean named = result.adequacy().explained() && top.kind() != HypothesisKind.NONE
+                            && top.kind() != HypothesisKind.BENCH
                             && top.identifiable() && top.probability() >= 0.9;
-                    return new String[] {result.adequacy().explained() ? "explained" : "flagged",
+                    // caught: not explained, or put down to the measuring chain (a bench hypothesis
+                    // on top; BenchHypothesesTest checks its corner)
+                    boolean bench = result.adequacy().explained() && top.kind() == HypothesisKind.BENCH;
+                    return new String[] {result.adequacy().explained() && !bench ? "explained" : "flagged",
                             named ? demo.stage.name().split(" ")[0] + " " + effect + ": " + top.label() + " p="
                                     + String.format(Locale.ROOT, "%.3f", top.probability()) : ""};
                 } catch (InputProblem problem) {
@@ -87,7 +92,7 @@ class AdequacyDetectionTest {
             outcomes.stream().filter(o -> !o[1].isEmpty()).forEach(o -> confident.add(o[1]));
         }
         String summary = rates.entrySet().stream().map(e -> e.getKey() + ": " + e.getValue()[0] + "/"
-                + e.getValue()[1] + " not explained").collect(Collectors.joining("; "))
+                + e.getValue()[1] + " not explained or the bench on top").collect(Collectors.joining("; "))
                 + "\n  named with confidence while explained: " + confident;
         TestFigures.keep(getClass(), "boardsWithAModelErrorAreNotExplainedOrNotBlamedOnAPart", summary);
         // AC couplings at 3.3 Hz and above and the wrong stage file change the response by far

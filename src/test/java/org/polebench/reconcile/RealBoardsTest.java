@@ -278,15 +278,18 @@ class RealBoardsTest {
     }
 
     @Test
-    void effectsOutsideTheHypothesesAreNotExplained() throws InputProblem {
+    void effectsOutsideTheHypothesesAreNotExplainedOrPutDownToTheBench() throws InputProblem {
         List<String> failures = new ArrayList<>();
         for (int s = 0; s < DEMOS.size(); s++) {
             Board healthy = board(s, List.of(), Set.of(), true, 5500L + s);
-            // a scope channel's AC coupling: a 3.5 Hz first-order high-pass on the reading
+            // a scope channel's AC coupling: a 3.5 Hz first-order high-pass on the reading; since
+            // issue 13 the measuring chain has hypotheses, so it must be not explained or put
+            // down to the AC-coupled channel, never to a part
             ReconcileResult coupled = reconcile(new Board(s, healthy.faults(), Set.of(),
                     BenchEffects.acCoupled(healthy.sweep(), 3.5)));
-            if (coupled.adequacy().explained()) {
-                failures.add(DEMOS.get(s).stage.name() + " AC-coupled: " + coupled.adequacy());
+            if (coupled.adequacy().explained() && coupled.diagnosis().top().kind() != HypothesisKind.BENCH) {
+                failures.add(DEMOS.get(s).stage.name() + " AC-coupled: " + coupled.diagnosis().top().label() + ", "
+                        + coupled.adequacy());
             }
             // frequency and gain columns swapped
             ReconcileResult swapped = reconcile(new Board(s, healthy.faults(), Set.of(),
