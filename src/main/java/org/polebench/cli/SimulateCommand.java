@@ -2,20 +2,12 @@ package org.polebench.cli;
 
 import java.io.IOException;
 import java.io.PrintWriter;
-import java.net.InetAddress;
-import java.net.InetSocketAddress;
-import java.net.ServerSocket;
-import java.net.Socket;
-import java.net.SocketTimeoutException;
 import java.nio.file.Path;
 import java.util.ArrayList;
-import java.util.IdentityHashMap;
 import java.util.List;
-import java.util.Map;
+import java.util.Locale;
 import java.util.concurrent.Callable;
-import java.util.concurrent.CountDownLatch;
 import java.util.concurrent.atomic.AtomicBoolean;
-import java.util.concurrent.atomic.AtomicReference;
 import org.polebench.InputProblem;
 import org.polebench.circuit.Stage;
 import org.polebench.circuit.StageReader;
@@ -23,13 +15,12 @@ import org.polebench.synth.Fault;
 import org.polebench.synth.FaultText;
 import org.polebench.profile.InstrumentProfile;
 import org.polebench.synth.InstrumentSimulator;
-import org.polebench.capture.LineTransport;
+import org.polebench.synth.SimulatorServer;
 import org.polebench.synth.Misbehaviour;
 import org.polebench.profile.SerialProfile;
 import org.polebench.synth.StageBoard;
 import org.polebench.capture.SweepCapture;
 import org.polebench.synth.SweepNoise;
-import org.polebench.capture.TcpLine;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
@@ -137,49 +128,14 @@ final class SimulateCommand implements Callable<Integer> {
     private int serveSerial(SerialProfile profile, InstrumentSimulator simulator, AtomicBoolean stop)
             throws InputProblem, IOException {
         SweepCapture names = new SweepCapture(profile);
-        InstrumentSimulator.Session session = simulator.session();
         PrintWriter out = spec.commandLine().getOut();
         try (BenchLinks links = BenchLinks.open(ports, List.of(), names.linkNames(), names::portSettings, 0)) {
-            Map<LineTransport, Boolean> started = new IdentityHashMap<>();
-            List<Thread> threads = new ArrayList<>();
-            AtomicReference<IOException> failure = new AtomicReference<>();
-            CountDownLatch ended = new CountDownLatch(1);
             for (String line : links.describe()) {
                 out.println("answering " + line);
             }
             out.flush();
-            for (LineTransport link : links.byName().values()) {
-                if (started.put(link, Boolean.TRUE) != null) {
-                    continue;
-                }
-                Thread thread = new Thread(() -> {
-                    try {
-                        InstrumentSimulator.End end = session.serve(link, stop::get, sent -> { });
-                        out.println("line " + link.describe() + ": " + end.name().toLowerCase(java.util.Locale.ROOT)
-                                .replace('_', ' '));
-                        out.flush();
-                    } catch (IOException e) {
-                        failure.set(e);
-                    } finally {
-                        ended.countDown();
-                    }
-                }, "simulate " + link.describe());
-                thread.start();
-                threads.add(thread);
-            }
-            try {
-                // the bench is gone when any of its lines is: stop the others too
-                ended.await();
-                stop.set(true);
-                for (Thread thread : threads) {
-                    thread.join(5_000);
-                }
-            } catch (InterruptedException e) {
-                Thread.currentThread().interrupt();
-            }
-            if (failure.get() != null) {
-                throw failure.get();
-            }
+            new SimulatorServer(simulator.session()).serveLines(links.byName().values(), stop::get,
+                    (line, end) -> said(out, "line " + line + ": " + words(end)));
         }
         return ExitCodes.OK;
     }
@@ -198,31 +154,29 @@ final class SimulateCommand implements Callable<Integer> {
             throw new InputProblem(null, 0, "--tcp " + tcp + " has no port number 0 to 65535", "write it as 127.0.0.1:5025");
         }
         SweepCapture names = new SweepCapture(profile);
-        InstrumentSimulator.Session session = simulator.session();
         PrintWriter out = spec.commandLine().getOut();
-        try (ServerSocket server = new ServerSocket()) {
-            server.bind(new InetSocketAddress(InetAddress.getByName(host), port), 1);
-            server.setSoTimeout(200);
-            out.println("listening on " + server.getInetAddress().getHostAddress() + ":" + server.getLocalPort());
-            out.flush();
-            while (!stop.get()) {
-                Socket socket;
-                try {
-                    socket = server.accept();
-                } catch (SocketTimeoutException e) {
-                    continue;
-                }
-                try (TcpLine line = TcpLine.accepted(socket, names.portSettings(names.linkNames().get(0)).lineEnding())) {
-                    InstrumentSimulator.End end = session.serve(line, stop::get, sent -> { });
-                    out.println("connection " + line.describe() + ": " + end.name().toLowerCase(java.util.Locale.ROOT)
-                            .replace('_', ' '));
-                    out.flush();
-                }
-                if (once) {
-                    break;
-                }
-            }
-        }
+        new SimulatorServer(simulator.session()).serveTcp(host, port, once,
+                names.portSettings(names.linkNames().get(0)).lineEnding(), stop::get, new SimulatorServer.Listener() {
+                    @Override
+                    public void listening(String address) {
+                        said(out, "listening on " + address);
+                    }
+
+                    @Override
+                    public void ended(String line, InstrumentSimulator.End end) {
+                        said(out, "connection " + line + ": " + words(end));
+                    }
+                });
         return ExitCodes.OK;
+    }
+
+    private static void said(PrintWriter out, String line) {
+        out.println(line);
+        out.flush();
+    }
+
+    /** @return how serving ended, in words: {@code line lost} for {@code LINE_LOST} */
+    private static String words(InstrumentSimulator.End end) {
+        return end.name().toLowerCase(Locale.ROOT).replace('_', ' ');
     }
 }

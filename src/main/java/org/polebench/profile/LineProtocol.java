@@ -12,6 +12,19 @@ public sealed interface LineProtocol permits LineProtocol.ScpiExchange, LineProt
     int timeoutMs();
 
     /**
+     * @return what {@code cases} gives for this protocol; a new protocol adds a method to
+     *         {@link Cases}, so the compiler finds every place that acts on the protocols
+     */
+    <R> R apply(Cases<R> cases);
+
+    /** One action per protocol, for {@link #apply}. */
+    interface Cases<R> {
+        R exchange(ScpiExchange scpi);
+
+        R stream(StreamedLines stream);
+    }
+
+    /**
      * One named instrument on its own port.
      *
      * @param identify the identity query, {@code *IDN?} for IEEE 488.2 devices
@@ -66,6 +79,11 @@ public sealed interface LineProtocol permits LineProtocol.ScpiExchange, LineProt
                 throw new IllegalArgumentException("the amplitude must be positive and at most the maximum");
             }
         }
+
+        @Override
+        public <R> R apply(Cases<R> cases) {
+            return cases.exchange(this);
+        }
     }
 
     /**
@@ -87,6 +105,11 @@ public sealed interface LineProtocol permits LineProtocol.ScpiExchange, LineProt
             if (!point.pattern().contains("(?<frequency>")) {
                 throw new IllegalArgumentException("the point pattern needs a group named frequency");
             }
+        }
+
+        @Override
+        public <R> R apply(Cases<R> cases) {
+            return cases.stream(this);
         }
     }
 }

@@ -308,7 +308,7 @@ public final class SerialLogParser {
 
     private void errorAnswer(int lineNo, String body) {
         tally.add("error answers", lineNo, "error answer " + body
-                + (stepOpen ? "; readings of the step for " + SweepAssembly.format(stepFrequency) + " Hz so far are void"
+                + (stepOpen ? "; readings of the step for " + ReadingConversion.format(stepFrequency) + " Hz so far are void"
                         : ""));
         if (stepOpen) {
             errorsInStep++;
@@ -337,7 +337,7 @@ public final class SerialLogParser {
         if (complete()) {
             assembly.offer(stepLine, stepFrequency, gain, input, output, phase, Double.NaN, Double.NaN);
         } else {
-            tally.add("incomplete steps", stepLine, "the step for " + SweepAssembly.format(stepFrequency)
+            tally.add("incomplete steps", stepLine, "the step for " + ReadingConversion.format(stepFrequency)
                     + " Hz lacks " + missing() + (errorsInStep > 0 ? " (after an error answer)" : "") + "; skipped");
         }
         errorsInStep = 0;

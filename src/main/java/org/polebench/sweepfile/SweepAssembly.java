@@ -1,5 +1,7 @@
 package org.polebench.sweepfile;
 
+import static org.polebench.sweepfile.ReadingConversion.format;
+
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.Arrays;
@@ -9,7 +11,6 @@ import java.util.Locale;
 import java.util.OptionalDouble;
 import org.polebench.InputProblem;
 import org.polebench.profile.InstrumentProfile;
-import org.polebench.profile.ReadingLimits;
 import org.polebench.profile.ReadingScale;
 import org.polebench.sweep.LowerCornerEstimate;
 import org.polebench.sweep.PhaseUnwrap;
@@ -17,30 +18,24 @@ import org.polebench.sweep.Provenance;
 import org.polebench.sweep.RoughLowerCorner;
 import org.polebench.sweep.Sweep;
 import org.polebench.sweep.SweepPoint;
-import org.polebench.units.Decibels;
 
 /**
  * Turns an instrument's raw readings, offered one at a time with their line, into a sweep:
- * converts units, applies the data checks and drops bad readings with a warning each, then
+ * converts units and applies the data checks ({@link ReadingConversion}, the rule live capture
+ * shares) and drops bad readings with a warning each, then
  * sorts, merges duplicate frequencies, unwraps phase and refuses a sweep of fewer than
  * {@link #MIN_POINTS} points. Readings are kept in growing primitive arrays, so memory is a
  * few doubles per point whatever the file's size.
  *
  * <p>One instance serves one import and is not shared between threads.
  */
-public final class SweepAssembly {
+final class SweepAssembly {
     /** Fewer points than this cannot support a pole-zero fit of a two-pole stage (issue 3). */
     static final int MIN_POINTS = 8;
-    /**
-     * Gains beyond ±1000 dB and phases beyond ±10⁶° (some 2800 turns) are no reading any
-     * instrument makes; refusing them also keeps averaging and unwrapping finite.
-     */
-    public static final double MAX_GAIN_DB = 1000;
-    public static final double MAX_PHASE_DEG = 1e6;
 
     private final Path file;
     private final ReadingScale scale;
-    private final ReadingLimits limits;
+    private final ReadingConversion conversion;
     private final boolean hasPhase;
     private final double defaultGainUncertaintyDb;
     private final double defaultPhaseUncertaintyDeg;
@@ -61,7 +56,7 @@ public final class SweepAssembly {
     SweepAssembly(Path file, InstrumentProfile profile, boolean hasPhase, WarningTally tally) {
         this.file = file;
         this.scale = profile.scale();
-        this.limits = profile.limits();
+        this.conversion = new ReadingConversion(profile);
         this.hasPhase = hasPhase;
         this.defaultGainUncertaintyDb = profile.accuracy().gainStandardUncertaintyDb().orElse(Double.NaN);
         this.defaultPhaseUncertaintyDeg = profile.accuracy().phaseStandardUncertaintyDeg().orElse(Double.NaN);
@@ -90,39 +85,29 @@ public final class SweepAssembly {
      */
     boolean offer(int line, double rawFrequency, double rawGain, double rawInput, double rawOutput,
                   double rawPhase, double uGainDb, double uPhaseDeg) {
-        double hz = scale.hertz(rawFrequency);
-        if (Double.isInfinite(rawFrequency) || Double.isInfinite(hz)) {
-            return drop("out-of-range numbers", line, "frequency " + rawFrequency + " is beyond any instrument's range; row skipped");
+        ReadingConversion.Reading hz = conversion.frequencyHz(rawFrequency);
+        if (hz.dropped().isPresent()) {
+            return drop(hz.dropped().get(), line);
         }
-        if (!(hz > 0)) {
-            return drop("non-positive frequencies", line, "frequency " + format(rawFrequency) + " "
-                    + scale.frequencyUnit().symbol() + " is not positive; row skipped");
-        }
-        double gain = gainDbOf(line, rawGain, rawInput, rawOutput);
-        if (Double.isNaN(gain)) {
-            return false;
-        }
-        if (limits.noiseFloorDb().isPresent() && gain <= limits.noiseFloorDb().getAsDouble()) {
-            return drop("readings at the noise floor", line, "gain " + format(gain) + " dB is at or below the noise floor of "
-                    + format(limits.noiseFloorDb().getAsDouble()) + " dB; row dropped");
+        ReadingConversion.Reading gain = conversion.gainDb(rawGain, rawInput, rawOutput);
+        if (gain.dropped().isPresent()) {
+            return drop(gain.dropped().get(), line);
         }
         double phase = Double.NaN;
         if (hasPhase) {
-            if (Double.isInfinite(rawPhase)) {
-                return drop("out-of-range numbers", line, "phase " + rawPhase + " is out of range; row skipped");
+            ReadingConversion.Reading converted = conversion.phaseDeg(rawPhase);
+            if (converted.dropped().isPresent()) {
+                return drop(converted.dropped().get(), line);
             }
-            phase = scale.phaseDeg(rawPhase);
-            if (!(Math.abs(phase) <= MAX_PHASE_DEG)) {
-                return drop("out-of-range numbers", line, "phase " + format(rawPhase) + " is beyond any reading ("
-                        + "more than " + format(MAX_PHASE_DEG) + "°); row skipped");
-            }
+            phase = converted.value();
         }
         if (uGainDb < 0 || uPhaseDeg < 0 || Double.isInfinite(uGainDb) || Double.isInfinite(uPhaseDeg)) {
-            return drop("bad uncertainties", line, "an uncertainty must be finite and not negative; row skipped");
+            tally.add("bad uncertainties", line, "an uncertainty must be finite and not negative; row skipped");
+            return false;
         }
         grow();
-        frequencyHz[count] = hz;
-        gainDb[count] = gain;
+        frequencyHz[count] = hz.value();
+        gainDb[count] = gain.value();
         phaseDeg[count] = phase;
         gainUncertaintyDb[count] = Double.isNaN(uGainDb) ? defaultGainUncertaintyDb : uGainDb;
         phaseUncertaintyDeg[count] = Double.isNaN(uPhaseDeg) ? defaultPhaseUncertaintyDeg : uPhaseDeg;
@@ -131,62 +116,8 @@ public final class SweepAssembly {
         return true;
     }
 
-    /** @return the gain in dB, or NaN after warning why there is none */
-    private double gainDbOf(int line, double rawGain, double rawInput, double rawOutput) {
-        double gain;
-        switch (scale.gainForm()) {
-            case DB:
-                gain = rawGain;
-                break;
-            case RATIO:
-                if (rawGain < 0) {
-                    drop("negative magnitudes", line, "gain ratio " + format(rawGain) + " is negative: a magnitude cannot be; row skipped");
-                    return Double.NaN;
-                }
-                if (rawGain == 0) {
-                    drop("readings at the noise floor", line, "gain ratio 0 is no reading (below any noise floor); row dropped");
-                    return Double.NaN;
-                }
-                gain = Decibels.fromRatio(rawGain);
-                break;
-            case AMPLITUDES:
-                if (Double.isInfinite(rawInput) || Double.isInfinite(rawOutput)) {
-                    drop("out-of-range numbers", line, "an amplitude is beyond any instrument's range; row skipped");
-                    return Double.NaN;
-                }
-                if (limits.fullScale().isPresent()
-                        && Math.max(rawInput, rawOutput) >= limits.fullScale().getAsDouble()) {
-                    drop("clipped readings", line, "amplitude " + format(Math.max(rawInput, rawOutput)) + " "
-                            + scale.amplitudeKind().symbol() + " is at or above full scale ("
-                            + format(limits.fullScale().getAsDouble()) + "): the reading is clipped; row dropped");
-                    return Double.NaN;
-                }
-                if (!(rawInput > 0) || rawOutput < 0) {
-                    drop("negative magnitudes", line, "amplitudes must be positive (input " + format(rawInput)
-                            + ", output " + format(rawOutput) + "); row skipped");
-                    return Double.NaN;
-                }
-                if (rawOutput == 0 || (limits.amplitudeFloor().isPresent()
-                        && Math.min(rawInput, rawOutput) <= limits.amplitudeFloor().getAsDouble())) {
-                    drop("readings at the noise floor", line, "amplitude " + format(Math.min(rawInput, rawOutput)) + " "
-                            + scale.amplitudeKind().symbol() + " is at or below the noise floor; row dropped");
-                    return Double.NaN;
-                }
-                gain = Decibels.fromRatio(rawOutput / rawInput);
-                break;
-            default:
-                throw new IllegalStateException("unknown gain form " + scale.gainForm());
-        }
-        if (!(Math.abs(gain) <= MAX_GAIN_DB)) {
-            drop("out-of-range numbers", line, "gain " + format(gain) + " dB is beyond any reading (more than "
-                    + format(MAX_GAIN_DB) + " dB); row skipped");
-            return Double.NaN;
-        }
-        return gain;
-    }
-
-    private boolean drop(String kind, int line, String message) {
-        tally.add(kind, line, message);
+    private boolean drop(ReadingConversion.Dropped dropped, int line) {
+        tally.add(dropped.reason().plural(), line, dropped.rowMessage());
         return false;
     }
 
@@ -382,12 +313,5 @@ public final class SweepAssembly {
             }
         }
         return best;
-    }
-
-    public static String format(double value) {
-        if (value == Math.rint(value) && Math.abs(value) < 1e15) {
-            return String.format(Locale.ROOT, "%.0f", value);
-        }
-        return String.format(Locale.ROOT, "%.6g", value);
     }
 }
