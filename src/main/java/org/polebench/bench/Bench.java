@@ -54,16 +54,28 @@ public record Bench(double generatorOhms, Optional<Reference> reference, Channel
         return input.orElse(new InputChannel(ProbePoint.STAGE_INPUT, Channel.IDEAL));
     }
 
+    /** @return the file it was read from, when there is one */
+    public Optional<Path> source() {
+        return Optional.ofNullable(sourceFile);
+    }
+
+    /** @return the provenance note a sweep measured on this bench carries: {@code bench: FILE: elements} */
+    public String provenanceNote() {
+        return "bench: " + source().map(f -> f + ": ").orElse("") + describe();
+    }
+
     /** @return true when a channel's AC coupling is given as {@code unknown} */
     public boolean hasUnknownCorner() {
         return output.cornerUnknown() || input.map(i -> i.channel().cornerUnknown()).orElse(false);
     }
 
-    /** @return one line for people and provenance notes, naming every element that is not ideal */
+    /** @return one line for people and provenance notes: the generator resistance and the reference when given, the channels */
     public String describe() {
         List<String> parts = new ArrayList<>();
-        parts.add("generator " + EngineeringValue.format(generatorOhms, "Ω"));
-        parts.add("reference " + reference.map(Reference::word).orElse("as the stage file's"));
+        if (generatorOhms > 0) {
+            parts.add("generator " + EngineeringValue.format(generatorOhms, "Ω"));
+        }
+        reference.ifPresent(r -> parts.add("reference " + r.word()));
         parts.add("output channel " + output.describe());
         input.ifPresent(i -> parts.add("input channel " + i.describe()));
         return String.join("; ", parts);

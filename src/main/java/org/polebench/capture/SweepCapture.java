@@ -416,6 +416,7 @@ public final class SweepCapture {
             List<String> notes = new ArrayList<>();
             notes.add("captured live by polebench: " + describeLinks());
             notes.add(PLAN_NOTE + plan.describe() + " amplitude=" + amplitude + " " + kind());
+            notes.addAll(request.notes());
             return new Provenance(Optional.of(request.transcript()), "", identityText(), profile.name(),
                     Optional.of(Instant.now(clock)), request.board(), notes);
         }
