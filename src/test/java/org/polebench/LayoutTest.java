@@ -52,7 +52,9 @@ class LayoutTest {
     private static final Pattern IMPORT = Pattern.compile("^import\\s+(?:static\\s+)?org\\.polebench\\.([a-z]\\w*)\\.");
     private static final Pattern QUALIFIED = Pattern.compile("\\borg\\.polebench\\.([a-z]\\w*)\\.[A-Z]");
     private static final Pattern BLOCK_COMMENT = Pattern.compile("/\\*.*?\\*/", Pattern.DOTALL);
-    private static final Pattern STRING = Pattern.compile("\"(?:\\\\.|[^\"\\\\])*\"");
+    // the unrolled loop "[^"\\]*(\\.[^"\\]*)*": Java's regex recurses once per repetition of a
+    // group, so (?:\\.|[^"\\])* overflowed the stack on a long string; this repeats per escape only
+    private static final Pattern STRING = Pattern.compile("\"[^\"\\\\]*(?:\\\\.[^\"\\\\]*)*\"");
 
     @Test
     void everyMainFileUsesOnlyThePackagesItsPackageMayUse() throws IOException {
