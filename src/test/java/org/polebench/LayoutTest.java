@@ -37,15 +37,16 @@ class LayoutTest {
             entry("circuit", Set.of("units", "yaml", "linalg")),
             entry("analysis", Set.of("units", "linalg", "circuit")),
             entry("spread", Set.of("units", "circuit", "analysis")),
+            entry("bench", Set.of("units", "yaml", "circuit", "analysis")),
             entry("sweep", Set.of()),
-            entry("profile", Set.of("units", "yaml", "sweep")),
+            entry("profile", Set.of("units", "yaml", "sweep", "bench")),
             entry("sweepfile", Set.of("units", "sweep", "profile")),
             entry("capture", Set.of("units", "sweep", "profile", "sweepfile")),
-            entry("synth", Set.of("units", "circuit", "analysis", "sweep", "profile", "capture")),
+            entry("synth", Set.of("units", "circuit", "analysis", "bench", "sweep", "profile", "capture")),
             entry("fit", Set.of("units", "sweep")),
             entry("reconcile", Set.of("units", "linalg", "circuit", "analysis", "spread", "sweep", "fit")),
-            entry("report", Set.of("units", "circuit", "analysis", "spread", "sweep", "fit", "reconcile")),
-            entry("cli", Set.of("units", "yaml", "linalg", "circuit", "analysis", "spread", "sweep", "profile",
+            entry("report", Set.of("units", "circuit", "analysis", "spread", "bench", "sweep", "fit", "reconcile")),
+            entry("cli", Set.of("units", "yaml", "linalg", "circuit", "analysis", "spread", "bench", "sweep", "profile",
                     "sweepfile", "capture", "synth", "fit", "reconcile", "report")));
 
     private static final Pattern IMPORT = Pattern.compile("^import\\s+(?:static\\s+)?org\\.polebench\\.([a-z]\\w*)\\.");

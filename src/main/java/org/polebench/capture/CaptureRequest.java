@@ -1,6 +1,7 @@
 package org.polebench.capture;
 
 import java.nio.file.Path;
+import java.util.List;
 import java.util.Optional;
 import java.util.OptionalDouble;
 
@@ -14,10 +15,18 @@ import java.util.OptionalDouble;
  *                   {@code name.transcript.log}
  * @param resume     continue the capture of that name after its last completed point
  * @param board      the board or serial number, for the sweep's provenance
+ * @param notes      more provenance notes for a new sweep, such as the bench it was measured on
  */
 public record CaptureRequest(Optional<SweepPlan> plan, OptionalDouble amplitude, Path name, boolean resume,
-                             Optional<String> board) {
+                             Optional<String> board, List<String> notes) {
+    /** A request without further notes. */
+    public CaptureRequest(Optional<SweepPlan> plan, OptionalDouble amplitude, Path name, boolean resume,
+                          Optional<String> board) {
+        this(plan, amplitude, name, resume, board, List.of());
+    }
+
     public CaptureRequest {
+        notes = List.copyOf(notes);
         if (name.getFileName() == null) {
             throw new IllegalArgumentException("a capture needs an output name");
         }

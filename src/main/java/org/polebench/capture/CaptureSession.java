@@ -167,6 +167,7 @@ final class CaptureSession {
         List<String> notes = new ArrayList<>();
         notes.add("captured live by polebench: " + describeLinks());
         notes.add(SweepCapture.PLAN_NOTE + plan.describe() + " amplitude=" + amplitude + " " + kind());
+        notes.addAll(request.notes());
         return new Provenance(Optional.of(request.transcript()), "", identityText(), profile.name(),
                 Optional.of(Instant.now(clock)), request.board(), notes);
     }

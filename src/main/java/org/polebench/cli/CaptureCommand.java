@@ -12,6 +12,8 @@ import java.util.concurrent.CountDownLatch;
 import java.util.concurrent.TimeUnit;
 import java.util.concurrent.atomic.AtomicBoolean;
 import org.polebench.InputProblem;
+import org.polebench.bench.Bench;
+import org.polebench.bench.BenchReader;
 import org.polebench.profile.AmplitudeKind;
 import org.polebench.capture.CaptureOutcome;
 import org.polebench.capture.CaptureRequest;
@@ -82,6 +84,11 @@ final class CaptureCommand implements Callable<Integer> {
 
     @Option(names = "--board", paramLabel = "TEXT", description = "board or serial number, kept in the sweep's provenance")
     String board;
+
+    @Option(names = "--bench", paramLabel = "FILE",
+            description = "a bench file (*.bench.yaml) saying how the board is measured, kept in the sweep's"
+                    + " provenance (default: the profile's bench: section, if any)")
+    Path benchFile;
 
     @Option(names = "--no-cautions", description = "do not show the bench cautions before a sweep on a real port")
     boolean noCautions;
@@ -189,7 +196,9 @@ final class CaptureCommand implements Callable<Integer> {
             level = OptionalDouble.of(volts);
         }
         Path name = resume != null ? resume : out;
-        return new CaptureRequest(plan, level, name, resume != null, Optional.ofNullable(board));
+        Optional<Bench> bench = benchFile != null ? Optional.of(new BenchReader().read(benchFile)) : profile.bench();
+        return new CaptureRequest(plan, level, name, resume != null, Optional.ofNullable(board),
+                bench.map(b -> List.of(b.provenanceNote())).orElse(List.of()));
     }
 
     private static double hertz(String option, String text) throws InputProblem {

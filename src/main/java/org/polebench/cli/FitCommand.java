@@ -8,6 +8,8 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.concurrent.Callable;
 import org.polebench.InputProblem;
+import org.polebench.bench.Bench;
+import org.polebench.bench.BenchReader;
 import org.polebench.InputWarning;
 import org.polebench.fit.FitBand;
 import org.polebench.fit.FitResult;
@@ -57,6 +59,11 @@ final class FitCommand implements Callable<Integer> {
     @Option(names = "--force", description = "let --plot replace an existing file")
     boolean force;
 
+    @Option(names = "--bench", paramLabel = "FILE",
+            description = "the bench file (*.bench.yaml) the sweep was measured on: the fit is of the as-measured"
+                    + " response, board and bench together, and the output says so")
+    Path benchFile;
+
     @Override
     public Integer call() throws InputProblem, IOException {
         if (maxPoles < 1) {
@@ -66,6 +73,7 @@ final class FitCommand implements Callable<Integer> {
             throw new InputProblem(plot, 0, "the plot file exists already and is kept",
                     "name another file, or add --force to replace it");
         }
+        Bench bench = benchFile == null ? null : new BenchReader().read(benchFile);
         ImportedSweep imported = layout.read(sweepFile);
         FitSettings settings = FitSettings.defaults().withMaxPoles(maxPoles);
         if (band != null) {
@@ -83,12 +91,22 @@ final class FitCommand implements Callable<Integer> {
                 warnings.add(warning.describe());
             }
             root.put("profile", imported.profileName());
+            if (bench != null) {
+                ObjectNode declared = root.putObject("bench");
+                declared.put("file", benchFile.toString());
+                declared.put("description", bench.describe());
+                declared.put("model", "as-measured");
+            }
             new JsonOutput().print(root, out);
         } else {
             out.println("sweep:    " + sweepFile + " (" + imported.sweep().size() + " points, profile "
                     + imported.profileName() + ")");
             for (InputWarning warning : imported.warnings()) {
                 out.println("import warning: " + warning.describe());
+            }
+            if (bench != null) {
+                out.println("bench:    " + benchFile + " declared (" + bench.describe() + "); the fit below is of"
+                        + " the as-measured response, board and bench together");
             }
             out.print(new FitText().format(result));
             if (plot != null) {

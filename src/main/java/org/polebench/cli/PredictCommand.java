@@ -3,11 +3,18 @@ package org.polebench.cli;
 import java.io.IOException;
 import java.nio.file.Path;
 import java.util.concurrent.Callable;
+import com.fasterxml.jackson.databind.node.ObjectNode;
 import org.polebench.InputProblem;
+import org.polebench.bench.Bench;
+import org.polebench.bench.BenchEffect;
+import org.polebench.bench.BenchEffects;
+import org.polebench.bench.BenchReader;
 import org.polebench.spread.StageAnalysis;
 import org.polebench.spread.StagePrediction;
 import org.polebench.spread.ToleranceSpread;
 import org.polebench.circuit.StageReader;
+import org.polebench.report.BenchJson;
+import org.polebench.report.BenchText;
 import org.polebench.report.PredictionJson;
 import org.polebench.report.PredictionText;
 import picocli.CommandLine.Command;
@@ -45,6 +52,11 @@ final class PredictCommand implements Callable<Integer> {
             description = "random seed of the tolerance spread (default ${DEFAULT-VALUE})")
     long seed;
 
+    @Option(names = "--bench", paramLabel = "FILE",
+            description = "a bench file (*.bench.yaml): also show the response this bench will measure, and warn"
+                    + " when it moves the lower corner or the midband gain by more than 1 %")
+    Path benchFile;
+
     @Override
     public Integer call() throws InputProblem, IOException {
         Path stage = StageChoice.resolve(positionalStage, stageOption);
@@ -52,13 +64,22 @@ final class PredictCommand implements Callable<Integer> {
             throw new InputProblem(null, 0, "--samples " + samples + " is too few for 5 % and 95 % points",
                     "use at least 20 (the default is " + ToleranceSpread.DEFAULT_SAMPLES + ")");
         }
+        Bench bench = benchFile == null ? null : new BenchReader().read(benchFile);
         StagePrediction result = new StageAnalysis()
                 .withSpread(new ToleranceSpread(samples, seed))
                 .analyse(new StageReader().read(stage));
+        BenchEffect effect = bench == null ? null : new BenchEffects().of(result.stage(), bench);
         if (json) {
-            new JsonOutput().print(new PredictionJson().of(result), spec.commandLine().getOut());
+            ObjectNode root = new PredictionJson().of(result);
+            if (effect != null) {
+                root.set("bench", new BenchJson().of(effect));
+            }
+            new JsonOutput().print(root, spec.commandLine().getOut());
         } else {
             new PredictionText().write(result, spec.commandLine().getOut());
+            if (effect != null) {
+                new BenchText().write(effect, spec.commandLine().getOut());
+            }
         }
         return ExitCodes.OK;
     }

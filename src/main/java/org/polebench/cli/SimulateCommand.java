@@ -6,9 +6,13 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
+import java.util.Optional;
 import java.util.concurrent.Callable;
 import java.util.concurrent.atomic.AtomicBoolean;
 import org.polebench.InputProblem;
+import org.polebench.bench.Bench;
+import org.polebench.bench.BenchReader;
+import org.polebench.bench.MeasuringChain;
 import org.polebench.circuit.Stage;
 import org.polebench.circuit.StageReader;
 import org.polebench.synth.Fault;
@@ -18,6 +22,8 @@ import org.polebench.synth.InstrumentSimulator;
 import org.polebench.synth.SimulatorServer;
 import org.polebench.synth.Misbehaviour;
 import org.polebench.profile.SerialProfile;
+import org.polebench.synth.BoardResponse;
+import org.polebench.synth.MeasuredBoard;
 import org.polebench.synth.StageBoard;
 import org.polebench.capture.SweepCapture;
 import org.polebench.synth.SweepNoise;
@@ -76,6 +82,11 @@ final class SimulateCommand implements Callable<Integer> {
             description = "faults of the line: drop@N, garbage@N, stall@N=TIME, close@N")
     List<String> misbehave = new ArrayList<>();
 
+    @Option(names = "--bench", paramLabel = "FILE",
+            description = "a bench file (*.bench.yaml): measure the board as that bench would (default: the profile's"
+                    + " bench: section, if any)")
+    Path benchFile;
+
     @Override
     public Integer call() throws InputProblem, IOException {
         InstrumentProfile found = SweepLayoutOption.profiles().resolve(profileName);
@@ -98,7 +109,10 @@ final class SimulateCommand implements Callable<Integer> {
         for (String text : faults) {
             asBuilt.add(FaultText.parse(text, designed));
         }
-        StageBoard board = StageBoard.asBuilt(designed, asBuilt);
+        Optional<Bench> bench = benchFile != null ? Optional.of(new BenchReader().read(benchFile)) : profile.bench();
+        BoardResponse board = bench.isPresent()
+                ? MeasuredBoard.asBuilt(designed, asBuilt, MeasuringChain.of(bench.get(), "simulate --bench"))
+                : StageBoard.asBuilt(designed, asBuilt);
         InstrumentSimulator simulator;
         try {
             simulator = new InstrumentSimulator(profile, board, sigma, seed, faultsOfLine);

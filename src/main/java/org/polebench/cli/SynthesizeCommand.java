@@ -5,8 +5,11 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Optional;
 import java.util.concurrent.Callable;
 import org.polebench.InputProblem;
+import org.polebench.bench.BenchReader;
+import org.polebench.bench.MeasuringChain;
 import org.polebench.analysis.Prediction;
 import org.polebench.spread.StageAnalysis;
 import org.polebench.circuit.BiasSolver;
@@ -76,6 +79,10 @@ final class SynthesizeCommand implements Callable<Integer> {
     @Option(names = "--force", description = "replace an existing output file")
     boolean force;
 
+    @Option(names = "--bench", paramLabel = "FILE",
+            description = "a bench file (*.bench.yaml): the sweep as that bench would record it; the notes name it")
+    Path benchFile;
+
     @Override
     public Integer call() throws InputProblem, IOException {
         if (Files.exists(out) && !force) {
@@ -86,6 +93,8 @@ final class SynthesizeCommand implements Callable<Integer> {
             throw new InputProblem(null, 0, "--points " + points + " is too few for a sweep", "use 2 or more");
         }
         Stage stage = new StageReader().read(stageFile).stage();
+        Optional<MeasuringChain> bench = benchFile == null ? Optional.empty()
+                : Optional.of(MeasuringChain.of(new BenchReader().read(benchFile), "synthesize --bench"));
         List<Fault> parsed = new ArrayList<>();
         for (String fault : faults) {
             parsed.add(FaultText.parse(fault, stage));
@@ -107,7 +116,7 @@ final class SynthesizeCommand implements Callable<Integer> {
             throw new InputProblem(null, 0, "--to must lie above --from", "swap or widen the band");
         }
         Sweep sweep = new BoardSynthesizer().synthesize(stage, parsed, sweepNoise,
-                BoardSynthesizer.logSpaced(low, high, points), true, seed);
+                BoardSynthesizer.logSpaced(low, high, points), true, seed, bench);
         SweepWriter writer = new SweepWriter();
         if (layout.equals(SweepWriter.CANONICAL)) {
             writer.writeCanonical(sweep, out, force);

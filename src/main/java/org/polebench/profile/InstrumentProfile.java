@@ -2,6 +2,7 @@ package org.polebench.profile;
 
 import java.nio.file.Path;
 import java.util.Optional;
+import org.polebench.bench.Bench;
 
 /**
  * How to read one kind of instrument's output: a table layout or a serial line protocol.
@@ -24,4 +25,10 @@ public sealed interface InstrumentProfile permits TableProfile, SerialProfile {
     InstrumentAccuracy accuracy();
 
     ReadingLimits limits();
+
+    /**
+     * @return the profile's {@code bench:} section: how this instrument is always used, the
+     *         default when no {@code --bench} file is given; empty when the profile has none
+     */
+    Optional<Bench> bench();
 }

@@ -11,6 +11,8 @@ import java.util.function.Function;
 import java.util.regex.Pattern;
 import java.util.regex.PatternSyntaxException;
 import org.polebench.InputProblem;
+import org.polebench.bench.Bench;
+import org.polebench.bench.BenchReader;
 import org.polebench.units.EngineeringValue;
 import org.polebench.units.Quantity;
 import org.polebench.units.StrictNumber;
@@ -24,13 +26,13 @@ import org.polebench.yaml.YamlReader;
  */
 public final class ProfileReader {
     private static final Set<String> TABLE_KEYS = Set.of("kind", "name", "description", "layout", "columns", "units",
-            "accuracy", "limits");
+            "accuracy", "limits", "bench");
     private static final Set<String> SCPI_KEYS = Set.of("kind", "name", "description", "instruments", "setup", "step", "finish",
             "settle", "error-query", "retries", "timeout-ms", "amplitude", "max-amplitude", "units", "accuracy",
-            "limits");
+            "limits", "bench");
     private static final Set<String> STREAM_KEYS = Set.of("kind", "name", "description", "port", "identify", "start",
             "stop", "point", "ignore", "error", "end", "timeout-ms", "amplitude", "max-amplitude", "units",
-            "accuracy", "limits");
+            "accuracy", "limits", "bench");
 
     private final YamlReader yaml = new YamlReader();
 
@@ -117,7 +119,7 @@ public final class ProfileReader {
             }
         }
         return new TableProfile(name, doc.description(top), layout, columns, scale, accuracy(doc, top),
-                limits(doc, top), Optional.ofNullable(doc.file));
+                limits(doc, top), Optional.ofNullable(doc.file), bench(doc, top));
     }
 
     private SerialProfile scpi(Doc doc, YamlNode.Mapping top) throws InputProblem {
@@ -163,7 +165,7 @@ public final class ProfileReader {
                 doc.integer(top, "retries", 2, 0, 100), doc.integer(top, "timeout-ms", 2000, 1, 600_000),
                 amplitude, max);
         return new SerialProfile(name, doc.description(top), protocol, scale, accuracy(doc, top), limits(doc, top),
-                Optional.ofNullable(doc.file));
+                Optional.ofNullable(doc.file), bench(doc, top));
     }
 
     private List<ScpiCommand> commands(Doc doc, YamlNode.Mapping top, String key,
@@ -263,7 +265,7 @@ public final class ProfileReader {
                 doc.pattern(top, "error"), doc.pattern(top, "end"), doc.integer(top, "timeout-ms", 2000, 1, 600_000),
                 amplitude, max);
         return new SerialProfile(name, doc.description(top), protocol, scale, accuracy(doc, top), limits(doc, top),
-                Optional.ofNullable(doc.file));
+                Optional.ofNullable(doc.file), bench(doc, top));
     }
 
     private PortSettings port(Doc doc, YamlNode.Mapping node) throws InputProblem {
@@ -297,6 +299,16 @@ public final class ProfileReader {
                 "lead-positive or lag-positive");
         boolean wrapped = doc.bool(node, "phase-wrapped", true);
         return new ReadingScale(frequency, gain, amplitude, phase, sign, wrapped);
+    }
+
+    /** The {@code bench:} section: the bench file's keys (docs/user-guide.md, "The bench file"). */
+    private Optional<Bench> bench(Doc doc, YamlNode.Mapping top) throws InputProblem {
+        Optional<YamlNode.Entry> entry = top.entry("bench");
+        if (entry.isEmpty()) {
+            return Optional.empty();
+        }
+        YamlNode.Mapping node = doc.optionalMapping(top, "bench");
+        return Optional.of(new BenchReader().read(node, doc.file, "bench"));
     }
 
     private InstrumentAccuracy accuracy(Doc doc, YamlNode.Mapping top) throws InputProblem {

@@ -3,11 +3,18 @@ package org.polebench.profile;
 import java.nio.file.Path;
 import java.util.Objects;
 import java.util.Optional;
+import org.polebench.bench.Bench;
 
 /** A profile that maps a delimited text table onto a sweep. */
 public record TableProfile(String name, String description, TableLayout layout, TableColumns columns,
                            ReadingScale scale, InstrumentAccuracy accuracy, ReadingLimits limits,
-                           Optional<Path> source) implements InstrumentProfile {
+                           Optional<Path> source, Optional<Bench> bench) implements InstrumentProfile {
+    /** A profile without a {@code bench:} section. */
+    public TableProfile(String name, String description, TableLayout layout, TableColumns columns,
+                        ReadingScale scale, InstrumentAccuracy accuracy, ReadingLimits limits, Optional<Path> source) {
+        this(name, description, layout, columns, scale, accuracy, limits, source, Optional.empty());
+    }
+
     public TableProfile {
         Objects.requireNonNull(name);
         Objects.requireNonNull(description);

@@ -3,6 +3,7 @@
  * ({@link org.polebench.profile.TableProfile}, {@link org.polebench.profile.SerialProfile}), the
  * reading scale and limits, the instrument's accuracy, SCPI command templates, the profile
  * reader (every key with its line) and the bundled {@link org.polebench.profile.ProfileLibrary}.
- * Uses units, yaml and sweep; reads and writes no sweep file.
+ * A profile's {@code bench:} section is read by the bench package's reader.
+ * Uses units, yaml, sweep and bench; reads and writes no sweep file.
  */
 package org.polebench.profile;

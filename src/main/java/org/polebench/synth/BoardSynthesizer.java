@@ -8,6 +8,8 @@ import java.util.OptionalDouble;
 import java.util.SplittableRandom;
 import org.apache.commons.math3.complex.Complex;
 import org.polebench.InputProblem;
+import org.polebench.bench.Bench;
+import org.polebench.bench.MeasuringChain;
 import org.polebench.circuit.Stage;
 import org.polebench.sweep.Provenance;
 import org.polebench.sweep.Sweep;
@@ -38,7 +40,17 @@ public final class BoardSynthesizer {
      */
     public Sweep synthesize(Stage stage, List<Fault> faults, SweepNoise noise, List<Double> frequenciesHz,
                             boolean withPhase, long seed) throws InputProblem {
-        StageBoard board = StageBoard.asBuilt(stage, faults);
+        return synthesize(stage, faults, noise, frequenciesHz, withPhase, seed, Optional.empty());
+    }
+
+    /**
+     * As {@link #synthesize(Stage, List, SweepNoise, List, boolean, long)}, as the given bench
+     * would record it ({@link MeasuredBoard}); the provenance notes name the bench.
+     */
+    public Sweep synthesize(Stage stage, List<Fault> faults, SweepNoise noise, List<Double> frequenciesHz,
+                            boolean withPhase, long seed, Optional<MeasuringChain> bench) throws InputProblem {
+        BoardResponse board = bench.isPresent() ? MeasuredBoard.asBuilt(stage, faults, bench.get())
+                : StageBoard.asBuilt(stage, faults);
         SplittableRandom random = new SplittableRandom(seed);
         int n = frequenciesHz.size();
         double[] truePhaseDeg = new double[n];
@@ -57,7 +69,7 @@ public final class BoardSynthesizer {
             sweepPoints.add(new SweepPoint(frequenciesHz.get(i), gainDb, phase, OptionalDouble.empty(),
                     OptionalDouble.empty()));
         }
-        return new Sweep(provenance(stage, faults, noise, seed), sweepPoints);
+        return new Sweep(provenance(stage, faults, noise, seed, bench.map(MeasuringChain::bench)), sweepPoints);
     }
 
     /** One fault, with phase: the common case. */
@@ -82,7 +94,8 @@ public final class BoardSynthesizer {
         return result;
     }
 
-    private static Provenance provenance(Stage stage, List<Fault> faults, SweepNoise noise, long seed) {
+    private static Provenance provenance(Stage stage, List<Fault> faults, SweepNoise noise, long seed,
+                                         Optional<Bench> bench) {
         List<String> notes = new ArrayList<>();
         notes.add("demo data, invented: synthesized by polebench from the stage \"" + stage.name()
                 + "\", not measured on any board");
@@ -94,6 +107,7 @@ public final class BoardSynthesizer {
                 + (faults.isEmpty() ? new Fault.None().describe() : faultText));
         notes.add("noise: " + noise.describe());
         notes.add(String.format(Locale.ROOT, "seed: %d", seed));
+        bench.ifPresent(b -> notes.add(b.provenanceNote()));
         return new Provenance(Optional.empty(), "", "polebench board synthesizer (no instrument)", "synthesized",
                 Optional.empty(), Optional.empty(), notes);
     }

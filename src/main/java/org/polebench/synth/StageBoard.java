@@ -85,7 +85,7 @@ public final class StageBoard implements BoardResponse {
                 : String.join("; ", described));
     }
 
-    private static OperatingPoints biasAsBuilt(Stage designed, Stage built, List<Fault> changingParts)
+    static OperatingPoints biasAsBuilt(Stage designed, Stage built, List<Fault> changingParts)
             throws InputProblem {
         BiasSolver solver = new BiasSolver();
         try {
