@@ -44,7 +44,7 @@ class LayoutTest {
             entry("capture", Set.of("units", "sweep", "profile", "sweepfile")),
             entry("synth", Set.of("units", "circuit", "analysis", "bench", "sweep", "profile", "capture")),
             entry("fit", Set.of("units", "sweep")),
-            entry("reconcile", Set.of("units", "linalg", "circuit", "analysis", "spread", "sweep", "fit")),
+            entry("reconcile", Set.of("units", "linalg", "circuit", "analysis", "spread", "bench", "sweep", "fit")),
             entry("report", Set.of("units", "circuit", "analysis", "spread", "bench", "sweep", "fit", "reconcile")),
             entry("cli", Set.of("units", "yaml", "linalg", "circuit", "analysis", "spread", "bench", "sweep", "profile",
                     "sweepfile", "capture", "synth", "fit", "reconcile", "report")));

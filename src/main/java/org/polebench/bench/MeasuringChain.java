@@ -74,6 +74,14 @@ public final class MeasuringChain {
         return new MeasuringChain(bench);
     }
 
+    /**
+     * @return the chain for a back-solve, which estimates a corner given as {@code unknown}: the
+     *         network part of the chain (Rg, the loads) does not depend on the corners
+     */
+    public static MeasuringChain forBackSolve(Bench bench) {
+        return new MeasuringChain(bench);
+    }
+
     public Bench bench() {
         return bench;
     }

@@ -8,6 +8,8 @@ import java.util.Locale;
 import java.util.concurrent.Callable;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import org.polebench.InputProblem;
+import org.polebench.bench.Bench;
+import org.polebench.bench.BenchReader;
 import org.polebench.InputWarning;
 import org.polebench.spread.StageAnalysis;
 import org.polebench.spread.StagePrediction;
@@ -55,6 +57,12 @@ final class ReconcileCommand implements Callable<Integer> {
 
     @Option(names = "--stage", paramLabel = "S", description = "the stage file (*.stage.yaml)")
     Path stage;
+
+    @Option(names = "--bench", paramLabel = "FILE",
+            description = "the bench file (*.bench.yaml) the sweep was measured on: its generator resistance and "
+                    + "channel loads are part of the model, its AC couplings part of the reading (a corner 'unknown' "
+                    + "is estimated), and the limits are decided on the board's own response")
+    Path benchFile;
 
     @Option(names = "--sweep", paramLabel = "W", description = "the sweep file: CSV or other table, or a serial log")
     Path sweep;
@@ -118,7 +126,8 @@ final class ReconcileCommand implements Callable<Integer> {
         // the bundled demo sweep is canonical: no need to sniff its layout
         ImportedSweep imported = sweep == null && layout.isAuto()
                 ? layout.read(sweepFile, SweepWriter.CANONICAL) : layout.read(sweepFile);
-        ReconcileResult result = new Reconciler().reconcile(predicted, imported.sweep(), decisionRule);
+        Optional<Bench> bench = benchFile != null ? Optional.of(new BenchReader().read(benchFile)) : Optional.empty();
+        ReconcileResult result = new Reconciler().reconcile(predicted, imported.sweep(), decisionRule, bench);
         // the result document (with its Bode curves and their tolerance band) only for --json
         // and --report: the summary does not need it, and it costs as much as the reconcile
         ObjectNode root = null;

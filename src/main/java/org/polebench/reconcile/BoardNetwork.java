@@ -95,6 +95,11 @@ final class BoardNetwork {
         return indices;
     }
 
+    /** @return whether the stage has a part of this name */
+    boolean hasPart(String name) {
+        return stage.part(name).isPresent();
+    }
+
     List<String> transistors() {
         return transistors;
     }

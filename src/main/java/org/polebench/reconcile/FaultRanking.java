@@ -121,14 +121,30 @@ public final class FaultRanking {
      */
     HypothesisSearch search(Stage stage, OperatingPoints nominalPoints, StateModel nominalModel, Sweep sweep,
                             java.util.concurrent.Executor helper) {
+        return search(stage, nominalPoints, nominalModel, sweep, helper, DeclaredChain.NONE);
+    }
+
+    /**
+     * @param stage    the stage as the sweep sees it: the board's own, or with a declared bench's
+     *                 generator resistance and channel loads in it
+     * @param declared the channel couplings a bench file declares ({@link DeclaredChain#NONE} for none)
+     */
+    HypothesisSearch search(Stage stage, OperatingPoints nominalPoints, StateModel nominalModel, Sweep sweep,
+                            java.util.concurrent.Executor helper, DeclaredChain declared) {
         MeasuredResponse measured = new MeasuredResponse(sweep, DEFAULT_GAIN_SIGMA_DB, DEFAULT_PHASE_SIGMA_DEG);
         BoardModel model = new BoardModel(stage, nominalPoints, nominalModel, measured.frequenciesHz());
-        return new HypothesisSearch(model, measured, parameters(stage, nominalPoints, model),
-                () -> new BoardModel(stage, nominalPoints, nominalModel, measured.frequenciesHz()), helper);
+        return new HypothesisSearch(model, measured, parameters(stage, nominalPoints, model, declared),
+                () -> new BoardModel(stage, nominalPoints, nominalModel, measured.frequenciesHz()), helper, declared);
+    }
+
+    /** @return the back-solve's parameters for this stage, in model order, with no bench declared */
+    static List<ModelParameter> parameters(Stage stage, OperatingPoints points, BoardModel model) {
+        return parameters(stage, points, model, DeclaredChain.NONE);
     }
 
     /** @return the back-solve's parameters for this stage, in model order */
-    static List<ModelParameter> parameters(Stage stage, OperatingPoints points, BoardModel model) {
+    static List<ModelParameter> parameters(Stage stage, OperatingPoints points, BoardModel model,
+                                           DeclaredChain declared) {
         List<ModelParameter> result = new ArrayList<>();
         for (int i = 0; i < model.capacitors().size(); i++) {
             Capacitor capacitor = stage.capacitor(model.capacitors().get(i));
@@ -162,9 +178,10 @@ public final class FaultRanking {
                 new Prior(0, Decibels.toNepers(GAIN_FAULT_SIGMA_DB))));
         // the measuring channels' AC couplings, after the board model's own parameters (ChannelCouplings)
         Prior coupling = new Prior(Math.log(CHANNEL_CORNER_HZ), CHANNEL_CORNER_SIGMA);
-        for (String channel : CHANNELS) {
-            result.add(new ModelParameter(ParameterKind.CHANNEL_CORNER, Optional.of(channel), 1, Optional.empty(),
-                    coupling, coupling));
+        for (int c = 0; c < CHANNELS.size(); c++) {
+            Prior prior = declared.coupling(c).orElse(coupling);
+            result.add(new ModelParameter(ParameterKind.CHANNEL_CORNER, Optional.of(CHANNELS.get(c)), 1, Optional.empty(),
+                    prior, prior));
         }
         return result;
     }

@@ -7,6 +7,7 @@ import java.util.Optional;
 import java.util.concurrent.CompletableFuture;
 import java.util.concurrent.Executor;
 import java.util.function.Supplier;
+import org.polebench.bench.MeasuringChain;
 import org.polebench.linalg.Cholesky;
 
 /**
@@ -33,6 +34,8 @@ final class HypothesisSearch {
     /** The channel couplings' parameters, freed only by the bench hypotheses. */
     private final List<Integer> couplingIndices = new ArrayList<>();
     private final ChannelCouplings couplings;
+    /** The couplings a bench file declares: present in every hypothesis; none ranked as a fault. */
+    private final DeclaredChain declared;
     private final List<Candidate> candidates = new ArrayList<>();
     private boolean pairsRanked;
     private Diagnosis last;
@@ -67,7 +70,7 @@ final class HypothesisSearch {
     }
 
     HypothesisSearch(BoardModel model, MeasuredResponse measured, List<ModelParameter> parameters) {
-        this(model, measured, parameters, null, null);
+        this(model, measured, parameters, null, null, DeclaredChain.NONE);
     }
 
     /**
@@ -77,7 +80,8 @@ final class HypothesisSearch {
      *                    calling thread (each board model stays on one thread); null for none
      */
     HypothesisSearch(BoardModel model, MeasuredResponse measured, List<ModelParameter> parameters,
-                     Supplier<BoardModel> secondModel, Executor helper) {
+                     Supplier<BoardModel> secondModel, Executor helper, DeclaredChain declared) {
+        this.declared = declared;
         this.secondModel = helper == null ? null : secondModel;
         this.helper = secondModel == null ? null : helper;
         this.model = model;
@@ -98,18 +102,27 @@ final class HypothesisSearch {
                     || parameter.kind() == ParameterKind.CHANNEL_CORNER;
             if (parameter.kind() == ParameterKind.CHANNEL_CORNER) {
                 couplingIndices.add(j);
-            } else if (parameter.kind() != ParameterKind.CURRENT_GAIN) {
+            } else if (parameter.kind() != ParameterKind.CURRENT_GAIN && !benchPart(parameter)) {
                 faultable.add(j);
             }
         }
         int[] signs = new int[couplingIndices.size()];
         for (int c = 0; c < signs.length; c++) {
+            // a declared coupling is part of every hypothesis' chain (held or a nuisance)
+            baseActive[couplingIndices.get(c)] = declared.coupling(c).isPresent();
             signs[c] = parameters.get(couplingIndices.get(c)).label().equals(FaultRanking.CHANNELS.get(0)) ? 1 : -1;
             if (couplingIndices.get(c) != model.parameterCount() + c) {
                 throw new IllegalArgumentException("the channel couplings follow the board model's parameters");
             }
         }
         this.couplings = new ChannelCouplings(model.parameterCount(), signs);
+    }
+
+    // a part a declared bench put into the stage (its loads, the generator's resistance): the
+    // bench's, held at its stated value, never a fault of the board
+    private static boolean benchPart(ModelParameter parameter) {
+        String label = parameter.label();
+        return label.startsWith(MeasuringChain.BENCH_PREFIX) || label.equals(MeasuringChain.STAGE_SOURCE_PART);
     }
 
     /** @return the single-fault ranking (also kept, for {@link #withPairs()}) */
@@ -162,7 +175,8 @@ final class HypothesisSearch {
      * estimate with its corners at a few hertz apart (FaultRanking's priors).
      */
     private void bench(MapPoint noFault) {
-        if (couplingIndices.size() < 2) {
+        if (couplingIndices.size() < 2 || declared.stated()) {
+            // a declared bench is the chain: it is not ranked against the parts
             return;
         }
         int output = couplingIndices.get(0);
@@ -443,7 +457,7 @@ final class HypothesisSearch {
         boolean[] all = new boolean[parameters.size()];
         java.util.Arrays.fill(all, true);
         for (int j : couplingIndices) {
-            all[j] = false;
+            all[j] = baseActive[j];
         }
         return all;
     }

@@ -29,6 +29,10 @@ public final class ModelMeasurement {
     private final PortReduction reduction = new PortReduction();
     private final CornerFinder corners = new CornerFinder();
 
+    private static String label(List<ParameterEstimate> parameters, int j) {
+        return parameters.get(j).parameter().label();
+    }
+
     /** @return midband gain in dB with uncertainty, and the lower corner in Hz when the model has one */
     public Measured measure(Stage stage, OperatingPoints nominalPoints, BackSolve backSolve) {
         List<ParameterEstimate> parameters = backSolve.parameters();
@@ -37,10 +41,12 @@ public final class ModelMeasurement {
         List<String> capacitors = new ArrayList<>();
         for (int j = 0; j < p; j++) {
             theta[j] = parameters.get(j).logEstimate();
-            if (parameters.get(j).parameter().kind() == ParameterKind.CAPACITOR) {
+            if (parameters.get(j).parameter().kind() == ParameterKind.CAPACITOR && stage.part(label(parameters, j)).isPresent()) {
                 capacitors.add(parameters.get(j).parameter().label());
             }
         }
+        // a part a declared bench added (its loads) is not the board's: the board's own model is
+        // measured without it
         BoardNetwork board = new BoardNetwork(stage, nominalPoints, capacitors);
         Optional<StateModel> model = model(board, parameters, theta);
         if (model.isEmpty()) {
@@ -56,7 +62,7 @@ public final class ModelMeasurement {
             double[] s = corners.cornerSensitivities(model.get(), corner.getAsDouble());
             int i = 0;
             for (int j = 0; j < p; j++) {
-                if (parameters.get(j).parameter().kind() == ParameterKind.CAPACITOR) {
+                if (parameters.get(j).parameter().kind() == ParameterKind.CAPACITOR && board.hasPart(label(parameters, j))) {
                     cornerGradient[j] = s[i++];
                 }
             }
@@ -121,7 +127,9 @@ public final class ModelMeasurement {
             ModelParameter parameter = parameters.get(j).parameter();
             switch (parameter.kind()) {
                 case CAPACITOR:
-                    lnCapacitor.add(theta[j]);
+                    if (board.hasPart(parameter.label())) {
+                        lnCapacitor.add(theta[j]);
+                    }
                     break;
                 case BIAS:
                     lnNetwork[board.transistors().indexOf(parameter.label())] = theta[j];

@@ -2,6 +2,7 @@ package org.polebench.reconcile;
 
 import java.util.List;
 import java.util.Optional;
+import org.polebench.bench.Bench;
 import org.polebench.spread.StagePrediction;
 import org.polebench.fit.FitResult;
 import org.polebench.sweep.Sweep;
@@ -25,7 +26,7 @@ import org.polebench.sweep.Sweep;
 public record ReconcileResult(StagePrediction predicted, Sweep sweep, FitResult measured, SideBySide sideBySide,
                               Optional<Apportionment> apportionment, Diagnosis diagnosis, ModelAdequacy adequacy,
                               Conformity conformity,
-                              String midbandSource, String cornerSource) {
+                              String midbandSource, String cornerSource, Optional<Bench> bench) {
 
     /** @return the MAP back-solve of the most probable hypothesis: the estimates to report */
     public BackSolve backSolve() {
@@ -33,13 +34,14 @@ public record ReconcileResult(StagePrediction predicted, Sweep sweep, FitResult 
     }
 
     /**
-     * @return whether the sweep was read through the measuring chain: a bench hypothesis is the
-     *         most probable, identifiable, and the stage explains the sweep with it; the board's
+     * @return whether the sweep was read through the measuring chain: a bench file declares it,
+     *         or a bench hypothesis is the most probable, identifiable, and the stage explains the
+     *         sweep with it; the board's
      *         own corner is then the back-solved model's, with the chain taken out, and the fit's
      *         is the corner as measured
      */
     public boolean chainTakenOut() {
-        return Diagnosis.chainTakenOut(diagnosis, adequacy);
+        return bench.isPresent() || Diagnosis.chainTakenOut(diagnosis, adequacy);
     }
 
     /** @return the capacitor estimates of that back-solve, in port order */

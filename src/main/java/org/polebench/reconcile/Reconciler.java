@@ -13,6 +13,16 @@ import java.util.concurrent.ForkJoinPool;
 import org.apache.commons.math3.complex.Complex;
 import org.polebench.InputProblem;
 import org.polebench.analysis.ComplexFrequency;
+import org.polebench.bench.Bench;
+import org.polebench.bench.MeasuringChain;
+import org.polebench.bench.Reference;
+import org.polebench.circuit.BiasSolver;
+import org.polebench.circuit.GainReference;
+import org.polebench.circuit.OperatingPoints;
+import org.polebench.circuit.SmallSignalExpansion;
+import org.polebench.circuit.Stage;
+import org.polebench.circuit.StageInput;
+import org.polebench.spread.StageAnalysis;
 import org.polebench.spread.CornerSpread;
 import org.polebench.analysis.Prediction;
 import org.polebench.spread.StagePrediction;
@@ -76,6 +86,18 @@ public final class Reconciler {
 
     /** @throws InputProblem when the sweep cannot be fitted (too few points, no low band) */
     public ReconcileResult reconcile(StagePrediction predicted, Sweep sweep, DecisionRule rule) throws InputProblem {
+        return reconcile(predicted, sweep, rule, Optional.empty());
+    }
+
+    /**
+     * @param bench how the board was measured (a bench file), or empty: its generator resistance
+     *              and channel loads enter the back-solve's network, its couplings the reading,
+     *              and the limits are decided on the board's own response with the bench taken out
+     * @throws InputProblem when the sweep cannot be fitted, or the stage as the bench sees it
+     *                      cannot be solved
+     */
+    public ReconcileResult reconcile(StagePrediction predicted, Sweep sweep, DecisionRule rule, Optional<Bench> bench)
+            throws InputProblem {
         Prediction prediction = predicted.prediction();
         int order = prediction.lowBand().order();
         List<Complex> start = new ArrayList<>();
@@ -113,8 +135,18 @@ public final class Reconciler {
         FitResult fit;
         ModelAdequacy adequacy;
         try {
-            HypothesisSearch search = ranking.search(predicted.stage(), predicted.operatingPoints(),
-                    prediction.lowBand(), sweep, helper);
+            HypothesisSearch search;
+            if (bench.isPresent()) {
+                Stage seen = sweptStage(bench.get(), predicted.stage());
+                OperatingPoints points = new BiasSolver().solve(seen);
+                Prediction seenPrediction = new StageAnalysis().predictNetwork(seen,
+                        new SmallSignalExpansion().expand(seen, points));
+                search = ranking.search(seen, points, seenPrediction.lowBand(), sweep, helper,
+                        DeclaredChain.of(bench.get(), predicted.stage()));
+            } else {
+                search = ranking.search(predicted.stage(), predicted.operatingPoints(), prediction.lowBand(), sweep,
+                        helper);
+            }
             diagnosis = search.singles();
             fit = join(fitting);
             adequacy = adequacyTest.assess(diagnosis, fit, sweep, predicted.spread(), prediction.midbandGainDb());
@@ -135,11 +167,15 @@ public final class Reconciler {
                 : fit.lowerCornerDataHz();
         Optional<Estimate> corner;
         String cornerSource;
-        boolean chainTakenOut = Diagnosis.chainTakenOut(diagnosis, adequacy) && model.lowerCornerHz().isPresent();
+        boolean chainTakenOut = (bench.isPresent() || Diagnosis.chainTakenOut(diagnosis, adequacy))
+                && model.lowerCornerHz().isPresent();
         if (chainTakenOut) {
-            // the sweep shows the board through an AC-coupled channel: the limit is the board's
+            // the sweep shows the board through its bench: the limit is the board's own
             corner = model.lowerCornerHz();
-            cornerSource = "the board's own exact −3 dB corner: the back-solved stage model with the measuring "
+            cornerSource = bench.isPresent()
+                    ? "the board's own exact −3 dB corner: the back-solved stage model with the declared bench taken "
+                    + "out (the fitted corner is the one the bench showed)"
+                    : "the board's own exact −3 dB corner: the back-solved stage model with the measuring "
                     + "channel's AC coupling taken out (the fitted corner is the one the bench showed)";
         } else if (adequate && fitCorner.isPresent()) {
             corner = fitCorner;
@@ -152,7 +188,11 @@ public final class Reconciler {
         }
         Estimate gainEstimate = fit.midbandGainDb();
         String gainSource = "the fitted midband gain";
-        if (!adequate && model.midbandGainDb().isPresent()) {
+        if (bench.isPresent() && model.midbandGainDb().isPresent()) {
+            // a generator resistance or a channel's load moves the midband the bench shows
+            gainEstimate = model.midbandGainDb().get();
+            gainSource = "the board's own midband gain: the back-solved stage model with the declared bench taken out";
+        } else if (!adequate && model.midbandGainDb().isPresent()) {
             gainEstimate = model.midbandGainDb().get();
             gainSource = "the back-solved stage model's midband gain (the rational fit does not describe the sweep)";
         }
@@ -176,7 +216,7 @@ public final class Reconciler {
         // others are still shown, labelled with their source, and the verdict names them
         // the board's own corner under a bench hypothesis that explains the sweep is the sweep's
         // too: the channel is part of the model that explains it
-        boolean cornerFromFit = adequate && (chainTakenOut || fitCorner.isPresent());
+        boolean cornerFromFit = adequate && (chainTakenOut ? adequacy.explained() : fitCorner.isPresent());
         MeasuredQuantity lower = corner.isEmpty()
                 ? MeasuredQuantity.absent(adequate ? NotDecided.OUTSIDE_SWEPT_BAND : NotDecided.FIT_DOES_NOT_DESCRIBE_SWEEP)
                 : quantity(corner.get(), cornerSource, determination.lowerCorner(adequate, cornerFromFit,
@@ -198,7 +238,23 @@ public final class Reconciler {
         }
         Conformity conformity = assessment.assess(predicted.stage().limits(), lower, gain, upper, rule);
         return new ReconcileResult(predicted, sweep, fit, sideBySide, shares, diagnosis, adequacy, conformity,
-                gainSource, cornerSource);
+                gainSource, cornerSource, bench);
+    }
+
+    /**
+     * The stage as the bench sees it ({@link MeasuringChain#asMeasured}); with the gain taken as
+     * the ratio of the two channels, referred to the input channel's point instead of the EMF.
+     */
+    static Stage sweptStage(Bench bench, Stage board) {
+        MeasuringChain chain = MeasuringChain.forBackSolve(bench);
+        Stage seen = chain.asMeasured(board);
+        if (bench.referenceFor(board) != Reference.INPUT_CHANNEL) {
+            return seen;
+        }
+        StageInput in = seen.input();
+        return new Stage(seen.name(), seen.sourceFile(), seen.ground(), seen.supplies(),
+                new StageInput(chain.inputPointNode(board), in.sourceOhms(), GainReference.INPUT_NODE, in.line()),
+                seen.output(), seen.limits(), seen.temperatureKelvin(), seen.gainCalibrationDb(), seen.parts());
     }
 
     private static boolean adequate(FitResult fit) {

@@ -55,6 +55,21 @@ public final class ReconcileJson {
         }
         measured.put("chain_taken_out", result.chainTakenOut());
         root.set("measured", measured);
+        // the bench as declared (a bench file) or as inferred (a measuring-chain hypothesis on top)
+        ObjectNode benchNode = root.putObject("bench");
+        if (result.bench().isPresent()) {
+            benchNode.put("basis", "declared");
+            benchNode.put("file", result.bench().get().source().map(Object::toString).orElse(null));
+            benchNode.put("description", result.bench().get().describe());
+        } else if (result.chainTakenOut()) {
+            benchNode.put("basis", "inferred");
+            benchNode.putNull("file");
+            benchNode.put("description", DiagnosisText.statement(result.diagnosis().top()));
+        } else {
+            benchNode.put("basis", "none");
+            benchNode.putNull("file");
+            benchNode.putNull("description");
+        }
         root.set("side_by_side", sideBySide(result.sideBySide()));
         root.set("apportionment", result.apportionment().isPresent()
                 ? apportionment(result.apportionment().get()) : nodes.nullNode());

@@ -46,7 +46,7 @@ public final class ReconcileText {
         }
         out.println();
         diagnosis(result, out);
-        sideBySide(result.sideBySide(), result.chainTakenOut(), out);
+        sideBySide(result.sideBySide(), result.chainTakenOut(), result.bench().isPresent(), out);
         if (result.apportionment().isPresent()) {
             apportionment(result.apportionment().get(), out);
         }
@@ -63,7 +63,7 @@ public final class ReconcileText {
         out.println();
     }
 
-    private static void sideBySide(SideBySide side, boolean chainTakenOut, PrintWriter out) {
+    private static void sideBySide(SideBySide side, boolean chainTakenOut, boolean declared, PrintWriter out) {
         out.println("Predicted against measured");
         out.println(String.format(Locale.ROOT, "  %-26s %14s %24s", "", "predicted", "measured (± U, k = "
                 + MeasuredValueFormat.fixed(side.measuredMidbandGainDb().coverageFactor(), 2) + ")"));
@@ -84,7 +84,10 @@ public final class ReconcileText {
                     estimate(side.backSolvedLowerCornerHz().get(), "Hz")));
         }
         if (chainTakenOut) {
-            out.println("  the measured corner is the one the bench showed, through an AC-coupled channel; the board's "
+            out.println(declared
+                    ? "  the measured values are the ones the declared bench showed; the board's own are the back-solved "
+                    + "ones, with the bench taken out, and the limits are decided on them"
+                    : "  the measured corner is the one the bench showed, through an AC-coupled channel; the board's "
                     + "own is the back-solved one, with the channel taken out, and the limits are decided on it");
         }
         if (!side.fitAdequate()) {

@@ -95,6 +95,7 @@ public final class ReportHtml {
             }
             h.append(".</p>\n");
         }
+        BenchHtml.paragraph(root, h);
         h.append("</section>\n");
     }
 
