@@ -54,7 +54,7 @@ final class PredictCommand implements Callable<Integer> {
 
     @Option(names = "--bench", paramLabel = "FILE",
             description = "a bench file (*.bench.yaml): also show the response this bench will measure, and warn"
-                    + " when it moves the lower corner or the midband gain by more than 1 %")
+                    + " when it moves the lower corner or the midband gain by more than 1 %%")
     Path benchFile;
 
     @Override

@@ -52,4 +52,23 @@ class MainTest {
         assertEquals(ExitCodes.OK, exit);
         assertTrue(out.toString().contains("Usage: polebench fit"), out.toString());
     }
+
+    @Test
+    void everySubcommandsHelpFormatsWithoutAPicocliWarning() {
+        // picocli formats descriptions with String.format: a lone '%' (as in "1 %") fails, and
+        // picocli then warns on System.err and shows the raw text (its documented behaviour)
+        java.io.PrintStream saved = System.err;
+        java.io.ByteArrayOutputStream caught = new java.io.ByteArrayOutputStream();
+        try {
+            System.setErr(new java.io.PrintStream(caught, true, java.nio.charset.StandardCharsets.UTF_8));
+            for (String name : NAMES) {
+                Main.run(new String[] {"help", name}, new PrintWriter(new StringWriter(), true),
+                        new PrintWriter(new StringWriter(), true));
+            }
+        } finally {
+            System.setErr(saved);
+        }
+        String warnings = caught.toString(java.nio.charset.StandardCharsets.UTF_8);
+        assertTrue(!warnings.contains("WARN"), warnings);
+    }
 }
