@@ -2,7 +2,7 @@ package org.polebench.fit;
 
 /**
  * Where the flat calibration term of a fit's uncertainty comes from (docs/method.md,
- * "Uncertainty").
+ * "Uncertainty (GUM, JCGM 100:2008)").
  */
 public enum CalibrationBasis {
     /** The instrument profile the sweep was read with states its accuracy. */

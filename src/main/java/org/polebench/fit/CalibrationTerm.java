@@ -12,7 +12,7 @@ import org.polebench.sweep.SweepPoint;
 /**
  * The instrument's calibration error common to every point of one sweep, as a fit carries it: a
  * flat gain error and a flat phase offset, each with a standard uncertainty, beside the
- * independent point noise (docs/method.md, "Uncertainty"; GUM, JCGM 100:2008, 5.1.2 and 5.2).
+ * independent point noise (docs/method.md, "Uncertainty (GUM, JCGM 100:2008)"; GUM, JCGM 100:2008, 5.1.2 and 5.2).
  *
  * @param basis                       where the figures come from
  * @param gainStandardUncertaintyDb   u of the flat gain error, dB

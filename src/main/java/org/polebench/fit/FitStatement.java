@@ -34,10 +34,11 @@ final class FitStatement {
         UncertaintyBasis basis;
         double scale;
         double k;
-        double reduced = fit.chiSquare / nu;
+        double chiSquare = chiSquareWithCalibration(data, fit);
+        double reduced = chiSquare / nu;
         if (data.uncertaintiesStated) {
             double limit = new ChiSquaredDistribution(null, nu).inverseCumulativeProbability(CHI_SQUARE_PERCENTILE);
-            if (fit.chiSquare <= limit) {
+            if (chiSquare <= limit) {
                 basis = UncertaintyBasis.STATED;
                 scale = 1;
                 k = 2;
@@ -173,6 +174,42 @@ final class FitStatement {
             double uPhase = Math.toRadians(term.phaseStandardUncertaintyDeg().getAsDouble());
             addOffset(fit, jacobian, np, n, n, data.sigmaPhase, uPhase, cov);
         }
+    }
+
+    /**
+     * χ² of the fit's residuals r under the covariance the sweep is taken to have, the point
+     * noise D plus the flat calibration terms, V = D + u_g²·e_g·e_gᵀ + u_φ²·e_φ·e_φᵀ:
+     * rᵀV⁻¹r = rᵀD⁻¹r − Σ (eᵀD⁻¹r)²/(1/u² + eᵀD⁻¹e), the terms on disjoint rows taken one at a time
+     * (Sherman–Morrison). A flat phase offset within the instrument's accuracy is a shape the model
+     * cannot take, so without this it would read as residuals beyond the stated noise and scale
+     * every uncertainty up. The gain term drops out at the optimum (its e is ln|K|'s column of J,
+     * so eᵀD⁻¹r = 0). Used for the basis and the noise scale; the χ² reported is the plain one.
+     */
+    private static double chiSquareWithCalibration(PreparedSweep data, RefinedFit fit) {
+        int n = data.size();
+        double[] value = new double[data.residualCount()];
+        LogResidualFit.evaluate(data, fit.model, fit.parameters, value, (double[]) null);
+        double chi = fit.chiSquare;
+        CalibrationTerm term = data.calibration;
+        chi -= flatPart(value, 0, n, data.sigmaGain, Decibels.toNepers(term.gainStandardUncertaintyDb()));
+        if (data.hasPhase && term.phaseStandardUncertaintyDeg().isPresent()) {
+            chi -= flatPart(value, n, n, data.sigmaPhase, Math.toRadians(term.phaseStandardUncertaintyDeg().getAsDouble()));
+        }
+        return Math.max(chi, 0);
+    }
+
+    private static double flatPart(double[] residual, int first, int count, double[] sigma, double u) {
+        if (u == 0) {
+            return 0;
+        }
+        double eWr = 0;
+        double eWe = 0;
+        for (int k = 0; k < count; k++) {
+            double w = 1 / (sigma[k] * sigma[k]);
+            eWr += w * residual[first + k];
+            eWe += w;
+        }
+        return eWr * eWr / (1 / (u * u) + eWe);
     }
 
     /** cov += u²·s·sᵀ with s = (JᵀWJ)⁻¹·Σ_rows J_rᵀ/σ_r², the rows from {@code first} on. */

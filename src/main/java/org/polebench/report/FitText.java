@@ -175,16 +175,21 @@ public final class FitText {
         out.append("  uncertainty basis  ").append(basis(q.basis())).append(NL);
         CalibrationTerm c = q.calibration();
         out.append("  calibration term   ").append(calibrationBasis(c.basis())).append(": ").append(c.statement())
-                .append(NL).append("                     flat gain u = ")
+                .append(NL).append("                     ").append(calibrationFigures(c)).append(NL);
+    }
+
+    /** "flat gain u = 0.0288675 dB, flat phase u = 0.288675°, combined with the point noise (GUM 5.1.2)" */
+    static String calibrationFigures(CalibrationTerm c) {
+        StringBuilder out = new StringBuilder("flat gain u = ")
                 .append(MeasuredValueFormat.sixFigures(c.gainStandardUncertaintyDb())).append(" dB");
         if (c.phaseStandardUncertaintyDeg().isPresent()) {
             out.append(", flat phase u = ")
                     .append(MeasuredValueFormat.sixFigures(c.phaseStandardUncertaintyDeg().getAsDouble())).append("°");
         }
-        out.append(", combined with the point noise (GUM 5.1.2)").append(NL);
+        return out.append(", combined with the point noise (GUM 5.1.2)").toString();
     }
 
-    private static String calibrationBasis(CalibrationBasis basis) {
+    static String calibrationBasis(CalibrationBasis basis) {
         switch (basis) {
             case PROFILE:
                 return "the profile's accuracy";

@@ -5,7 +5,7 @@ import java.util.OptionalDouble;
 /**
  * An instrument's stated accuracy carried with a sweep as what it mostly is: one calibration
  * error common to every point of the sweep (a flat gain error and a flat phase offset), not
- * noise that averages out over the points (docs/method.md, "Uncertainty").
+ * noise that averages out over the points (docs/method.md, "Uncertainty (GUM, JCGM 100:2008)").
  *
  * @param gainStandardUncertaintyDb   standard uncertainty of the flat gain error, dB; empty when
  *                                    the instrument states none

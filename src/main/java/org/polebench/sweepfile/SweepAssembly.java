@@ -65,7 +65,7 @@ public final class SweepAssembly {
         this.limits = profile.limits();
         this.hasPhase = hasPhase;
         // the profile's accuracy is a calibration error common to the whole sweep, carried beside
-        // the points rather than as each point's noise (docs/method.md, "Uncertainty")
+        // the points rather than as each point's noise (docs/method.md, "Uncertainty (GUM, JCGM 100:2008)")
         this.calibration = profile.accuracy().calibration(profile.name());
         this.tally = tally;
     }
