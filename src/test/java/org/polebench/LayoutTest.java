@@ -51,7 +51,10 @@ class LayoutTest {
     private static final Pattern IMPORT = Pattern.compile("^import\\s+(?:static\\s+)?org\\.polebench\\.([a-z]\\w*)\\.");
     private static final Pattern QUALIFIED = Pattern.compile("\\borg\\.polebench\\.([a-z]\\w*)\\.[A-Z]");
     private static final Pattern BLOCK_COMMENT = Pattern.compile("/\\*.*?\\*/", Pattern.DOTALL);
-    private static final Pattern STRING = Pattern.compile("\"(?:\\\\.|[^\"\\\\])*\"");
+    // unrolled ("normal* (special normal*)*", Friedl, Mastering Regular Expressions, from memory) so
+    // that a long stretch between quotes (a '"' char literal opens one) costs no stack per character;
+    // the alternation form overflowed the stack on sweepfile/CellSplitter.java
+    private static final Pattern STRING = Pattern.compile("\"[^\"\\\\]*(?:\\\\.[^\"\\\\]*)*\"");
 
     @Test
     void everyMainFileUsesOnlyThePackagesItsPackageMayUse() throws IOException {
