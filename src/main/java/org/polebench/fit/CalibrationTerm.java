@@ -51,13 +51,13 @@ public record CalibrationTerm(CalibrationBasis basis, double gainStandardUncerta
             List<String> defaulted = new ArrayList<>();
             double gain = a.gainStandardUncertaintyDb().orElse(DEFAULT_GAIN_HALF_WIDTH_DB / SQRT3);
             if (a.gainStandardUncertaintyDb().isEmpty()) {
-                defaulted.add(String.format(Locale.ROOT, "gain ±%s dB", DEFAULT_GAIN_HALF_WIDTH_DB));
+                defaulted.add(String.format(Locale.ROOT, "gain ±%s dB", plain(DEFAULT_GAIN_HALF_WIDTH_DB)));
             }
             OptionalDouble phaseU = OptionalDouble.empty();
             if (phase) {
                 phaseU = OptionalDouble.of(a.phaseStandardUncertaintyDeg().orElse(DEFAULT_PHASE_HALF_WIDTH_DEG / SQRT3));
                 if (a.phaseStandardUncertaintyDeg().isEmpty()) {
-                    defaulted.add(String.format(Locale.ROOT, "phase ±%s°", DEFAULT_PHASE_HALF_WIDTH_DEG));
+                    defaulted.add(String.format(Locale.ROOT, "phase ±%s°", plain(DEFAULT_PHASE_HALF_WIDTH_DEG)));
                 }
             }
             String statement = a.statement() + (defaulted.isEmpty() ? ""
@@ -77,8 +77,13 @@ public record CalibrationTerm(CalibrationBasis basis, double gainStandardUncerta
         return new CalibrationTerm(CalibrationBasis.DEFAULT, DEFAULT_GAIN_HALF_WIDTH_DB / SQRT3,
                 phase ? OptionalDouble.of(DEFAULT_PHASE_HALF_WIDTH_DEG / SQRT3) : OptionalDouble.empty(),
                 String.format(Locale.ROOT, "no accuracy stated: the default ±%s dB%s, rectangular",
-                        DEFAULT_GAIN_HALF_WIDTH_DB, phase ? String.format(Locale.ROOT, ", ±%s°",
-                                DEFAULT_PHASE_HALF_WIDTH_DEG) : ""));
+                        plain(DEFAULT_GAIN_HALF_WIDTH_DB), phase ? String.format(Locale.ROOT, ", ±%s°",
+                                plain(DEFAULT_PHASE_HALF_WIDTH_DEG)) : ""));
+    }
+
+    /** 1.0 as "1", 0.1 as "0.1". */
+    private static String plain(double value) {
+        return java.math.BigDecimal.valueOf(value).stripTrailingZeros().toPlainString();
     }
 
     private static double median(Sweep sweep, boolean gain) {
