@@ -34,10 +34,11 @@ final class FitStatement {
         UncertaintyBasis basis;
         double scale;
         double k;
-        double reduced = fit.chiSquare / nu;
+        double chiSquare = chiSquareWithCalibration(data, fit);
+        double reduced = chiSquare / nu;
         if (data.uncertaintiesStated) {
             double limit = new ChiSquaredDistribution(null, nu).inverseCumulativeProbability(CHI_SQUARE_PERCENTILE);
-            if (fit.chiSquare <= limit) {
+            if (chiSquare <= limit) {
                 basis = UncertaintyBasis.STATED;
                 scale = 1;
                 k = 2;
@@ -60,6 +61,10 @@ final class FitStatement {
                 cov[i][j] = scale * fit.inverseInformation[i][j];
             }
         }
+        // the point noise alone moves the midband against the points; the flat calibration term
+        // moves both together, so the data corner takes this part only
+        double uMidbandNoise = Math.sqrt(cov[0][0]);
+        addCalibration(data, fit, cov);
         double omegaRef = 2 * Math.PI * data.referenceHz;
         double lowestRad = 2 * Math.PI * data.lowestHz();
         double highestRad = 2 * Math.PI * data.highestHz();
@@ -134,7 +139,7 @@ final class FitStatement {
         }
 
         Optional<Estimate> modelCorner = modelCorner(data, fit, cov, k, warnings);
-        double[] dc = corner.dataCorner(data, p[0], Math.sqrt(cov[0][0]));
+        double[] dc = corner.dataCorner(data, p[0], uMidbandNoise);
         Optional<Estimate> dataCorner = dc == null ? Optional.empty() : Optional.of(new Estimate(dc[0], dc[1], k));
         if (dc == null) {
             warnings.add(InputWarning.general("the measured gain never falls 3 dB below midband inside the fitted band; "
@@ -143,6 +148,95 @@ final class FitStatement {
         return new FitResult(model, s, gain, fit.model.inverting(), poles, zeros, names, correlation(cov),
                 quality(data, fit, basis), modelCorner, dataCorner, dropped, scores,
                 new FitBand(data.lowestHz(), data.highestHz()), warnings);
+    }
+
+    /**
+     * Adds the flat calibration term to the covariance by the law of propagation of uncertainty
+     * (GUM 5.1.2), the terms independent of the point noise and of each other. The sensitivity of
+     * the parameters to a flat offset c of the data is that of the weighted least-squares
+     * solution, linearised at the optimum: ∂θ/∂c = (JᵀWJ)⁻¹JᵀW·e, with e the offset's pattern
+     * in the residuals (1 on every gain row for a gain error in nepers, 1 on every phase row for
+     * a phase offset in radians) and J the fit's own Jacobian. A flat gain error therefore moves
+     * ln|K| one for one and nothing else (e is ln|K|'s own column of J), so it never moves a
+     * corner relative to midband; a flat phase offset moves whatever the fit trades against it.
+     */
+    private static void addCalibration(PreparedSweep data, RefinedFit fit, double[][] cov) {
+        int np = fit.parameters.length;
+        int rows = data.residualCount();
+        int n = data.size();
+        double[] value = new double[rows];
+        double[] jacobian = new double[rows * np];
+        LogResidualFit.evaluate(data, fit.model, fit.parameters, value, jacobian);
+        CalibrationTerm term = data.calibration;
+        double uGain = Decibels.toNepers(term.gainStandardUncertaintyDb());
+        addOffset(fit, jacobian, np, 0, n, data.sigmaGain, uGain, cov);
+        if (data.hasPhase && term.phaseStandardUncertaintyDeg().isPresent()) {
+            double uPhase = Math.toRadians(term.phaseStandardUncertaintyDeg().getAsDouble());
+            addOffset(fit, jacobian, np, n, n, data.sigmaPhase, uPhase, cov);
+        }
+    }
+
+    /**
+     * χ² of the fit's residuals r under the covariance the sweep is taken to have, the point
+     * noise D plus the flat calibration terms, V = D + u_g²·e_g·e_gᵀ + u_φ²·e_φ·e_φᵀ:
+     * rᵀV⁻¹r = rᵀD⁻¹r − Σ (eᵀD⁻¹r)²/(1/u² + eᵀD⁻¹e), the terms on disjoint rows taken one at a time
+     * (Sherman–Morrison). A flat phase offset within the instrument's accuracy is a shape the model
+     * cannot take, so without this it would read as residuals beyond the stated noise and scale
+     * every uncertainty up. The gain term drops out at the optimum (its e is ln|K|'s column of J,
+     * so eᵀD⁻¹r = 0). Used for the basis and the noise scale; the χ² reported is the plain one.
+     */
+    private static double chiSquareWithCalibration(PreparedSweep data, RefinedFit fit) {
+        int n = data.size();
+        double[] value = new double[data.residualCount()];
+        LogResidualFit.evaluate(data, fit.model, fit.parameters, value, (double[]) null);
+        double chi = fit.chiSquare;
+        CalibrationTerm term = data.calibration;
+        chi -= flatPart(value, 0, n, data.sigmaGain, Decibels.toNepers(term.gainStandardUncertaintyDb()));
+        if (data.hasPhase && term.phaseStandardUncertaintyDeg().isPresent()) {
+            chi -= flatPart(value, n, n, data.sigmaPhase, Math.toRadians(term.phaseStandardUncertaintyDeg().getAsDouble()));
+        }
+        return Math.max(chi, 0);
+    }
+
+    private static double flatPart(double[] residual, int first, int count, double[] sigma, double u) {
+        if (u == 0) {
+            return 0;
+        }
+        double eWr = 0;
+        double eWe = 0;
+        for (int k = 0; k < count; k++) {
+            double w = 1 / (sigma[k] * sigma[k]);
+            eWr += w * residual[first + k];
+            eWe += w;
+        }
+        return eWr * eWr / (1 / (u * u) + eWe);
+    }
+
+    /** cov += u²·s·sᵀ with s = (JᵀWJ)⁻¹·Σ_rows J_rᵀ/σ_r², the rows from {@code first} on. */
+    private static void addOffset(RefinedFit fit, double[] jacobian, int np, int first, int count, double[] sigma,
+                                  double u, double[][] cov) {
+        if (u == 0) {
+            return;
+        }
+        double[] g = new double[np];
+        for (int k = 0; k < count; k++) {
+            double w = 1 / (sigma[k] * sigma[k]);
+            int row = (first + k) * np;
+            for (int i = 0; i < np; i++) {
+                g[i] += w * jacobian[row + i];
+            }
+        }
+        double[] sens = new double[np];
+        for (int i = 0; i < np; i++) {
+            for (int j = 0; j < np; j++) {
+                sens[i] += fit.inverseInformation[i][j] * g[j];
+            }
+        }
+        for (int i = 0; i < np; i++) {
+            for (int j = 0; j < np; j++) {
+                cov[i][j] += u * u * sens[i] * sens[j];
+            }
+        }
     }
 
     private Optional<Estimate> modelCorner(PreparedSweep data, RefinedFit fit, double[][] cov, double k,
@@ -298,7 +392,7 @@ final class FitStatement {
         double rmsDb = Decibels.fromNepers(Math.sqrt(gain / n));
         OptionalDouble rmsDeg = data.hasPhase ? OptionalDouble.of(Math.toDegrees(Math.sqrt(phase / n)))
                 : OptionalDouble.empty();
-        return new FitQuality(fit.chiSquare, fit.degreesOfFreedom(), n, rmsDb, rmsDeg, basis);
+        return new FitQuality(fit.chiSquare, fit.degreesOfFreedom(), n, rmsDb, rmsDeg, basis, data.calibration);
     }
 
     /** k = t₉₅.₄₅(ν), Student's t for ν degrees of freedom (GUM G.3.4, table G.2). */

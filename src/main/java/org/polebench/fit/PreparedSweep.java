@@ -33,10 +33,12 @@ final class PreparedSweep {
     final int[] sweepIndex;
     final boolean hasPhase;
     final boolean uncertaintiesStated;
+    /** The instrument's calibration error common to every point (a flat gain and phase term). */
+    final CalibrationTerm calibration;
 
     private PreparedSweep(double referenceHz, double[] frequencyHz, double[] lnGain, double[] phaseRad,
                           double[] sigmaGain, double[] sigmaPhase, int[] sweepIndex, boolean hasPhase,
-                          boolean uncertaintiesStated) {
+                          boolean uncertaintiesStated, CalibrationTerm calibration) {
         this.referenceHz = referenceHz;
         this.frequencyHz = frequencyHz;
         this.lnGain = lnGain;
@@ -46,6 +48,7 @@ final class PreparedSweep {
         this.sweepIndex = sweepIndex;
         this.hasPhase = hasPhase;
         this.uncertaintiesStated = uncertaintiesStated;
+        this.calibration = calibration;
         this.x = new double[frequencyHz.length];
         this.lnX = new double[frequencyHz.length];
         this.responseRe = new double[frequencyHz.length];
@@ -110,7 +113,8 @@ final class PreparedSweep {
             sp[k] = Math.toRadians(phaseU);
         }
         double referenceHz = Math.sqrt(f[0] * f[n - 1]);
-        return new PreparedSweep(referenceHz, f, lnGain, phase, sg, sp, index, sweep.hasPhase(), stated);
+        return new PreparedSweep(referenceHz, f, lnGain, phase, sg, sp, index, sweep.hasPhase(), stated,
+                CalibrationTerm.of(sweep));
     }
 
     /** The same points less those marked, with the same reference frequency. */
@@ -137,7 +141,7 @@ final class PreparedSweep {
                 j++;
             }
         }
-        return new PreparedSweep(referenceHz, f, g, p, sg, sp, index, hasPhase, uncertaintiesStated);
+        return new PreparedSweep(referenceHz, f, g, p, sg, sp, index, hasPhase, uncertaintiesStated, calibration);
     }
 
     int size() {

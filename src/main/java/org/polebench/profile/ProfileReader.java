@@ -313,7 +313,10 @@ public final class ProfileReader {
 
     private InstrumentAccuracy accuracy(Doc doc, YamlNode.Mapping top) throws InputProblem {
         YamlNode.Mapping node = doc.optionalMapping(top, "accuracy");
-        doc.onlyKeys(node, Set.of("gain", "phase"));
+        doc.onlyKeys(node, Set.of("gain", "phase", "distribution"));
+        InstrumentAccuracy.Distribution distribution = doc.choice(node, "distribution",
+                InstrumentAccuracy.Distribution::parse, InstrumentAccuracy.Distribution.RECTANGULAR,
+                "rectangular (a data sheet's bound) or normal (an expanded uncertainty with k = 2)");
         OptionalDouble gain = OptionalDouble.empty();
         OptionalDouble phase = OptionalDouble.empty();
         if (node.get("gain").isPresent()) {
@@ -322,7 +325,7 @@ public final class ProfileReader {
         if (node.get("phase").isPresent()) {
             phase = OptionalDouble.of(doc.nonNegative(node, "phase", doc.degrees(node, "phase")));
         }
-        return new InstrumentAccuracy(gain, phase);
+        return new InstrumentAccuracy(gain, phase, distribution);
     }
 
     private ReadingLimits limits(Doc doc, YamlNode.Mapping top) throws InputProblem {

@@ -35,6 +35,21 @@ public final class ModelMeasurement {
 
     /** @return midband gain in dB with uncertainty, and the lower corner in Hz when the model has one */
     public Measured measure(Stage stage, OperatingPoints nominalPoints, BackSolve backSolve) {
+        return measure(stage, nominalPoints, backSolve, 0);
+    }
+
+    /**
+     * As {@link #measure(Stage, OperatingPoints, BackSolve)}, with the instrument's flat gain
+     * calibration error added to the midband's uncertainty (docs/method.md, "Uncertainty (GUM, JCGM 100:2008)"). The
+     * back-solve's own gain calibration parameter takes up whatever flat gain the sweep shows, so
+     * its posterior knows only the point noise; the instrument's calibration error moves the
+     * measured midband one for one and is independent of that noise, so its variance is added
+     * (GUM 5.1.2, sensitivity 1). It moves no corner relative to midband, so the corner is as it was.
+     *
+     * @param calibrationGainUncertaintyDb u of the instrument's flat gain error, dB (0 for none)
+     */
+    public Measured measure(Stage stage, OperatingPoints nominalPoints, BackSolve backSolve,
+                            double calibrationGainUncertaintyDb) {
         List<ParameterEstimate> parameters = backSolve.parameters();
         int p = parameters.size();
         double[] theta = new double[p];
@@ -85,7 +100,8 @@ public final class ModelMeasurement {
                 cornerGradient[j] = Math.log(moved.getAsDouble() / corner.getAsDouble()) / STEP;
             }
         }
-        Estimate gain = new Estimate(gainDb, Math.sqrt(quadratic(gainGradient, backSolve, parameters)), COVERAGE);
+        Estimate gain = new Estimate(gainDb, Math.sqrt(quadratic(gainGradient, backSolve, parameters)
+                + calibrationGainUncertaintyDb * calibrationGainUncertaintyDb), COVERAGE);
         Optional<Estimate> lower = Optional.empty();
         if (corner.isPresent()) {
             double hz = corner.getAsDouble() / (2 * Math.PI);

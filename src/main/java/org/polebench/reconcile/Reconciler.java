@@ -161,7 +161,7 @@ public final class Reconciler {
             }
         }
         ModelMeasurement.Measured model = measurement.measure(predicted.stage(), predicted.operatingPoints(),
-                diagnosis.top().backSolve());
+                diagnosis.top().backSolve(), fit.quality().calibration().gainStandardUncertaintyDb());
         boolean adequate = adequate(fit);
         Optional<Estimate> fitCorner = fit.lowerCornerModelHz().isPresent() ? fit.lowerCornerModelHz()
                 : fit.lowerCornerDataHz();

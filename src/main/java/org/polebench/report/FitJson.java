@@ -7,6 +7,7 @@ import com.fasterxml.jackson.databind.node.JsonNodeFactory;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.util.List;
 import org.polebench.InputWarning;
+import org.polebench.fit.CalibrationTerm;
 import org.polebench.fit.Estimate;
 import org.polebench.fit.FitResult;
 import org.polebench.fit.FittedRoot;
@@ -32,6 +33,8 @@ public final class FitJson {
     public ObjectNode toJson(FitResult result) {
         ObjectNode root = nodes.objectNode();
         root.put("midband_gain_db", result.midbandGainDb().value());
+        root.put("midband_gain_u_db", result.midbandGainDb().standardUncertainty());
+        root.put("coverage_factor", result.coverageFactor());
         root.set("poles_hz", roots(result.poles()));
         root.set("zeros_hz", roots(result.zeros()));
         ObjectNode corner = root.putObject("lower_corner_hz");
@@ -50,6 +53,16 @@ public final class FitJson {
         } else {
             root.putNull("residual_rms_deg");
         }
+        CalibrationTerm calibration = result.quality().calibration();
+        ObjectNode cal = root.putObject("calibration");
+        cal.put("basis", calibration.basis().word());
+        cal.put("u_gain_db", calibration.gainStandardUncertaintyDb());
+        if (calibration.phaseStandardUncertaintyDeg().isPresent()) {
+            cal.put("u_phase_deg", calibration.phaseStandardUncertaintyDeg().getAsDouble());
+        } else {
+            cal.putNull("u_phase_deg");
+        }
+        cal.put("statement", calibration.statement());
         ArrayNode warnings = root.putArray("warnings");
         for (InputWarning warning : result.warnings()) {
             warnings.add(warning.describe());

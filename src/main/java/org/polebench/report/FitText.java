@@ -5,6 +5,8 @@ import java.util.List;
 import java.util.Locale;
 import org.polebench.InputWarning;
 import org.polebench.fit.CandidateScore;
+import org.polebench.fit.CalibrationBasis;
+import org.polebench.fit.CalibrationTerm;
 import org.polebench.fit.Estimate;
 import org.polebench.fit.FitQuality;
 import org.polebench.fit.FitResult;
@@ -171,6 +173,31 @@ public final class FitText {
                 MeasuredValueFormat.sixFigures(q.chiSquare()), q.degreesOfFreedom(),
                 MeasuredValueFormat.fixed(q.reducedChiSquare(), 3)));
         out.append("  uncertainty basis  ").append(basis(q.basis())).append(NL);
+        CalibrationTerm c = q.calibration();
+        out.append("  calibration term   ").append(calibrationBasis(c.basis())).append(": ").append(c.statement())
+                .append(NL).append("                     ").append(calibrationFigures(c)).append(NL);
+    }
+
+    /** "flat gain u = 0.0288675 dB, flat phase u = 0.288675°, combined with the point noise (GUM 5.1.2)" */
+    static String calibrationFigures(CalibrationTerm c) {
+        StringBuilder out = new StringBuilder("flat gain u = ")
+                .append(MeasuredValueFormat.sixFigures(c.gainStandardUncertaintyDb())).append(" dB");
+        if (c.phaseStandardUncertaintyDeg().isPresent()) {
+            out.append(", flat phase u = ")
+                    .append(MeasuredValueFormat.sixFigures(c.phaseStandardUncertaintyDeg().getAsDouble())).append("°");
+        }
+        return out.append(", combined with the point noise (GUM 5.1.2)").toString();
+    }
+
+    static String calibrationBasis(CalibrationBasis basis) {
+        switch (basis) {
+            case PROFILE:
+                return "the profile's accuracy";
+            case POINT_UNCERTAINTIES:
+                return "the per-point u_ columns";
+            default:
+                return "the default";
+        }
     }
 
     private static String basis(UncertaintyBasis basis) {

@@ -4,6 +4,7 @@ import java.io.PrintWriter;
 import java.util.Locale;
 import java.util.OptionalDouble;
 import org.polebench.analysis.ComplexFrequency;
+import org.polebench.fit.CalibrationTerm;
 import org.polebench.fit.Estimate;
 import org.polebench.fit.FittedRoot;
 import org.polebench.fit.RootStatus;
@@ -46,7 +47,8 @@ public final class ReconcileText {
         }
         out.println();
         diagnosis(result, out);
-        sideBySide(result.sideBySide(), result.chainTakenOut(), result.bench().isPresent(), out);
+        sideBySide(result.sideBySide(), result.measured().quality().calibration(), result.chainTakenOut(),
+                result.bench().isPresent(), out);
         if (result.apportionment().isPresent()) {
             apportionment(result.apportionment().get(), out);
         }
@@ -63,7 +65,8 @@ public final class ReconcileText {
         out.println();
     }
 
-    private static void sideBySide(SideBySide side, boolean chainTakenOut, boolean declared, PrintWriter out) {
+    private static void sideBySide(SideBySide side, CalibrationTerm calibration, boolean chainTakenOut,
+                                   boolean declared, PrintWriter out) {
         out.println("Predicted against measured");
         out.println(String.format(Locale.ROOT, "  %-26s %14s %24s", "", "predicted", "measured (± U, k = "
                 + MeasuredValueFormat.fixed(side.measuredMidbandGainDb().coverageFactor(), 2) + ")"));
@@ -118,6 +121,9 @@ public final class ReconcileText {
             }
             out.println(String.format(Locale.ROOT, "    %-6s %30s   %s", match.zero() ? "zero" : "pole", predicted, measured));
         }
+        out.println("  measured U includes the instrument's calibration term, from "
+                + FitText.calibrationBasis(calibration.basis()) + ": " + calibration.statement() + "; "
+                + FitText.calibrationFigures(calibration));
         out.println();
     }
 

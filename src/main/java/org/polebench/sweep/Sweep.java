@@ -1,15 +1,21 @@
 package org.polebench.sweep;
 
 import java.util.List;
+import java.util.Optional;
 
 /**
  * One bench sweep, strictly ascending in frequency, and where it came from. Either every
  * point has a phase or none has (a magnitude-only instrument); importers enforce this with
  * a clear message before building one.
+ *
+ * @param calibration the instrument's accuracy as a calibration error common to every point,
+ *                    when the profile it was read with states one; empty otherwise (the fit then
+ *                    takes it from the points' own uncertainties or a default, docs/method.md)
  */
-public record Sweep(Provenance source, List<SweepPoint> points) {
+public record Sweep(Provenance source, List<SweepPoint> points, Optional<CalibrationAccuracy> calibration) {
     public Sweep {
         points = List.copyOf(points);
+        calibration = calibration == null ? Optional.empty() : calibration;
         if (points.size() < 2) {
             throw new IllegalArgumentException("a sweep needs two points, had " + points.size());
         }
@@ -22,6 +28,16 @@ public record Sweep(Provenance source, List<SweepPoint> points) {
                 throw new IllegalArgumentException("point " + i + " differs from point 0 in having a phase");
             }
         }
+    }
+
+    /** A sweep whose instrument states no accuracy. */
+    public Sweep(Provenance source, List<SweepPoint> points) {
+        this(source, points, Optional.empty());
+    }
+
+    /** @return the same points and source with this calibration accuracy */
+    public Sweep withCalibration(CalibrationAccuracy accuracy) {
+        return new Sweep(source, points, Optional.of(accuracy));
     }
 
     /** @return true when every point carries a phase */

@@ -248,8 +248,76 @@ final class LayoutSniffer {
                 InstrumentAccuracy.unstated(), ReadingLimits.none(), Optional.empty());
         String preface = "auto: " + delimiter.word() + "-delimited, decimal " + (decimalComma ? "comma" : "point") + ", "
                 + encoding.word() + ", header at line " + headerLine
-                + (assumed.isEmpty() ? "" : " (assumed: " + String.join(", ", assumed) + ")") + "; ";
-        return new Choice(profile, preface);
+                + (assumed.isEmpty() ? "" : " (assumed: " + String.join(", ", assumed) + ")");
+        // A sniffed layout knows nothing of the instrument's accuracy; a shipped profile that reads
+        // the file the same way does, and reading through it carries that accuracy exactly as
+        // naming it would (issue 13: auto used to drop it).
+        Optional<TableProfile> same = sameReading(profile, columns, lines);
+        if (same.isPresent()) {
+            return new Choice(same.get(), preface + ", the layout of profile '" + same.get().name()
+                    + "', read with it (its accuracy applies); ");
+        }
+        return new Choice(profile, preface + "; ");
+    }
+
+    /**
+     * @return the one shipped table profile that reads this file exactly as the sniffed layout
+     *         does (the same delimiter, decimal mark, preamble, comments and header row, the same
+     *         column for every quantity, the same units and phase sign), or empty when none or
+     *         more than one does
+     */
+    private Optional<TableProfile> sameReading(TableProfile sniffed, List<Column> header, List<String> lines) {
+        List<TableProfile> found = new ArrayList<>();
+        for (TableProfile shipped : library.tableProfiles()) {
+            TableLayout a = sniffed.layout();
+            TableLayout b = shipped.layout();
+            if (!b.header() || a.delimiter() != b.delimiter() || a.decimalComma() != b.decimalComma()
+                    || a.encoding() != b.encoding() || a.preambleLines() != b.preambleLines()) {
+                continue;
+            }
+            boolean comments = true;
+            for (int i = 0; i < lines.size(); i++) {
+                if (isComment(lines.get(i)) && !b.isComment(lines.get(i))) {
+                    comments = false;
+                    break;
+                }
+            }
+            ReadingScale x = sniffed.scale();
+            ReadingScale y = shipped.scale();
+            boolean phase = sniffed.columns().phase().isPresent();
+            boolean units = x.frequencyUnit() == y.frequencyUnit() && x.gainForm() == y.gainForm()
+                    && (!phase || x.phaseUnit() == y.phaseUnit() && x.phaseSign() == y.phaseSign()
+                    && x.phaseWrapped() == y.phaseWrapped());
+            TableColumns c = sniffed.columns();
+            TableColumns d = shipped.columns();
+            boolean sameColumns = column(c.frequency(), header) == column(d.frequency(), header)
+                    && column(c.gain(), header) == column(d.gain(), header)
+                    && column(c.inputAmplitude(), header) == column(d.inputAmplitude(), header)
+                    && column(c.outputAmplitude(), header) == column(d.outputAmplitude(), header)
+                    && column(c.phase(), header) == column(d.phase(), header)
+                    && column(d.gainUncertainty(), header) < 0 && column(d.phaseUncertainty(), header) < 0;
+            if (comments && units && sameColumns) {
+                found.add(shipped);
+            }
+        }
+        return found.size() == 1 ? Optional.of(found.get(0)) : Optional.empty();
+    }
+
+    /** @return the 1-based column a reference picks from the header row, or −1 when none */
+    private static int column(Optional<ColumnRef> ref, List<Column> header) {
+        return ref.isPresent() ? column(ref.get(), header) : -1;
+    }
+
+    private static int column(ColumnRef ref, List<Column> header) {
+        if (ref.byNumber()) {
+            return ref.number() <= header.size() ? ref.number() : -1;
+        }
+        for (Column c : header) {
+            if (ref.matches(c.header)) {
+                return c.number;
+            }
+        }
+        return -1;
     }
 
     private Choice withoutHeader(Path file, List<String> lines) throws InputProblem {

@@ -8,10 +8,12 @@ import java.util.Arrays;
 import java.util.Comparator;
 import java.util.List;
 import java.util.Locale;
+import java.util.Optional;
 import java.util.OptionalDouble;
 import org.polebench.InputProblem;
 import org.polebench.profile.InstrumentProfile;
 import org.polebench.profile.ReadingScale;
+import org.polebench.sweep.CalibrationAccuracy;
 import org.polebench.sweep.LowerCornerEstimate;
 import org.polebench.sweep.PhaseUnwrap;
 import org.polebench.sweep.Provenance;
@@ -37,8 +39,7 @@ final class SweepAssembly {
     private final ReadingScale scale;
     private final ReadingConversion conversion;
     private final boolean hasPhase;
-    private final double defaultGainUncertaintyDb;
-    private final double defaultPhaseUncertaintyDeg;
+    private final Optional<CalibrationAccuracy> calibration;
     private final WarningTally tally;
 
     private double[] frequencyHz = new double[256];
@@ -58,8 +59,9 @@ final class SweepAssembly {
         this.scale = profile.scale();
         this.conversion = new ReadingConversion(profile);
         this.hasPhase = hasPhase;
-        this.defaultGainUncertaintyDb = profile.accuracy().gainStandardUncertaintyDb().orElse(Double.NaN);
-        this.defaultPhaseUncertaintyDeg = profile.accuracy().phaseStandardUncertaintyDeg().orElse(Double.NaN);
+        // the profile's accuracy is a calibration error common to the whole sweep, carried beside
+        // the points rather than as each point's noise (docs/method.md, "Uncertainty (GUM, JCGM 100:2008)")
+        this.calibration = profile.accuracy().calibration(profile.name());
         this.tally = tally;
     }
 
@@ -79,8 +81,8 @@ final class SweepAssembly {
      * @param rawInput  input amplitude (amplitude profiles)
      * @param rawOutput output amplitude (amplitude profiles)
      * @param rawPhase  phase in the profile's unit and sign; NaN when the sweep has none
-     * @param uGainDb   this point's standard uncertainty of gain in dB, NaN for the profile's
-     * @param uPhaseDeg this point's standard uncertainty of phase in degrees, NaN for the profile's
+     * @param uGainDb   this point's standard uncertainty of gain in dB, NaN when the file states none
+     * @param uPhaseDeg this point's standard uncertainty of phase in degrees, NaN when the file states none
      * @return true when the reading was kept
      */
     boolean offer(int line, double rawFrequency, double rawGain, double rawInput, double rawOutput,
@@ -109,8 +111,8 @@ final class SweepAssembly {
         frequencyHz[count] = hz.value();
         gainDb[count] = gain.value();
         phaseDeg[count] = phase;
-        gainUncertaintyDb[count] = Double.isNaN(uGainDb) ? defaultGainUncertaintyDb : uGainDb;
-        phaseUncertaintyDeg[count] = Double.isNaN(uPhaseDeg) ? defaultPhaseUncertaintyDeg : uPhaseDeg;
+        gainUncertaintyDb[count] = uGainDb;
+        phaseUncertaintyDeg[count] = uPhaseDeg;
         lines[count] = line;
         count++;
         return true;
@@ -164,7 +166,7 @@ final class SweepAssembly {
             OptionalDouble phase = hasPhase ? OptionalDouble.of(phaseDeg[i]) : OptionalDouble.empty();
             points.add(new SweepPoint(frequencyHz[i], gainDb[i], phase, lastUGain, lastUPhase));
         }
-        Sweep sweep = new Sweep(provenance, points);
+        Sweep sweep = new Sweep(provenance, points, calibration);
         checkBand(sweep);
         return sweep;
     }

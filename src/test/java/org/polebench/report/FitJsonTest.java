@@ -31,7 +31,11 @@ class FitJsonTest {
         String text = new FitJson().write(new SweepFitter(FitSettings.defaults()).fit(ReportFixtures.stage(true, 1)));
         JsonNode json = new ObjectMapper().readTree(text);
         assertEquals(new TreeSet<>(List.of("midband_gain_db", "poles_hz", "zeros_hz", "lower_corner_hz", "order",
-                "residual_rms_db", "residual_rms_deg", "warnings")), keys(json));
+                "residual_rms_db", "residual_rms_deg", "warnings", "midband_gain_u_db", "coverage_factor",
+                "calibration")), keys(json));
+        // issue 13: the calibration term's basis and figures (an in-memory sweep states none: the default)
+        assertEquals(Set.of("basis", "u_gain_db", "u_phase_deg", "statement"), keys(json.get("calibration")));
+        assertEquals("default", json.get("calibration").get("basis").asText());
         assertEquals(3, json.get("order").asInt());
         List<Double> poles = new ArrayList<>();
         for (JsonNode pole : json.get("poles_hz")) {

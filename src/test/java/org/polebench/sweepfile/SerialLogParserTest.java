@@ -58,7 +58,10 @@ class SerialLogParserTest {
                 result.warnings().toString());
         assertTrue(result.warnings().stream().anyMatch(w -> w.line() == 7 * 12 + 12 && w.message().contains("-113")),
                 result.warnings().toString());
-        // default uncertainty from the profile's ±0.1 dB, read as rectangular: 0.1/√3 (GUM 4.3.7)
-        assertEquals(0.1 / Math.sqrt(3), result.sweep().points().get(0).gainUncertaintyDb().getAsDouble(), 1e-15);
+        // the profile's ±0.1 dB, read as rectangular: 0.1/√3 (GUM 4.3.7), carried as the sweep's
+        // calibration term and no longer as each point's uncertainty (issue 13)
+        assertTrue(result.sweep().points().get(0).gainUncertaintyDb().isEmpty());
+        assertEquals(0.1 / Math.sqrt(3),
+                result.sweep().calibration().orElseThrow().gainStandardUncertaintyDb().getAsDouble(), 1e-15);
     }
 }
