@@ -41,11 +41,18 @@ final class OrderSelection {
             }
         }
         scale = Double.isInfinite(scale) ? 1 : Math.max(1, scale);
+        // a model whose midband gain the data do not determine (a pole and a zero far above the
+        // band trade against |K|) is no measurement of it: when any candidate determines it, only
+        // those compete (issue 14)
+        boolean anyDetermined = false;
+        for (RefinedFit fit : fits) {
+            anyDetermined |= eligible(fit) && determinesMidband(fit);
+        }
         double[] bic = new double[fits.size()];
         int best = -1;
         for (int i = 0; i < fits.size(); i++) {
             RefinedFit fit = fits.get(i);
-            bic[i] = eligible(fit)
+            bic[i] = eligible(fit) && (!anyDetermined || determinesMidband(fit))
                     ? fit.chiSquare / scale + fit.parameters.length * Math.log(fit.residuals)
                     : Double.NaN;
             if (!Double.isNaN(bic[i]) && (best < 0 || bic[i] < bic[best])) {
@@ -60,6 +67,19 @@ final class OrderSelection {
                     fit == null ? Double.NaN : fit.chiSquare, bic[i], i == best));
         }
         return new Outcome(best < 0 ? null : fits.get(best), scores);
+    }
+
+    /**
+     * The standard uncertainty of ln|K| above which a candidate does not determine the midband
+     * gain: 1 Np (8.7 dB), where a determined midband has thousandths of a neper and an
+     * undetermined one (a free pole–zero pair above the band) whole nepers.
+     */
+    static final double UNDETERMINED_MIDBAND_NEPERS = 1;
+
+    // u(ln|K|) from the inverse information, scaled by the fit's own χ²/ν when above 1 (Birge)
+    private static boolean determinesMidband(RefinedFit fit) {
+        double variance = fit.inverseInformation[0][0] * Math.max(1, fit.chiSquare / fit.degreesOfFreedom());
+        return Math.sqrt(variance) <= UNDETERMINED_MIDBAND_NEPERS;
     }
 
     private static boolean eligible(RefinedFit fit) {
