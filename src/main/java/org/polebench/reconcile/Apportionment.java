@@ -3,13 +3,18 @@ package org.polebench.reconcile;
 import java.util.List;
 
 /**
- * The measured lower corner's error split among the low-band capacitors, to first order.
+ * The lower corner's change from the stage as designed to the back-solved board, apportioned
+ * along the path between them ({@link CornerApportionment}).
  *
- * @param lnCornerRatio ln(f_measured / f_predicted), the relative corner error
- * @param uLnCorner     the standard uncertainty of that ratio, from the measured corner's
- * @param shares        one per low-band capacitor, in port order
+ * @param lnCornerRatio     ln(f_back-solved / f_predicted), the change apportioned
+ * @param uLnCorner         its standard uncertainty
+ * @param shares            each low-band capacitor's term, in port order
+ * @param otherContribution the bias currents', β's and freed resistors' term together
+ * @param otherShare        that term over the change; NaN when the change is within twice its
+ *                          uncertainty (as every capacitor's share then)
  */
-public record Apportionment(double lnCornerRatio, double uLnCorner, List<CapacitorShare> shares) {
+public record Apportionment(double lnCornerRatio, double uLnCorner, List<CapacitorShare> shares,
+                            double otherContribution, double otherShare) {
     public Apportionment {
         shares = List.copyOf(shares);
     }

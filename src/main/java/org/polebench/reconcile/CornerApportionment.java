@@ -5,97 +5,123 @@ import java.util.List;
 import java.util.Optional;
 import java.util.OptionalDouble;
 import org.polebench.analysis.CornerFinder;
-import org.polebench.analysis.PortReduction;
-import org.polebench.analysis.Prediction;
-import org.polebench.analysis.Reduction;
 import org.polebench.analysis.StateModel;
-import org.polebench.circuit.Band;
 import org.polebench.circuit.OperatingPoints;
-import org.polebench.circuit.SmallSignalExpansion;
 import org.polebench.circuit.Stage;
 
 /**
- * First-order apportionment of the lower corner's error among the capacitors: the MAP of the
- * linearised problem ln f_m = ln f(μ) + Σ s_i·(φ_i − μ_i) + ε, linearised about the board the
- * tolerance priors expect (every capacitor at C_nom·e^μ_i: an aluminium electrolytic's
- * −20 %/+80 % band is centred 18 % above nominal), with s_i = ∂ln f_L/∂ln C_i of the exact corner
- * there, φ_i ~ N(μ_i, σ_i²) and ε ~ N(0, u²) from the measured corner's uncertainty. For one
- * linear observation with Gaussian priors the MAP is φ = μ + Σs·(y − ln f(μ))/(sᵀΣs + u²) (the
- * Gaussian conditioning formula, e.g. Bishop, Pattern Recognition and Machine Learning, 2006,
- * 2.3.3): each part takes a share in proportion to its sensitivity times its tolerance variance.
- * Contributions are s_i·(φ_i − μ_i) plus each part's first-order share s_i·μ_i of the expected
- * board's own offset ln(f(μ)/f_nom); they add up to ln(f_m/f_nom) but for the shrinkage
- * u²/(sᵀΣs + u²). Stateless.
+ * The lower corner's change from the stage as designed to the board the back-solve found,
+ * apportioned exactly among the parts along the straight path between them: with θ(t) = t·θ̂ in
+ * the back-solve's log-scale parameters (t from 0, every part nominal, to 1, the most probable
+ * hypothesis' estimates), ln f(θ̂) − ln f(0) = Σ_i θ̂_i·∫₀¹ ∂ln f/∂θ_i(θ(t)) dt (the fundamental
+ * theorem of calculus along a path; the shares are the path-integrated attributions of Aumann
+ * and Shapley, Values of Non-Atomic Games, 1974). Each capacitor's term uses the corner's exact
+ * sensitivity ∂ln f/∂ln C at every node of an {@value #NODES}-point Gauss–Legendre rule
+ * (Abramowitz and Stegun, 25.4.29, table 25.4); the bias currents', β's and freed resistors'
+ * terms are the remainder, one row. The shares add up to the back-solved corner's change and
+ * name the back-solve's culprit first, so the apportionment and the back-solve never disagree,
+ * however far the board lies from its design. A change within twice its standard uncertainty
+ * gets its terms but no shares: a fraction of what may be nothing means nothing. Stateless.
  */
 public final class CornerApportionment {
-    private final PortReduction reduction = new PortReduction();
-    private final SmallSignalExpansion expansion = new SmallSignalExpansion();
+    /** Gauss–Legendre nodes on [0, 1]: exact for polynomials of degree 15, ample for a corner's smooth path. */
+    static final int NODES = 8;
+    // Abramowitz and Stegun, table 25.4, n = 8, on [−1, 1]
+    private static final double[] ABSCISSAE = {0.1834346424956498, 0.5255324099163290, 0.7966664774136267,
+            0.9602898564975363};
+    private static final double[] WEIGHTS = {0.3626837833783620, 0.3137066458778873, 0.2223810344533745,
+            0.1012285362903763};
+
     private final CornerFinder corners = new CornerFinder();
+    private final ModelMeasurement measurement = new ModelMeasurement();
 
     /**
-     * @param stage          the stage as designed
-     * @param points         its operating points
-     * @param prediction     the nominal stage's prediction (its exact corner)
-     * @param capacitors     the capacitor parameters in port order, with their tolerance priors
-     * @param measuredHz     the measured lower corner, positive
-     * @param uMeasuredHz    its standard uncertainty, at least 0
-     * @return the apportionment; empty when the stage at its prior means has no lower corner
-     * @throws IllegalArgumentException when the prediction has no exact corner or the lists differ
+     * @param stage     the board's own stage as designed
+     * @param points    its nominal operating points
+     * @param backSolve the most probable hypothesis' back-solve
+     * @param uLnCorner the standard uncertainty of the back-solved ln corner
+     * @return the apportionment; empty where the path leaves the model's domain (a transistor out
+     *         of its amplifying region) or the board has no lower corner somewhere along it
      */
-    public Optional<Apportionment> apportion(Stage stage, OperatingPoints points, Prediction prediction,
-                                             List<ModelParameter> capacitors, double measuredHz, double uMeasuredHz) {
-        if (prediction.exactLowerCornerHz().isEmpty()) {
-            throw new IllegalArgumentException("an apportionment needs a predicted exact corner");
+    public Optional<Apportionment> apportion(Stage stage, OperatingPoints points, BackSolve backSolve,
+                                             double uLnCorner) {
+        List<ParameterEstimate> parameters = backSolve.parameters();
+        int p = parameters.size();
+        double[] target = new double[p];
+        List<String> capacitors = new ArrayList<>();
+        List<Integer> capacitorIndex = new ArrayList<>();
+        for (int j = 0; j < p; j++) {
+            ModelParameter parameter = parameters.get(j).parameter();
+            // the gain calibration moves no corner; a measuring channel is not the board's
+            boolean board = parameter.kind() != ParameterKind.GAIN && parameter.kind() != ParameterKind.CHANNEL_CORNER;
+            target[j] = board ? parameters.get(j).logEstimate() : 0;
+            if (parameter.kind() == ParameterKind.CAPACITOR && stage.part(parameter.label()).isPresent()) {
+                capacitors.add(parameter.label());
+                capacitorIndex.add(j);
+            }
         }
-        if (prediction.lowBand().order() != capacitors.size()) {
-            throw new IllegalArgumentException("one capacitor parameter per low-band capacitor");
-        }
-        int k = capacitors.size();
-        Stage expected = stage;
-        for (ModelParameter capacitor : capacitors) {
-            expected = expected.withCapacitance(capacitor.label(), capacitor.valueOf(capacitor.tolerancePrior().mean()));
-        }
-        Reduction low = reduction.reduce(expansion.expand(expected, points), Band.LOW);
-        if (low.stateModel().isEmpty()) {
+        BoardNetwork network = new BoardNetwork(stage, points, capacitors);
+        OptionalDouble start = corner(network, parameters, scaled(target, 0));
+        OptionalDouble end = corner(network, parameters, scaled(target, 1));
+        if (start.isEmpty() || end.isEmpty()) {
             return Optional.empty();
         }
-        StateModel model = low.stateModel().get();
-        OptionalDouble cornerRadPerS = corners.lowerCornerRadPerS(model);
-        if (cornerRadPerS.isEmpty()) {
-            return Optional.empty();
+        double total = Math.log(end.getAsDouble() / start.getAsDouble());
+        double[] integral = new double[capacitors.size()];
+        for (int q = 0; q < 2 * ABSCISSAE.length; q++) {
+            double x = q < ABSCISSAE.length ? -ABSCISSAE[q] : ABSCISSAE[q - ABSCISSAE.length];
+            double w = WEIGHTS[q % ABSCISSAE.length] / 2;
+            double[] theta = scaled(target, (x + 1) / 2);
+            Optional<StateModel> model = measurement.model(network, parameters, theta);
+            if (model.isEmpty()) {
+                return Optional.empty();
+            }
+            OptionalDouble corner = corners.lowerCornerRadPerS(model.get());
+            if (corner.isEmpty()) {
+                return Optional.empty();
+            }
+            double[] s = corners.cornerSensitivities(model.get(), corner.getAsDouble());
+            for (int i = 0; i < integral.length; i++) {
+                integral[i] += w * s[i];
+            }
         }
-        double[] s = corners.cornerSensitivities(model, cornerRadPerS.getAsDouble());
-        double y = Math.log(measuredHz / prediction.exactLowerCornerHz().getAsDouble());
-        double innovation = Math.log(2 * Math.PI * measuredHz / cornerRadPerS.getAsDouble());
-        double u = uMeasuredHz / measuredHz;
-        double variance = u * u;
-        for (int i = 0; i < k; i++) {
-            double sigma = capacitors.get(i).tolerancePrior().standardDeviation();
-            variance += s[i] * s[i] * sigma * sigma;
+        // a change within twice its uncertainty has no meaningful shares: each part's term is
+        // shown, its fraction of a change that may be nothing is not (a healthy board's 479 %)
+        boolean resolved = Math.abs(total) > 2 * uLnCorner && total != 0;
+        List<CapacitorShare> shares = new ArrayList<>(capacitors.size());
+        double capacitorTotal = 0;
+        for (int i = 0; i < capacitors.size(); i++) {
+            int j = capacitorIndex.get(i);
+            capacitorTotal += integral[i] * target[j];
         }
-        double gain = variance > 0 ? innovation / variance : 0;
-        // the expected board's own offset ln(f(μ)/f_nom) is shared as its first-order terms s_i·μ_i
-        double offset = Math.log(cornerRadPerS.getAsDouble() / (2 * Math.PI * prediction.exactLowerCornerHz().getAsDouble()));
-        double firstOrderOffset = 0;
-        for (int i = 0; i < k; i++) {
-            firstOrderOffset += s[i] * capacitors.get(i).tolerancePrior().mean();
+        for (int i = 0; i < capacitors.size(); i++) {
+            int j = capacitorIndex.get(i);
+            ParameterEstimate estimate = parameters.get(j);
+            double contribution = integral[i] * target[j];
+            shares.add(new CapacitorShare(capacitors.get(i), integral[i], target[j], estimate.value(), contribution,
+                    resolved ? contribution / total : Double.NaN));
         }
-        double[] contribution = new double[k];
-        double[] phi = new double[k];
-        double total = 0;
-        for (int i = 0; i < k; i++) {
-            Prior prior = capacitors.get(i).tolerancePrior();
-            phi[i] = prior.mean() + prior.standardDeviation() * prior.standardDeviation() * s[i] * gain;
-            double offsetShare = firstOrderOffset == 0 ? 0 : s[i] * prior.mean() * offset / firstOrderOffset;
-            contribution[i] = s[i] * (phi[i] - prior.mean()) + offsetShare;
-            total += contribution[i];
+        double other = total - capacitorTotal;
+        Optional<ParameterEstimate> anyNetwork = parameters.stream()
+                .filter(e -> e.parameter().kind() == ParameterKind.BIAS || e.parameter().kind() == ParameterKind.CURRENT_GAIN
+                        || e.parameter().kind() == ParameterKind.RESISTOR).findFirst();
+        return Optional.of(new Apportionment(total, uLnCorner, shares, anyNetwork.isPresent() ? other : 0,
+                resolved ? other / total : Double.NaN));
+    }
+
+    private OptionalDouble corner(BoardNetwork network, List<ParameterEstimate> parameters, double[] theta) {
+        Optional<StateModel> model = measurement.model(network, parameters, theta);
+        if (model.isEmpty()) {
+            return OptionalDouble.empty();
         }
-        List<CapacitorShare> shares = new ArrayList<>(k);
-        for (int i = 0; i < k; i++) {
-            ModelParameter parameter = capacitors.get(i);
-            shares.add(new CapacitorShare(parameter.label(), s[i], phi[i], parameter.valueOf(phi[i]), contribution[i],
-                    total == 0 ? Double.NaN : contribution[i] / total));
+        return corners.lowerCornerRadPerS(model.get());
+    }
+
+    private static double[] scaled(double[] target, double t) {
+        double[] theta = new double[target.length];
+        for (int j = 0; j < theta.length; j++) {
+            theta[j] = t * target[j];
         }
-        return Optional.of(new Apportionment(y, u, shares));
+        return theta;
     }
 }

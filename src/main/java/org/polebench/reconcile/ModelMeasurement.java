@@ -134,7 +134,7 @@ public final class ModelMeasurement {
 
     // the back-solve's estimates laid onto the board network's parameter order; a resistor the
     // hypothesis did not free stays at its value
-    private Optional<StateModel> model(BoardNetwork board, List<ParameterEstimate> parameters, double[] theta) {
+    Optional<StateModel> model(BoardNetwork board, List<ParameterEstimate> parameters, double[] theta) {
         List<Double> lnCapacitor = new ArrayList<>();
         double[] lnNetwork = board.nominal();
         int m = board.transistors().size();

@@ -208,9 +208,12 @@ public final class Reconciler {
                 matches(prediction, fit), model.midbandGainDb(), model.lowerCornerHz(), adequate);
 
         Optional<Apportionment> shares = Optional.empty();
-        if (corner.isPresent() && prediction.exactLowerCornerHz().isPresent()) {
-            shares = apportionment.apportion(predicted.stage(), predicted.operatingPoints(), prediction,
-                    capacitorParameters(diagnosis), corner.get().value(), corner.get().standardUncertainty());
+        if (model.lowerCornerHz().isPresent() && prediction.exactLowerCornerHz().isPresent()) {
+            // the back-solved board's corner change, shared along the path from the design to it:
+            // the shares and the back-solve then name the same culprit (issue 14)
+            Estimate solved = model.lowerCornerHz().get();
+            shares = apportionment.apportion(predicted.stage(), predicted.operatingPoints(), diagnosis.top().backSolve(),
+                    solved.standardUncertainty() / solved.value());
         }
         // a limit is decided only from a quantity the sweep itself determines (issue 11); the
         // others are still shown, labelled with their source, and the verdict names them
@@ -278,14 +281,6 @@ public final class Reconciler {
             }
             throw failure;
         }
-    }
-
-    private static List<ModelParameter> capacitorParameters(Diagnosis diagnosis) {
-        List<ModelParameter> result = new ArrayList<>();
-        for (ParameterEstimate estimate : diagnosis.top().backSolve().of(ParameterKind.CAPACITOR)) {
-            result.add(estimate.parameter());
-        }
-        return result;
     }
 
     /**

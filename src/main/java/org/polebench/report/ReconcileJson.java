@@ -274,6 +274,12 @@ public final class ReconcileJson {
                 row.putNull("share");
             }
         }
+        node.put("other_contribution", apportionment.otherContribution());
+        if (Double.isFinite(apportionment.otherShare())) {
+            node.put("other_share", apportionment.otherShare());
+        } else {
+            node.putNull("other_share");
+        }
         return node;
     }
 

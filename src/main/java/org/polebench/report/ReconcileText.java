@@ -128,16 +128,28 @@ public final class ReconcileText {
     }
 
     private static void apportionment(Apportionment apportionment, PrintWriter out) {
-        out.println(String.format(Locale.ROOT, "First-order apportionment of the corner error (ln f_meas/f_pred = %+.4f ± %.4f)",
+        out.println(String.format(Locale.ROOT, "The corner's change from the design to the back-solved board, shared "
+                        + "along the path between them (ln f_solved/f_pred = %+.4f ± %.4f)",
                 apportionment.lnCornerRatio(), apportionment.uLnCorner()));
-        out.println(String.format(Locale.ROOT, "  %-8s %10s %12s %14s %8s", "part", "dlnf/dlnC", "estimate", "Δln f", "share"));
+        out.println(String.format(Locale.ROOT, "  %-16s %10s %12s %14s %8s", "part", "dlnf/dlnC", "estimate", "Δln f",
+                "share"));
         for (CapacitorShare share : apportionment.shares()) {
-            out.println(String.format(Locale.ROOT, "  %-8s %10.3f %12s %+14.4f %7s", share.capacitor(),
+            out.println(String.format(Locale.ROOT, "  %-16s %10.3f %12s %+14.4f %8s", share.capacitor(),
                     share.cornerSensitivity(), EngineeringValue.format(share.estimatedFarads(), "F", 3),
-                    share.cornerContribution(),
-                    Double.isFinite(share.share()) ? String.format(Locale.ROOT, "%.0f%%", 100 * share.share()) : "-"));
+                    share.cornerContribution(), percentShare(share.share())));
         }
+        out.println(String.format(Locale.ROOT, "  %-16s %10s %12s %+14.4f %8s", "bias, β, resistors", "", "",
+                apportionment.otherContribution(), percentShare(apportionment.otherShare())));
         out.println();
+    }
+
+    // a share in whole percent, without a negative zero
+    private static String percentShare(double share) {
+        if (!Double.isFinite(share)) {
+            return "-";
+        }
+        long percent = Math.round(100 * share);
+        return (percent == 0 ? "0" : Long.toString(percent)) + "%";
     }
 
     private static void backSolve(ReconcileResult result, PrintWriter out) {

@@ -308,18 +308,23 @@ public final class ReportHtml {
                         + "</figure>\n");
         JsonNode apportionment = root.path("apportionment");
         if (apportionment.isObject()) {
-            h.append("<p>First-order apportionment of the corner error: ln(f_measured/f_predicted) = ")
+            h.append("<p>The corner's change from the design to the back-solved board, shared along the path between "
+                    + "them (the shares add up to the change and name the back-solve's culprit): ln(f_solved/f_predicted) = ")
                     .append(MeasuredValueFormat.fixed(apportionment.path("ln_corner_ratio").asDouble(), 4)).append(" ± ")
                     .append(MeasuredValueFormat.fixed(apportionment.path("u_ln_corner_ratio").asDouble(), 4))
                     .append(" (standard uncertainty).</p>\n");
-            h.append("<table id=\"apportionment\" class=\"data compact\">\n<thead><tr><th>Capacitor</th>"
-                    + "<th>Estimate (linearised)</th><th>Δln f contribution</th><th>Share of the error</th></tr></thead>\n<tbody>\n");
+            h.append("<table id=\"apportionment\" class=\"data compact\">\n<thead><tr><th>Part</th>"
+                    + "<th>Estimate (back-solve)</th><th>Δln f contribution</th><th>Share of the change</th></tr></thead>\n<tbody>\n");
             for (JsonNode s : apportionment.path("shares")) {
                 h.append("<tr><td>").append(esc(s.path("id").asText())).append("</td><td>")
                         .append(eng(s.path("estimated_farads").asDouble(), "F")).append("</td><td>")
                         .append(MeasuredValueFormat.fixed(s.path("corner_contribution").asDouble(), 4)).append("</td><td>")
                         .append(s.path("share").isNumber() ? percent(s.path("share").asDouble()) : NONE).append("</td></tr>\n");
             }
+            h.append("<tr><td>bias, β, resistors</td><td>").append(NONE).append("</td><td>")
+                    .append(MeasuredValueFormat.fixed(apportionment.path("other_contribution").asDouble(), 4)).append("</td><td>")
+                    .append(apportionment.path("other_share").isNumber() ? percent(apportionment.path("other_share").asDouble())
+                            : NONE).append("</td></tr>\n");
             h.append("</tbody>\n</table>\n");
         }
     }
