@@ -41,7 +41,11 @@ final class ReportCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws InputProblem, IOException {
-        JsonNode root = new ResultFile().read(result);
+        ResultFile file = new ResultFile();
+        JsonNode root = file.read(result);
+        for (String line : file.checkInputs(result, root)) {
+            spec.commandLine().getOut().println(line);
+        }
         ReportStamp stamp = new TestReportWriter().write(root, out, force, png, Instant.now());
         spec.commandLine().getOut().println("Test report " + stamp.reportId() + " written to "
                 + out.resolve(TestReportWriter.HTML));

@@ -147,6 +147,10 @@ public final class ReportCharts {
         SymbolAxis parts = new SymbolAxis("Capacitor", names.toArray(new String[0]));
         parts.setRange(-0.6, Math.max(0.6, names.size() - 0.4));
         parts.setGridBandsVisible(false);
+        // a log axis over an unbounded range makes ticks without end until the heap runs out
+        // (issue 14, "nominal_farads": 0); twelve decades hold any back-solve worth drawing
+        low = Math.max(low, 1e-6);
+        high = Math.min(high, 1e6);
         LogAxis ratio = new LogAxis("Back-solved value over nominal, C/C_nom");
         ratio.setBase(10);
         ratio.setRange(low / 1.25, high * 1.25);

@@ -58,7 +58,7 @@ public final class ReportHtml {
                 + "amplifier stage: design prediction, bench sweep, capacitor back-solve and verdict</p>\n");
         h.append("<p class=\"ids\">Report <b id=\"report-id\">").append(esc(id)).append("</b> · issued <time id=\"date-of-issue\">")
                 .append(esc(stamp.issuedText())).append("</time></p>\n</header>\n");
-        summary(root, h);
+        summary(root, stamp, h);
         identification(root, stamp, h);
         method(root, h);
         instrument(root, h);
@@ -71,13 +71,30 @@ public final class ReportHtml {
         return h.toString();
     }
 
-    private static void summary(JsonNode root, StringBuilder h) {
+    /**
+     * Page 1 (issue 14): who tested what and when, the verdict with every check that failed or
+     * was not decided (value, U, limit, margin), and the diagnosis statement; the sections after
+     * it give the detail.
+     */
+    private static void summary(JsonNode root, ReportStamp stamp, StringBuilder h) {
         JsonNode verdict = root.path("verdict");
+        JsonNode run = root.path("run");
+        JsonNode sweep = root.path("sweep");
         String overall = verdict.path("overall").asText();
         String css = overall.equals("pass") ? "pass" : overall.equals("fail") ? "fail" : "incomplete";
+        h.append("<table id=\"who-what-when\" class=\"fields compact\">\n");
+        field(h, "What", esc(root.path("predicted").path("stage").asText()) + ", board "
+                + (run.path("board").isTextual() ? esc(run.path("board").asText()) : "not recorded"), null);
+        field(h, "Who", "tested by " + (run.path("operator").isTextual() ? esc(run.path("operator").asText())
+                : "<span class=\"blank short\"></span>") + "; approved by " + (run.path("approved_by").isTextual()
+                ? esc(run.path("approved_by").asText()) : "<span class=\"blank short\"></span>"), null);
+        field(h, "When", "tested " + (sweep.path("captured_utc").isTextual() ? esc(sweep.path("captured_utc").asText())
+                : "(date not recorded in the sweep file)") + "; issued " + esc(stamp.issuedText()), null);
+        h.append("</table>\n");
         h.append("<section id=\"summary\" class=\"summary ").append(css).append("\">\n");
         h.append("<p class=\"verdict-word\">Verdict: <b id=\"verdict-overall\">").append(esc(overall.toUpperCase(Locale.ROOT)))
                 .append("</b></p>\n");
+        VerdictHtml.summaryChecks(verdict, h);
         diagnosis(root.path("diagnosis"), h);
         h.append("<p>").append(esc(verdict.path("rule_statement").asText())).append(".</p>\n");
         for (JsonNode line : verdict.path("not_checked")) {
@@ -697,7 +714,15 @@ public final class ReportHtml {
             ".statement { break-inside: avoid; }",
             ".end { text-align: center; margin: 8mm 0 2mm; font-weight: 600; letter-spacing: 0.05em; }",
             ".end::before, .end::after { content: ' ■ '; color: var(--accent); }",
-            "@page { size: auto; margin: 15mm; }",
+            // page n of N from the page itself (CSS Paged Media Level 3, margin boxes and the page
+            // and pages counters), so any browser's print or PDF carries it on every page
+            "@page { size: auto; margin: 15mm 15mm 18mm; @bottom-right { content: 'Page ' counter(page) ' of ' "
+                    + "counter(pages); font-size: 8.5pt; color: #5a6573; } }",
+            "table.fields.compact th, table.fields.compact td { padding: 0.5mm 2mm; font-size: 9pt; }",
+            ".blank.short { min-width: 40mm; }",
+            "table.summary-checks { border-collapse: collapse; width: 100%; font-size: 9pt; margin: 1mm 0 2mm; }",
+            "table.summary-checks th, table.summary-checks td { border: 1px solid var(--rule); padding: 0.6mm 1.5mm; "
+                    + "text-align: left; }",
             "@media print {",
             "  html { font-size: 9.5pt; }",
             "  body { max-width: none; padding: 0; }",

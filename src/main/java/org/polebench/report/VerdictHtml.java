@@ -12,6 +12,37 @@ final class VerdictHtml {
     private VerdictHtml() {
     }
 
+    /**
+     * The checks that did not pass, for page 1: each failed check with its value, U, limit and
+     * margin, and each limit not decided with its reason; nothing when every check passed.
+     */
+    static void summaryChecks(JsonNode verdict, StringBuilder h) {
+        StringBuilder rows = new StringBuilder();
+        for (JsonNode c : verdict.path("checks")) {
+            String unit = c.path("unit").asText();
+            boolean decided = c.path("decided").asBoolean(true);
+            if (decided && c.path("pass").asBoolean()) {
+                continue;
+            }
+            double expanded = c.path("expanded_uncertainty").asDouble(0);
+            rows.append("<tr class=\"").append(decided ? "fail" : "undecided").append("\"><td>")
+                    .append(ReportHtml.esc(c.path("quantity").asText())).append("</td><td>")
+                    .append(c.path("value").isNumber() ? ReportHtml.quantity(c.path("value").asDouble(), expanded, unit)
+                            : ReportHtml.NONE).append("</td><td>")
+                    .append(c.path("value").isNumber() ? ReportHtml.uncertainty(expanded, unit) : ReportHtml.NONE)
+                    .append("</td><td>").append(ReportHtml.limit(c.path("min"), c.path("max"), unit)).append("</td><td>")
+                    .append(decided ? ReportHtml.quantity(c.path("margin").asDouble(), expanded, unit) : ReportHtml.NONE)
+                    .append("</td><td><b>").append(decided ? "FAIL" : "not decided: "
+                            + ReportHtml.esc(c.path("reason").asText().replace('_', ' '))).append("</b></td></tr>\n");
+        }
+        if (rows.length() == 0) {
+            return;
+        }
+        h.append("<table id=\"summary-checks\" class=\"summary-checks\">\n<thead><tr><th>Check</th><th>Value</th>"
+                + "<th>U (k = 2)</th><th>Limit</th><th>Margin</th><th>Decision</th></tr></thead>\n<tbody>\n")
+                .append(rows).append("</tbody>\n</table>\n");
+    }
+
     static void verdict(JsonNode root, StringBuilder h) {
         JsonNode verdict = root.path("verdict");
         h.append("<h3>4.6 Verdict against the stage's limits</h3>\n<table id=\"verdict\" class=\"data\">\n<thead><tr>"

@@ -34,8 +34,9 @@ class CapacitorCsvTest {
         ObjectNode root = DemoResult.shared();
         ((ObjectNode) root.withArray("capacitors").get(0)).put("id", "=HYPERLINK(\"x\")");
         String text = new CapacitorCsv().of(root);
+        assertTrue(text.startsWith("\uFEFF"), "UTF-8 byte-order mark first");
         List<String[]> rows;
-        try (CSVReader reader = new CSVReaderBuilder(new StringReader(text))
+        try (CSVReader reader = new CSVReaderBuilder(new StringReader(text.substring(1)))
                 .withCSVParser(new RFC4180ParserBuilder().build()).build()) {
             rows = reader.readAll();
         }
@@ -46,7 +47,9 @@ class CapacitorCsvTest {
         for (String[] row : rows) {
             assertEquals(rows.get(0).length, row.length);
             for (String cell : row) {
-                assertTrue(cell.isEmpty() || "=+-@\t\r".indexOf(cell.charAt(0)) < 0, cell);
+                // a cell may begin with a minus only as a number this class wrote
+                assertTrue(cell.isEmpty() || "=+-@\t\r".indexOf(cell.charAt(0)) < 0
+                        || cell.matches("-[0-9.]+"), cell);
             }
         }
         // RFC 4180 §2.1: CRLF line ends
@@ -61,7 +64,47 @@ class CapacitorCsvTest {
         String[] c2 = new CapacitorCsv().of(root).split("\r\n")[3].split(",");
         assertEquals("C2", c2[0]);
         // the back-solve's own uncertainty is about 1 %; 5 % leaves room for the small spread
-        assertEquals(220e-9, Double.parseDouble(c2[5]), 0.05 * 220e-9);
-        assertEquals("no", c2[9]);
+        assertEquals(220e-9, Double.parseDouble(c2[7]), 0.05 * 220e-9);
+        assertEquals("no", c2[11]);
+    }
+
+    // issue 14: the tolerance as numbers and no binary noise. The demo stage gives C1 2.2 µF ±10 %
+    // (sample-measurements/geophone-two-stage.stage.yaml): band 1.98 µF to 2.42 µF, −10 % and 10 %,
+    // written exactly as those decimals although 2.2e-6 × 0.9 is 1.9800000000000002e-6 in binary
+    @Test
+    void tolerancesAreNumericColumnsAndValuesCarryNoFloatNoise() throws Exception {
+        String text = new CapacitorCsv().of(DemoResult.shared());
+        String[] header = text.substring(1).split("\r\n")[0].split(",");
+        String[] c1 = text.split("\r\n")[1].split(",");
+        assertEquals("tolerance_low_percent", header[3]);
+        assertEquals("tolerance_high_percent", header[4]);
+        assertEquals("C1", c1[0]);
+        assertEquals("±10%", c1[2]);
+        assertEquals("-10", c1[3]);
+        assertEquals("10", c1[4]);
+        assertEquals("0.00000198", c1[5]);
+        assertEquals("0.00000242", c1[6]);
+        // every number cell at most 12 significant digits (a double's noise sits in its 16th and 17th)
+        for (String line : text.substring(1).split("\r\n")) {
+            for (String cell : line.split(",")) {
+                if (cell.matches("-?[0-9.]+")) {
+                    assertTrue(cell.replaceAll("^-?[0.]*", "").replace(".", "").length() <= 12, cell);
+                }
+            }
+        }
+        // µ and ± survive as UTF-8: the bytes of ± are C2 B1 (Unicode 15, U+00B1 in UTF-8)
+        byte[] bytes = text.getBytes(java.nio.charset.StandardCharsets.UTF_8);
+        assertEquals((byte) 0xEF, bytes[0]);
+        assertEquals((byte) 0xBB, bytes[1]);
+        assertEquals((byte) 0xBF, bytes[2]);
+    }
+
+    @Test
+    void numbersAreRoundedToTwelveFigures() {
+        // 0.1 + 0.2 is 0.30000000000000004 in IEEE 754 binary64 (common knowledge)
+        assertEquals("0.3", CapacitorCsv.number(0.1 + 0.2));
+        assertEquals("-10", CapacitorCsv.number(100 * (1.9800000000000002e-6 / 2.2e-6 - 1)));
+        assertEquals("0", CapacitorCsv.number(0));
+        assertEquals("", CapacitorCsv.number(Double.NaN));
     }
 }
