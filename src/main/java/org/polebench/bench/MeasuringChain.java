@@ -151,12 +151,14 @@ public final class MeasuringChain {
 
     private static StateModel lowBand(SmallSignalNetwork network, Stage board) throws InputProblem {
         Reduction low = new PortReduction().reduce(network, Band.LOW);
-        if (low instanceof Reduction.Singular) {
+        Optional<Reduction.Singular> singular = low.singular();
+        if (singular.isPresent()) {
             throw new InputProblem(board.sourceFile(), 0, "with the bench in place the stage's low band is singular: "
-                    + ((Reduction.Singular) low).kind().name().toLowerCase(java.util.Locale.ROOT).replace('_', ' '),
+                    + singular.get().kind().name().toLowerCase(java.util.Locale.ROOT).replace('_', ' '),
                     "check the stage alone with 'polebench predict', then the bench file's values");
         }
-        return ((Reduction.StateSpace) low).model();
+        // a reduction that is not singular has a model (Reduction's Javadoc)
+        return low.stateModel().orElseThrow();
     }
 
     private boolean splitsSource(Stage stage) {

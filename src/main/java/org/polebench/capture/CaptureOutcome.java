@@ -3,7 +3,11 @@ package org.polebench.capture;
 import java.nio.file.Path;
 import java.util.List;
 
-/** How a live capture ended: every planned point measured, or stopped with the completed points on disk. */
+/**
+ * How a live capture ended: every planned point measured, or stopped with the completed points
+ * on disk. Code that treats the two differently calls {@link #match} with a {@link Cases}, so
+ * a new way of ending fails to compile until every such place handles it.
+ */
 public sealed interface CaptureOutcome permits CaptureOutcome.Completed, CaptureOutcome.Stopped {
     /** @return the canonical sweep file */
     Path sweepFile();
@@ -17,6 +21,16 @@ public sealed interface CaptureOutcome permits CaptureOutcome.Completed, Capture
     /** @return what the user should know, one message each */
     List<String> warnings();
 
+    /** @return what {@code cases} gives for this outcome */
+    <R> R match(Cases<R> cases);
+
+    /** One method per outcome: adding one breaks every implementation until it handles it. */
+    interface Cases<R> {
+        R completed(Completed completed);
+
+        R stopped(Stopped stopped);
+    }
+
     /**
      * @param skipped planned points that were left out (a reading at full scale or at the floor)
      */
@@ -24,6 +38,11 @@ public sealed interface CaptureOutcome permits CaptureOutcome.Completed, Capture
             implements CaptureOutcome {
         public Completed {
             warnings = List.copyOf(warnings);
+        }
+
+        @Override
+        public <R> R match(Cases<R> cases) {
+            return cases.completed(this);
         }
     }
 
@@ -36,6 +55,11 @@ public sealed interface CaptureOutcome permits CaptureOutcome.Completed, Capture
                    List<String> warnings) implements CaptureOutcome {
         public Stopped {
             warnings = List.copyOf(warnings);
+        }
+
+        @Override
+        public <R> R match(Cases<R> cases) {
+            return cases.stopped(this);
         }
     }
 

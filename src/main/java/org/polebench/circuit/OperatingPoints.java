@@ -30,20 +30,32 @@ public record OperatingPoints(Map<String, Double> nodeVolts, List<OperatingPoint
 
     /** @throws IllegalArgumentException when the name is no BJT's */
     public OperatingPoint.BjtPoint bjt(String transistor) {
-        OperatingPoint point = point(transistor);
-        if (!(point instanceof OperatingPoint.BjtPoint)) {
-            throw new IllegalArgumentException(transistor + " is not a BJT");
-        }
-        return (OperatingPoint.BjtPoint) point;
+        return point(transistor).match(new OperatingPoint.Cases<OperatingPoint.BjtPoint>() {
+            @Override
+            public OperatingPoint.BjtPoint bjt(OperatingPoint.BjtPoint point) {
+                return point;
+            }
+
+            @Override
+            public OperatingPoint.BjtPoint mosfet(OperatingPoint.MosfetPoint point) {
+                throw new IllegalArgumentException(transistor + " is not a BJT");
+            }
+        });
     }
 
     /** @throws IllegalArgumentException when the name is no MOSFET's */
     public OperatingPoint.MosfetPoint mosfet(String transistor) {
-        OperatingPoint point = point(transistor);
-        if (!(point instanceof OperatingPoint.MosfetPoint)) {
-            throw new IllegalArgumentException(transistor + " is not a MOSFET");
-        }
-        return (OperatingPoint.MosfetPoint) point;
+        return point(transistor).match(new OperatingPoint.Cases<OperatingPoint.MosfetPoint>() {
+            @Override
+            public OperatingPoint.MosfetPoint bjt(OperatingPoint.BjtPoint point) {
+                throw new IllegalArgumentException(transistor + " is not a MOSFET");
+            }
+
+            @Override
+            public OperatingPoint.MosfetPoint mosfet(OperatingPoint.MosfetPoint point) {
+                return point;
+            }
+        });
     }
 
     /** @return the node's DC voltage in volts; the node must exist */

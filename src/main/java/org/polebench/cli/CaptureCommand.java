@@ -140,12 +140,9 @@ final class CaptureCommand implements Callable<Integer> {
 
     private SerialProfile serialProfile() throws InputProblem {
         InstrumentProfile profile = SweepLayoutOption.profiles().resolve(profileName);
-        if (!(profile instanceof SerialProfile)) {
-            throw new InputProblem(profile.source().orElse(null), 0, "profile '" + profile.name()
-                    + "' reads table files; capture needs a serial profile",
-                    "use scpi-generator-meter, streaming-sweeper or a profile of kind serial-scpi or serial-stream");
-        }
-        return (SerialProfile) profile;
+        return profile.asSerial().orElseThrow(() -> new InputProblem(profile.source().orElse(null), 0, "profile '"
+                + profile.name() + "' reads table files; capture needs a serial profile",
+                "use scpi-generator-meter, streaming-sweeper or a profile of kind serial-scpi or serial-stream"));
     }
 
     private CaptureRequest request(SerialProfile profile, SweepCapture capture) throws InputProblem {
@@ -216,22 +213,27 @@ final class CaptureCommand implements Callable<Integer> {
     private int report(CaptureOutcome outcome, CaptureRequest request) {
         PrintWriter out = spec.commandLine().getOut();
         PrintWriter err = spec.commandLine().getErr();
-        if (outcome instanceof CaptureOutcome.Completed) {
-            CaptureOutcome.Completed done = (CaptureOutcome.Completed) outcome;
-            out.println("sweep:      " + done.sweepFile() + " (" + done.points() + " points"
-                    + (done.skipped() > 0 ? ", " + done.skipped() + " left out" : "") + ")");
-            out.println("transcript: " + done.transcript());
-            out.flush();
-            return ExitCodes.OK;
-        }
-        CaptureOutcome.Stopped stopped = (CaptureOutcome.Stopped) outcome;
-        err.println("polebench: capture stopped: " + stopped.message());
-        err.println("polebench: " + stopped.points() + " of " + stopped.total() + " points are in " + stopped.sweepFile()
-                + "; every line is in " + stopped.transcript());
-        err.println("polebench: continue with: polebench capture " + linkArguments() + " --profile " + profileName
-                + " --resume " + request.name());
-        err.flush();
-        return ExitCodes.INSTRUMENT_OR_IO;
+        return outcome.match(new CaptureOutcome.Cases<Integer>() {
+            @Override
+            public Integer completed(CaptureOutcome.Completed done) {
+                out.println("sweep:      " + done.sweepFile() + " (" + done.points() + " points"
+                        + (done.skipped() > 0 ? ", " + done.skipped() + " left out" : "") + ")");
+                out.println("transcript: " + done.transcript());
+                out.flush();
+                return ExitCodes.OK;
+            }
+
+            @Override
+            public Integer stopped(CaptureOutcome.Stopped stopped) {
+                err.println("polebench: capture stopped: " + stopped.message());
+                err.println("polebench: " + stopped.points() + " of " + stopped.total() + " points are in "
+                        + stopped.sweepFile() + "; every line is in " + stopped.transcript());
+                err.println("polebench: continue with: polebench capture " + linkArguments() + " --profile "
+                        + profileName + " --resume " + request.name());
+                err.flush();
+                return ExitCodes.INSTRUMENT_OR_IO;
+            }
+        });
     }
 
     private String linkArguments() {

@@ -5,6 +5,7 @@ import java.util.Locale;
 import java.util.concurrent.Callable;
 import org.polebench.InputProblem;
 import org.polebench.profile.InstrumentProfile;
+import org.polebench.profile.SerialProfile;
 import org.polebench.profile.TableProfile;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
@@ -23,10 +24,24 @@ public final class ProfilesCommand implements Callable<Integer> {
         out.printf(Locale.ROOT, "%-26s %-7s %s%n", "auto", "table",
                 "sniff the layout from the header's words (the default)");
         for (InstrumentProfile profile : SweepLayoutOption.profiles().profiles()) {
-            out.printf(Locale.ROOT, "%-26s %-7s %s%n", profile.name(),
-                    profile instanceof TableProfile ? "table" : "serial", profile.description());
+            out.printf(Locale.ROOT, "%-26s %-7s %s%n", profile.name(), kind(profile), profile.description());
         }
         out.flush();
         return ExitCodes.OK;
+    }
+
+    /** @return the listing's word for the profile's kind */
+    private static String kind(InstrumentProfile profile) {
+        return profile.match(new InstrumentProfile.Cases<String>() {
+            @Override
+            public String table(TableProfile table) {
+                return "table";
+            }
+
+            @Override
+            public String serial(SerialProfile serial) {
+                return "serial";
+            }
+        });
     }
 }

@@ -90,11 +90,9 @@ final class SimulateCommand implements Callable<Integer> {
     @Override
     public Integer call() throws InputProblem, IOException {
         InstrumentProfile found = SweepLayoutOption.profiles().resolve(profileName);
-        if (!(found instanceof SerialProfile)) {
-            throw new InputProblem(found.source().orElse(null), 0, "profile '" + found.name() + "' is a table layout",
-                    "simulate a serial profile, such as scpi-generator-meter or streaming-sweeper");
-        }
-        SerialProfile profile = (SerialProfile) found;
+        SerialProfile profile = found.asSerial().orElseThrow(() -> new InputProblem(found.source().orElse(null), 0,
+                "profile '" + found.name() + "' is a table layout",
+                "simulate a serial profile, such as scpi-generator-meter or streaming-sweeper"));
         if (ports.isEmpty() == (tcp == null)) {
             throw new InputProblem(null, 0, tcp == null ? "no port given" : "both --port and --tcp given",
                     "give --port PATH, or --tcp [HOST:]PORT to listen on");

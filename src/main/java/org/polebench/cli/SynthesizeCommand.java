@@ -19,7 +19,6 @@ import org.polebench.circuit.StageReader;
 import org.polebench.synth.BoardSynthesizer;
 import org.polebench.synth.Fault;
 import org.polebench.synth.FaultText;
-import org.polebench.profile.InstrumentProfile;
 import org.polebench.sweep.Sweep;
 import org.polebench.synth.SweepNoise;
 import org.polebench.sweepfile.SweepWriter;
@@ -121,12 +120,10 @@ final class SynthesizeCommand implements Callable<Integer> {
         if (layout.equals(SweepWriter.CANONICAL)) {
             writer.writeCanonical(sweep, out, force);
         } else {
-            InstrumentProfile profile = SweepLayoutOption.profiles().resolve(layout);
-            if (!(profile instanceof TableProfile)) {
-                throw new InputProblem(null, 0, "--layout " + layout + " is not a table profile",
-                        "name a table profile (polebench profiles lists them)");
-            }
-            writer.write(sweep, out, (TableProfile) profile, force);
+            TableProfile profile = SweepLayoutOption.profiles().resolve(layout).asTable()
+                    .orElseThrow(() -> new InputProblem(null, 0, "--layout " + layout + " is not a table profile",
+                            "name a table profile (polebench profiles lists them)"));
+            writer.write(sweep, out, profile, force);
         }
         spec.commandLine().getOut().println("wrote " + out + ": " + points + " points, "
                 + EngineeringValue.format(low, "Hz") + " to " + EngineeringValue.format(high, "Hz")

@@ -7,7 +7,10 @@ import org.polebench.bench.Bench;
 /**
  * How to read one kind of instrument's output: a table layout or a serial line protocol.
  * Profiles live in {@code instrument-profiles/*.yaml} (this project's own format, see
- * docs/user-guide.md, "Instrument profiles") and are read by {@link ProfileReader}.
+ * docs/user-guide.md, "Instrument profiles") and are read by {@link ProfileReader}. Code that
+ * treats the kinds differently calls {@link #match} with a {@link Cases}, or asks for one kind
+ * with {@link #asTable()} or {@link #asSerial()}, never {@code instanceof}: a new kind of
+ * profile then fails to compile until every such place handles it.
  */
 public sealed interface InstrumentProfile permits TableProfile, SerialProfile {
     /** @return the profile's name, used with {@code --profile} */
@@ -31,4 +34,23 @@ public sealed interface InstrumentProfile permits TableProfile, SerialProfile {
      *         default when no {@code --bench} file is given; empty when the profile has none
      */
     Optional<Bench> bench();
+
+    /** @return this profile when it reads table files, empty for another kind */
+    Optional<TableProfile> asTable();
+
+    /** @return this profile when it talks to a serial instrument, empty for another kind */
+    Optional<SerialProfile> asSerial();
+
+    /** @return what {@code cases} gives for this profile's kind */
+    <R> R match(Cases<R> cases);
+
+    /**
+     * One method per kind of profile, for code that treats them differently: adding a kind
+     * adds a method here, and every implementation fails to compile until it handles it.
+     */
+    interface Cases<R> {
+        R table(TableProfile table);
+
+        R serial(SerialProfile serial);
+    }
 }

@@ -121,22 +121,20 @@ public final class ProfileLibrary {
         return order.stream().map(name -> find(name).orElseThrow()).toList();
     }
 
+    /** @return the profiles that read table files, in {@link #profiles()} order */
     public List<TableProfile> tableProfiles() {
         List<TableProfile> out = new ArrayList<>();
         for (InstrumentProfile profile : profiles()) {
-            if (profile instanceof TableProfile) {
-                out.add((TableProfile) profile);
-            }
+            profile.asTable().ifPresent(out::add);
         }
         return out;
     }
 
+    /** @return the profiles of serial instruments, in {@link #profiles()} order */
     public List<SerialProfile> serialProfiles() {
         List<SerialProfile> out = new ArrayList<>();
         for (InstrumentProfile profile : profiles()) {
-            if (profile instanceof SerialProfile) {
-                out.add((SerialProfile) profile);
-            }
+            profile.asSerial().ifPresent(out::add);
         }
         return out;
     }

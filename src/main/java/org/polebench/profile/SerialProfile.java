@@ -14,4 +14,19 @@ public record SerialProfile(String name, String description, LineProtocol protoc
                          InstrumentAccuracy accuracy, ReadingLimits limits, Optional<Path> source) {
         this(name, description, protocol, scale, accuracy, limits, source, Optional.empty());
     }
+
+    @Override
+    public Optional<TableProfile> asTable() {
+        return Optional.empty();
+    }
+
+    @Override
+    public Optional<SerialProfile> asSerial() {
+        return Optional.of(this);
+    }
+
+    @Override
+    public <R> R match(Cases<R> cases) {
+        return cases.serial(this);
+    }
 }

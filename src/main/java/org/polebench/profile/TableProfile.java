@@ -26,6 +26,21 @@ public record TableProfile(String name, String description, TableLayout layout, 
         }
     }
 
+    @Override
+    public Optional<TableProfile> asTable() {
+        return Optional.of(this);
+    }
+
+    @Override
+    public Optional<SerialProfile> asSerial() {
+        return Optional.empty();
+    }
+
+    @Override
+    public <R> R match(Cases<R> cases) {
+        return cases.table(this);
+    }
+
     private static boolean anyByName(TableColumns c) {
         return !c.frequency().byNumber()
                 || c.gain().map(r -> !r.byNumber()).orElse(false)

@@ -55,6 +55,8 @@ public final class SerialLogParser {
     private final List<Known> commands = new ArrayList<>();
     private final Map<String, String> identities = new LinkedHashMap<>();
     private final String mapping;
+    /** Takes one line's body as the profile's protocol reads it, chosen once. */
+    private final LineTaker lines;
     private int lastLine;
 
     // the open SCPI step
@@ -88,30 +90,38 @@ public final class SerialLogParser {
         this.profile = profile;
         this.file = file;
         this.tally = new WarningTally(file);
-        boolean hasPhase;
-        if (profile.protocol() instanceof LineProtocol.ScpiExchange) {
-            LineProtocol.ScpiExchange scpi = (LineProtocol.ScpiExchange) profile.protocol();
-            scpi.step().forEach(c -> commands.add(new Known(c)));
-            scpi.setup().forEach(c -> commands.add(new Known(c)));
-            scpi.finish().forEach(c -> commands.add(new Known(c)));
-            for (LineProtocol.ScpiInstrument instrument : scpi.instruments()) {
-                commands.add(new Known(new ScpiCommand(instrument.name(), instrument.identify(), CommandRole.IDENTIFIES)));
-            }
-            commands.add(new Known(new ScpiCommand(scpi.instruments().get(0).name(), scpi.errorQuery(),
-                    CommandRole.READS_ERROR_QUEUE)));
-            hasPhase = scpi.step().stream().anyMatch(c -> c.role() == CommandRole.READS_PHASE);
-            List<String> parts = new ArrayList<>();
-            for (ScpiCommand c : scpi.step()) {
-                if (c.role() != CommandRole.SETTING && c.role() != CommandRole.WAITS_FOR_COMPLETION) {
-                    parts.add(c.role().word() + " = '" + c.template() + "' to " + c.instrument());
+        Reading reading = profile.protocol().apply(new LineProtocol.Cases<Reading>() {
+            @Override
+            public Reading exchange(LineProtocol.ScpiExchange scpi) {
+                scpi.step().forEach(c -> commands.add(new Known(c)));
+                scpi.setup().forEach(c -> commands.add(new Known(c)));
+                scpi.finish().forEach(c -> commands.add(new Known(c)));
+                for (LineProtocol.ScpiInstrument instrument : scpi.instruments()) {
+                    commands.add(new Known(new ScpiCommand(instrument.name(), instrument.identify(), CommandRole.IDENTIFIES)));
                 }
+                commands.add(new Known(new ScpiCommand(scpi.instruments().get(0).name(), scpi.errorQuery(),
+                        CommandRole.READS_ERROR_QUEUE)));
+                boolean hasPhase = scpi.step().stream().anyMatch(c -> c.role() == CommandRole.READS_PHASE);
+                List<String> parts = new ArrayList<>();
+                for (ScpiCommand c : scpi.step()) {
+                    if (c.role() != CommandRole.SETTING && c.role() != CommandRole.WAITS_FOR_COMPLETION) {
+                        parts.add(c.role().word() + " = '" + c.template() + "' to " + c.instrument());
+                    }
+                }
+                return new Reading(hasPhase, "SCPI exchange: " + String.join("; ", parts),
+                        (lineNo, body, sender, sent, received) -> scpiLine(scpi, lineNo, body, sender, sent, received));
             }
-            mapping = "SCPI exchange: " + String.join("; ", parts);
-        } else {
-            LineProtocol.StreamedLines stream = (LineProtocol.StreamedLines) profile.protocol();
-            hasPhase = stream.point().pattern().contains("(?<phase>");
-            mapping = "streamed lines: points from lines matching '" + stream.point().pattern() + "'";
-        }
+
+            @Override
+            public Reading stream(LineProtocol.StreamedLines stream) {
+                return new Reading(stream.point().pattern().contains("(?<phase>"),
+                        "streamed lines: points from lines matching '" + stream.point().pattern() + "'",
+                        (lineNo, body, sender, sent, received) -> streamLine(stream, lineNo, body, sent));
+            }
+        });
+        mapping = reading.mapping();
+        lines = reading.lines();
+        boolean hasPhase = reading.hasPhase();
         this.assembly = new SweepAssembly(file, profile, hasPhase, tally);
         resetReadings();
     }
@@ -155,14 +165,11 @@ public final class SerialLogParser {
         if (body.isEmpty()) {
             return;
         }
-        if (profile.protocol() instanceof LineProtocol.ScpiExchange) {
-            scpiLine(lineNo, body, prefix.group("who"), sent, received);
-        } else {
-            streamLine(lineNo, body, sent);
-        }
+        lines.take(lineNo, body, prefix.group("who"), sent, received);
     }
 
-    private void scpiLine(int lineNo, String body, String sender, boolean sent, boolean received) {
+    private void scpiLine(LineProtocol.ScpiExchange scpi, int lineNo, String body, String sender, boolean sent,
+                          boolean received) {
         Known command = received ? null : matchCommand(body, sender);
         if (received && matchCommand(body, sender) != null) {
             return;   // the instrument echoed a command back
@@ -171,7 +178,7 @@ public final class SerialLogParser {
             return;   // an echo in a log without direction markers
         }
         if (command != null) {
-            command(lineNo, command, body);
+            command(scpi, lineNo, command, body);
             return;
         }
         if (sent) {
@@ -199,7 +206,7 @@ public final class SerialLogParser {
         return first;
     }
 
-    private void command(int lineNo, Known known, String body) {
+    private void command(LineProtocol.ScpiExchange scpi, int lineNo, Known known, String body) {
         if (pending != null) {
             tally.add("unanswered queries", pendingLine, "'" + pending.command.template() + "' got no answer before line "
                     + lineNo);
@@ -226,7 +233,6 @@ public final class SerialLogParser {
             case SETS_AMPLITUDE: {
                 Matcher m = known.pattern.matcher(body);
                 double level = m.matches() ? ScpiCommand.argumentOf(m) : Double.NaN;
-                LineProtocol.ScpiExchange scpi = (LineProtocol.ScpiExchange) profile.protocol();
                 if (level > scpi.maxAmplitude()) {
                     tally.add("levels above the profile's maximum", lineNo, "the generator was set to " + level + " "
                             + profile.scale().amplitudeKind().symbol() + ", above the profile's max-amplitude of "
@@ -361,8 +367,7 @@ public final class SerialLogParser {
         return String.join(" and ", lacking);
     }
 
-    private void streamLine(int lineNo, String body, boolean sent) {
-        LineProtocol.StreamedLines stream = (LineProtocol.StreamedLines) profile.protocol();
+    private void streamLine(LineProtocol.StreamedLines stream, int lineNo, String body, boolean sent) {
         if (sent) {
             lastCommandText = body;
             return;
@@ -465,5 +470,23 @@ public final class SerialLogParser {
     /** Same as {@link #result(String)} with no file hash (a live capture). */
     public ImportedSweep result() throws InputProblem {
         return result("");
+    }
+
+    /**
+     * What the protocol makes of a log: whether its points carry a phase, the mapping line
+     * {@code inspect} prints, and how a line is taken.
+     */
+    private record Reading(boolean hasPhase, String mapping, LineTaker lines) {
+    }
+
+    /** One line's body, after its timestamp and direction marker are read. */
+    @FunctionalInterface
+    private interface LineTaker {
+        /**
+         * @param sender   the name before the direction marker, or null
+         * @param sent     the line went to the instrument
+         * @param received the line came from the instrument (neither when the log has no markers)
+         */
+        void take(int lineNo, String body, String sender, boolean sent, boolean received);
     }
 }

@@ -50,12 +50,29 @@ public final class SweepReader {
     }
 
     private ImportedSweep read(Path file, InstrumentProfile profile, String label, String preface) throws InputProblem {
-        if (profile instanceof TableProfile) {
-            return new TableSweepParser(file, (TableProfile) profile).read(label, preface);
-        }
-        ImportedSweep log = readLog(file, (SerialProfile) profile);
-        return preface.isEmpty() ? log
-                : new ImportedSweep(log.sweep(), label, preface + log.mapping(), log.warnings());
+        // the visitor cannot throw InputProblem, so each kind gives the import to run
+        Import reading = profile.match(new InstrumentProfile.Cases<Import>() {
+            @Override
+            public Import table(TableProfile table) {
+                return () -> new TableSweepParser(file, table).read(label, preface);
+            }
+
+            @Override
+            public Import serial(SerialProfile serial) {
+                return () -> {
+                    ImportedSweep log = readLog(file, serial);
+                    return preface.isEmpty() ? log
+                            : new ImportedSweep(log.sweep(), label, preface + log.mapping(), log.warnings());
+                };
+            }
+        });
+        return reading.run();
+    }
+
+    /** One file's import as its profile's kind reads it. */
+    @FunctionalInterface
+    private interface Import {
+        ImportedSweep run() throws InputProblem;
     }
 
     /**

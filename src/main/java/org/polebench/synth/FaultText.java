@@ -3,6 +3,7 @@ package org.polebench.synth;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
+import java.util.Optional;
 import org.polebench.InputProblem;
 import org.polebench.circuit.Bjt;
 import org.polebench.circuit.Capacitor;
@@ -53,8 +54,8 @@ public final class FaultText {
         }
         if (lowered.startsWith(BIAS)) {
             String name = key.substring(BIAS.length()).strip();
-            List<String> transistors = names(stage, Transistor.class);
-            if (!(stage.part(name).orElse(null) instanceof Transistor)) {
+            List<String> transistors = stage.transistors().stream().map(Transistor::name).toList();
+            if (stage.part(name).flatMap(Part::asTransistor).isEmpty()) {
                 throw problem(trimmed, "names no transistor of the stage" + didYouMean(name, transistors),
                         transistors.isEmpty() ? "the stage has no transistor; write " + FORMS
                                 : "use one of the stage's transistors (" + String.join(", ", transistors) + "), e.g. bias:"
@@ -65,20 +66,42 @@ public final class FaultText {
         }
         if (lowered.startsWith(BETA)) {
             String name = key.substring(BETA.length()).strip();
-            List<String> bipolar = names(stage, Bjt.class);
-            Part part = stage.part(name).orElse(null);
-            if (part instanceof Mosfet) {
-                throw problem(trimmed, "names a MOSFET, which has no current gain β",
-                        "a MOSFET's spread shows in its bias current: write bias:" + name + "=0.6");
-            }
-            if (!(part instanceof Bjt)) {
+            List<String> bipolar = stage.bjts().stream().map(Bjt::name).toList();
+            Reading notBipolar = () -> {
                 throw problem(trimmed, "names no bipolar transistor of the stage" + didYouMean(name, bipolar),
                         bipolar.isEmpty() ? "the stage has no bipolar transistor; write " + FORMS
                                 : "use one of the stage's bipolar transistors (" + String.join(", ", bipolar)
                                 + "), e.g. beta:" + bipolar.get(0) + "=1.7");
+            };
+            Optional<Part> part = stage.part(name);
+            if (part.isEmpty()) {
+                return notBipolar.fault();
             }
-            return new Fault.CurrentGain(name, positive(trimmed, value, Quantity.DIMENSIONLESS,
-                    "a factor such as beta:" + name + "=1.7 (β as built over the stage file's β)"));
+            return part.get().match(new Part.Cases<Reading>() {
+                @Override
+                public Reading resistor(Resistor resistor) {
+                    return notBipolar;
+                }
+
+                @Override
+                public Reading capacitor(Capacitor capacitor) {
+                    return notBipolar;
+                }
+
+                @Override
+                public Reading bjt(Bjt bjt) {
+                    return () -> new Fault.CurrentGain(name, positive(trimmed, value, Quantity.DIMENSIONLESS,
+                            "a factor such as beta:" + name + "=1.7 (β as built over the stage file's β)"));
+                }
+
+                @Override
+                public Reading mosfet(Mosfet mosfet) {
+                    return () -> {
+                        throw problem(trimmed, "names a MOSFET, which has no current gain β",
+                                "a MOSFET's spread shows in its bias current: write bias:" + name + "=0.6");
+                    };
+                }
+            }).fault();
         }
         int colon = key.indexOf(':');
         if (colon >= 0) {
@@ -86,22 +109,34 @@ public final class FaultText {
             throw problem(trimmed, "has no kind of fault '" + kind + "'" + didYouMean(kind, List.of(BIAS, BETA)),
                     "write " + FORMS);
         }
-        Part part = stage.part(key).orElse(null);
-        if (part instanceof Capacitor) {
-            return new Fault.CapacitorValue(key, positive(trimmed, value, Quantity.FARADS,
-                    "a value such as " + key + "=4.7u"));
+        Optional<Part> part = stage.part(key);
+        if (part.isPresent()) {
+            return part.get().match(new Part.Cases<Reading>() {
+                @Override
+                public Reading resistor(Resistor resistor) {
+                    return () -> new Fault.ResistorValue(key, positive(trimmed, value, Quantity.OHMS,
+                            "a value in ohms such as " + key + "=22 or " + key + "=4.7k"));
+                }
+
+                @Override
+                public Reading capacitor(Capacitor capacitor) {
+                    return () -> new Fault.CapacitorValue(key, positive(trimmed, value, Quantity.FARADS,
+                            "a value such as " + key + "=4.7u"));
+                }
+
+                @Override
+                public Reading bjt(Bjt bjt) {
+                    return noValueOfItsOwn(trimmed, key, " or beta:" + key + "=1.7 (a current gain factor)");
+                }
+
+                @Override
+                public Reading mosfet(Mosfet mosfet) {
+                    return noValueOfItsOwn(trimmed, key, "");
+                }
+            }).fault();
         }
-        if (part instanceof Resistor) {
-            return new Fault.ResistorValue(key, positive(trimmed, value, Quantity.OHMS,
-                    "a value in ohms such as " + key + "=22 or " + key + "=4.7k"));
-        }
-        if (part instanceof Transistor) {
-            throw problem(trimmed, "names a transistor, which has no value of its own",
-                    "write bias:" + key + "=0.6 (a bias current factor)"
-                            + (part instanceof Bjt ? " or beta:" + key + "=1.7 (a current gain factor)" : ""));
-        }
-        List<String> capacitors = names(stage, Capacitor.class);
-        List<String> resistors = names(stage, Resistor.class);
+        List<String> capacitors = stage.capacitors().stream().map(Capacitor::name).toList();
+        List<String> resistors = stage.resistors().stream().map(Resistor::name).toList();
         List<String> candidates = new ArrayList<>(capacitors);
         candidates.addAll(resistors);
         candidates.add("gain");
@@ -157,15 +192,12 @@ public final class FaultText {
         return number;
     }
 
-    /** @return the designators of the stage's parts of one kind, in file order */
-    private static List<String> names(Stage stage, Class<?> kind) {
-        List<String> result = new ArrayList<>();
-        for (Part part : stage.parts()) {
-            if (kind.isInstance(part)) {
-                result.add(part.name());
-            }
-        }
-        return result;
+    /** @return the refusal of a value for a transistor; {@code betaHint} offers β when it has one */
+    private static Reading noValueOfItsOwn(String whole, String key, String betaHint) {
+        return () -> {
+            throw problem(whole, "names a transistor, which has no value of its own",
+                    "write bias:" + key + "=0.6 (a bias current factor)" + betaHint);
+        };
     }
 
     /** @return " (did you mean RE?)" for the closest designators, or an empty text */
@@ -176,5 +208,15 @@ public final class FaultText {
 
     private static InputProblem problem(String text, String what, String hint) {
         return new InputProblem(null, 0, "'" + text + "' " + what, hint);
+    }
+
+    /**
+     * What a part's type makes of the text: the fault, or the refusal. A {@link Part.Cases}
+     * gives one per part type (a visitor cannot throw the checked {@link InputProblem} itself),
+     * so a new part type fails to compile here until its faults are read.
+     */
+    @FunctionalInterface
+    private interface Reading {
+        Fault fault() throws InputProblem;
     }
 }

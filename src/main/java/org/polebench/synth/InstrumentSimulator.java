@@ -79,16 +79,24 @@ public final class InstrumentSimulator {
         this.noise = noise;
         this.seed = seed;
         this.misbehaviours = List.copyOf(misbehaviours);
-        if (profile.protocol() instanceof LineProtocol.StreamedLines) {
-            LineProtocol.StreamedLines stream = (LineProtocol.StreamedLines) profile.protocol();
-            String sample = pointLine(1, 1234.5, -3.25, 45.5);
-            Matcher m = stream.point().matcher(sample);
-            if (profile.scale().gainForm() == GainForm.AMPLITUDES || !m.matches()
-                    || Math.abs(StrictNumber.parse(m.group("frequency"), false) - 1234.5) > 1e-6) {
-                throw new IllegalArgumentException("the simulator streams lines such as '" + sample
-                        + "', which the profile's point pattern does not read");
+        profile.protocol().apply(new LineProtocol.Cases<Void>() {
+            @Override
+            public Void exchange(LineProtocol.ScpiExchange scpi) {
+                return null;   // the simulator answers the profile's own commands
             }
-        }
+
+            @Override
+            public Void stream(LineProtocol.StreamedLines stream) {
+                String sample = pointLine(1, 1234.5, -3.25, 45.5);
+                Matcher m = stream.point().matcher(sample);
+                if (profile.scale().gainForm() == GainForm.AMPLITUDES || !m.matches()
+                        || Math.abs(StrictNumber.parse(m.group("frequency"), false) - 1234.5) > 1e-6) {
+                    throw new IllegalArgumentException("the simulator streams lines such as '" + sample
+                            + "', which the profile's point pattern does not read");
+                }
+                return null;
+            }
+        });
     }
 
     /**
@@ -127,23 +135,32 @@ public final class InstrumentSimulator {
         private final List<Misbehaviour> armed = new ArrayList<>();
         private int frequencyCommands;
         private int pointsStreamed;
+        /** How this session answers a line, chosen once by the profile's protocol. */
+        private final Answering answering;
 
         private Session() {
-            if (profile.protocol() instanceof LineProtocol.ScpiExchange) {
-                LineProtocol.ScpiExchange scpi = (LineProtocol.ScpiExchange) profile.protocol();
-                level = scpi.amplitude();
-                for (LineProtocol.ScpiInstrument instrument : scpi.instruments()) {
-                    commands.add(new Known(new ScpiCommand(instrument.name(), instrument.identify(),
-                            CommandRole.IDENTIFIES)));
+            answering = profile.protocol().apply(new LineProtocol.Cases<Answering>() {
+                @Override
+                public Answering exchange(LineProtocol.ScpiExchange scpi) {
+                    level = scpi.amplitude();
+                    for (LineProtocol.ScpiInstrument instrument : scpi.instruments()) {
+                        commands.add(new Known(new ScpiCommand(instrument.name(), instrument.identify(),
+                                CommandRole.IDENTIFIES)));
+                    }
+                    scpi.step().forEach(c -> commands.add(new Known(c)));
+                    scpi.setup().forEach(c -> commands.add(new Known(c)));
+                    scpi.finish().forEach(c -> commands.add(new Known(c)));
+                    commands.add(new Known(new ScpiCommand(scpi.instruments().get(0).name(), scpi.errorQuery(),
+                            CommandRole.READS_ERROR_QUEUE)));
+                    return (line, text, stop, sent) -> scpiLine(scpi, line, text, sent);
                 }
-                scpi.step().forEach(c -> commands.add(new Known(c)));
-                scpi.setup().forEach(c -> commands.add(new Known(c)));
-                scpi.finish().forEach(c -> commands.add(new Known(c)));
-                commands.add(new Known(new ScpiCommand(scpi.instruments().get(0).name(), scpi.errorQuery(),
-                        CommandRole.READS_ERROR_QUEUE)));
-            } else {
-                level = ((LineProtocol.StreamedLines) profile.protocol()).amplitude();
-            }
+
+                @Override
+                public Answering stream(LineProtocol.StreamedLines stream) {
+                    level = stream.amplitude();
+                    return (line, text, stop, sent) -> streamLine(stream, line, text, stop, sent);
+                }
+            });
         }
 
         /**
@@ -163,9 +180,7 @@ public final class InstrumentSimulator {
                     if (received.isEmpty()) {
                         continue;
                     }
-                    boolean open = profile.protocol() instanceof LineProtocol.ScpiExchange
-                            ? scpiLine(line, received.get().strip(), sent)
-                            : streamLine(line, received.get().strip(), stop, sent);
+                    boolean open = answering.answer(line, received.get().strip(), stop, sent);
                     if (!open) {
                         // lines written just before are still on their way through the port;
                         // closing at once could discard them, which the misbehaviour is not
@@ -184,7 +199,8 @@ public final class InstrumentSimulator {
         // ---- SCPI -----------------------------------------------------------------------
 
         /** @return false when a misbehaviour closed the line */
-        private boolean scpiLine(LineTransport line, String text, Consumer<String> sent) throws IOException {
+        private boolean scpiLine(LineProtocol.ScpiExchange scpi, LineTransport line, String text, Consumer<String> sent)
+                throws IOException {
             Optional<String> answer;
             synchronized (this) {
                 Known known = match(text);
@@ -199,7 +215,7 @@ public final class InstrumentSimulator {
                         return false;
                     }
                 }
-                answer = answer(known, text);
+                answer = answer(scpi, known, text);
             }
             if (answer.isPresent()) {
                 send(line, answer.get(), sent);
@@ -216,8 +232,7 @@ public final class InstrumentSimulator {
             return null;
         }
 
-        private Optional<String> answer(Known known, String text) {
-            LineProtocol.ScpiExchange scpi = (LineProtocol.ScpiExchange) profile.protocol();
+        private Optional<String> answer(LineProtocol.ScpiExchange scpi, Known known, String text) {
             ReadingScale scale = profile.scale();
             switch (known.command.role()) {
                 case SETS_FREQUENCY: {
@@ -280,9 +295,8 @@ public final class InstrumentSimulator {
 
         // ---- streaming ------------------------------------------------------------------
 
-        private boolean streamLine(LineTransport line, String text, BooleanSupplier stop, Consumer<String> sent)
-                throws IOException {
-            LineProtocol.StreamedLines stream = (LineProtocol.StreamedLines) profile.protocol();
+        private boolean streamLine(LineProtocol.StreamedLines stream, LineTransport line, String text,
+                                   BooleanSupplier stop, Consumer<String> sent) throws IOException {
             if (!stream.identify().isBlank() && text.equalsIgnoreCase(stream.identify())) {
                 send(line, identity(), sent);
                 return true;
@@ -458,5 +472,12 @@ public final class InstrumentSimulator {
             this.command = command;
             this.pattern = command.logPattern();
         }
+    }
+
+    /** One received line answered by a session: SCPI command and answer, or a streamed sweep. */
+    @FunctionalInterface
+    private interface Answering {
+        /** @return false when a misbehaviour closed the line */
+        boolean answer(LineTransport line, String text, BooleanSupplier stop, Consumer<String> sent) throws IOException;
     }
 }
