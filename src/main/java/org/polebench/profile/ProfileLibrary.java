@@ -90,10 +90,29 @@ public final class ProfileLibrary {
         Map<String, InstrumentProfile> merged = new LinkedHashMap<>(own);
         ProfileReader reader = new ProfileReader();
         for (Path file : files) {
+            if (isShippedCopy(file)) {
+                // the very file polebench ships (a clone's own instrument-profiles/): the shipped
+                // profile is the same, read only when asked for
+                continue;
+            }
             InstrumentProfile profile = reader.read(file);
             merged.put(profile.name(), profile);
         }
         return new ProfileLibrary(shipped, merged);
+    }
+
+    // whether a working-tree file is byte for byte the shipped profile of the same file name
+    private boolean isShippedCopy(Path file) {
+        String name = file.getFileName().toString();
+        Shipped entry = shipped.get(name.endsWith(EXTENSION) ? name.substring(0, name.length() - EXTENSION.length()) : name);
+        if (entry == null) {
+            return false;
+        }
+        try (InputStream in = entry.loader.getResourceAsStream(FOLDER + "/" + entry.file)) {
+            return in != null && java.util.Arrays.equals(in.readAllBytes(), Files.readAllBytes(file));
+        } catch (IOException e) {
+            return false;    // unreadable here: read it as the user's own, which reports the fault
+        }
     }
 
     private static List<String> index(ClassLoader loader) {

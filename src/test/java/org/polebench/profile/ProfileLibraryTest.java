@@ -66,6 +66,20 @@ class ProfileLibraryTest {
     }
 
     @Test
+    void aWorkingTreeCopyOfAShippedProfileIsTheShippedOneAndAnEditedCopyWins() throws Exception {
+        Path folder = Files.createDirectories(dir.resolve("instrument-profiles"));
+        Path shipped = Path.of("instrument-profiles", "db-degrees.yaml");
+        Files.copy(shipped, folder.resolve("db-degrees.yaml"));
+        // an exact copy: the shipped profile, the same in every field
+        assertEquals(ProfileLibrary.bundled().find("db-degrees").orElseThrow(),
+                ProfileLibrary.standard(dir).find("db-degrees").orElseThrow());
+        // an edited copy of the same file name is the user's and wins
+        Files.writeString(folder.resolve("db-degrees.yaml"),
+                Files.readString(shipped).replace("description:", "description: edited,"));
+        assertTrue(ProfileLibrary.standard(dir).find("db-degrees").orElseThrow().description().startsWith("edited"));
+    }
+
+    @Test
     void misspeltKeyIsRefusedWithItsLine() {
         String text = "kind: table\nname: x\ndescription: d\ncolumns: {frequency: 1, gain: 2}\n"
                 + "layout:\n  header: false\n  delimitter: tab\n";
