@@ -232,7 +232,8 @@ public final class Reconciler {
             FittedRoot pole = highPole.get();
             // a one-pole roll-off puts the −3 dB point at the pole
             upper = new MeasuredQuantity(OptionalDouble.of(pole.magnitudeHz()),
-                    fit.coverageFactor() * pole.uMagnitudeHz(), "the fitted high-band pole", upperReason);
+                    fit.coverageFactor() * pole.uMagnitudeHz(), fit.coverageFactor(), "the fitted high-band pole",
+                    upperReason);
         } else {
             upper = MeasuredQuantity.absent(upperReason.orElseThrow());
         }
@@ -262,7 +263,8 @@ public final class Reconciler {
     }
 
     private static MeasuredQuantity quantity(Estimate estimate, String source, Optional<NotDecided> notDecided) {
-        return new MeasuredQuantity(OptionalDouble.of(estimate.value()), estimate.expandedUncertainty(), source,
+        return new MeasuredQuantity(OptionalDouble.of(estimate.value()), estimate.expandedUncertainty(),
+                estimate.coverageFactor(), source,
                 notDecided);
     }
 
