@@ -43,7 +43,7 @@ class MeasuredValueFormatTest {
         assertEquals("+0.0499", MeasuredValueFormat.signed(0.04994, 4));
         assertEquals("−24.99 Hz", MeasuredValueFormat.rounded(-24.991, 0.64, "Hz").valueText());
         assertEquals("0 ± 640 mHz", MeasuredValueFormat.rounded(-0.001, 0.64, "Hz").text());
-        assertEquals("0 F", MeasuredValueFormat.engineering(-1e-30, "F", 3));
+        assertEquals("0 F", MeasuredValueFormat.engineering(-0.0, "F", 3));
         assertEquals("−2.2 MΩ", MeasuredValueFormat.engineering(-2.2e6, "Ω", 3));
         assertEquals("0", MeasuredValueFormat.sixFigures(-0.0));
     }
