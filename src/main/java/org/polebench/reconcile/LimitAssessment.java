@@ -40,6 +40,6 @@ public final class LimitAssessment {
             return;
         }
         checks.add(LimitCheck.decide(quantity, unit, measured.value().getAsDouble(), measured.expandedUncertainty(),
-                min, max, rule));
+                measured.coverageFactor(), min, max, rule));
     }
 }

@@ -8,7 +8,8 @@ import java.util.OptionalDouble;
  * @param quantity            what is checked, in words ("lower corner", "midband gain")
  * @param unit                the unit of value, limits and margin ("Hz", "dB")
  * @param value               the measured value
- * @param expandedUncertainty U at k = 2, in the same unit; 0 when unknown
+ * @param expandedUncertainty U = k·u, in the same unit; 0 when unknown
+ * @param coverageFactor      the k of that U, printed beside it
  * @param min                 the lower limit, if any
  * @param max                 the upper limit, if any
  * @param marginToLimit       distance from the value to the nearest limit, positive inside the
@@ -16,7 +17,7 @@ import java.util.OptionalDouble;
  * @param pass                the decision under {@code rule}
  * @param rule                the decision rule applied
  */
-public record LimitCheck(String quantity, String unit, double value, double expandedUncertainty,
+public record LimitCheck(String quantity, String unit, double value, double expandedUncertainty, double coverageFactor,
                          OptionalDouble min, OptionalDouble max, double marginToLimit, boolean pass,
                          DecisionRule rule) {
 
@@ -26,7 +27,7 @@ public record LimitCheck(String quantity, String unit, double value, double expa
      * @throws IllegalArgumentException when neither limit is given, or the value or U is not finite
      */
     public static LimitCheck decide(String quantity, String unit, double value, double expandedUncertainty,
-                                    OptionalDouble min, OptionalDouble max, DecisionRule rule) {
+                                    double coverageFactor, OptionalDouble min, OptionalDouble max, DecisionRule rule) {
         if (min.isEmpty() && max.isEmpty()) {
             throw new IllegalArgumentException(quantity + ": a check needs a lower or an upper limit");
         }
@@ -43,6 +44,6 @@ public record LimitCheck(String quantity, String unit, double value, double expa
         double guard = rule.guardBand(expandedUncertainty);
         // simple acceptance: a value exactly on the limit is inside it (ILAC-G8 4.2.1 "within")
         boolean pass = margin >= guard;
-        return new LimitCheck(quantity, unit, value, expandedUncertainty, min, max, margin, pass, rule);
+        return new LimitCheck(quantity, unit, value, expandedUncertainty, coverageFactor, min, max, margin, pass, rule);
     }
 }

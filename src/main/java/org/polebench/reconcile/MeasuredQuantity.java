@@ -11,11 +11,13 @@ import java.util.OptionalDouble;
  *
  * @param value               the value, in the check's unit; empty when there is none to show
  * @param expandedUncertainty U = k·u in the same unit, at least 0; 0 when there is no value
+ * @param coverageFactor      the k of that U (the fit's Student-t factor, or the back-solve's 2),
+ *                            printed beside U wherever the quantity appears; NaN when there is no value
  * @param source              how it was measured, in words ("the fitted midband gain"); empty
  *                            when there is no value
  * @param notDecided          empty when the sweep determines the quantity, else why not
  */
-public record MeasuredQuantity(OptionalDouble value, double expandedUncertainty, String source,
+public record MeasuredQuantity(OptionalDouble value, double expandedUncertainty, double coverageFactor, String source,
                                Optional<NotDecided> notDecided) {
     public MeasuredQuantity {
         if (value.isEmpty() && notDecided.isEmpty()) {
@@ -24,19 +26,20 @@ public record MeasuredQuantity(OptionalDouble value, double expandedUncertainty,
     }
 
     /** A quantity the sweep determines. */
-    public MeasuredQuantity(double value, double expandedUncertainty, String source) {
-        this(OptionalDouble.of(value), expandedUncertainty, source, Optional.empty());
+    public MeasuredQuantity(double value, double expandedUncertainty, double coverageFactor, String source) {
+        this(OptionalDouble.of(value), expandedUncertainty, coverageFactor, source, Optional.empty());
     }
 
     /** @return a value shown for information only: the sweep does not determine it, for {@code why} */
-    public static MeasuredQuantity shownOnly(double value, double expandedUncertainty, String source,
-                                             NotDecided why) {
-        return new MeasuredQuantity(OptionalDouble.of(value), expandedUncertainty, source, Optional.of(why));
+    public static MeasuredQuantity shownOnly(double value, double expandedUncertainty, double coverageFactor,
+                                             String source, NotDecided why) {
+        return new MeasuredQuantity(OptionalDouble.of(value), expandedUncertainty, coverageFactor, source,
+                Optional.of(why));
     }
 
     /** @return no value at all, and why the sweep does not determine one */
     public static MeasuredQuantity absent(NotDecided why) {
-        return new MeasuredQuantity(OptionalDouble.empty(), 0, "", Optional.of(why));
+        return new MeasuredQuantity(OptionalDouble.empty(), 0, Double.NaN, "", Optional.of(why));
     }
 
     /** @return true when a limit may be decided from this quantity */

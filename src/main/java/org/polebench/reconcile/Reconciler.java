@@ -235,7 +235,8 @@ public final class Reconciler {
             FittedRoot pole = highPole.get();
             // a one-pole roll-off puts the −3 dB point at the pole
             upper = new MeasuredQuantity(OptionalDouble.of(pole.magnitudeHz()),
-                    fit.coverageFactor() * pole.uMagnitudeHz(), "the fitted high-band pole", upperReason);
+                    fit.coverageFactor() * pole.uMagnitudeHz(), fit.coverageFactor(), "the fitted high-band pole",
+                    upperReason);
         } else {
             upper = MeasuredQuantity.absent(upperReason.orElseThrow());
         }
@@ -265,7 +266,8 @@ public final class Reconciler {
     }
 
     private static MeasuredQuantity quantity(Estimate estimate, String source, Optional<NotDecided> notDecided) {
-        return new MeasuredQuantity(OptionalDouble.of(estimate.value()), estimate.expandedUncertainty(), source,
+        return new MeasuredQuantity(OptionalDouble.of(estimate.value()), estimate.expandedUncertainty(),
+                estimate.coverageFactor(), source,
                 notDecided);
     }
 
@@ -284,9 +286,12 @@ public final class Reconciler {
     }
 
     /**
-     * Each predicted root beside the measured root nearest in ln|s| not yet taken (greedy, in
-     * order of distance), DC zeros with DC zeros; the high-band pole is left out (the low-band
-     * prediction has none) and unmatched roots of either side are listed alone.
+     * Each predicted root beside a measured root, DC zeros with DC zeros, paired so that the sum
+     * of |ln|s_pred| − ln|s_meas|| over the pairs is least (the assignment problem, solved by
+     * {@link MinimumCostAssignment}): a greedy nearest-first pairing can set a root beside a far
+     * one while a near one stays free. As many roots are paired as the two sides allow; the
+     * high-band pole is left out (the low-band prediction has none) and the roots of the longer
+     * side that find no partner are listed alone.
      */
     static List<RootMatch> matches(Prediction prediction, FitResult fit) {
         List<RootMatch> result = new ArrayList<>();
@@ -302,50 +307,76 @@ public final class Reconciler {
         return result;
     }
 
+    /**
+     * The cost of leaving a root without a partner. One more pair saves twice this, which is more
+     * than any ln-distance two positive doubles can have (ln(Double.MAX_VALUE / Double.MIN_VALUE)
+     * is about 1454), so the assignment pairs as many roots as it can and only then weighs the
+     * distances.
+     */
+    static final double UNPAIRED = 1e3;
+    /** The cost of a pairing that is not allowed (DC against a finite root): above every other choice. */
+    private static final double NOT_ALLOWED = 1e6;
+
     private static void match(boolean zero, List<ComplexFrequency> predicted, List<FittedRoot> measured,
                               List<RootMatch> out) {
-        boolean[] taken = new boolean[measured.size()];
+        int p = predicted.size();
+        int m = measured.size();
+        double[][] magnitudes = new double[2][];
+        magnitudes[0] = new double[p];
+        magnitudes[1] = new double[m];
+        for (int i = 0; i < p; i++) {
+            magnitudes[0][i] = predicted.get(i).magnitudeRadPerS();
+        }
+        for (int j = 0; j < m; j++) {
+            magnitudes[1][j] = measured.get(j).radPerS().abs();
+        }
+        int[] partner = pairing(magnitudes[0], magnitudes[1]);
+        boolean[] taken = new boolean[m];
         List<RootMatch> matched = new ArrayList<>();
-        boolean[] placed = new boolean[predicted.size()];
-        while (true) {
-            int bestP = -1;
-            int bestM = -1;
-            double best = Double.POSITIVE_INFINITY;
-            for (int p = 0; p < predicted.size(); p++) {
-                if (placed[p]) {
-                    continue;
-                }
-                for (int m = 0; m < measured.size(); m++) {
-                    if (taken[m]) {
-                        continue;
-                    }
-                    double distance = distance(predicted.get(p), measured.get(m));
-                    if (distance < best) {
-                        best = distance;
-                        bestP = p;
-                        bestM = m;
-                    }
-                }
-            }
-            if (bestP < 0) {
-                break;
-            }
-            placed[bestP] = true;
-            taken[bestM] = true;
-            matched.add(new RootMatch(zero, Optional.of(predicted.get(bestP)), Optional.of(measured.get(bestM))));
-        }
-        for (int p = 0; p < predicted.size(); p++) {
-            if (!placed[p]) {
-                matched.add(new RootMatch(zero, Optional.of(predicted.get(p)), Optional.empty()));
+        for (int i = 0; i < p; i++) {
+            if (partner[i] >= 0) {
+                taken[partner[i]] = true;
+                matched.add(new RootMatch(zero, Optional.of(predicted.get(i)), Optional.of(measured.get(partner[i]))));
+            } else {
+                matched.add(new RootMatch(zero, Optional.of(predicted.get(i)), Optional.empty()));
             }
         }
-        for (int m = 0; m < measured.size(); m++) {
-            if (!taken[m]) {
-                matched.add(new RootMatch(zero, Optional.empty(), Optional.of(measured.get(m))));
+        for (int j = 0; j < m; j++) {
+            if (!taken[j]) {
+                matched.add(new RootMatch(zero, Optional.empty(), Optional.of(measured.get(j))));
             }
         }
         matched.sort((a, b) -> Double.compare(magnitude(a), magnitude(b)));
         out.addAll(matched);
+    }
+
+    /**
+     * The least-cost pairing of two lists of root magnitudes: the square problem of size p + m in
+     * which every root may also take a stand-in partner at cost {@link #UNPAIRED}.
+     *
+     * @param predicted |s| of the predicted roots, rad/s (0 at DC)
+     * @param measured  |s| of the measured roots, rad/s (0 at DC)
+     * @return for each predicted root the index of its measured partner, or −1 for none
+     */
+    static int[] pairing(double[] predicted, double[] measured) {
+        int p = predicted.length;
+        int m = measured.length;
+        double[][] cost = new double[p + m][p + m];
+        for (int i = 0; i < p + m; i++) {
+            for (int j = 0; j < p + m; j++) {
+                if (i < p && j < m) {
+                    cost[i][j] = distance(predicted[i], measured[j]);
+                } else if (i < p || j < m) {
+                    cost[i][j] = UNPAIRED;
+                }
+            }
+        }
+        int[] column = MinimumCostAssignment.solve(cost);
+        int[] partner = new int[p];
+        for (int i = 0; i < p; i++) {
+            partner[i] = column[i] < m && cost[i][column[i]] < NOT_ALLOWED ? column[i] : -1;
+        }
+        return partner;
     }
 
     private static double magnitude(RootMatch match) {
@@ -353,15 +384,13 @@ public final class Reconciler {
                 : match.measured().get().radPerS().abs();
     }
 
-    // DC meets DC at distance 0; DC against a finite root is never preferred to a finite match
-    private static double distance(ComplexFrequency predicted, FittedRoot measured) {
-        double a = predicted.magnitudeRadPerS();
-        double b = measured.radPerS().abs();
+    /** |ln a − ln b|; DC meets DC at distance 0, and DC is never set beside a finite root. */
+    static double distance(double a, double b) {
         if (a == 0 && b == 0) {
             return 0;
         }
         if (a == 0 || b == 0) {
-            return 1e6;
+            return NOT_ALLOWED;
         }
         return Math.abs(Math.log(a / b));
     }

@@ -1,5 +1,6 @@
 package org.polebench.report;
 
+import org.polebench.units.MeasuredValueFormat;
 import com.fasterxml.jackson.databind.JsonNode;
 import java.util.Locale;
 import org.polebench.reconcile.AdequacyTest;

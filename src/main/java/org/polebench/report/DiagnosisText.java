@@ -1,5 +1,6 @@
 package org.polebench.report;
 
+import org.polebench.units.MeasuredValueFormat;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
@@ -8,6 +9,7 @@ import org.polebench.reconcile.Diagnosis;
 import org.polebench.reconcile.Hypothesis;
 import org.polebench.reconcile.HypothesisKind;
 import org.polebench.reconcile.ModelAdequacy;
+import org.polebench.reconcile.ModelMeasurement;
 import org.polebench.reconcile.ParameterEstimate;
 import org.polebench.reconcile.ParameterKind;
 import org.polebench.reconcile.PartReading;
@@ -58,8 +60,16 @@ public final class DiagnosisText {
 
     private static String corner(PartReading reading) {
         ParameterEstimate estimate = reading.estimate();
-        return EngineeringValue.format(estimate.value(), "Hz", 3) + " ± "
-                + EngineeringValue.format(estimate.uncertainty(), "Hz", 1);
+        return withU(estimate, "Hz");
+    }
+
+    /**
+     * An estimate with its expanded uncertainty and k, as the tables print it: the statements, the
+     * back-solve table and the report then quote the same U (GUM 7.2.6 rounding).
+     */
+    static String withU(ParameterEstimate estimate, String unit) {
+        return MeasuredValueFormat.expanded(estimate.value(), ModelMeasurement.COVERAGE * estimate.uncertainty(),
+                ModelMeasurement.COVERAGE, unit);
     }
 
     private static String reading(PartReading reading) {
@@ -78,16 +88,17 @@ public final class DiagnosisText {
             case CHANNEL_CORNER:
                 return label + " AC coupling at " + corner(reading);
             case BIAS:
-                return String.format(Locale.ROOT, "%s bias current reads %s ± %s against %s designed (×%s): "
-                                + "check its bias network and supply", label,
-                        EngineeringValue.format(estimate.value(), "A", 3),
-                        EngineeringValue.format(estimate.uncertainty(), "A", 1),
+                return String.format(Locale.ROOT, "%s bias current reads %s against %s designed (×%s): "
+                                + "check its bias network and supply", label, withU(estimate, "A"),
                         EngineeringValue.format(estimate.parameter().nominal(), "A", 3), factor(estimate.factor()));
             default:
                 double db = estimate.value();
                 double tenfold = Math.abs(Math.abs(db) - 20);
-                return String.format(Locale.ROOT, "a flat gain error of %+.2f dB ± %.2f dB (×%s)", db,
-                        estimate.uncertainty(), factor(estimate.factor()))
+                MeasuredValueFormat.Rounded gain = MeasuredValueFormat.rounded(db,
+                        ModelMeasurement.COVERAGE * estimate.uncertainty(), "dB");
+                return String.format(Locale.ROOT, "a flat gain error of %s%s ± %s dB (U, k = %s) (×%s)",
+                        db > 0 && !gain.value().matches("[0.]+") ? "+" : "", gain.value(), gain.uncertainty(),
+                        MeasuredValueFormat.coverage(ModelMeasurement.COVERAGE), factor(estimate.factor()))
                         + (tenfold < 1 ? ": likely a ×10 probe or attenuator setting mixed up"
                         : ": a probe, attenuator or generator level mistake");
         }
@@ -98,8 +109,7 @@ public final class DiagnosisText {
         String unit = estimate.parameter().kind() == ParameterKind.CAPACITOR ? "F" : "Ω";
         String label = estimate.parameter().label();
         double nominal = estimate.parameter().nominal();
-        String text = String.format(Locale.ROOT, "%s reads %s ± %s against %s nominal (×%s)", label,
-                EngineeringValue.format(estimate.value(), unit, 2), EngineeringValue.format(estimate.uncertainty(), unit, 1),
+        String text = String.format(Locale.ROOT, "%s reads %s against %s nominal (×%s)", label, withU(estimate, unit),
                 EngineeringValue.format(nominal, unit, 2), factor(estimate.factor()));
         if (reading.nearestPreferred().isEmpty()) {
             return text;

@@ -1,5 +1,6 @@
 package org.polebench.report;
 
+import org.polebench.units.MeasuredValueFormat;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
@@ -30,7 +31,7 @@ public final class FitText {
         out.append("Fitted low-frequency model: ").append(result.structure().describe()).append(NL);
         out.append("  order chosen by BIC from ").append(tried).append(tried == 1 ? " candidate" : " candidates")
                 .append("; every expanded uncertainty U = k·u with k = ")
-                .append(MeasuredValueFormat.fixed(result.coverageFactor(), 2)).append(NL);
+                .append(MeasuredValueFormat.coverage(result.coverageFactor())).append(NL);
         out.append("  fitted band        ").append(hz(result.band().lowHz())).append(" to ")
                 .append(hz(result.band().highHz())).append(", ").append(result.quality().pointsUsed()).append(" points");
         if (!result.droppedPoints().isEmpty()) {
@@ -98,10 +99,9 @@ public final class FitText {
             if (r.isReal()) {
                 out.append(withU(r.realHz(), r.uRealHz(), k, "Hz"));
             } else {
-                String[] re = MeasuredValueFormat.withUncertainty(r.realHz(), k * r.uRealHz());
-                String[] im = MeasuredValueFormat.withUncertainty(r.imaginaryHz(), k * r.uImaginaryHz());
-                out.append(re[0]).append(" ± j").append(im[0]).append(" Hz (U ").append(re[1]).append(", ")
-                        .append(im[1]).append(" Hz); |p| ").append(withU(r.magnitudeHz(), r.uMagnitudeHz(), k, "Hz"));
+                out.append(MeasuredValueFormat.complexPair(r.realHz(), k * r.uRealHz(), r.imaginaryHz(),
+                        k * r.uImaginaryHz(), "Hz", "U")).append(" (k = ").append(MeasuredValueFormat.coverage(k))
+                        .append(");").append(NL).append("           |p| ").append(withU(r.magnitudeHz(), r.uMagnitudeHz(), k, "Hz"));
             }
             out.append(NL);
         }
@@ -140,20 +140,24 @@ public final class FitText {
     /** Below this relative uncertainty the digits are round-off: the data fit the model exactly. */
     private static final double EXACT = 1e-9;
 
-    /** value with u and U in unit (may be empty), as the summary prints it. */
+    /**
+     * "−800.0 ± 9.8 mHz (U, k = 2.03; u = 4.8 mHz)": the value with its expanded uncertainty and
+     * k, as every other command prints a measured value, and u beside it (GUM 7.2.6 rounding).
+     */
     static String withU(double value, double u, double k, String unit) {
-        String space = unit.isEmpty() ? "" : " ";
         if (!(u > EXACT * Math.abs(value))) {
-            return MeasuredValueFormat.sixFigures(value) + space + unit + "  (u below 1e-9 relative: an exact fit)";
+            return MeasuredValueFormat.engineering(value, unit, 6) + "  (u below 1e-9 relative: an exact fit)";
         }
+        MeasuredValueFormat.Rounded standard = MeasuredValueFormat.rounded(value, u, unit);
         if (!(k * u < Math.abs(value))) {
             // rounded to the digits of U the value would read 0: give it, and say what U means
-            return MeasuredValueFormat.sixFigures(value) + space + unit + "  u = " + MeasuredValueFormat.uncertainty(u)
-                    + "  U = " + MeasuredValueFormat.uncertainty(k * u) + space + unit
-                    + "  (U exceeds the value: these data do not determine it)";
+            return MeasuredValueFormat.engineering(value, unit, 6) + "  U = "
+                    + MeasuredValueFormat.rounded(value, k * u, unit).uncertaintyText() + " (k = "
+                    + MeasuredValueFormat.coverage(k) + "; u = " + standard.uncertaintyText()
+                    + "): U exceeds the value, these data do not determine it";
         }
-        return MeasuredValueFormat.value(value, k * u) + space + unit + "  u = " + MeasuredValueFormat.uncertainty(u)
-                + "  U = " + MeasuredValueFormat.uncertainty(k * u) + space + unit;
+        return MeasuredValueFormat.rounded(value, k * u, unit).text() + " (U, k = " + MeasuredValueFormat.coverage(k)
+                + "; u = " + MeasuredValueFormat.rounded(value, u, unit).uncertaintyText() + ")";
     }
 
     private static String estimate(Estimate e, String unit) {
@@ -223,8 +227,9 @@ public final class FitText {
         }
     }
 
+    // the same engineering form as inspect and reconcile print a band
     private static String hz(double value) {
-        return MeasuredValueFormat.sixFigures(value) + " Hz";
+        return MeasuredValueFormat.engineering(value, "Hz", 4);
     }
 
     /** One line per candidate order, for a verbose listing. */

@@ -1,5 +1,6 @@
 package org.polebench.report;
 
+import org.polebench.units.MeasuredValueFormat;
 import java.util.Locale;
 import java.util.Optional;
 import java.util.OptionalDouble;

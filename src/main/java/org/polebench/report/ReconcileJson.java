@@ -298,6 +298,7 @@ public final class ReconcileJson {
             row.put("unit", check.unit());
             row.put("value", check.value());
             row.put("expanded_uncertainty", check.expandedUncertainty());
+            row.put("coverage_factor", check.coverageFactor());
             putOptional(row, "min", check.min());
             putOptional(row, "max", check.max());
             row.put("margin", check.marginToLimit());
@@ -315,8 +316,10 @@ public final class ReconcileJson {
             putOptional(row, "value", shown.value());
             if (shown.value().isPresent()) {
                 row.put("expanded_uncertainty", shown.expandedUncertainty());
+                row.put("coverage_factor", shown.coverageFactor());
             } else {
                 row.putNull("expanded_uncertainty");
+                row.putNull("coverage_factor");
             }
             putOptional(row, "min", check.min());
             putOptional(row, "max", check.max());
@@ -349,6 +352,7 @@ public final class ReconcileJson {
         if (estimate.isPresent()) {
             node.put("back_solved", estimate.get().value());
             node.put("u_back_solved", estimate.get().standardUncertainty());
+            node.put("back_solved_coverage_factor", estimate.get().coverageFactor());
         } else {
             node.putNull("back_solved");
             node.putNull("u_back_solved");

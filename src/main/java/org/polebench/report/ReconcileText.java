@@ -1,5 +1,6 @@
 package org.polebench.report;
 
+import org.polebench.units.MeasuredValueFormat;
 import java.io.PrintWriter;
 import java.util.Locale;
 import java.util.OptionalDouble;
@@ -16,6 +17,7 @@ import org.polebench.reconcile.Hypothesis;
 import org.polebench.reconcile.HypothesisKind;
 import org.polebench.reconcile.LimitCheck;
 import org.polebench.reconcile.MeasuredQuantity;
+import org.polebench.reconcile.ModelMeasurement;
 import org.polebench.reconcile.NoiseBasis;
 import org.polebench.reconcile.NotDecidedCheck;
 import org.polebench.reconcile.OverallResult;
@@ -68,22 +70,21 @@ public final class ReconcileText {
     private static void sideBySide(SideBySide side, CalibrationTerm calibration, boolean chainTakenOut,
                                    boolean declared, PrintWriter out) {
         out.println("Predicted against measured");
-        out.println(String.format(Locale.ROOT, "  %-26s %14s %24s", "", "predicted", "measured (± U, k = "
-                + MeasuredValueFormat.fixed(side.measuredMidbandGainDb().coverageFactor(), 2) + ")"));
+        out.println(String.format(Locale.ROOT, "  %-26s %14s   %s", "", "predicted", "measured ± U (k)"));
         Estimate gain = side.measuredMidbandGainDb();
-        out.println(String.format(Locale.ROOT, "  %-26s %14s %24s", "midband gain",
+        out.println(String.format(Locale.ROOT, "  %-26s %14s   %s", "midband gain",
                 MeasuredValueFormat.fixed(side.predictedMidbandGainDb(), 2) + " dB", estimate(gain, "dB")));
         out.println(String.format(Locale.ROOT, "  %-26s %14s", "lower corner, SCTC", hz(side.sctcLowerCornerHz())));
-        out.println(String.format(Locale.ROOT, "  %-26s %14s %24s", "lower corner, exact",
+        out.println(String.format(Locale.ROOT, "  %-26s %14s   %s", "lower corner, exact",
                 side.exactLowerCornerHz().isPresent() ? hz(side.exactLowerCornerHz().getAsDouble()) : "none",
                 side.measuredLowerCornerHz().isPresent() ? estimate(side.measuredLowerCornerHz().get(), "Hz")
                         : "not quoted by the fit"));
         if (side.backSolvedMidbandGainDb().isPresent()) {
-            out.println(String.format(Locale.ROOT, "  %-26s %14s %24s", "midband gain, back-solved", "",
+            out.println(String.format(Locale.ROOT, "  %-26s %14s   %s", "midband gain, back-solved", "",
                     estimate(side.backSolvedMidbandGainDb().get(), "dB")));
         }
         if (side.backSolvedLowerCornerHz().isPresent()) {
-            out.println(String.format(Locale.ROOT, "  %-26s %14s %24s", "lower corner, back-solved", "",
+            out.println(String.format(Locale.ROOT, "  %-26s %14s   %s", "lower corner, back-solved", "",
                     estimate(side.backSolvedLowerCornerHz().get(), "Hz")));
         }
         if (chainTakenOut) {
@@ -103,7 +104,9 @@ public final class ReconcileText {
                     100 * side.cornerPercentile().getAsDouble(), side.insideDesignSpread()
                             ? "inside the design spread (central 95 %)" : "OUTSIDE the design spread (central 95 %)"));
         }
-        out.println("  poles and zeros (Hz, s/2π)       predicted              measured ± u");
+        double k = side.measuredMidbandGainDb().coverageFactor();
+        out.println("  poles and zeros (s/2π)           predicted   measured ± U (k = " + MeasuredValueFormat.coverage(k)
+                + ")");
         for (RootMatch match : side.roots()) {
             String predicted = match.predicted().isPresent() ? root(match.predicted().get()) : "-";
             String measured = "not resolved";
@@ -114,9 +117,9 @@ public final class ReconcileText {
                 } else if (root.status() == RootStatus.STRUCTURAL) {
                     measured = "0 (at DC, structural)";
                 } else {
-                    String[] re = MeasuredValueFormat.withUncertainty(root.realHz(), root.uMagnitudeHz());
-                    measured = re[0] + (root.isReal() ? "" : String.format(Locale.ROOT, " ± j%.4g", Math.abs(root.imaginaryHz())))
-                            + " ± " + re[1];
+                    measured = root.isReal() ? MeasuredValueFormat.rounded(root.realHz(), k * root.uRealHz(), "Hz").text()
+                            : MeasuredValueFormat.complexPair(root.realHz(), k * root.uRealHz(), root.imaginaryHz(),
+                            k * root.uImaginaryHz(), "Hz", "U");
                 }
             }
             out.println(String.format(Locale.ROOT, "    %-6s %30s   %s", match.zero() ? "zero" : "pole", predicted, measured));
@@ -128,67 +131,59 @@ public final class ReconcileText {
     }
 
     private static void apportionment(Apportionment apportionment, PrintWriter out) {
-        out.println(String.format(Locale.ROOT, "The corner's change from the design to the back-solved board, shared "
-                        + "along the path between them (ln f_solved/f_pred = %+.4f ± %.4f)",
-                apportionment.lnCornerRatio(), apportionment.uLnCorner()));
-        out.println(String.format(Locale.ROOT, "  %-16s %10s %12s %14s %8s", "part", "dlnf/dlnC", "estimate", "Δln f",
+        out.println("The corner's change from the design to the back-solved board, shared along the path between them"
+                + " (ln f_solved/f_pred = " + MeasuredValueFormat.signed(apportionment.lnCornerRatio(), 4) + ", u = "
+                + MeasuredValueFormat.fixed(apportionment.uLnCorner(), 4) + ")");
+        out.println(String.format(Locale.ROOT, "  %-18s %10s %12s %14s %8s", "part", "dlnf/dlnC", "estimate", "Δln f",
                 "share"));
         for (CapacitorShare share : apportionment.shares()) {
-            out.println(String.format(Locale.ROOT, "  %-16s %10.3f %12s %+14.4f %8s", share.capacitor(),
-                    share.cornerSensitivity(), EngineeringValue.format(share.estimatedFarads(), "F", 3),
-                    share.cornerContribution(), percentShare(share.share())));
+            out.println(String.format(Locale.ROOT, "  %-18s %10s %12s %14s %8s", share.capacitor(),
+                    MeasuredValueFormat.fixed(share.cornerSensitivity(), 3),
+                    EngineeringValue.format(share.estimatedFarads(), "F", 3),
+                    MeasuredValueFormat.signed(share.cornerContribution(), 4), percentShare(share.share())));
         }
-        out.println(String.format(Locale.ROOT, "  %-16s %10s %12s %+14.4f %8s", "bias, β, resistors", "", "",
-                apportionment.otherContribution(), percentShare(apportionment.otherShare())));
+        out.println(String.format(Locale.ROOT, "  %-18s %10s %12s %14s %8s", "bias, β, resistors", "", "",
+                MeasuredValueFormat.signed(apportionment.otherContribution(), 4), percentShare(apportionment.otherShare())));
         out.println();
     }
 
     // a share in whole percent, without a negative zero
     private static String percentShare(double share) {
-        if (!Double.isFinite(share)) {
-            return "-";
-        }
-        long percent = Math.round(100 * share);
-        return (percent == 0 ? "0" : Long.toString(percent)) + "%";
+        return Double.isFinite(share) ? MeasuredValueFormat.percent(share, 0) : "-";
     }
 
     private static void backSolve(ReconcileResult result, PrintWriter out) {
         BackSolve backSolve = result.backSolve();
         out.println("Capacitor back-solve (MAP on the stage's exact model, under \"" + result.diagnosis().top().label()
-                + "\"; ± standard uncertainty)");
-        out.println(String.format(Locale.ROOT, "  %-8s %10s %12s %22s %8s  %s", "part", "nominal", "tolerance",
+                + "\"; ± U, k = " + MeasuredValueFormat.coverage(ModelMeasurement.COVERAGE) + ")");
+        out.println(String.format(Locale.ROOT, "  %-8s %10s %12s %24s %8s  %s", "part", "nominal", "tolerance",
                 "estimate", "×nominal", "identifiable"));
         for (ParameterEstimate estimate : backSolve.of(ParameterKind.CAPACITOR)) {
-            out.println(String.format(Locale.ROOT, "  %-8s %10s %12s %22s %8.3f  %s", estimate.parameter().label(),
+            out.println(String.format(Locale.ROOT, "  %-8s %10s %12s %24s %8.3f  %s", estimate.parameter().label(),
                     EngineeringValue.format(estimate.parameter().nominal(), "F", 3),
-                    estimate.parameter().tolerance().get().describe(),
-                    EngineeringValue.format(estimate.value(), "F", 3) + " ± "
-                            + EngineeringValue.format(estimate.uncertainty(), "F", 2),
+                    estimate.parameter().tolerance().get().describe(), expanded(estimate, "F"),
                     estimate.factor(), estimate.identifiable() ? "yes" : "no (the sweep barely sees it; not blamed)"));
         }
         for (ParameterEstimate estimate : backSolve.of(ParameterKind.RESISTOR)) {
-            out.println(String.format(Locale.ROOT, "  %-8s %10s %12s %22s %8.3f  %s", estimate.parameter().label(),
+            out.println(String.format(Locale.ROOT, "  %-8s %10s %12s %24s %8.3f  %s", estimate.parameter().label(),
                     EngineeringValue.format(estimate.parameter().nominal(), "Ω", 3),
-                    estimate.parameter().tolerance().get().describe(),
-                    EngineeringValue.format(estimate.value(), "Ω", 3) + " ± "
-                            + EngineeringValue.format(estimate.uncertainty(), "Ω", 2),
+                    estimate.parameter().tolerance().get().describe(), expanded(estimate, "Ω"),
                     estimate.factor(), estimate.identifiable() ? "yes" : "no (the sweep barely sees it; not blamed)"));
         }
         for (ParameterEstimate estimate : backSolve.of(ParameterKind.BIAS)) {
-            out.println(String.format(Locale.ROOT, "  %-8s bias current %s ± %s against %s (×%.3f)%s",
-                    estimate.parameter().label(), EngineeringValue.format(estimate.value(), "A", 3),
-                    EngineeringValue.format(estimate.uncertainty(), "A", 2),
+            out.println(String.format(Locale.ROOT, "  %-8s bias current %s against %s (×%.3f)%s",
+                    estimate.parameter().label(), expanded(estimate, "A"),
                     EngineeringValue.format(estimate.parameter().nominal(), "A", 3), estimate.factor(),
                     estimate.identifiable() ? "" : "  (not identifiable)"));
         }
         for (ParameterEstimate estimate : backSolve.of(ParameterKind.CURRENT_GAIN)) {
-            out.println(String.format(Locale.ROOT, "  %-8s β %.0f ± %.0f against %.0f (×%.3f), device spread%s",
-                    estimate.parameter().label(), estimate.value(), estimate.uncertainty(),
+            out.println(String.format(Locale.ROOT, "  %-8s β %s against %.0f (×%.3f), device spread%s",
+                    estimate.parameter().label(), expanded(estimate, ""),
                     estimate.parameter().nominal(), estimate.factor(),
                     estimate.identifiable() ? "" : "  (not identifiable)"));
         }
         ParameterEstimate gain = backSolve.gain();
-        out.println(String.format(Locale.ROOT, "  gain calibration %+.3f dB ± %.3f dB%s", gain.value(), gain.uncertainty(),
+        out.println(String.format(Locale.ROOT, "  flat gain calibration (nuisance) %s%s", expanded(gain, "dB"),
                 gain.identifiable() ? "" : "  (not identifiable)"));
         NoiseBasis noise = result.diagnosis().noise();
         out.println(String.format(Locale.ROOT, "  χ² = %.1f over %d residuals; %s, times %.3f for the gain and %.3f "
@@ -198,6 +193,12 @@ public final class ReconcileText {
                         + MeasuredValueFormat.sixFigures(noise.defaultPhaseSigmaDeg()) + "° (the sweep states none)",
                 noise.magnitudeScale(), noise.phaseScale()));
         out.println();
+    }
+
+    // the back-solve's estimates with U and k, as the statements and the report quote them
+    private static String expanded(ParameterEstimate estimate, String unit) {
+        return MeasuredValueFormat.rounded(estimate.value(), ModelMeasurement.COVERAGE * estimate.uncertainty(), unit)
+                .text();
     }
 
     // a prior share as the shortest decimal that gives it back (0.45, 0.4, 0.05)
@@ -242,17 +243,20 @@ public final class ReconcileText {
         out.println("  rule: " + verdict.rule().statement());
         out.println("  lower corner from " + result.cornerSource() + "; midband gain from " + result.midbandSource());
         for (LimitCheck check : verdict.checks()) {
-            out.println(String.format(Locale.ROOT, "  %-14s %12s  U %-10s limit %-20s margin %-12s %s", check.quantity(),
-                    value(check.value(), check.unit()), value(check.expandedUncertainty(), check.unit()),
-                    limit(check.min(), check.max(), check.unit()), value(check.marginToLimit(), check.unit()),
+            // the margin to the value's own last digit (GUM 7.2.6): it is a difference of the value
+            MeasuredValueFormat.Rounded margin = MeasuredValueFormat.rounded(check.marginToLimit(),
+                    check.expandedUncertainty(), check.unit());
+            out.println(String.format(Locale.ROOT, "  %-14s %-36s limit %-20s margin %-14s %s", check.quantity(),
+                    MeasuredValueFormat.expanded(check.value(), check.expandedUncertainty(), check.coverageFactor(),
+                            check.unit()), limit(check.min(), check.max(), check.unit()), margin.valueText(),
                     check.pass() ? "pass" : "FAIL"));
         }
         // a limit the sweep does not decide: the value (if any) for information, no margin, no decision
         for (NotDecidedCheck check : verdict.notDecided()) {
             MeasuredQuantity shown = check.shown();
-            out.println(String.format(Locale.ROOT, "  %-14s %12s  U %-10s limit %-20s %-19s %s", check.quantity(),
-                    shown.value().isPresent() ? value(shown.value().getAsDouble(), check.unit()) : "none",
-                    shown.value().isPresent() ? value(shown.expandedUncertainty(), check.unit()) : "-",
+            out.println(String.format(Locale.ROOT, "  %-14s %-36s limit %-20s %-21s %s", check.quantity(),
+                    shown.value().isPresent() ? MeasuredValueFormat.expanded(shown.value().getAsDouble(),
+                            shown.expandedUncertainty(), shown.coverageFactor(), check.unit()) : "none",
                     limit(check.min(), check.max(), check.unit()), "", "NOT DECIDED"));
         }
         for (NotDecidedCheck check : verdict.notDecided()) {
@@ -288,16 +292,17 @@ public final class ReconcileText {
     }
 
     private static String estimate(Estimate estimate, String unit) {
-        String[] text = MeasuredValueFormat.withUncertainty(estimate.value(), estimate.expandedUncertainty());
-        return text[0] + " ± " + text[1] + " " + unit;
+        return MeasuredValueFormat.expanded(estimate.value(), estimate.expandedUncertainty(), estimate.coverageFactor(),
+                unit);
     }
 
     private static String root(ComplexFrequency root) {
         if (root.magnitudeRadPerS() == 0) {
             return "0 (at DC)";
         }
-        return root.isReal() ? String.format(Locale.ROOT, "%.4g", root.realHz())
-                : String.format(Locale.ROOT, "%.4g ± j%.4g", root.realHz(), Math.abs(root.imaginaryHz()));
+        return root.isReal() ? EngineeringValue.format(root.realHz(), "Hz", 4)
+                : EngineeringValue.format(root.realHz(), "", 4) + " ± j" + EngineeringValue.format(Math.abs(root.imaginaryHz()),
+                "Hz", 4);
     }
 
     private static String hz(double hz) {

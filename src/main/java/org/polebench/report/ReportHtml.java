@@ -1,5 +1,6 @@
 package org.polebench.report;
 
+import org.polebench.units.MeasuredValueFormat;
 import com.fasterxml.jackson.databind.JsonNode;
 import java.util.Locale;
 import org.polebench.reconcile.AdequacyTest;
@@ -207,7 +208,8 @@ public final class ReportHtml {
                         + "probabilities are relative among hypotheses that do not explain the sweep, and none is "
                         + "named as the fault.</li>\n");
         h.append("<li><b>Decision rule.</b> ").append(esc(verdict.path("rule_statement").asText()))
-                .append(". Expanded uncertainties U are at k = 2. The lower corner checked comes from ")
+                .append(". Each expanded uncertainty U is printed with its coverage factor k (the fit's Student-t factor, "
+                        + "the back-solve's 2). The lower corner checked comes from ")
                 .append(esc(verdict.path("lower_corner_source").asText())).append("; the midband gain from ")
                 .append(esc(verdict.path("midband_gain_source").asText())).append(".</li>\n");
         h.append("</ol>\n");
@@ -275,12 +277,14 @@ public final class ReportHtml {
         h.append("<tr><th>Midband gain</th><td>").append(NONE).append("</td><td>")
                 .append(db(gain.path("predicted"))).append("</td><td>").append(NONE).append("</td><td>")
                 .append(withU(gain, "measured", "u_measured", gain.path("coverage_factor").asDouble(2), "dB"))
-                .append("</td><td>").append(withU(gain, "back_solved", "u_back_solved", 2, "dB")).append("</td></tr>\n");
+                .append("</td><td>").append(withU(gain, "back_solved", "u_back_solved",
+                        gain.path("back_solved_coverage_factor").asDouble(2), "dB")).append("</td></tr>\n");
         h.append("<tr><th>Lower corner</th><td>").append(hzOrNone(corner.path("sctc"))).append("</td><td>")
                 .append(hzOrNone(corner.path("exact"))).append("</td><td>").append(hzOrNone(spread.path("p05_hz")))
                 .append(" / ").append(hzOrNone(spread.path("p50_hz"))).append(" / ").append(hzOrNone(spread.path("p95_hz")))
                 .append("</td><td>").append(withU(corner, "measured", "u_measured", corner.path("coverage_factor").asDouble(2), "Hz"))
-                .append("</td><td>").append(withU(corner, "back_solved", "u_back_solved", 2, "Hz")).append("</td></tr>\n");
+                .append("</td><td>").append(withU(corner, "back_solved", "u_back_solved",
+                        corner.path("back_solved_coverage_factor").asDouble(2), "Hz")).append("</td></tr>\n");
         h.append("</tbody>\n</table>\n");
         if (corner.path("spread_percentile").isNumber()) {
             h.append("<p>The corner the verdict uses lies at the ")
@@ -534,12 +538,12 @@ public final class ReportHtml {
             return NONE;
         }
         double u = node.path(uKey).asDouble(0);
-        return quantity(node.path(valueKey).asDouble(), k * u, unit) + " ± " + uncertainty(k * u, unit);
+        return esc(MeasuredValueFormat.expanded(node.path(valueKey).asDouble(), k * u, k, unit));
     }
 
     /** A value rounded to its uncertainty's last digit (GUM 7.2.6), with unit. */
     static String quantity(double value, double expanded, String unit) {
-        return MeasuredValueFormat.value(value, expanded) + " " + esc(unit);
+        return esc(MeasuredValueFormat.rounded(value, expanded, unit).valueText());
     }
 
     static String capitalised(String sentence) {
@@ -547,7 +551,17 @@ public final class ReportHtml {
     }
 
     static String uncertainty(double expanded, String unit) {
-        return MeasuredValueFormat.uncertainty(expanded) + " " + esc(unit);
+        return esc(MeasuredValueFormat.rounded(0, expanded, unit).uncertaintyText());
+    }
+
+    /** U in the prefix and decimal place of the value it belongs to (GUM 7.2.6), as the text prints it. */
+    static String uncertaintyBeside(double value, double expanded, String unit) {
+        return esc(MeasuredValueFormat.rounded(value, expanded, unit).uncertaintyText());
+    }
+
+    /** " (k = 2.02)" beside a U, from the result's coverage_factor; nothing when the file has none. */
+    static String k(JsonNode coverageFactor) {
+        return coverageFactor.isNumber() ? " (k = " + MeasuredValueFormat.coverage(coverageFactor.asDouble()) + ")" : "";
     }
 
     static String limit(JsonNode min, JsonNode max, String unit) {
@@ -592,7 +606,7 @@ public final class ReportHtml {
     }
 
     static String percent(double fraction) {
-        return String.format(Locale.ROOT, "%.1f %%", 100 * fraction);
+        return MeasuredValueFormat.percent(fraction, 1);
     }
 
     /** A prior probability: as a percentage, to two significant figures below 1 % (a pair's share). */

@@ -277,7 +277,9 @@ final class ResultCheck {
                 }
             }
             LimitCheck again = LimitCheck.decide(c.path("quantity").asText(), c.path("unit").asText(),
-                    c.path("value").asDouble(), c.path("expanded_uncertainty").asDouble(), min, max, rule);
+                    c.path("value").asDouble(), c.path("expanded_uncertainty").asDouble(),
+                    c.path("coverage_factor").isNumber() && c.path("coverage_factor").asDouble() > 0
+                            ? c.path("coverage_factor").asDouble() : 2, min, max, rule);
             double scale = Math.max(1e-300, Math.abs(c.path("value").asDouble())
                     + Math.abs(min.orElse(0)) + Math.abs(max.orElse(0)));
             // the file holds shortest round-trip decimals, so a margin written by reconcile comes

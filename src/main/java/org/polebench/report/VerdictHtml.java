@@ -46,7 +46,7 @@ final class VerdictHtml {
     static void verdict(JsonNode root, StringBuilder h) {
         JsonNode verdict = root.path("verdict");
         h.append("<h3>4.6 Verdict against the stage's limits</h3>\n<table id=\"verdict\" class=\"data\">\n<thead><tr>"
-                + "<th>Check</th><th>Value</th><th>U (k = 2)</th><th>Limit</th><th>Margin to limit</th><th>Guard band</th>"
+                + "<th>Check</th><th>Value</th><th>U (k)</th><th>Limit</th><th>Margin to limit</th><th>Guard band</th>"
                 + "<th>Decision</th></tr></thead>\n<tbody>\n");
         for (JsonNode c : verdict.path("checks")) {
             String unit = c.path("unit").asText();
@@ -57,7 +57,8 @@ final class VerdictHtml {
                                 ? ReportHtml.quantity(c.path("value").asDouble(), c.path("expanded_uncertainty").asDouble(), unit)
                                 + " <span class=\"note\">(not from the sweep)</span>" : ReportHtml.NONE)
                         .append("</td><td>").append(c.path("value").isNumber()
-                                ? ReportHtml.uncertainty(c.path("expanded_uncertainty").asDouble(), unit) : ReportHtml.NONE)
+                                ? ReportHtml.uncertaintyBeside(c.path("value").asDouble(), c.path("expanded_uncertainty").asDouble(), unit)
+                                + ReportHtml.k(c.path("coverage_factor")) : ReportHtml.NONE)
                         .append("</td><td>").append(ReportHtml.limit(c.path("min"), c.path("max"), unit))
                         .append("</td><td>").append(ReportHtml.NONE).append("</td><td>").append(ReportHtml.NONE)
                         .append("</td><td><b>not decided</b></td></tr>\n");
@@ -66,7 +67,8 @@ final class VerdictHtml {
             boolean pass = c.path("pass").asBoolean();
             h.append("<tr class=\"").append(pass ? "pass" : "fail").append("\"><td>").append(ReportHtml.esc(c.path("quantity").asText()))
                     .append("</td><td>").append(ReportHtml.quantity(c.path("value").asDouble(), c.path("expanded_uncertainty").asDouble(), unit))
-                    .append("</td><td>").append(ReportHtml.uncertainty(c.path("expanded_uncertainty").asDouble(), unit))
+                    .append("</td><td>").append(ReportHtml.uncertaintyBeside(c.path("value").asDouble(), c.path("expanded_uncertainty").asDouble(), unit))
+                    .append(ReportHtml.k(c.path("coverage_factor")))
                     .append("</td><td>").append(ReportHtml.limit(c.path("min"), c.path("max"), unit))
                     .append("</td><td>").append(ReportHtml.quantity(c.path("margin").asDouble(), c.path("expanded_uncertainty").asDouble(), unit))
                     .append("</td><td>").append(c.path("guard_band").asDouble() == 0 ? "none"

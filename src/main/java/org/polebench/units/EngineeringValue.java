@@ -1,6 +1,5 @@
 package org.polebench.units;
 
-import java.util.Locale;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 
@@ -35,7 +34,8 @@ public final class EngineeringValue {
         if (text == null || text.isBlank()) {
             throw new IllegalArgumentException("no value given");
         }
-        String trimmed = text.strip();
+        // what polebench prints (U+2212) reads back
+        String trimmed = text.strip().replace(MeasuredValueFormat.MINUS, "-");
         Matcher infix = INFIX.matcher(trimmed);
         if (infix.matches()) {
             String letter = infix.group(2);
@@ -70,65 +70,12 @@ public final class EngineeringValue {
         return format(value, unitSymbol, 3);
     }
 
-    /** @param significant significant digits, 1 to 15 */
+    /**
+     * @param significant significant digits, 1 to 15
+     * @see MeasuredValueFormat#engineering the one implementation: U+2212 for a minus, no negative zero
+     */
     public static String format(double value, String unitSymbol, int significant) {
-        if (significant < 1 || significant > 15) {
-            throw new IllegalArgumentException("significant digits must be 1..15, was " + significant);
-        }
-        String unit = unitSymbol == null ? "" : unitSymbol;
-        String gap = unit.isEmpty() ? "" : " ";
-        if (!Double.isFinite(value)) {
-            return value + gap + unit;
-        }
-        if (value == 0) {
-            return "0" + gap + unit;
-        }
-        double magnitude = Math.abs(value);
-        // round first, so that 999.96 prints as 1.00 k rather than 1000 
-        double rounded = roundSignificant(magnitude, significant);
-        int exponent3 = (int) Math.floor(Math.log10(rounded) / 3) * 3;
-        exponent3 = Math.max(-15, Math.min(12, exponent3));
-        double scaled = rounded / Math.pow(10, exponent3);
-        String prefix = prefixFor(exponent3);
-        String digits = stripZeros(String.format(Locale.ROOT, "%." + decimalsFor(scaled, significant) + "f", scaled));
-        String sign = value < 0 ? "-" : "";
-        String spacer = prefix.isEmpty() && unit.isEmpty() ? "" : " ";
-        return sign + digits + spacer + prefix + unit;
-    }
-
-    private static int decimalsFor(double scaled, int significant) {
-        int integerDigits = scaled < 1 ? 1 : (int) Math.floor(Math.log10(scaled)) + 1;
-        return Math.max(0, significant - integerDigits);
-    }
-
-    private static double roundSignificant(double magnitude, int significant) {
-        int exponent = (int) Math.floor(Math.log10(magnitude));
-        double factor = Math.pow(10, significant - 1 - exponent);
-        return Math.round(magnitude * factor) / factor;
-    }
-
-    private static String stripZeros(String digits) {
-        if (!digits.contains(".")) {
-            return digits;
-        }
-        String stripped = digits.replaceAll("0+$", "");
-        return stripped.endsWith(".") ? stripped.substring(0, stripped.length() - 1) : stripped;
-    }
-
-    private static String prefixFor(int exponent3) {
-        switch (exponent3) {
-            case -15: return "f";
-            case -12: return "p";
-            case -9: return "n";
-            case -6: return "µ";
-            case -3: return "m";
-            case 0: return "";
-            case 3: return "k";
-            case 6: return "M";
-            case 9: return "G";
-            case 12: return "T";
-            default: throw new IllegalArgumentException("no SI prefix for 1e" + exponent3);
-        }
+        return MeasuredValueFormat.engineering(value, unitSymbol, significant);
     }
 
     /** @return the SI prefix's factor, or NaN when the character is no prefix */

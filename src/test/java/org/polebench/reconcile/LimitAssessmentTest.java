@@ -22,8 +22,8 @@ class LimitAssessmentTest {
     private static final LimitAssessment ASSESSMENT = new LimitAssessment();
 
     private static Conformity assess(double cornerHz, double gainDb, double upperHz, DecisionRule rule) {
-        return ASSESSMENT.assess(LIMITS, new MeasuredQuantity(cornerHz, 0.5, "test"),
-                new MeasuredQuantity(gainDb, 0.25, "test"), new MeasuredQuantity(upperHz, 1000, "test"), rule);
+        return ASSESSMENT.assess(LIMITS, new MeasuredQuantity(cornerHz, 0.5, 2, "test"),
+                new MeasuredQuantity(gainDb, 0.25, 2, "test"), new MeasuredQuantity(upperHz, 1000, 2, "test"), rule);
     }
 
     private static boolean passes(Conformity conformity, String quantity) {
@@ -87,8 +87,8 @@ class LimitAssessmentTest {
     // never passed; with no failing decided check the result is incomplete
     @Test
     void aQuantityTheSweepDoesNotDetermineLeavesItsLimitNotDecidedAndTheResultIncomplete() {
-        Conformity conformity = ASSESSMENT.assess(LIMITS, new MeasuredQuantity(15, 0.5, "test"),
-                new MeasuredQuantity(53, 0.25, "test"), MeasuredQuantity.absent(NotDecided.OUTSIDE_SWEPT_BAND),
+        Conformity conformity = ASSESSMENT.assess(LIMITS, new MeasuredQuantity(15, 0.5, 2, "test"),
+                new MeasuredQuantity(53, 0.25, 2, "test"), MeasuredQuantity.absent(NotDecided.OUTSIDE_SWEPT_BAND),
                 DecisionRule.SIMPLE);
         assertEquals(2, conformity.verdict().checks().size());
         assertEquals(1, conformity.verdict().notDecided().size());
@@ -103,8 +103,8 @@ class LimitAssessmentTest {
     @Test
     void aValueShownOnlyFromTheModelIsNotDecidedEvenWellInsideItsLimit() {
         Conformity conformity = ASSESSMENT.assess(LIMITS,
-                MeasuredQuantity.shownOnly(15, 0.5, "model", NotDecided.FROM_MODEL_ONLY),
-                new MeasuredQuantity(53, 0.25, "test"), new MeasuredQuantity(60_000, 1000, "test"),
+                MeasuredQuantity.shownOnly(15, 0.5, 2, "model", NotDecided.FROM_MODEL_ONLY),
+                new MeasuredQuantity(53, 0.25, 2, "test"), new MeasuredQuantity(60_000, 1000, 2, "test"),
                 DecisionRule.SIMPLE);
         assertEquals(OverallResult.INCOMPLETE, conformity.verdict().overall());
         NotDecidedCheck lower = conformity.verdict().notDecided().get(0);
@@ -114,8 +114,8 @@ class LimitAssessmentTest {
 
     @Test
     void aFailingDecidedCheckMakesTheResultFailEvenWithALimitNotDecided() {
-        Conformity conformity = ASSESSMENT.assess(LIMITS, new MeasuredQuantity(25, 0.5, "test"),
-                MeasuredQuantity.shownOnly(53, 0.25, "model", NotDecided.FIT_DOES_NOT_DESCRIBE_SWEEP),
+        Conformity conformity = ASSESSMENT.assess(LIMITS, new MeasuredQuantity(25, 0.5, 2, "test"),
+                MeasuredQuantity.shownOnly(53, 0.25, 2, "model", NotDecided.FIT_DOES_NOT_DESCRIBE_SWEEP),
                 MeasuredQuantity.absent(NotDecided.OUTSIDE_SWEPT_BAND), DecisionRule.SIMPLE);
         assertEquals(OverallResult.FAIL, conformity.verdict().overall());
         assertEquals(2, conformity.verdict().notDecided().size());
@@ -124,7 +124,7 @@ class LimitAssessmentTest {
     @Test
     void onlyTheLimitsTheStageNamesAreAssessed() {
         Limits onlyLower = new Limits(OptionalDouble.of(20), NONE, NONE, NONE, NONE, 0);
-        Verdict verdict = ASSESSMENT.assess(onlyLower, new MeasuredQuantity(15, 0.5, "test"),
+        Verdict verdict = ASSESSMENT.assess(onlyLower, new MeasuredQuantity(15, 0.5, 2, "test"),
                 MeasuredQuantity.absent(NotDecided.MIDBAND_NOT_REACHED),
                 MeasuredQuantity.absent(NotDecided.OUTSIDE_SWEPT_BAND), DecisionRule.SIMPLE).verdict();
         assertEquals(1, verdict.checks().size());

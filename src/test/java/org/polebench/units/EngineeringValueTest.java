@@ -50,7 +50,7 @@ class EngineeringValueTest {
         assertEquals("4.7 µF", EngineeringValue.format(4.7e-6, "F"));
         assertEquals("1 kΩ", EngineeringValue.format(999.96, "Ω"));
         assertEquals("15.9 Hz", EngineeringValue.format(15.9155, "Hz"));
-        assertEquals("-2.2 MΩ", EngineeringValue.format(-2.2e6, "Ω"));
+        assertEquals("−2.2 MΩ", EngineeringValue.format(-2.2e6, "Ω")); // U+2212, the printed minus (issue 14)
         assertEquals("0 F", EngineeringValue.format(0, "F"));
     }
 
