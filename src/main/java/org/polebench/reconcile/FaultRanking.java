@@ -72,11 +72,17 @@ public final class FaultRanking {
     public static final double NO_FAULT_PRIOR = 0.45;
     /**
      * The measuring-chain hypotheses' share: an AC-coupled output channel takes
-     * {@value #AC_CHANNEL_SHARE} of it, a coupling mismatch between two channels the rest. Taken
-     * from "no fault": a bench mistake is a healthy board measured wrongly.
+     * {@value #AC_CHANNEL_SHARE} of it, a generator resistance the stage leaves out
+     * {@value #GENERATOR_SHARE} (where the gain is read against the source EMF), a coupling
+     * mismatch between two channels the rest. Taken from "no fault": a bench mistake is a
+     * healthy board measured wrongly.
      */
     public static final double BENCH_PRIOR = 0.05;
-    static final double AC_CHANNEL_SHARE = 0.7;
+    static final double AC_CHANNEL_SHARE = 0.6;
+    /** The share of a generator output resistance the stage file leaves out (the rest: two couplings). */
+    static final double GENERATOR_SHARE = 0.2;
+    /** A function generator's output resistance (the common 50 Ω; common practice). */
+    public static final double GENERATOR_OHMS = 50;
     /**
      * The prior of an AC coupling's corner: log-normal about 3.3 Hz, σ = ln 3 (a scope's AC
      * coupling sits at a few hertz, about 1 to 10 Hz; common practice, from memory).
@@ -134,7 +140,30 @@ public final class FaultRanking {
         MeasuredResponse measured = new MeasuredResponse(sweep, DEFAULT_GAIN_SIGMA_DB, DEFAULT_PHASE_SIGMA_DEG);
         BoardModel model = new BoardModel(stage, nominalPoints, nominalModel, measured.frequenciesHz());
         return new HypothesisSearch(model, measured, parameters(stage, nominalPoints, model, declared),
-                () -> new BoardModel(stage, nominalPoints, nominalModel, measured.frequenciesHz()), helper, declared);
+                () -> new BoardModel(stage, nominalPoints, nominalModel, measured.frequenciesHz()), helper, declared,
+                declared.stated() ? null : generatorModel(stage, nominalPoints, measured.frequenciesHz()));
+    }
+
+    /**
+     * @return the board model of the stage with a {@value #GENERATOR_OHMS} Ω generator output
+     *         resistance in series with its source; null where the gain is read against the input
+     *         node (a source resistance then changes nothing read) or that stage cannot be solved
+     */
+    private static BoardModel generatorModel(Stage stage, OperatingPoints points, double[] frequenciesHz) {
+        if (stage.input().reference() != org.polebench.circuit.GainReference.SOURCE_EMF) {
+            return null;
+        }
+        org.polebench.circuit.StageInput in = stage.input();
+        Stage loaded = new Stage(stage.name(), stage.sourceFile(), stage.ground(), stage.supplies(),
+                new org.polebench.circuit.StageInput(in.node(), in.sourceOhms() + GENERATOR_OHMS, in.reference(), in.line()),
+                stage.output(), stage.limits(), stage.temperatureKelvin(), stage.gainCalibrationDb(), stage.parts());
+        try {
+            StateModel low = new org.polebench.spread.StageAnalysis().predictNetwork(loaded,
+                    new org.polebench.circuit.SmallSignalExpansion().expand(loaded, points)).lowBand();
+            return new BoardModel(loaded, points, low, frequenciesHz);
+        } catch (org.polebench.InputProblem singular) {
+            return null;
+        }
     }
 
     /** @return the back-solve's parameters for this stage, in model order, with no bench declared */

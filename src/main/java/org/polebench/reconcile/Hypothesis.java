@@ -44,7 +44,8 @@ public record Hypothesis(HypothesisKind kind, List<PartReading> faults, double p
             return label(faults.get(0)) + " and " + label(faults.get(1));
         }
         if (kind == HypothesisKind.BENCH) {
-            return faults.size() > 1 ? "unequal channel AC couplings" : "AC-coupled output channel";
+            return faults.isEmpty() ? "generator output resistance"
+                    : faults.size() > 1 ? "unequal channel AC couplings" : "AC-coupled output channel";
         }
         return label(faults.get(0));
     }
@@ -53,6 +54,9 @@ public record Hypothesis(HypothesisKind kind, List<PartReading> faults, double p
     public Optional<String> element() {
         if (kind != HypothesisKind.BENCH) {
             return Optional.empty();
+        }
+        if (faults.isEmpty()) {
+            return Optional.of("generator");
         }
         return Optional.of(faults.stream().map(f -> f.estimate().parameter().label())
                 .collect(java.util.stream.Collectors.joining(" and ")));

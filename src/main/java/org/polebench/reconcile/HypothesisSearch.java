@@ -36,6 +36,8 @@ final class HypothesisSearch {
     private final ChannelCouplings couplings;
     /** The couplings a bench file declares: present in every hypothesis; none ranked as a fault. */
     private final DeclaredChain declared;
+    /** The stage with a generator's output resistance in series, or null (see the constructor). */
+    private final BoardModel generatorModel;
     private final List<Candidate> candidates = new ArrayList<>();
     private boolean pairsRanked;
     private Diagnosis last;
@@ -55,6 +57,8 @@ final class HypothesisSearch {
         final Misfit misfit;
         /** Whether its misfit belongs to the second board model (and so to the helper thread). */
         boolean second;
+        /** A board model of its own (the stage with a generator resistance), or null for the search's. */
+        BoardModel own;
         MapPoint stated;
         /** Its point needs no convergence run (a resistor judged by one Gauss–Newton step). */
         boolean settled;
@@ -81,6 +85,19 @@ final class HypothesisSearch {
      */
     HypothesisSearch(BoardModel model, MeasuredResponse measured, List<ModelParameter> parameters,
                      Supplier<BoardModel> secondModel, Executor helper, DeclaredChain declared) {
+        this(model, measured, parameters, secondModel, helper, declared, null);
+    }
+
+    /**
+     * @param generatorModel the board model of the stage with a generator's output resistance
+     *                       the stage file leaves out ({@link FaultRanking#GENERATOR_OHMS} in
+     *                       series with its source), for the measuring-chain hypothesis of that
+     *                       generator; null for none
+     */
+    HypothesisSearch(BoardModel model, MeasuredResponse measured, List<ModelParameter> parameters,
+                     Supplier<BoardModel> secondModel, Executor helper, DeclaredChain declared,
+                     BoardModel generatorModel) {
+        this.generatorModel = generatorModel;
         this.declared = declared;
         this.secondModel = helper == null ? null : secondModel;
         this.helper = secondModel == null ? null : helper;
@@ -183,9 +200,21 @@ final class HypothesisSearch {
         int input = couplingIndices.get(1);
         double[][] corners = {{1, 0}, {3.3, 0}, {10, 0}};
         double[][] pairs = {{2, 5}, {5, 2}};
+        double generatorShare = generatorModel == null ? 0 : FaultRanking.GENERATOR_SHARE;
         addBench(new int[] {output}, FaultRanking.BENCH_PRIOR * FaultRanking.AC_CHANNEL_SHARE, corners, noFault);
-        addBench(new int[] {output, input}, FaultRanking.BENCH_PRIOR * (1 - FaultRanking.AC_CHANNEL_SHARE), pairs,
-                noFault);
+        addBench(new int[] {output, input},
+                FaultRanking.BENCH_PRIOR * (1 - FaultRanking.AC_CHANNEL_SHARE - generatorShare), pairs, noFault);
+        if (generatorModel != null) {
+            // the board with nothing freed, seen through a generator resistance the stage leaves out
+            Candidate generator = new Candidate(HypothesisKind.BENCH, new int[0], tolerance, baseActive,
+                    Math.log(FaultRanking.BENCH_PRIOR * generatorShare),
+                    misfit(generatorModel, tolerance, baseActive, 1, 1));
+            generator.own = generatorModel;
+            generator.stated = solve(generator.misfit, List.of(noFault.theta(), mean), networkHeld);
+            if (generator.stated != null) {
+                candidates.add(generator);
+            }
+        }
     }
 
     private void addBench(int[] freed, double prior, double[][] startsHz, MapPoint noFault) {
@@ -543,7 +572,8 @@ final class HypothesisSearch {
         List<Misfit> scaled = new ArrayList<>();
         for (Candidate candidate : candidates) {
             scaled.add(magnitudeScale > 1 || phaseScale > 1
-                    ? misfit(candidate.priors, candidate.active, magnitudeScale, phaseScale) : candidate.misfit);
+                    ? misfit(candidate.own != null ? candidate.own : model, candidate.priors, candidate.active,
+                    magnitudeScale, phaseScale) : candidate.misfit);
         }
         if (Math.abs(Math.log(magnitudeScale / phaseScale)) > Math.log(REWEIGHT_RATIO)) {
             // the weighting of gain against phase changed: the MAPs move, not only the widths

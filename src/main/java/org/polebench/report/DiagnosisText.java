@@ -6,6 +6,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Optional;
 import org.polebench.reconcile.Diagnosis;
+import org.polebench.reconcile.FaultRanking;
 import org.polebench.reconcile.Hypothesis;
 import org.polebench.reconcile.HypothesisKind;
 import org.polebench.reconcile.ModelAdequacy;
@@ -42,6 +43,11 @@ public final class DiagnosisText {
 
     // what a measuring-chain hypothesis looks like on the bench, and what to do about it
     private static String bench(Hypothesis hypothesis) {
+        if (hypothesis.faults().isEmpty()) {
+            return "looks measured from a generator whose " + EngineeringValue.format(FaultRanking.GENERATOR_OHMS, "Ω", 2)
+                    + " output resistance the stage file leaves out: add it to the stage's source resistance, or "
+                    + "declare it in a bench file (generator: output-resistance)";
+        }
         for (PartReading reading : hypothesis.faults()) {
             if (!reading.estimate().identifiable()) {
                 return "a measuring channel's AC coupling cannot be identified from this sweep (its corner lies "
