@@ -3,8 +3,10 @@ package org.polebench.cli;
 import java.io.IOException;
 import java.io.PrintWriter;
 import java.io.UncheckedIOException;
+import java.nio.file.FileSystemException;
 import java.util.List;
 import org.polebench.InputProblem;
+import org.polebench.OutputFile;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
 
@@ -91,6 +93,11 @@ public final class Main implements Runnable {
         if (failure instanceof InputProblem) {
             err.println("polebench: " + ((InputProblem) failure).describe());
             return ExitCodes.BAD_INPUT;
+        }
+        if (failure instanceof FileSystemException) {
+            // its message is the bare path; say the cause (permission denied, no space left) beside it
+            err.println("polebench: " + OutputFile.cause((FileSystemException) failure));
+            return ExitCodes.INSTRUMENT_OR_IO;
         }
         if (failure instanceof IOException || failure instanceof UncheckedIOException) {
             err.println("polebench: " + failure.getMessage());
