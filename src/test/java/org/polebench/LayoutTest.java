@@ -63,7 +63,7 @@ class LayoutTest {
         for (Path file : mainSources()) {
             String pkg = MAIN.relativize(file).getName(0).toString();
             if (file.getParent().equals(MAIN)) {
-                continue;   // the root package: InputProblem and InputWarning, which use none
+                continue;   // the root package: InputProblem, InputWarning and OutputFile, which use none
             }
             violations.addAll(violations(pkg, MAIN.relativize(file).toString(),
                     Files.readString(file, StandardCharsets.UTF_8)));

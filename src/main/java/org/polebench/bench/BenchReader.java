@@ -190,10 +190,13 @@ public final class BenchReader {
         double value(YamlNode node, Quantity quantity, String what, String example) throws InputProblem {
             String text = text(node, what);
             try {
-                return EngineeringValue.parse(text, quantity);
+                // a capacitance states its scale: a bare 15 would be 15 F (EngineeringValue.capacitance)
+                return quantity == Quantity.FARADS ? EngineeringValue.capacitance(text).value()
+                        : EngineeringValue.parse(text, quantity);
             } catch (IllegalArgumentException e) {
                 throw new InputProblem(file, node.line(), what + ": " + e.getMessage(),
-                        String.format(Locale.ROOT, "write a number in engineering notation, e.g. %s", example));
+                        String.format(Locale.ROOT, "write a number in engineering notation, e.g. %s", example)
+                                + (quantity == Quantity.FARADS ? ", or with the unit F when farads are meant" : ""));
             }
         }
 

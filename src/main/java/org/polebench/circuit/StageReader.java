@@ -714,12 +714,29 @@ public final class StageReader {
         private double parse(String text, Quantity quantity, int line, String what, String example)
                 throws InputProblem {
             try {
+                if (quantity == Quantity.FARADS) {
+                    return capacitance(text, line, what);
+                }
                 return EngineeringValue.parse(text, quantity);
             } catch (IllegalArgumentException e) {
+                if (quantity == Quantity.FARADS) {
+                    throw problem(line, what + ": " + e.getMessage(), "write the value with an SI prefix, such as " + example
+                            + ", or with the unit F when farads are meant");
+                }
                 String unit = quantity.symbol().isEmpty() ? "" : " (unit " + quantity.symbol() + " optional)";
                 throw problem(line, what + ": " + e.getMessage(), "write a number in engineering notation, such as "
                         + example + unit);
             }
+        }
+
+        /** A capacitance must say its scale (EngineeringValue.capacitance); milli is read as written, with a warning. */
+        private double capacitance(String text, int line, String what) {
+            EngineeringValue.Written written = EngineeringValue.capacitance(text);
+            if (written.milli()) {
+                warn(line, what + ": '" + text + "' is read as " + EngineeringValue.format(written.value(), "F")
+                        + " (m is milli, 1 mF = 1000 µF); if microfarads are meant, write u or µ");
+            }
+            return written.value();
         }
 
         private String text(YamlNode node, String what) throws InputProblem {

@@ -102,6 +102,11 @@ public final class InspectCommand implements Callable<Integer> {
         out.println("profile:   " + imported.profileName());
         out.println("mapping:   " + imported.mapping());
         out.println("points:    " + sweep.size() + (sweep.hasPhase() ? " (gain and phase)" : " (gain only)"));
+        // warnings before the figures read from the data (issue 14)
+        out.println("warnings:  " + (imported.warnings().isEmpty() ? "none" : imported.warnings().size()));
+        for (InputWarning warning : imported.warnings()) {
+            out.println("  " + warning.describe());
+        }
         out.println("band:      " + EngineeringValue.format(sweep.lowestHz(), "Hz", 4) + " to "
                 + EngineeringValue.format(sweep.highestHz(), "Hz", 4));
         out.println("midband:   " + String.format(Locale.ROOT, "%.2f dB", corner.midbandGainDb())
@@ -116,10 +121,6 @@ public final class InspectCommand implements Callable<Integer> {
         sweep.source().captured().ifPresent(when -> out.println("captured:  " + when));
         if (export != null) {
             out.println("exported:  " + export);
-        }
-        out.println("warnings:  " + (imported.warnings().isEmpty() ? "none" : imported.warnings().size()));
-        for (InputWarning warning : imported.warnings()) {
-            out.println("  " + warning.describe());
         }
     }
 }

@@ -3,10 +3,13 @@ package org.polebench.cli;
 import java.io.IOException;
 import java.io.PrintWriter;
 import java.io.UncheckedIOException;
+import java.nio.file.FileSystemException;
 import java.util.List;
 import org.polebench.InputProblem;
+import org.polebench.OutputFile;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.UsageMessageSpec;
 
 /** The {@code polebench} command: subcommands, version, and the mapping of problems to exit codes. */
 @Command(name = "polebench",
@@ -58,6 +61,9 @@ public final class Main implements Runnable {
         }
         line.setOut(out);
         line.setErr(err);
+        line.setUsageHelpAutoWidth(true);
+        keepExamplesWhole(line);
+        line.setParameterExceptionHandler(Main::usageError);
         line.setExecutionExceptionHandler(Main::handle);
         int code = line.execute(args);
         out.flush();
@@ -86,11 +92,56 @@ public final class Main implements Runnable {
         spec.commandLine().usage(spec.commandLine().getOut());
     }
 
+    /**
+     * Sets each command's footer (its examples) line by line as written, never wrapped at the
+     * usage width: an example broken across lines, or a quoted argument split in two, cannot be
+     * copied. The rest of the help wraps at the terminal's width (picocli's auto width, 80
+     * columns when there is no terminal).
+     */
+    private static void keepExamplesWhole(CommandLine line) {
+        line.getHelpSectionMap().put(UsageMessageSpec.SECTION_KEY_FOOTER, help -> {
+            StringBuilder text = new StringBuilder();
+            for (String example : help.commandSpec().usageMessage().footer()) {
+                // picocli's footers are format strings; ours use no specifier but the escaped percent
+                text.append(example.replace("%%", "%")).append(System.lineSeparator());
+            }
+            return text.toString();
+        });
+        for (CommandLine sub : line.getSubcommands().values()) {
+            keepExamplesWhole(sub);
+        }
+    }
+
+    /**
+     * A usage error (an unknown option, a missing parameter, a value picocli cannot convert) in
+     * the project's own form, as an {@link InputProblem} is printed: {@code polebench: …} and a
+     * {@code fix:} line, with picocli's suggestions for a misspelt name; exit code 2.
+     */
+    private static int usageError(CommandLine.ParameterException failure, String[] args) {
+        CommandLine line = failure.getCommandLine();
+        String command = line.getCommandSpec().qualifiedName();
+        List<String> near = new java.util.ArrayList<>();
+        if (failure instanceof CommandLine.UnmatchedArgumentException) {
+            for (String suggestion : ((CommandLine.UnmatchedArgumentException) failure).getSuggestions()) {
+                near.add(line.getSubcommands().containsKey(suggestion) ? command + " " + suggestion : suggestion);
+            }
+        }
+        String hint = (near.isEmpty() ? "" : "did you mean " + String.join(" or ", near) + "? ")
+                + "see '" + command + " --help'";
+        line.getErr().println("polebench: " + new InputProblem(null, 0, failure.getMessage(), hint).describe());
+        return ExitCodes.BAD_INPUT;
+    }
+
     private static int handle(Exception failure, CommandLine line, CommandLine.ParseResult parsed) {
         PrintWriter err = line.getErr();
         if (failure instanceof InputProblem) {
             err.println("polebench: " + ((InputProblem) failure).describe());
             return ExitCodes.BAD_INPUT;
+        }
+        if (failure instanceof FileSystemException) {
+            // its message is the bare path; say the cause (permission denied, no space left) beside it
+            err.println("polebench: " + OutputFile.cause((FileSystemException) failure));
+            return ExitCodes.INSTRUMENT_OR_IO;
         }
         if (failure instanceof IOException || failure instanceof UncheckedIOException) {
             err.println("polebench: " + failure.getMessage());

@@ -142,6 +142,9 @@ final class ReconcileCommand implements Callable<Integer> {
         } else {
             out.println("Stage file: " + stageFile);
             out.println("Sweep file: " + sweepFile + " (profile " + imported.profileName() + ")");
+            for (InputWarning warning : predicted.warnings()) {
+                out.println("stage warning: " + warning.describe());
+            }
             for (InputWarning warning : imported.warnings()) {
                 out.println("import warning: " + warning.describe());
             }

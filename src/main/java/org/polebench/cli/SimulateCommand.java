@@ -106,6 +106,7 @@ final class SimulateCommand implements Callable<Integer> {
         List<Fault> asBuilt = new ArrayList<>();
         for (String text : faults) {
             asBuilt.add(FaultText.parse(text, designed));
+            FaultText.caution(text, designed).ifPresent(c -> spec.commandLine().getErr().println("polebench: warning: " + c));
         }
         Optional<Bench> bench = benchFile != null ? Optional.of(new BenchReader().read(benchFile)) : profile.bench();
         BoardResponse board = bench.isPresent()

@@ -97,6 +97,7 @@ final class SynthesizeCommand implements Callable<Integer> {
         List<Fault> parsed = new ArrayList<>();
         for (String fault : faults) {
             parsed.add(FaultText.parse(fault, stage));
+            FaultText.caution(fault, stage).ifPresent(c -> spec.commandLine().getErr().println("polebench: warning: " + c));
         }
         SweepNoise sweepNoise = FaultText.noise(noise);
         double corner = Double.NaN;

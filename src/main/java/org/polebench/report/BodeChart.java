@@ -29,6 +29,7 @@ import org.jfree.data.xy.XYSeriesCollection;
 import org.jfree.data.xy.YIntervalSeries;
 import org.jfree.data.xy.YIntervalSeriesCollection;
 import org.polebench.InputProblem;
+import org.polebench.OutputFile;
 import org.polebench.fit.FitResult;
 import org.polebench.fit.FittedModel;
 import org.polebench.sweep.Sweep;
@@ -218,7 +219,8 @@ public final class BodeChart {
     }
 
     /**
-     * Writes the chart to a file ending in .svg or .png (900 × 700 pixels).
+     * Writes the chart to a file ending in .svg or .png (900 × 700 pixels), replacing it
+     * atomically ({@link OutputFile}; the caller has asked whether it may).
      *
      * @throws InputProblem when the file name has neither ending
      * @throws IOException  when the file cannot be written
@@ -226,9 +228,11 @@ public final class BodeChart {
     public void write(Path file) throws IOException, InputProblem {
         String name = file.getFileName().toString().toLowerCase(Locale.ROOT);
         if (name.endsWith(".svg")) {
-            Files.write(file, svg(900, 700).getBytes(StandardCharsets.UTF_8));
+            byte[] bytes = svg(900, 700).getBytes(StandardCharsets.UTF_8);
+            OutputFile.write(file, true, out -> out.write(bytes));
         } else if (name.endsWith(".png")) {
-            Files.write(file, png(900, 700));
+            byte[] bytes = png(900, 700);
+            OutputFile.write(file, true, out -> out.write(bytes));
         } else {
             throw new InputProblem(null, 0, "cannot tell the plot format of '" + file.getFileName() + "'",
                     "name the plot file FILE.svg or FILE.png");

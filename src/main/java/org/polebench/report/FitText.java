@@ -17,9 +17,9 @@ import org.polebench.fit.RootStatus;
 import org.polebench.fit.UncertaintyBasis;
 
 /**
- * The fit as a plain-text summary for a terminal: model, every pole and zero with u and U,
- * both lower corners labelled for what they are, fit quality, the parameter correlations and
- * the warnings. Uncertainties are rounded to two significant figures and values to match
+ * The fit as a plain-text summary for a terminal: the warnings first, then the model, every
+ * pole and zero with u and U, both lower corners labelled for what they are, fit quality and
+ * the parameter correlations. Uncertainties are rounded to two significant figures and values to match
  * (GUM, JCGM 100:2008, 7.2.6).
  */
 public final class FitText {
@@ -28,6 +28,15 @@ public final class FitText {
     public String format(FitResult result) {
         StringBuilder out = new StringBuilder();
         long tried = result.candidates().size();
+        // warnings first, so that they are read before the figures they qualify (issue 14)
+        out.append("Warnings").append(NL);
+        if (result.warnings().isEmpty()) {
+            out.append("  none").append(NL);
+        }
+        for (InputWarning warning : result.warnings()) {
+            out.append("  - ").append(warning.describe()).append(NL);
+        }
+        out.append(NL);
         out.append("Fitted low-frequency model: ").append(result.structure().describe()).append(NL);
         out.append("  order chosen by BIC from ").append(tried).append(tried == 1 ? " candidate" : " candidates")
                 .append("; every expanded uncertainty U = k·u with k = ")
@@ -61,13 +70,6 @@ public final class FitText {
         out.append("    (both at midband - 3.01 dB, the midband taken from the fit)").append(NL);
         quality(out, result.quality());
         correlation(out, result);
-        out.append(NL).append("Warnings").append(NL);
-        if (result.warnings().isEmpty()) {
-            out.append("  none").append(NL);
-        }
-        for (InputWarning warning : result.warnings()) {
-            out.append("  - ").append(warning.describe()).append(NL);
-        }
         return out.toString();
     }
 

@@ -21,6 +21,14 @@ public final class PredictionText {
         Prediction prediction = result.prediction();
         out.println("Stage: " + result.stage().name());
         out.println();
+        // warnings first, so that a doubtful value is read before the figures it feeds (issue 14)
+        if (!result.warnings().isEmpty()) {
+            out.println("Warnings");
+            for (InputWarning warning : result.warnings()) {
+                out.println("  " + warning.describe());
+            }
+            out.println();
+        }
         out.println("Operating points");
         for (OperatingPoint point : result.operatingPoints().transistors()) {
             out.println("  " + describe(point));
@@ -74,13 +82,6 @@ public final class PredictionText {
         out.println("Low-band poles (Hz, s/2π): " + roots(prediction.poles().roots()));
         out.println("Low-band zeros (Hz, s/2π): " + (prediction.zeros().isPresent()
                 ? roots(prediction.zeros().get().roots()) : "not defined (midband gain is 0)"));
-        if (!result.warnings().isEmpty()) {
-            out.println();
-            out.println("Warnings");
-            for (InputWarning warning : result.warnings()) {
-                out.println("  " + warning.describe());
-            }
-        }
     }
 
     static String roots(List<ComplexFrequency> roots) {

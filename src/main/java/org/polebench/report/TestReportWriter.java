@@ -8,12 +8,13 @@ import java.nio.file.DirectoryStream;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
-import java.nio.file.attribute.PosixFilePermissions;
 import java.time.Instant;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.concurrent.ThreadLocalRandom;
 import org.jfree.chart.JFreeChart;
 import org.polebench.InputProblem;
+import org.polebench.OutputFile;
 
 /**
  * Writes a test report folder from a result's JSON object: {@code report.html} (self-contained),
@@ -56,7 +57,7 @@ public final class TestReportWriter {
             throws InputProblem, IOException {
         Path target = dir.toAbsolutePath().normalize();
         if (Files.exists(target) && !Files.isDirectory(target)) {
-            throw new InputProblem(dir, 0, "the report folder " + dir + " is a file", "name a folder for --report/--out");
+            throw new InputProblem(dir, 0, "the report folder " + dir + " is a file, not a folder", "name a folder for --report/--out");
         }
         List<String> existing = new ArrayList<>();
         if (Files.isDirectory(target)) {
@@ -74,12 +75,16 @@ public final class TestReportWriter {
         ReportStamp stamp = ReportStamp.issue(resultText, now);
         Path parent = target.getParent();
         Files.createDirectories(parent);
-        Path temp = Files.createTempDirectory(parent, ".polebench-report-");
+        // created with default attributes, so that the report folder it becomes, and the files in
+        // it, have the permissions the user's umask gives (createTempDirectory would make it 700)
+        Path temp = parent.resolve(".polebench-report-"
+                + Long.toUnsignedString(ThreadLocalRandom.current().nextLong(), 36));
         try {
-            // a temporary folder is private (700); the report folder it becomes should read like any other
-            if (Files.getFileStore(temp).supportsFileAttributeView("posix")) {
-                Files.setPosixFilePermissions(temp, PosixFilePermissions.fromString("rwxr-xr-x"));
-            }
+            Files.createDirectory(temp);
+        } catch (IOException e) {
+            throw OutputFile.failure(dir, e);
+        }
+        try {
             byte[] resultBytes = resultText.getBytes(StandardCharsets.UTF_8);
             Files.write(temp.resolve(RESULT), resultBytes);
             Files.writeString(temp.resolve(HTML), html.render(root, FileDigest.sha256(resultBytes), stamp),
@@ -101,6 +106,8 @@ public final class TestReportWriter {
                     }
                 }
             }
+        } catch (IOException e) {
+            throw OutputFile.failure(dir, e);
         } finally {
             removeIfPresent(temp);
         }

@@ -11,7 +11,6 @@ import java.nio.channels.FileChannel;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.nio.file.StandardCopyOption;
 import java.nio.file.StandardOpenOption;
 import java.util.ArrayList;
 import java.util.List;
@@ -19,6 +18,7 @@ import java.util.Locale;
 import java.util.Optional;
 import java.util.OptionalDouble;
 import org.polebench.InputProblem;
+import org.polebench.OutputFile;
 import org.polebench.sweep.PhaseUnwrap;
 import org.polebench.sweep.Provenance;
 import org.polebench.sweep.SweepPoint;
@@ -259,10 +259,9 @@ public final class AppendedSweep implements Closeable {
             shifted.add(new SweepPoint(p.frequencyHz(), p.gainDb(), OptionalDouble.of(p.phaseDeg().getAsDouble() + shift),
                     p.gainUncertaintyDb(), p.phaseUncertaintyDeg()));
         }
-        Path temporary = Files.createTempFile(file.toAbsolutePath().getParent(), "." + file.getFileName(), ".part");
         try {
-            try (Writer writer = new BufferedWriter(new OutputStreamWriter(Files.newOutputStream(temporary),
-                    StandardCharsets.UTF_8))) {
+            OutputFile.write(file, true, stream -> {
+                Writer writer = new BufferedWriter(new OutputStreamWriter(stream, StandardCharsets.UTF_8));
                 for (String line : comments) {
                     writer.write(line);
                     writer.write('\n');
@@ -275,10 +274,11 @@ public final class AppendedSweep implements Closeable {
                     SweepWriter.canonicalRow(p, phase, uGain, uPhase, text);
                     writer.append(text).append('\n');
                 }
-            }
-            Files.move(temporary, file, StandardCopyOption.REPLACE_EXISTING, StandardCopyOption.ATOMIC_MOVE);
-        } finally {
-            Files.deleteIfExists(temporary);
+                writer.flush();
+            });
+        } catch (InputProblem e) {
+            // the file is the capture's own, made by create(): a regular file it may replace
+            throw new IllegalStateException("the capture's own file cannot be rewritten: " + e.describe(), e);
         }
         points.clear();
         points.addAll(shifted);

@@ -6,15 +6,14 @@ import java.io.IOException;
 import java.io.OutputStreamWriter;
 import java.io.Writer;
 import java.nio.charset.CodingErrorAction;
-import java.nio.file.FileAlreadyExistsException;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.nio.file.StandardCopyOption;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
 import java.util.Optional;
 import org.polebench.InputProblem;
+import org.polebench.OutputFile;
 import org.polebench.profile.ColumnRef;
 import org.polebench.profile.Delimiter;
 import org.polebench.profile.GainForm;
@@ -345,29 +344,12 @@ public final class SweepWriter {
 
     private static void write(Path target, boolean overwrite, TextEncoding encoding, Body body)
             throws InputProblem, IOException {
-        if (!overwrite && Files.exists(target)) {
-            throw new InputProblem(target, 0, "the file exists and is left as it is",
-                    "choose another name, or ask to overwrite it (--force)");
-        }
-        Path directory = target.toAbsolutePath().getParent();
-        Files.createDirectories(directory);
-        Path temporary = Files.createTempFile(directory, "." + target.getFileName(), ".part");
-        try {
-            try (Writer out = new BufferedWriter(new OutputStreamWriter(Files.newOutputStream(temporary),
+        OutputFile.write(target, overwrite, stream -> {
+            Writer out = new BufferedWriter(new OutputStreamWriter(stream,
                     encoding.charset().newEncoder().onUnmappableCharacter(CodingErrorAction.REPLACE)
-                            .onMalformedInput(CodingErrorAction.REPLACE)), 1 << 16)) {
-                body.writeTo(out);
-            }
-            if (overwrite) {
-                Files.move(temporary, target, StandardCopyOption.REPLACE_EXISTING, StandardCopyOption.ATOMIC_MOVE);
-            } else {
-                Files.move(temporary, target);
-            }
-        } catch (FileAlreadyExistsException e) {
-            throw new InputProblem(target, 0, "the file appeared while it was being written and is left as it is",
-                    "choose another name, or ask to overwrite it (--force)");
-        } finally {
-            Files.deleteIfExists(temporary);
-        }
+                            .onMalformedInput(CodingErrorAction.REPLACE)), 1 << 16);
+            body.writeTo(out);
+            out.flush();
+        });
     }
 }

@@ -24,6 +24,7 @@ import java.util.Locale;
 import java.util.Optional;
 import org.polebench.InputProblem;
 import org.polebench.profile.ColumnRef;
+import org.polebench.profile.Delimiter;
 import org.polebench.profile.TableColumns;
 import org.polebench.profile.TableLayout;
 import org.polebench.profile.TableProfile;
@@ -56,6 +57,9 @@ final class TableSweepParser {
     private final List<String> mapping = new ArrayList<>();
     private SweepAssembly assembly;
     private boolean rowRejected;
+    /** cells the header row names (0 when the columns are numbered), and its line */
+    private int headerCells;
+    private int headerLine;
 
     TableSweepParser(Path file, TableProfile profile) {
         this.file = file;
@@ -173,6 +177,8 @@ final class TableSweepParser {
 
     private void resolveHeader(int lineNo, String line) throws InputProblem {
         int count = splitter.split(line);
+        headerLine = lineNo;
+        headerCells = filledCells(count);
         List<String> header = new ArrayList<>(count);
         for (int i = 0; i < count; i++) {
             header.add(splitter.text(i));
@@ -225,19 +231,19 @@ final class TableSweepParser {
         return quoted.isEmpty() ? "no cells" : String.join(", ", quoted);
     }
 
-    private void readRow(int lineNo, String line) {
+    private void readRow(int lineNo, String line) throws InputProblem {
         int count = splitter.split(line);
         if (splitter.unclosedQuote()) {
             tally.add("unclosed quotes", lineNo, "a quote opened in this row is never closed; row skipped");
             return;
         }
-        boolean blank = true;
-        for (int i = 0; i < count && blank; i++) {
-            blank = splitter.blank(i);
-        }
-        if (blank) {
+        int filled = filledCells(count);
+        if (filled == 0) {
             tally.add("empty rows", lineNo, "empty row (delimiters only); skipped");
             return;
+        }
+        if (headerCells > 0 && filled > headerCells) {
+            throw moreCellsThanHeader(lineNo, filled);
         }
         double frequency = reading(line, lineNo, frequencyColumn, "frequency", false);
         if (Double.isNaN(frequency)) {
@@ -275,6 +281,32 @@ final class TableSweepParser {
             return;
         }
         assembly.offer(lineNo, frequency, gain, input, output, phase, uGain, uPhase);
+    }
+
+    /**
+     * @return the cells up to the last one that is not blank: a trailing delimiter, as some
+     *         instruments write, adds no cell
+     */
+    private int filledCells(int count) {
+        int filled = count;
+        while (filled > 0 && splitter.blank(filled - 1)) {
+            filled--;
+        }
+        return filled;
+    }
+
+    /**
+     * A row with more cells than the header cannot be matched to the named columns: every cell
+     * after the split would be read one column to the right (a decimal comma in a comma-separated
+     * file does exactly this), so the file is refused rather than read shifted.
+     */
+    private InputProblem moreCellsThanHeader(int lineNo, int filled) {
+        String hint = layout.delimiter() == Delimiter.COMMA && !layout.decimalComma()
+                ? "if the numbers use a decimal comma, read the file with a profile whose delimiter is not a comma "
+                  + "and whose decimal-mark is comma, or save it with decimal points; otherwise remove the extra cells"
+                : "remove the extra cells, or give the header row a name for every column";
+        return new InputProblem(file, lineNo, "the row has " + filled + " cells but the header row (line " + headerLine
+                + ") names " + headerCells + "; its readings would be taken from the wrong columns", hint);
     }
 
     /** @return the cell's number (±Infinity when too large), or NaN after warning why there is none */

@@ -120,8 +120,7 @@ public final class FaultText {
 
                 @Override
                 public Reading capacitor(Capacitor capacitor) {
-                    return () -> new Fault.CapacitorValue(key, positive(trimmed, value, Quantity.FARADS,
-                            "a value such as " + key + "=4.7u"));
+                    return () -> new Fault.CapacitorValue(key, capacitance(trimmed, value, key));
                 }
 
                 @Override
@@ -177,6 +176,50 @@ public final class FaultText {
                     "write --noise 0.05dB,0.5deg");
         }
         return new SweepNoise(db, deg);
+    }
+
+    /**
+     * @return a caution about the text when it is read as written but may not mean what the user
+     *         meant: a capacitor fault in millifarads ({@code C3=4.7mF}), which some write for µF
+     */
+    public static Optional<String> caution(String text, Stage stage) {
+        String trimmed = text.strip();
+        int equals = trimmed.indexOf('=');
+        if (equals <= 0) {
+            return Optional.empty();
+        }
+        String key = trimmed.substring(0, equals).strip();
+        if (stage.capacitors().stream().noneMatch(c -> c.name().equals(key))) {
+            return Optional.empty();
+        }
+        String value = trimmed.substring(equals + 1).strip();
+        try {
+            EngineeringValue.Written written = EngineeringValue.capacitance(value);
+            if (written.milli()) {
+                return Optional.of("--fault " + trimmed + ": '" + value + "' is read as "
+                        + EngineeringValue.format(written.value(), "F")
+                        + " (m is milli, 1 mF = 1000 µF); if microfarads are meant, write u or µ");
+            }
+        } catch (IllegalArgumentException e) {
+            // parse refuses it with its own message
+        }
+        return Optional.empty();
+    }
+
+    /** A capacitor's value must state its scale (EngineeringValue.capacitance): C3=47 is refused. */
+    private static double capacitance(String whole, String value, String key) throws InputProblem {
+        String example = "a value with an SI prefix such as " + key + "=4.7u or " + key + "=47u, or with the unit F"
+                + " when farads are meant (" + key + "=47F)";
+        double number;
+        try {
+            number = EngineeringValue.capacitance(value).value();
+        } catch (IllegalArgumentException e) {
+            throw problem(whole, "has no capacitance after '=' (" + e.getMessage() + ")", "write " + example);
+        }
+        if (!(number > 0)) {
+            throw problem(whole, "needs a positive value", "write " + example);
+        }
+        return number;
     }
 
     private static double positive(String whole, String value, Quantity quantity, String example) throws InputProblem {

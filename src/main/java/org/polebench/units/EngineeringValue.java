@@ -18,6 +18,8 @@ public final class EngineeringValue {
     private static final String DECIMAL = "[+-]?(?:\\d+(?:\\.\\d*)?|\\.\\d+)(?:[eE][+-]?\\d+)?";
     private static final Pattern PLAIN = Pattern.compile("(" + DECIMAL + ")\\s*(.*)");
     // 4u7, 4k7, 2M2, 4R7 (R for ohms): the prefix letter stands where the decimal mark would.
+    // 4,7u or 4,7 µF: a decimal comma, which would otherwise read as 4 followed by a bad unit
+    private static final Pattern DECIMAL_COMMA = Pattern.compile("([+-]?\\d+),(\\d+)(\\s*\\D*)");
     private static final Pattern INFIX = Pattern.compile("([+-]?\\d+)([pnuµμmkKMGR])(\\d+)\\s*(.*)");
 
     private EngineeringValue() {
@@ -31,6 +33,33 @@ public final class EngineeringValue {
      *         not a finite number in engineering notation for this quantity
      */
     public static double parse(String text, Quantity quantity) {
+        return read(text, quantity).value();
+    }
+
+    /**
+     * A value as the user wrote it.
+     *
+     * @param value  in the base SI unit (farads, ohms, hertz, …)
+     * @param prefix the SI prefix letter written ({@code "m"} in {@code 4.7mF}), empty when none
+     * @param unit   the unit symbol written ({@code "F"}), empty when none
+     */
+    public record Written(double value, String prefix, String unit) {
+        /** @return true when the prefix is milli ({@code 4.7mF}), which some write meaning micro */
+        public boolean milli() {
+            return prefix.equals("m");
+        }
+
+        /** @return true when neither a prefix nor a unit follows the number, as in {@code 4.7} */
+        public boolean bare() {
+            return prefix.isEmpty() && unit.isEmpty();
+        }
+    }
+
+    /**
+     * Like {@link #parse(String, Quantity)}, keeping the prefix and unit written, so that a
+     * reader can refuse a bare capacitor value or warn about {@code mF}.
+     */
+    public static Written read(String text, Quantity quantity) {
         if (text == null || text.isBlank()) {
             throw new IllegalArgumentException("no value given");
         }
@@ -44,9 +73,16 @@ public final class EngineeringValue {
                     : prefixScale(letter.charAt(0));
             if (!Double.isNaN(scale)) {
                 double mantissa = Double.parseDouble(infix.group(1) + "." + infix.group(3));
-                checkUnit(infix.group(4), quantity, trimmed);
-                return finite(mantissa * scale, trimmed);
+                String unit = checkUnit(infix.group(4), quantity, trimmed);
+                return new Written(finite(mantissa * scale, trimmed), letter.equals("R") ? "" : letter,
+                        letter.equals("R") ? "R" : unit);
             }
+        }
+        Matcher comma = DECIMAL_COMMA.matcher(trimmed);
+        if (comma.matches()) {
+            // 4,7u: Double.parseDouble would stop at the comma and the rest would read as a unit
+            throw new IllegalArgumentException("'" + trimmed + "' has a comma in the number, which is read with a decimal point: "
+                    + "write " + comma.group(1) + "." + comma.group(2) + comma.group(3).strip() + " (and no thousands separator)");
         }
         Matcher plain = PLAIN.matcher(trimmed);
         if (!plain.matches()) {
@@ -54,7 +90,41 @@ public final class EngineeringValue {
         }
         double number = Double.parseDouble(plain.group(1));
         String rest = plain.group(2).strip();
-        return finite(number * suffixScale(rest, quantity, trimmed), trimmed);
+        if (rest.isEmpty()) {
+            return new Written(finite(number, trimmed), "", "");
+        }
+        String unit = matchUnit(rest, quantity);
+        if (unit != null && rest.equals(unit)) {
+            return new Written(finite(number, trimmed), "", unit);
+        }
+        String beforeUnit = unit == null ? rest : rest.substring(0, rest.length() - unit.length()).strip();
+        if (beforeUnit.length() == 1) {
+            char letter = beforeUnit.charAt(0);
+            // 'K' is kelvin for temperatures, never a prefix there
+            if (!(quantity == Quantity.KELVIN && letter == 'K')) {
+                double scale = prefixScale(letter);
+                if (!Double.isNaN(scale)) {
+                    return new Written(finite(number * scale, trimmed), beforeUnit, unit == null ? "" : unit);
+                }
+            }
+        }
+        throw new IllegalArgumentException("'" + trimmed + "': cannot read '" + rest + "' as "
+                + describeExpected(quantity));
+    }
+
+    /**
+     * A capacitor's value, which must say its scale: a bare {@code 4.7} is refused, since 4.7 F
+     * is almost never meant, while {@code 4.7u}, {@code 4u7}, {@code 100nF} and {@code 4.7F}
+     * are read; a bare {@code 0} is zero in any unit.
+     *
+     * @throws IllegalArgumentException as {@link #parse(String, Quantity)}, and for a bare number
+     */
+    public static Written capacitance(String text) {
+        Written written = read(text, Quantity.FARADS);
+        if (written.bare() && written.value() != 0) {
+            throw new IllegalArgumentException("'" + text.strip() + "' has neither a prefix nor the unit F");
+        }
+        return written;
     }
 
     /** Like {@link #parse(String, Quantity)} for a dimensionless number, such as a β of 200. */
@@ -94,29 +164,6 @@ public final class EngineeringValue {
         }
     }
 
-    private static double suffixScale(String rest, Quantity quantity, String whole) {
-        if (rest.isEmpty()) {
-            return 1.0;
-        }
-        String unit = matchUnit(rest, quantity);
-        if (unit != null && rest.equals(unit)) {
-            return 1.0;
-        }
-        String beforeUnit = unit == null ? rest : rest.substring(0, rest.length() - unit.length()).strip();
-        if (beforeUnit.length() == 1) {
-            char letter = beforeUnit.charAt(0);
-            // 'K' is kelvin for temperatures, never a prefix there
-            if (!(quantity == Quantity.KELVIN && letter == 'K')) {
-                double scale = prefixScale(letter);
-                if (!Double.isNaN(scale)) {
-                    return scale;
-                }
-            }
-        }
-        throw new IllegalArgumentException("'" + whole + "': cannot read '" + rest + "' as "
-                + describeExpected(quantity));
-    }
-
     private static String matchUnit(String rest, Quantity quantity) {
         String best = null;
         for (String symbol : quantity.acceptedSymbols()) {
@@ -127,12 +174,14 @@ public final class EngineeringValue {
         return best;
     }
 
-    private static void checkUnit(String rest, Quantity quantity, String whole) {
+    /** @return the unit written after an infix value, empty when none */
+    private static String checkUnit(String rest, Quantity quantity, String whole) {
         String unit = rest.strip();
         if (!unit.isEmpty() && !quantity.acceptedSymbols().contains(unit)) {
             throw new IllegalArgumentException("'" + whole + "': cannot read '" + unit + "' as "
                     + describeExpected(quantity));
         }
+        return unit;
     }
 
     private static String describeExpected(Quantity quantity) {

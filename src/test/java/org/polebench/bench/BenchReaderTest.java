@@ -67,6 +67,16 @@ class BenchReaderTest {
     }
 
     @Test
+    void aChannelCapacitanceWithoutPrefixOrUnitIsRefused() {
+        // issue 14: a bare 15 would be 15 F; the scale must be written (15p)
+        InputProblem problem = assertThrows(InputProblem.class, () -> BenchFiles.bench(dir,
+                "output-channel:", "  coupling: dc", "  capacitance: 15"));
+        assertEquals(3, problem.line());
+        assertTrue(problem.getMessage().contains("neither a prefix nor the unit F"), problem.getMessage());
+        assertTrue(problem.hint().contains("15p") && problem.hint().contains("unit F"), problem.hint());
+    }
+
+    @Test
     void aMisspeltTopLevelKeyIsRefused() {
         InputProblem problem = assertThrows(InputProblem.class, () -> BenchFiles.bench(dir,
                 "reference: generator", "output-chanel:", "  coupling: dc"));

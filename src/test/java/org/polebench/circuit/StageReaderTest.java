@@ -366,6 +366,44 @@ class StageReaderTest {
     }
 
     @Test
+    void capacitorWithoutPrefixOrUnitIsRefusedOnItsLine() {
+        // issue 14: a bare 4.7 would be 4.7 F; the scale must be written
+        String text = StageFiles.COMMON_EMITTER.replace("{capacitor: 4.7u, between: [in, b]}", "{capacitor: 4.7, between: [in, b]}");
+        InputProblem problem = refused(text);
+        assertEquals(StageFiles.lineOf(text, "C1:"), problem.line());
+        assertMentions(problem.getMessage(), "C1", "'4.7' has neither a prefix nor the unit F");
+        assertMentions(problem.hint(), "10u, 4u7 or 100n", "unit F");
+    }
+
+    @Test
+    void capacitorInFaradsIsReadWhenTheUnitIsWritten() throws InputProblem {
+        // the unit F states farads; 4.7 F gets the existing 1 F-or-more warning and is read as given
+        String text = StageFiles.COMMON_EMITTER.replace("{capacitor: 4.7u, between: [in, b]}", "{capacitor: 4.7F, between: [in, b]}");
+        StageFile file = StageFiles.read(dir, text);
+        assertEquals(4.7, file.stage().capacitor("C1").farads());
+        assertMentions(file.warnings().get(0).message(), "1 F or more");
+    }
+
+    @Test
+    void decimalCommaInACapacitorGetsAHint() {
+        String text = StageFiles.COMMON_EMITTER.replace("{capacitor: 4.7u, between: [in, b]}", "{capacitor: '4,7u', between: [in, b]}");
+        InputProblem problem = refused(text);
+        assertEquals(StageFiles.lineOf(text, "C1:"), problem.line());
+        assertMentions(problem.getMessage(), "comma", "write 4.7u");
+    }
+
+    @Test
+    void milliFaradIsReadAsMilliWithAWarning() throws InputProblem {
+        // SI: m is milli (BIPM SI Brochure, table 7), so 4.7mF is 4.7e-3 F; some mean micro by it
+        String text = StageFiles.COMMON_EMITTER.replace("{capacitor: 4.7u, between: [in, b]}", "{capacitor: 4.7mF, between: [in, b]}");
+        StageFile file = StageFiles.read(dir, text);
+        assertEquals(4.7e-3, file.stage().capacitor("C1").farads(), 1e-18);
+        assertEquals(1, file.warnings().size(), file.warnings().toString());
+        assertEquals(StageFiles.lineOf(text, "C1:"), file.warnings().get(0).line());
+        assertMentions(file.warnings().get(0).message(), "m is milli", "write u or µ");
+    }
+
+    @Test
     void railDecouplingCapacitorIsNotedAndLeftOut() throws InputProblem {
         String text = StageFiles.COMMON_EMITTER + "  C9: {capacitor: 100u, between: [vcc, gnd]}\n";
 

@@ -36,6 +36,22 @@ class InspectCommandTest {
     }
 
     @Test
+    void warningsComeBeforeTheFiguresReadFromTheData() throws Exception {
+        // issue 14: the warnings are printed before the band, midband and corner, not after them
+        StringBuilder text = new StringBuilder("Frequency (Hz),Gain (dB),Phase (deg)\n");
+        for (double f : new double[] {1, 2, 5, 10, 20, 50, 100, 200, 500, 1000}) {
+            text.append(f).append(",20,0\n");
+        }
+        text.append("abc,20,0\n");
+        Path file = dir.resolve("warned.csv");
+        Files.writeString(file, text);
+        String out = run(0, "inspect", file.toString(), "--profile", "db-degrees")[0];
+        int warning = out.indexOf("warnings:  2");  // the bad row and the flat sweep (no corner)
+        assertTrue(warning > 0, out);
+        assertTrue(warning < out.indexOf("band:") && warning < out.indexOf("midband:"), out);
+    }
+
+    @Test
     void jsonHasSnakeCaseKeysAndTheSameFigures() throws Exception {
         JsonNode json = new ObjectMapper().readTree(run(0, "inspect", SAMPLE, "--profile", "khz-radians", "--json")[0]);
         assertEquals(41, json.get("points").asInt());

@@ -71,4 +71,46 @@ class MainTest {
         String warnings = caught.toString(java.nio.charset.StandardCharsets.UTF_8);
         assertTrue(!warnings.contains("WARN"), warnings);
     }
+
+    @Test
+    void examplesAreSetWholeOnTheirOwnLinesAndNoQuotedArgumentIsSplit() {
+        // issue 14: the expected lines are the @Command footers themselves, not the rendered help
+        for (Class<?> type : Main.subcommandsFor(new String[0])) {
+            picocli.CommandLine.Command command = type.getAnnotation(picocli.CommandLine.Command.class);
+            StringWriter out = new StringWriter();
+            Main.run(new String[] {"help", command.name()}, new PrintWriter(out, true), new PrintWriter(new StringWriter(), true));
+            List<String> lines = out.toString().lines().toList();
+            for (String example : command.footer()) {
+                assertTrue(lines.contains(example.replace("%%", "%")), command.name() + ": '" + example + "' is not a line of\n" + out);
+            }
+            for (String line : lines) {
+                // a quoted argument broken across lines leaves an odd number of quotes on a line
+                assertEquals(0, line.chars().filter(c -> c == '"').count() % 2, command.name() + ": " + line);
+            }
+        }
+    }
+
+    @Test
+    void anUnknownOptionIsAUsageErrorInTheProjectsOwnForm() {
+        StringWriter out = new StringWriter();
+        StringWriter err = new StringWriter();
+        int exit = Main.run(new String[] {"fit", "x.csv", "--max-pole"}, new PrintWriter(out, true), new PrintWriter(err, true));
+        assertEquals(ExitCodes.BAD_INPUT, exit);
+        List<String> lines = err.toString().lines().toList();
+        assertEquals(2, lines.size(), err.toString());
+        assertTrue(lines.get(0).startsWith("polebench: Unknown option: '--max-pole'"), err.toString());
+        // picocli's suggestion of the near option, and where the options are listed
+        assertTrue(lines.get(1).startsWith("  fix: did you mean --max-poles?"), err.toString());
+        assertTrue(lines.get(1).endsWith("see 'polebench fit --help'"), err.toString());
+        assertEquals("", out.toString());
+    }
+
+    @Test
+    void aMissingParameterIsAUsageErrorInTheProjectsOwnForm() {
+        StringWriter err = new StringWriter();
+        int exit = Main.run(new String[] {"fit"}, new PrintWriter(new StringWriter(), true), new PrintWriter(err, true));
+        assertEquals(ExitCodes.BAD_INPUT, exit);
+        assertEquals("polebench: Missing required parameter: 'SWEEP'" + System.lineSeparator()
+                + "  fix: see 'polebench fit --help'" + System.lineSeparator(), err.toString().replace("\n", System.lineSeparator()));
+    }
 }

@@ -77,6 +77,19 @@ class PredictCommandTest {
     }
 
     @Test
+    void stageWarningsComeBeforeTheResults(@TempDir Path folder) throws IOException {
+        // issue 14: a doubtful value is read before the figures it feeds; 4.7mF is SI milli and warned about
+        Path stage = folder.resolve("milli.stage.yaml");
+        Files.writeString(stage, Files.readString(Path.of("sample-measurements/hydrophone-preamp-ce.stage.yaml"))
+                .replace("{capacitor: 4.7u, between: [in, b],", "{capacitor: 4.7mF, between: [in, b],"));
+        Run run = run("predict", "--samples", "50", stage.toString());
+        assertEquals(0, run.code(), run.err());
+        int warning = run.out().indexOf("m is milli");
+        assertTrue(warning > 0, run.out());
+        assertTrue(warning < run.out().indexOf("Operating points") && warning < run.out().indexOf("Lower corner"), run.out());
+    }
+
+    @Test
     void aBrokenStageExitsTwoWithFileAndLineAndNoStackTrace(@TempDir Path folder) throws IOException {
         Path stage = folder.resolve("broken.stage.yaml");
         Files.writeString(stage, "name: x\nground: gnd\ninput: {node: in, source-resistance: 600}\n"

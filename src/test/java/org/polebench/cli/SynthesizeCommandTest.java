@@ -46,6 +46,31 @@ class SynthesizeCommandTest {
     }
 
     @Test
+    void forceWritesThroughASymbolicLinkAndRefusesAFolder(@TempDir Path dir) throws IOException {
+        // issue 14: --force on a link replaces its target and keeps the link; a folder is never written over
+        Path real = Files.writeString(dir.resolve("real.csv"), "old\n");
+        Path link = Files.createSymbolicLink(dir.resolve("link.csv"), real);
+        String[] run = run("synthesize", "--stage", STAGE, "--points", "11", "--out", link.toString(), "--force");
+        assertEquals("0", run[0], run[2]);
+        assertTrue(Files.isSymbolicLink(link));
+        assertTrue(Files.readString(real).startsWith("# polebench sweep"), Files.readString(real));
+
+        Path folder = Files.createDirectory(dir.resolve("folder"));
+        String[] refused = run("synthesize", "--stage", STAGE, "--points", "11", "--out", folder.toString(), "--force");
+        assertEquals("2", refused[0], refused[2]);
+        assertTrue(refused[2].contains("not a regular file"), refused[2]);
+    }
+
+    @Test
+    void aCapacitorFaultInMillifaradsIsWarnedAboutFirst(@TempDir Path dir) {
+        // issue 14: m is SI milli; the caution goes to the error stream before the result line
+        String[] run = run("synthesize", "--stage", STAGE, "--fault", "C1=4.7mF", "--points", "11",
+                "--out", dir.resolve("x.csv").toString());
+        assertEquals("0", run[0], run[2]);
+        assertTrue(run[2].contains("polebench: warning: --fault C1=4.7mF") && run[2].contains("m is milli"), run[2]);
+    }
+
+    @Test
     void refusesAFaultOnAPartTheStageLacks(@TempDir Path dir) {
         String[] run = run("synthesize", "--stage", STAGE, "--fault", "C9=4.7u", "--out", dir.resolve("x.csv").toString());
         assertEquals("2", run[0]);

@@ -78,6 +78,24 @@ class DataChecksTest {
     }
 
     @Test
+    void rowWithMoreCellsThanTheHeaderIsRefusedWithItsLine() {
+        // issue 14: "12,5" with a decimal comma in a comma file splits into two cells, and the
+        // phase would be read from the gain's decimals; the header names three columns
+        InputProblem problem = assertThrows(InputProblem.class,
+                () -> read(withLine(good(20), 6, "12,5,3,1,-45,2")));
+        assertEquals(6, problem.line());
+        assertTrue(problem.getMessage().contains("6 cells but the header row (line 1) names 3"), problem.getMessage());
+        assertTrue(problem.hint().contains("decimal comma"), problem.hint());
+    }
+
+    @Test
+    void trailingDelimiterIsNotAnExtraCell() throws Exception {
+        // common practice: some instruments end every row with the delimiter; a blank last cell adds nothing
+        ImportedSweep imported = read(withLine(good(20), 6, "12.5,3,4,"));
+        assertEquals(20, imported.sweep().size());
+    }
+
+    @Test
     void emptyRowsAreWarnedAbout() throws Exception {
         ImportedSweep imported = read(withLine(good(20), 7, ",,"));
         assertTrue(warningAt(imported, 7).message().contains("empty row"));

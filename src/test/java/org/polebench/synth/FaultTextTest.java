@@ -31,6 +31,29 @@ class FaultTextTest {
         assertEquals(10e-6, capacitor.farads(), 1e-15 * 10e-6);
     }
 
+    @Test
+    void aCapacitorFaultWithoutPrefixOrUnitIsRefused() throws InputProblem {
+        Stage geophone = demo("geophone-two-stage.stage.yaml");
+        // issue 14: CE1=47 would be 47 F; the scale must be written
+        InputProblem problem = assertThrows(InputProblem.class, () -> FaultText.parse("CE1=47", geophone));
+        assertTrue(problem.getMessage().contains("neither a prefix nor the unit F"), problem.getMessage());
+        assertTrue(problem.hint().contains("CE1=47u") && problem.hint().contains("CE1=47F"), problem.hint());
+        // with the unit written, farads are meant and read as such
+        assertEquals(47, ((Fault.CapacitorValue) FaultText.parse("CE1=47F", geophone)).farads());
+        assertTrue(FaultText.caution("CE1=47F", geophone).isEmpty());
+    }
+
+    @Test
+    void aMilliFaradFaultIsReadAsMilliWithACaution() throws InputProblem {
+        Stage geophone = demo("geophone-two-stage.stage.yaml");
+        // SI: m is milli (BIPM SI Brochure, table 7)
+        assertEquals(4.7e-3, ((Fault.CapacitorValue) FaultText.parse("CE1=4.7mF", geophone)).farads(), 1e-18);
+        String caution = FaultText.caution("CE1=4.7mF", geophone).orElseThrow();
+        assertTrue(caution.contains("m is milli") && caution.contains("write u or µ"), caution);
+        // a resistor's m is milliohm and no slip of µ; no caution there
+        assertTrue(FaultText.caution("R2=10m", geophone).isEmpty());
+    }
+
     private static void assertResistor(String name, double ohms, Fault parsed) {
         Fault.ResistorValue resistor = (Fault.ResistorValue) parsed;
         assertEquals(name, resistor.resistor());

@@ -2,6 +2,7 @@ package org.polebench.units;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import net.jqwik.api.ForAll;
 import net.jqwik.api.Property;
@@ -27,6 +28,34 @@ class EngineeringValueTest {
             "47kΩ;47e3", "1 ohm;1", "10m;0.01"})
     void readsResistanceWithMegaAndMilliDistinct(String text, double ohms) {
         assertEquals(ohms, EngineeringValue.parse(text, Quantity.OHMS), 1e-12 * ohms);
+    }
+
+    // issue 14: a capacitor value states its scale; SI (BIPM SI Brochure, table 7) makes m milli
+    @ParameterizedTest
+    @CsvSource(delimiter = ';', value = {"4.7u;4.7e-6;u;", "4u7;4.7e-6;u;", "100nF;1e-7;n;F", "4.7F;4.7;;F",
+            "4.7mF;4.7e-3;m;F", "2m2;2.2e-3;m;", "0;0;;"})
+    void capacitanceKeepsThePrefixAndUnitWritten(String text, double farads, String prefix, String unit) {
+        EngineeringValue.Written written = EngineeringValue.capacitance(text);
+        assertEquals(farads, written.value(), 1e-12 * farads);
+        assertEquals(prefix == null ? "" : prefix, written.prefix());
+        assertEquals(unit == null ? "" : unit, written.unit());
+        assertEquals("m".equals(prefix), written.milli());
+    }
+
+    @Test
+    void bareCapacitanceIsRefused() {
+        IllegalArgumentException e = assertThrows(IllegalArgumentException.class, () -> EngineeringValue.capacitance("4.7"));
+        assertTrue(e.getMessage().contains("neither a prefix nor the unit F"), e.getMessage());
+        assertThrows(IllegalArgumentException.class, () -> EngineeringValue.capacitance("47"));
+    }
+
+    @ParameterizedTest
+    @CsvSource(delimiter = ';', value = {"4,7u;4.7u", "4,7 µF;4.7µF", "-1,5;-1.5"})
+    void decimalCommaIsNamedWithThePointedSpelling(String text, String pointed) {
+        // issue 14: '4,7u' was read as 4 followed by the bad unit ',7u'
+        IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
+                () -> EngineeringValue.parse(text, Quantity.FARADS));
+        assertTrue(e.getMessage().contains("comma") && e.getMessage().contains("write " + pointed), e.getMessage());
     }
 
     @Test
