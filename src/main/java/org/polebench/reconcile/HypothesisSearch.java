@@ -210,8 +210,13 @@ final class HypothesisSearch {
                     Math.log(FaultRanking.BENCH_PRIOR * generatorShare),
                     misfit(generatorModel, tolerance, baseActive, 1, 1));
             generator.own = generatorModel;
-            generator.stated = solve(generator.misfit, List.of(noFault.theta(), mean), networkHeld);
-            if (generator.stated != null) {
+            // screened like the single faults, and converged with them only when near the best;
+            // not ranked where the loaded stage's model is undefined at the no-fault estimate
+            Optional<MapPoint> screened = screen.solve(generator.misfit, noFault.theta(), networkHeld, false);
+            Optional<MapPoint> exact = screened.isPresent() ? screen.at(generator.misfit, screened.get().theta())
+                    : Optional.empty();
+            if (exact.isPresent()) {
+                generator.stated = exact.get();
                 candidates.add(generator);
             }
         }

@@ -222,9 +222,12 @@ public final class MeasuredValueFormat {
         if (m == 0 || !Double.isFinite(m)) {
             return 0;
         }
-        // a decimal exponent from the digits, not from log10, which can land a hair below 3, 6, …
-        int exponent = new BigDecimal(m).round(new MathContext(15, RoundingMode.HALF_EVEN)).precision()
-                - new BigDecimal(m).round(new MathContext(15, RoundingMode.HALF_EVEN)).scale() - 1;
+        // a decimal exponent from the digits, not from log10, which can land a hair below 3, 6, …;
+        // the shortest decimal that gives m back (Double.toString) has the same leading digits to
+        // 15 figures as m's exact binary value, and is far cheaper to round than that value's
+        // hundreds of digits
+        BigDecimal digits = BigDecimal.valueOf(m).round(new MathContext(15, RoundingMode.HALF_EVEN));
+        int exponent = digits.precision() - digits.scale() - 1;
         return Math.max(-15, Math.min(12, Math.floorDiv(exponent, 3) * 3));
     }
 

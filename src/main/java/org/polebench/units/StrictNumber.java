@@ -142,8 +142,10 @@ public final class StrictNumber {
         int clz = Long.numberOfLeadingZeros(mantissa);
         long man = mantissa << clz;
         long retExp2 = ((217706L * exp10) >> 16) + 64 + 1023 - clz;
-        long[] table = Math.abs(exp10) <= Powers128Near.REACH ? Powers128Near.TABLE : Powers128.TABLE;
-        int row = 2 * (exp10 - (table == Powers128.TABLE ? MIN_EXP10 : -Powers128Near.REACH));
+        // decide by the exponent alone: naming Powers128.TABLE (even to compare) would build it
+        boolean near = Math.abs(exp10) <= Powers128Near.REACH;
+        long[] table = near ? Powers128Near.TABLE : Powers128.TABLE;
+        int row = 2 * (exp10 - (near ? -Powers128Near.REACH : MIN_EXP10));
         long powHi = table[row];
         long powLo = table[row + 1];
         long xHi = unsignedMultiplyHigh(man, powHi);
