@@ -1,5 +1,6 @@
 package org.polebench.report;
 
+import org.polebench.spread.CornerSpread;
 import org.polebench.units.MeasuredValueFormat;
 import java.io.PrintWriter;
 import java.util.Locale;
@@ -50,7 +51,7 @@ public final class ReconcileText {
         out.println();
         diagnosis(result, out);
         sideBySide(result.sideBySide(), result.measured().quality().calibration(), result.chainTakenOut(),
-                result.bench().isPresent(), out);
+                result.bench().isPresent(), result.predicted().spread(), out);
         if (result.apportionment().isPresent()) {
             apportionment(result.apportionment().get(), out);
         }
@@ -68,7 +69,7 @@ public final class ReconcileText {
     }
 
     private static void sideBySide(SideBySide side, CalibrationTerm calibration, boolean chainTakenOut,
-                                   boolean declared, PrintWriter out) {
+                                   boolean declared, CornerSpread spread, PrintWriter out) {
         out.println("Predicted against measured");
         out.println(String.format(Locale.ROOT, "  %-26s %14s   %s", "", "predicted", "measured ± U (k)"));
         Estimate gain = side.measuredMidbandGainDb();
@@ -100,9 +101,13 @@ public final class ReconcileText {
                     + "): the back-solved values are shown, and no limit is decided from them");
         }
         if (side.cornerPercentile().isPresent()) {
-            out.println(String.format(Locale.ROOT, "  measured corner at the %.1f %% point of the design spread: %s",
+            // the draws and seed beside the percentile, as predict states them: the two commands
+            // draw different numbers of boards by default (--samples)
+            out.println(String.format(Locale.ROOT, "  measured corner at the %.1f %% point of the design spread: %s "
+                            + "(%d boards drawn, seed %d)",
                     100 * side.cornerPercentile().getAsDouble(), side.insideDesignSpread()
-                            ? "inside the design spread (central 95 %)" : "OUTSIDE the design spread (central 95 %)"));
+                            ? "inside the design spread (central 95 %)" : "OUTSIDE the design spread (central 95 %)",
+                    spread.samplesDrawn(), spread.seed()));
         }
         double k = side.measuredMidbandGainDb().coverageFactor();
         out.println("  poles and zeros (s/2π)           predicted   measured ± U (k = " + MeasuredValueFormat.coverage(k)
