@@ -1,6 +1,5 @@
 package org.polebench.report;
 
-import org.polebench.spread.CornerSpread;
 import org.polebench.units.MeasuredValueFormat;
 import java.io.PrintWriter;
 import java.util.Locale;
@@ -28,6 +27,7 @@ import org.polebench.reconcile.ReconcileResult;
 import org.polebench.reconcile.RootMatch;
 import org.polebench.reconcile.SideBySide;
 import org.polebench.reconcile.Verdict;
+import org.polebench.spread.CornerSpread;
 import org.polebench.units.EngineeringValue;
 
 /**
