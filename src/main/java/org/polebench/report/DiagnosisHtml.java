@@ -1,11 +1,11 @@
 package org.polebench.report;
 
-import org.polebench.units.MeasuredValueFormat;
 import com.fasterxml.jackson.databind.JsonNode;
 import java.util.Locale;
 import org.polebench.reconcile.AdequacyTest;
 import org.polebench.reconcile.FaultRanking;
 import org.polebench.reconcile.ModelAdequacy;
+import org.polebench.units.MeasuredValueFormat;
 
 /**
  * The test report's diagnosis sections: whether the stage explains the sweep (the adequacy

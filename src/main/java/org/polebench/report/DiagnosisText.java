@@ -1,6 +1,5 @@
 package org.polebench.report;
 
-import org.polebench.units.MeasuredValueFormat;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
@@ -16,6 +15,7 @@ import org.polebench.reconcile.ParameterKind;
 import org.polebench.reconcile.PartReading;
 import org.polebench.reconcile.SharedCause;
 import org.polebench.units.EngineeringValue;
+import org.polebench.units.MeasuredValueFormat;
 
 /**
  * The sentences of a diagnosis: each hypothesis in plain words, whether the stage explains the

@@ -1,6 +1,5 @@
 package org.polebench.report;
 
-import org.polebench.units.MeasuredValueFormat;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
@@ -15,6 +14,7 @@ import org.polebench.fit.FittedRoot;
 import org.polebench.fit.RootCluster;
 import org.polebench.fit.RootStatus;
 import org.polebench.fit.UncertaintyBasis;
+import org.polebench.units.MeasuredValueFormat;
 
 /**
  * The fit as a plain-text summary for a terminal: the warnings first, then the model, every

@@ -1,6 +1,5 @@
 package org.polebench.report;
 
-import org.polebench.units.MeasuredValueFormat;
 import java.util.Locale;
 import java.util.Optional;
 import java.util.OptionalDouble;
@@ -12,6 +11,7 @@ import org.polebench.reconcile.NotDecidedCheck;
 import org.polebench.reconcile.Reconciler;
 import org.polebench.reconcile.SweepDetermination;
 import org.polebench.units.EngineeringValue;
+import org.polebench.units.MeasuredValueFormat;
 
 /**
  * The sentence that says which limit the sweep did not decide and why (issue 11), as the text

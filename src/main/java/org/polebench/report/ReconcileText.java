@@ -1,6 +1,5 @@
 package org.polebench.report;
 
-import org.polebench.units.MeasuredValueFormat;
 import java.io.PrintWriter;
 import java.util.Locale;
 import java.util.OptionalDouble;
@@ -29,6 +28,7 @@ import org.polebench.reconcile.SideBySide;
 import org.polebench.reconcile.Verdict;
 import org.polebench.spread.CornerSpread;
 import org.polebench.units.EngineeringValue;
+import org.polebench.units.MeasuredValueFormat;
 
 /**
  * The readable summary {@code polebench reconcile} prints: predicted beside measured, the

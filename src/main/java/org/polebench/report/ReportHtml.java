@@ -1,12 +1,12 @@
 package org.polebench.report;
 
-import org.polebench.units.MeasuredValueFormat;
 import com.fasterxml.jackson.databind.JsonNode;
 import java.util.Locale;
 import org.polebench.reconcile.AdequacyTest;
 import org.polebench.reconcile.ModelAdequacy;
 import org.polebench.reconcile.FaultRanking;
 import org.polebench.units.EngineeringValue;
+import org.polebench.units.MeasuredValueFormat;
 
 /**
  * The test report as one self-contained HTML page, rendered from a result's JSON object

@@ -1,6 +1,5 @@
 package org.polebench.report;
 
-import org.polebench.units.MeasuredValueFormat;
 import static org.junit.jupiter.api.Assertions.assertArrayEquals;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
@@ -20,6 +19,7 @@ import org.polebench.fit.KnownResponse;
 import org.polebench.fit.SweepFitter;
 import org.polebench.sweep.Sweep;
 import org.polebench.sweep.SweepPoint;
+import org.polebench.units.MeasuredValueFormat;
 
 class FitTextTest {
 
