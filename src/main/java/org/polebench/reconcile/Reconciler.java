@@ -84,6 +84,14 @@ public final class Reconciler {
      */
     public static final double FIT_ADEQUATE_CHI_SQUARE = 4;
 
+    /**
+     * @param lowBandOrder the stage's low-band order
+     * @return the most poles reconcile's fit may take: the stage's low-band order, 1 to 8
+     */
+    public static int fitPoleLimit(int lowBandOrder) {
+        return Math.max(1, Math.min(8, lowBandOrder));
+    }
+
     /** @throws InputProblem when the sweep cannot be fitted (too few points, no low band) */
     public ReconcileResult reconcile(StagePrediction predicted, Sweep sweep, DecisionRule rule) throws InputProblem {
         return reconcile(predicted, sweep, rule, Optional.empty());
@@ -106,7 +114,7 @@ public final class Reconciler {
                 start.add(new Complex(pole.realRadPerS(), pole.imaginaryRadPerS()));
             }
         }
-        FitSettings free = FitSettings.defaults().withMaxPoles(Math.max(1, Math.min(8, order)));
+        FitSettings free = FitSettings.defaults().withMaxPoles(fitPoleLimit(order));
         FitSettings settings = start.size() == order ? free.withStartPoles(start) : free;
         // the fit and the back-solve are independent: the fit runs on another thread meanwhile
         CompletableFuture<FitResult> fitting = CompletableFuture.supplyAsync(() -> {

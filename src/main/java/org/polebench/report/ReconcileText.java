@@ -50,8 +50,7 @@ public final class ReconcileText {
         }
         out.println();
         diagnosis(result, out);
-        sideBySide(result.sideBySide(), result.measured().quality().calibration(), result.chainTakenOut(),
-                result.bench().isPresent(), result.predicted().spread(), out);
+        sideBySide(result, out);
         if (result.apportionment().isPresent()) {
             apportionment(result.apportionment().get(), out);
         }
@@ -68,9 +67,18 @@ public final class ReconcileText {
         out.println();
     }
 
-    private static void sideBySide(SideBySide side, CalibrationTerm calibration, boolean chainTakenOut,
-                                   boolean declared, CornerSpread spread, PrintWriter out) {
+    private static void sideBySide(ReconcileResult result, PrintWriter out) {
+        SideBySide side = result.sideBySide();
+        CalibrationTerm calibration = result.measured().quality().calibration();
+        boolean chainTakenOut = result.chainTakenOut();
+        boolean declared = result.bench().isPresent();
+        CornerSpread spread = result.predicted().spread();
         out.println("Predicted against measured");
+        // why this fit may differ from `polebench fit` on the same file (issue 14: the output says why)
+        out.println("  measured: a fit of " + result.measured().order() + " poles, at most "
+                + org.polebench.reconcile.Reconciler.fitPoleLimit(result.predicted().prediction().lowBand().order())
+                + " (the stage's low-band order), started from the predicted poles; `polebench fit` fits the same"
+                + " sweep without the stage and may choose another order");
         out.println(String.format(Locale.ROOT, "  %-26s %14s   %s", "", "predicted", "measured ± U (k)"));
         Estimate gain = side.measuredMidbandGainDb();
         out.println(String.format(Locale.ROOT, "  %-26s %14s   %s", "midband gain",
