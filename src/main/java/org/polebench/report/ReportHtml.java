@@ -293,14 +293,17 @@ public final class ReportHtml {
                     .append(corner.path("inside_design_spread").asBoolean() ? "inside" : "<b>outside</b>")
                     .append(" its central 95 %.</p>\n");
         }
+        // U beside every measured value, at the fit's own coverage factor, as the terminal shows it
+        double k = root.path("measured").path("coverage_factor").asDouble(2);
         h.append("<table id=\"roots\" class=\"data compact\">\n<thead><tr><th>Root</th><th>Predicted (Hz, s/2π)</th>"
-                + "<th>Measured (Hz, s/2π)</th><th>u of |root| (Hz)</th><th>Status</th></tr></thead>\n<tbody>\n");
+                + "<th>Measured (Hz, s/2π)</th><th>U of |root| (Hz, k = ").append(MeasuredValueFormat.coverage(k))
+                .append(")</th><th>Status</th></tr></thead>\n<tbody>\n");
         for (JsonNode r : side.path("roots_hz")) {
             h.append("<tr><td>").append(esc(r.path("kind").asText())).append("</td><td>")
                     .append(root(r.path("predicted_re"), r.path("predicted_im"))).append("</td><td>")
                     .append(root(r.path("measured_re"), r.path("measured_im"))).append("</td><td>")
-                    .append(r.path("measured_u").isNumber() ? MeasuredValueFormat.sixFigures(r.path("measured_u").asDouble())
-                            : NONE)
+                    .append(r.path("measured_u").isNumber()
+                            ? MeasuredValueFormat.uncertainty(k * r.path("measured_u").asDouble()) : NONE)
                     .append("</td><td>").append(r.path("measured_status").isTextual()
                             ? esc(r.path("measured_status").asText()) : "not resolved").append("</td></tr>\n");
         }
