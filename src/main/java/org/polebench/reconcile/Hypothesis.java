@@ -33,7 +33,7 @@ public record Hypothesis(HypothesisKind kind, List<PartReading> faults, double p
     }
 
     /**
-     * @return "no fault", a part id, "Q1 bias current", "gain calibration", "C2 and RE1", or a
+     * @return "no fault", a part id, "Q1 bias current", "flat gain error", "C2 and RE1", or a
      *         measuring-chain element ("AC-coupled output channel")
      */
     public String label() {
@@ -65,7 +65,7 @@ public record Hypothesis(HypothesisKind kind, List<PartReading> faults, double p
     private static String label(PartReading reading) {
         ModelParameter parameter = reading.estimate().parameter();
         if (parameter.kind() == ParameterKind.GAIN) {
-            return "gain calibration";
+            return "flat gain error";
         }
         return parameter.label() + (parameter.kind() == ParameterKind.BIAS ? " bias current" : "");
     }

@@ -83,7 +83,7 @@ public final class DiagnosisText {
         String label = estimate.parameter().label();
         if (!estimate.identifiable()) {
             String what = estimate.parameter().kind() == ParameterKind.BIAS ? label + " bias current"
-                    : estimate.parameter().kind() == ParameterKind.GAIN ? "the gain calibration" : label;
+                    : estimate.parameter().kind() == ParameterKind.GAIN ? "the flat gain error" : label;
             return what + " cannot be identified from this sweep (its effect lies outside the swept band or is "
                     + "masked by other parts): not blamed";
         }

@@ -516,7 +516,7 @@ public final class ReportHtml {
             return "no fault";
         }
         if (kind.equals("gain")) {
-            return "gain calibration";
+            return "flat gain error";
         }
         if (kind.equals("double")) {
             StringBuilder both = new StringBuilder();

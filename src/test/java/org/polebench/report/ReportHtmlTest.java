@@ -229,7 +229,7 @@ class ReportHtmlTest {
             doubles++;
             assertEquals(2, y.path("faults").size());
             for (JsonNode fault : y.path("faults")) {
-                String part = fault.path("part").asText("gain calibration");
+                String part = fault.path("part").asText("flat gain error");
                 assertTrue(rows.get(i).child(1).text().contains(part), rows.get(i).text());
                 assertTrue(rows.get(i).child(4).text().contains(part), rows.get(i).text());
             }
