@@ -168,7 +168,8 @@ public final class ReconcileText {
     private static void backSolve(ReconcileResult result, PrintWriter out) {
         BackSolve backSolve = result.backSolve();
         out.println("Capacitor back-solve (MAP on the stage's exact model, under \"" + result.diagnosis().top().label()
-                + "\"; ± U, k = " + MeasuredValueFormat.coverage(ModelMeasurement.COVERAGE) + ")");
+                + "\"; ± U, k = " + MeasuredValueFormat.coverage(ModelMeasurement.COVERAGE) + "; identifiable: at these"
+                + " estimates; each hypothesis judges a part at its own)");
         out.println(String.format(Locale.ROOT, "  %-8s %10s %12s %24s %8s  %s", "part", "nominal", "tolerance",
                 "estimate", "×nominal", "identifiable"));
         for (ParameterEstimate estimate : backSolve.of(ParameterKind.CAPACITOR)) {

@@ -357,7 +357,9 @@ public final class ReportHtml {
         h.append("<h3>4.3 Capacitor back-solve</h3>\n<p>Maximum a posteriori values on the stage's exact model under the "
                 + "most probable hypothesis (<i>").append(esc(root.path("back_solve_hypothesis").asText()))
                 .append("</i>").append(relative(root) ? ", which does not explain the sweep: see 4.4" : "")
-                .append("); u is the standard uncertainty, U = 2u.</p>\n");
+                .append("); u is the standard uncertainty, U = 2u. Identifiable means the sweep narrows the part "
+                        + "below 0.7 of its tolerance prior at these estimates; each hypothesis in 4.4 judges a part at its "
+                        + "own estimates, so a part may be identifiable here and not under another hypothesis.</p>\n");
         h.append("<table id=\"capacitors\" class=\"data\">\n<thead><tr><th>Capacitor</th><th>Nominal</th><th>Tolerance</th>"
                 + "<th>Band</th><th>Back-solved ± U</th><th>C/C_nom</th><th>Within tolerance</th><th>Identifiable</th>"
                 + "</tr></thead>\n<tbody>\n");
