@@ -65,7 +65,18 @@ public final class Main implements Runnable {
         keepExamplesWhole(line);
         line.setParameterExceptionHandler(Main::usageError);
         line.setExecutionExceptionHandler(Main::handle);
-        int code = line.execute(args);
+        int code;
+        try {
+            code = line.execute(args);
+        } catch (OutOfMemoryError exhausted) {
+            // picocli hands on errors; a file or option too large for the heap is the user's to
+            // size, so it gets a message and the I/O exit code, never a stack trace (issue 15)
+            err.println("polebench: out of memory (" + exhausted.getMessage() + "): the input or an option is too "
+                    + "large for this Java heap");
+            err.println("  fix: give Java more memory (java -Xmx4g -jar target/polebench.jar …), or split the file or "
+                    + "lower --samples / --points");
+            code = ExitCodes.INSTRUMENT_OR_IO;
+        }
         out.flush();
         err.flush();
         return code;
