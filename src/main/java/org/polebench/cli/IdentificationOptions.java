@@ -41,19 +41,20 @@ final class IdentificationOptions {
     String approvedBy;
 
     @Option(names = "--ambient", paramLabel = "TEMP",
-            description = "the ambient temperature as measured, with its unit: 23C, 23.5 °C or 296.6K")
+            description = "the ambient temperature as measured, in °C or K, such as 23.5C")
     String ambient;
 
     @Option(names = "--supply", paramLabel = "VOLTS", description = "the stage's supply voltage as measured: 12.02V")
     String supply;
 
     @Option(names = "--test-level", paramLabel = "LEVEL",
-            description = "the test signal's level: 100mV, 100mVrms, 1Vpp or 0.5Vpk")
+            description = "the test signal's level in V, with rms, pp or pk when it says which, such as 100mVrms")
     String testLevel;
 
-    @Option(names = "--instrument", paramLabel = "ID;SERIAL;CAL-DUE",
-            description = "an instrument used (repeat for each): its identity, serial number and calibration due date "
-                    + "(YYYY-MM-DD), separated by ';'; serial and date may be left empty, as in \"Scope 4;;\"")
+    @Option(names = "--instrument", paramLabel = "INSTRUMENT",
+            description = {"an instrument used, repeated for each: its identity, serial number and calibration due "
+                    + "date (YYYY-MM-DD) separated by semicolons; serial and date may be left empty. Example:",
+                    "  --instrument \"Generator G1;SN-0042;2027-03-31\""})
     List<String> instruments = new ArrayList<>();
 
     /** @throws InputProblem naming the option whose value cannot be read, with what to write instead */
