@@ -13,6 +13,7 @@ import java.util.OptionalDouble;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import org.polebench.InputProblem;
+import org.polebench.capture.SweepCapture;
 import org.polebench.report.Identification;
 import org.polebench.report.Instrument;
 import org.polebench.report.TestLevel;
@@ -64,7 +65,7 @@ final class IdentificationOptions {
             list.add(instrument(text));
         }
         return new Identification(text("--approved-by", approvedBy), temperature(ambient), supply(supply),
-                level(testLevel), list);
+                level(testLevel, TestLevel.COMMAND_LINE), list);
     }
 
     private static Optional<String> text(String option, String value) throws InputProblem {
@@ -112,7 +113,27 @@ final class IdentificationOptions {
         return OptionalDouble.of(written.value());
     }
 
-    private static Optional<TestLevel> level(String text) throws InputProblem {
+    /**
+     * The identification with, when {@code --test-level} was not given, the generator level that
+     * {@code polebench capture} recorded in the sweep's notes; a recorded level that cannot be
+     * read is left out rather than guessed.
+     */
+    static Identification withRecordedLevel(Identification given, List<String> sweepNotes) {
+        if (given.testLevel().isPresent()) {
+            return given;
+        }
+        Optional<String> recorded = SweepCapture.recordedLevel(sweepNotes);
+        if (recorded.isEmpty()) {
+            return given;
+        }
+        try {
+            return given.with(level(recorded.get(), TestLevel.CAPTURE_PLAN));
+        } catch (InputProblem unreadable) {
+            return given;
+        }
+    }
+
+    private static Optional<TestLevel> level(String text, String from) throws InputProblem {
         if (text == null) {
             return Optional.empty();
         }
@@ -135,7 +156,7 @@ final class IdentificationOptions {
             default:
                 measure = Optional.empty();
         }
-        return Optional.of(new TestLevel(written.value(), measure));
+        return Optional.of(new TestLevel(written.value(), measure, from));
     }
 
     /** A voltage that must say its unit: a bare 12 could be volts or millivolts. */

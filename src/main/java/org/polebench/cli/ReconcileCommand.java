@@ -138,7 +138,7 @@ final class ReconcileCommand implements Callable<Integer> {
         ObjectNode root = null;
         if (json || report != null) {
             RunDetails run = RunDetails.of(stageFile, sweepFile, imported.profileName(), imported.warnings(),
-                    Optional.ofNullable(operator), Optional.ofNullable(board), samples, seed).with(identified);
+                    Optional.ofNullable(operator), Optional.ofNullable(board), samples, seed).with(IdentificationOptions.withRecordedLevel(identified, imported.sweep().source().notes()));
             root = new ResultJson().of(result, run);
         }
         var out = spec.commandLine().getOut();

@@ -46,8 +46,13 @@ final class IdentificationHtml {
     private static String level(JsonNode run) {
         String value = measured(run.path("test_level_volts"), "V", true);
         JsonNode measure = run.path("test_level_measure");
-        return run.path("test_level_volts").isNumber() && measure.isTextual()
-                ? value + " " + ReportHtml.esc(measure.asText()) : value;
+        if (!run.path("test_level_volts").isNumber()) {
+            return value;
+        }
+        String from = run.path("test_level_from").asText("");
+        return value + (measure.isTextual() ? " " + ReportHtml.esc(measure.asText()) : "")
+                + (from.equals(TestLevel.CAPTURE_PLAN) ? " <span class=\"note\">(the generator level polebench capture "
+                + "recorded in the sweep file)</span>" : "");
     }
 
     /**

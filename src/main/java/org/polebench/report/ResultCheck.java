@@ -173,6 +173,7 @@ final class ResultCheck {
             must("run.board_from", Kind.TEXT), must("run.spread_samples", Kind.COUNT), must("run.spread_seed", Kind.INTEGER),
             may("run.approved_by", Kind.TEXT), may("run.ambient_celsius", Kind.NUMBER), may("run.supply_volts", Kind.NUMBER),
             may("run.test_level_volts", Kind.POSITIVE), may("run.test_level_measure", Kind.TEXT),
+            may("run.test_level_from", Kind.TEXT),
             may("run.instruments", Kind.LIST), must("run.instruments[].identity", Kind.TEXT),
             may("run.instruments[].serial", Kind.TEXT), may("run.instruments[].calibration_due", Kind.TEXT),
 
@@ -246,6 +247,11 @@ final class ResultCheck {
         if (measure.isTextual() && !MEASURES.contains(measure.asText())) {
             throw problem(file, "$.run.test_level_measure", "is " + measure + "; it must be one of "
                     + String.join(", ", MEASURES) + ", or null");
+        }
+        JsonNode from = run.path("test_level_from");
+        if (from.isTextual() && !from.asText().equals(TestLevel.COMMAND_LINE) && !from.asText().equals(TestLevel.CAPTURE_PLAN)) {
+            throw problem(file, "$.run.test_level_from", "is " + from + "; it must be \"" + TestLevel.COMMAND_LINE
+                    + "\", \"" + TestLevel.CAPTURE_PLAN + "\" or null");
         }
         JsonNode instruments = run.path("instruments");
         for (int i = 0; i < instruments.size(); i++) {

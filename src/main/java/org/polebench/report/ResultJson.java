@@ -30,8 +30,9 @@ import org.polebench.reconcile.ReconcileResult;
  *     {@code sweep_sha256}, {@code profile}, {@code import_warnings};</li>
  * <li>{@code run}: operator, board (and where the board id came from), spread samples and seed;
  *     {@code approved_by}, {@code ambient_celsius}, {@code supply_volts}, {@code test_level_volts},
- *     {@code test_level_measure} and {@code instruments} (each {@code identity}, {@code serial},
- *     {@code calibration_due} as an ISO-8601 date), null or empty when not given (issue 14);</li>
+ *     {@code test_level_measure}, {@code test_level_from} and {@code instruments} (each
+ *     {@code identity}, {@code serial}, {@code calibration_due} as an ISO-8601 date), null or
+ *     empty when not given (issue 14);</li>
  * <li>{@code sweep}: the instrument, capture time (ISO-8601 UTC), board, notes and the points;</li>
  * <li>{@code curves}: the Bode plot's curves on one frequency grid ({@link ReportCurves});</li>
  * <li>each {@code capacitors} row also gets its tolerance band, C/C_nom and the standard
@@ -150,6 +151,7 @@ public final class ResultJson {
                 run.putNull("test_level_volts");
             }
             putText(run, "test_level_measure", given.testLevel().flatMap(TestLevel::measure));
+            putText(run, "test_level_from", given.testLevel().map(TestLevel::from));
         }
         if (!given.instruments().isEmpty() || !onlyGiven) {
             ArrayNode list = run.putArray("instruments");

@@ -105,6 +105,36 @@ class IdentificationOptionsTest {
         assertTrue(html.contains("<th>Approved by</th><td></td>"), "sign-off left to sign by hand");
     }
 
+    // a sweep polebench capture wrote records its generator level in its plan note (CaptureSession
+    // writes "capture plan: … amplitude=<volts> <kind>"): the report's test level when none is given
+    @Test
+    void theTestLevelComesFromACapturedSweepUnlessGiven(@TempDir Path dir) throws Exception {
+        Path demo = BundledSamples.locate(ReconcileCommand.DEMO_SWEEP);
+        String text = Files.readString(demo);
+        int units = text.indexOf("# units:");
+        Path captured = Files.writeString(dir.resolve("captured.sweep.csv"), text.substring(0, units)
+                + "# note: capture plan: from_hz=0.5 to_hz=2000.0 points=61 log-spaced amplitude=0.2 Vpp\n"
+                + text.substring(units));
+        String stage = BundledSamples.locate(BundledSamples.DEMO_STAGE).toString();
+        String[] recorded = run("reconcile", "--stage", stage, "--sweep", captured.toString(), "--samples", "100",
+                "--json");
+        assertEquals("1", recorded[0], recorded[2]);
+        JsonNode run = new ObjectMapper().readTree(recorded[1]).path("run");
+        assertEquals(0.2, run.path("test_level_volts").asDouble(), 0.0);
+        assertEquals("peak-to-peak", run.path("test_level_measure").asText());
+        assertEquals("capture plan", run.path("test_level_from").asText());
+
+        Path out = dir.resolve("a");
+        String[] given = run("reconcile", "--stage", stage, "--sweep", captured.toString(), "--samples", "100",
+                "--test-level", "50mV", "--report", out.toString());
+        assertEquals("1", given[0], given[2]);
+        JsonNode run2 = new ObjectMapper().readTree(out.resolve("result.json").toFile()).path("run");
+        assertEquals(0.05, run2.path("test_level_volts").asDouble(), 0.0);
+        assertTrue(run2.path("test_level_measure").isNull());
+        assertEquals("command line", run2.path("test_level_from").asText());
+        assertEquals("50 mV", cell(Files.readString(out.resolve("report.html")), "test-level"));
+    }
+
     @Test
     void anUnreadableValueIsRefusedNamingItsOption(@TempDir Path dir) throws Exception {
         Path out = dir.resolve("a");

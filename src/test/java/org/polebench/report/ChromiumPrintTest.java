@@ -35,7 +35,7 @@ class ChromiumPrintTest {
         // the identification filled in (issue 14): page 1 at its longest still carries it all
         ObjectNode root = DemoResult.shared();
         new ResultJson().identify(root, new Identification(Optional.of("B. Checker"), OptionalDouble.of(23.5),
-                OptionalDouble.of(12.02), Optional.of(new TestLevel(0.1, Optional.of("rms"))),
+                OptionalDouble.of(12.02), Optional.of(new TestLevel(0.1, Optional.of("rms"), TestLevel.COMMAND_LINE)),
                 List.of(new Instrument("Generator G1", Optional.of("SN-0042"), Optional.of(LocalDate.of(2027, 3, 31))),
                         new Instrument("Meter M2", Optional.empty(), Optional.empty()))));
         new TestReportWriter().write(root, out, false, false, Instant.parse("2026-03-14T09:30:00Z"));
