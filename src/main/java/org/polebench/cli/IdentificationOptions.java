@@ -91,7 +91,7 @@ final class IdentificationOptions {
         BigDecimal number = new BigDecimal(m.group(1));
         double celsius = (m.group(2).equals("K") ? number.subtract(ZERO_CELSIUS_KELVIN) : number).doubleValue();
         // below absolute zero, or beyond anything a bench stands in, is a typing slip
-        if (celsius < -273.15 || celsius > 1000) {
+        if (celsius < -ZERO_CELSIUS_KELVIN.doubleValue() || celsius > 1000) {
             throw new InputProblem(null, 0, "--ambient '" + text + "' is not an ambient temperature",
                     "give the temperature measured at the bench, such as --ambient 23C");
         }
