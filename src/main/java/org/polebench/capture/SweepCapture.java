@@ -5,6 +5,7 @@ import java.nio.file.Files;
 import java.time.Clock;
 import java.util.List;
 import java.util.Map;
+import java.util.Optional;
 import java.util.OptionalDouble;
 import java.util.function.BooleanSupplier;
 import org.polebench.InputProblem;
@@ -182,6 +183,23 @@ public final class SweepCapture {
         }
         throw new InputProblem(sweep.file(), 0, "the sweep file does not say how the capture was planned",
                 "resume only a file written by polebench capture (it has a '# note: " + PLAN_NOTE + "…' line)");
+    }
+
+    /**
+     * The generator level a capture wrote into its sweep's plan note, as written there ("0.1 Vrms":
+     * the number in volts and the profile's amplitude kind), for the report's test level.
+     *
+     * @param notes a sweep's notes
+     * @return the level, empty for a sweep that polebench did not capture
+     */
+    public static Optional<String> recordedLevel(List<String> notes) {
+        for (String note : notes) {
+            int at = note.indexOf(" amplitude=");
+            if (note.startsWith(PLAN_NOTE) && at >= 0) {
+                return Optional.of(note.substring(at + " amplitude=".length()).strip());
+            }
+        }
+        return Optional.empty();
     }
 
     private static OptionalDouble recordedAmplitude(AppendedSweep sweep) {

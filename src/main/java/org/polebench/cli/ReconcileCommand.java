@@ -21,6 +21,7 @@ import org.polebench.reconcile.DecisionRule;
 import org.polebench.reconcile.OverallResult;
 import org.polebench.reconcile.ReconcileResult;
 import org.polebench.reconcile.Reconciler;
+import org.polebench.report.Identification;
 import org.polebench.report.ReportStamp;
 import org.polebench.report.ResultJson;
 import org.polebench.report.RunDetails;
@@ -92,6 +93,9 @@ final class ReconcileCommand implements Callable<Integer> {
     @Option(names = "--operator", paramLabel = "NAME", description = "who ran the test, for the report")
     String operator;
 
+    @Mixin
+    IdentificationOptions identification = new IdentificationOptions();
+
     @Option(names = "--board", paramLabel = "ID",
             description = "the board's id or serial number, for the report (default: the sweep's own, if it names one)")
     String board;
@@ -119,6 +123,7 @@ final class ReconcileCommand implements Callable<Integer> {
             throw new InputProblem(null, 0, (force ? "--force" : "--png") + " only applies to --report",
                     "add --report DIR, or leave the option out");
         }
+        Identification identified = identification.read();
         Path stageFile = stage != null ? stage : BundledSamples.locate(BundledSamples.DEMO_STAGE);
         Path sweepFile = sweep != null ? sweep : BundledSamples.locate(DEMO_SWEEP);
         StagePrediction predicted = new StageAnalysis().withSpread(new ToleranceSpread(samples, seed))
@@ -133,7 +138,7 @@ final class ReconcileCommand implements Callable<Integer> {
         ObjectNode root = null;
         if (json || report != null) {
             RunDetails run = RunDetails.of(stageFile, sweepFile, imported.profileName(), imported.warnings(),
-                    Optional.ofNullable(operator), Optional.ofNullable(board), samples, seed);
+                    Optional.ofNullable(operator), Optional.ofNullable(board), samples, seed).with(IdentificationOptions.withRecordedLevel(identified, imported.sweep().source().notes()));
             root = new ResultJson().of(result, run);
         }
         var out = spec.commandLine().getOut();

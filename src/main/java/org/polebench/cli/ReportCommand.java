@@ -5,11 +5,15 @@ import java.nio.file.Path;
 import java.time.Instant;
 import java.util.concurrent.Callable;
 import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.node.ObjectNode;
 import org.polebench.InputProblem;
+import org.polebench.report.Identification;
 import org.polebench.report.ReportStamp;
 import org.polebench.report.ResultFile;
+import org.polebench.report.ResultJson;
 import org.polebench.report.TestReportWriter;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
@@ -33,6 +37,9 @@ final class ReportCommand implements Callable<Integer> {
     @Option(names = "--out", paramLabel = "DIR", required = true, description = "the folder to write the report into")
     Path out;
 
+    @Mixin
+    IdentificationOptions identification = new IdentificationOptions();
+
     @Option(names = "--force", description = "replace an earlier report in DIR")
     boolean force;
 
@@ -41,8 +48,11 @@ final class ReportCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws InputProblem, IOException {
+        Identification given = identification.read();
         ResultFile file = new ResultFile();
         JsonNode root = file.read(result);
+        // options given here complete or correct the identification the result holds
+        new ResultJson().identify((ObjectNode) root, given);
         for (String line : file.checkInputs(result, root)) {
             spec.commandLine().getOut().println(line);
         }

@@ -91,6 +91,7 @@ public final class ReportHtml {
                 ? esc(run.path("approved_by").asText()) : "<span class=\"blank short\"></span>"), null);
         field(h, "When", "tested " + (sweep.path("captured_utc").isTextual() ? esc(sweep.path("captured_utc").asText())
                 : "(date not recorded in the sweep file)") + "; issued " + esc(stamp.issuedText()), null);
+        IdentificationHtml.summaryRows(root, h);
         h.append("</table>\n");
         h.append("<section id=\"summary\" class=\"summary ").append(css).append("\">\n");
         h.append("<p class=\"verdict-word\">Verdict: <b id=\"verdict-overall\">").append(esc(overall.toUpperCase(Locale.ROOT)))
@@ -161,7 +162,8 @@ public final class ReportHtml {
                 + " <span class=\"note\">(from the " + esc(from) + ")</span>" : "not recorded", "board");
         field(h, "Operator (tested by)", run.path("operator").isTextual() ? esc(run.path("operator").asText())
                 : "not given (use --operator)", "operator");
-        field(h, "Instrument", sweep.path("instrument").asText().isEmpty() ? "not recorded in the sweep file"
+        IdentificationHtml.sectionRows(root, h);
+        field(h, "Instrument (as the sweep file names it)", sweep.path("instrument").asText().isEmpty() ? "not recorded in the sweep file"
                 : esc(sweep.path("instrument").asText()), "instrument");
         field(h, "Laboratory and location", "<span class=\"blank\"></span>", null);
         field(h, "Customer", "<span class=\"blank\"></span>", null);
@@ -502,11 +504,12 @@ public final class ReportHtml {
         h.append("<table class=\"signatures\">\n<tr><th>Tested by</th><td>")
                 .append(run.path("operator").isTextual() ? esc(run.path("operator").asText()) : "")
                 .append("</td><th>Signature</th><td class=\"line\"></td><th>Date</th><td class=\"line\"></td></tr>\n");
-        h.append("<tr><th>Checked by</th><td class=\"line\"></td><th>Signature</th><td class=\"line\"></td><th>Date</th>"
+        h.append("<tr><th>Approved by</th><td>").append(run.path("approved_by").isTextual()
+                ? esc(run.path("approved_by").asText()) : "").append("</td><th>Signature</th><td class=\"line\"></td><th>Date</th>"
                 + "<td class=\"line\"></td></tr>\n</table>\n</section>\n");
     }
 
-    private static void field(StringBuilder h, String name, String valueHtml, String id) {
+    static void field(StringBuilder h, String name, String valueHtml, String id) {
         h.append("<tr><th>").append(esc(name)).append("</th><td").append(id == null ? "" : " id=\"" + id + "\"").append(">")
                 .append(valueHtml).append("</td></tr>\n");
     }

@@ -2,6 +2,10 @@ package org.polebench.report;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import java.nio.file.Path;
+import java.time.LocalDate;
+import java.time.format.DateTimeFormatter;
+import java.time.format.DateTimeParseException;
+import java.time.format.ResolverStyle;
 import java.util.Iterator;
 import java.util.List;
 import java.util.Locale;
@@ -54,6 +58,9 @@ final class ResultCheck {
 
     /** @param path dotted keys, {@code []} after a key for each element of its list */
     private record Rule(String path, Kind kind, boolean nullable) {}
+
+    /** How a test level may be measured, as {@link ResultJson} writes it. */
+    private static final List<String> MEASURES = List.of("rms", "peak-to-peak", "peak");
 
     private static final List<Rule> RULES = List.of(
             must("polebench_version", Kind.TEXT), must("stage_file", Kind.TEXT), must("stage_sha256", Kind.TEXT),
@@ -164,6 +171,11 @@ final class ResultCheck {
 
             must("run", Kind.OBJECT), may("run.operator", Kind.TEXT), may("run.board", Kind.TEXT),
             must("run.board_from", Kind.TEXT), must("run.spread_samples", Kind.COUNT), must("run.spread_seed", Kind.INTEGER),
+            may("run.approved_by", Kind.TEXT), may("run.ambient_celsius", Kind.NUMBER), may("run.supply_volts", Kind.NUMBER),
+            may("run.test_level_volts", Kind.POSITIVE), may("run.test_level_measure", Kind.TEXT),
+            may("run.test_level_from", Kind.TEXT),
+            may("run.instruments", Kind.LIST), must("run.instruments[].identity", Kind.TEXT),
+            may("run.instruments[].serial", Kind.TEXT), may("run.instruments[].calibration_due", Kind.TEXT),
 
             must("sweep", Kind.OBJECT), must("sweep.instrument", Kind.TEXT), must("sweep.profile_used", Kind.TEXT),
             may("sweep.captured_utc", Kind.TEXT), may("sweep.board", Kind.TEXT), must("sweep.notes", Kind.LIST),
@@ -225,7 +237,34 @@ final class ResultCheck {
                 throw problem(file, "$.capacitors[" + i + "].min_farads", "and max_farads do not make a band");
             }
         }
+        identification(file, root.path("run"));
         verdict(file, root.path("verdict"));
+    }
+
+    /** The identification fields' own forms (issue 14), beyond their JSON types. */
+    private static void identification(Path file, JsonNode run) throws InputProblem {
+        JsonNode measure = run.path("test_level_measure");
+        if (measure.isTextual() && !MEASURES.contains(measure.asText())) {
+            throw problem(file, "$.run.test_level_measure", "is " + measure + "; it must be one of "
+                    + String.join(", ", MEASURES) + ", or null");
+        }
+        JsonNode from = run.path("test_level_from");
+        if (from.isTextual() && !from.asText().equals(TestLevel.COMMAND_LINE) && !from.asText().equals(TestLevel.CAPTURE_PLAN)) {
+            throw problem(file, "$.run.test_level_from", "is " + from + "; it must be \"" + TestLevel.COMMAND_LINE
+                    + "\", \"" + TestLevel.CAPTURE_PLAN + "\" or null");
+        }
+        JsonNode instruments = run.path("instruments");
+        for (int i = 0; i < instruments.size(); i++) {
+            JsonNode due = instruments.get(i).path("calibration_due");
+            if (due.isTextual()) {
+                try {
+                    LocalDate.parse(due.asText(), DateTimeFormatter.ISO_LOCAL_DATE.withResolverStyle(ResolverStyle.STRICT));
+                } catch (DateTimeParseException notADate) {
+                    throw problem(file, "$.run.instruments[" + i + "].calibration_due", "is " + due
+                            + "; it must be a date written YYYY-MM-DD, or null");
+                }
+            }
+        }
     }
 
     /**

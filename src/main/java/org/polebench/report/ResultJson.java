@@ -6,6 +6,7 @@ import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.SerializationFeature;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
+import java.time.LocalDate;
 import java.time.format.DateTimeFormatter;
 import java.time.temporal.ChronoUnit;
 import java.util.List;
@@ -27,7 +28,11 @@ import org.polebench.reconcile.ReconcileResult;
  *     issue 11);</li>
  * <li>{@code polebench_version}, {@code stage_file}, {@code stage_sha256}, {@code sweep_file},
  *     {@code sweep_sha256}, {@code profile}, {@code import_warnings};</li>
- * <li>{@code run}: operator, board (and where the board id came from), spread samples and seed;</li>
+ * <li>{@code run}: operator, board (and where the board id came from), spread samples and seed;
+ *     {@code approved_by}, {@code ambient_celsius}, {@code supply_volts}, {@code test_level_volts},
+ *     {@code test_level_measure}, {@code test_level_from} and {@code instruments} (each
+ *     {@code identity}, {@code serial}, {@code calibration_due} as an ISO-8601 date), null or
+ *     empty when not given (issue 14);</li>
  * <li>{@code sweep}: the instrument, capture time (ISO-8601 UTC), board, notes and the points;</li>
  * <li>{@code curves}: the Bode plot's curves on one frequency grid ({@link ReportCurves});</li>
  * <li>each {@code capacitors} row also gets its tolerance band, C/C_nom and the standard
@@ -69,6 +74,7 @@ public final class ResultJson {
         runNode.put("board_from", run.board().isPresent() ? "command line" : source.board().isPresent() ? "sweep" : "none");
         runNode.put("spread_samples", run.samples());
         runNode.put("spread_seed", run.seed());
+        identify(runNode, run.identification(), false);
         ArrayNode reportWarnings = root.putArray("report_warnings");
         if (run.board().isPresent() && source.board().isPresent() && !run.board().get().equals(source.board().get())) {
             reportWarnings.add("the sweep names board '" + source.board().get() + "' but --board says '"
@@ -108,6 +114,53 @@ public final class ResultJson {
         } catch (JsonProcessingException impossible) {
             // a tree of plain nodes always serialises; anything else is a defect here
             throw new IllegalStateException(impossible);
+        }
+    }
+
+    /**
+     * Sets the approver, conditions and instruments given on a report's command line into a result
+     * read back, leaving what the file holds where an option was not given (a list of instruments
+     * given replaces the file's).
+     *
+     * @param root a result object, as {@link ResultFile} reads it
+     */
+    public void identify(ObjectNode root, Identification given) {
+        JsonNode run = root.path("run");
+        identify(run.isObject() ? (ObjectNode) run : root.putObject("run"), given, true);
+    }
+
+    /** @param onlyGiven leave a field alone when it is not given, rather than writing null */
+    private static void identify(ObjectNode run, Identification given, boolean onlyGiven) {
+        if (given.approvedBy().isPresent() || !onlyGiven) {
+            putText(run, "approved_by", given.approvedBy());
+        }
+        if (given.ambientCelsius().isPresent()) {
+            run.put("ambient_celsius", given.ambientCelsius().getAsDouble());
+        } else if (!onlyGiven) {
+            run.putNull("ambient_celsius");
+        }
+        if (given.supplyVolts().isPresent()) {
+            run.put("supply_volts", given.supplyVolts().getAsDouble());
+        } else if (!onlyGiven) {
+            run.putNull("supply_volts");
+        }
+        if (given.testLevel().isPresent() || !onlyGiven) {
+            if (given.testLevel().isPresent()) {
+                run.put("test_level_volts", given.testLevel().get().volts());
+            } else {
+                run.putNull("test_level_volts");
+            }
+            putText(run, "test_level_measure", given.testLevel().flatMap(TestLevel::measure));
+            putText(run, "test_level_from", given.testLevel().map(TestLevel::from));
+        }
+        if (!given.instruments().isEmpty() || !onlyGiven) {
+            ArrayNode list = run.putArray("instruments");
+            for (Instrument instrument : given.instruments()) {
+                ObjectNode row = list.addObject();
+                row.put("identity", instrument.identity());
+                putText(row, "serial", instrument.serial());
+                putText(row, "calibration_due", instrument.calibrationDue().map(LocalDate::toString));
+            }
         }
     }
 

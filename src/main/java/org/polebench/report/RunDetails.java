@@ -20,22 +20,32 @@ import org.polebench.InputWarning;
  *                       the sweep's own
  * @param samples        boards drawn for the tolerance spread
  * @param seed           the spread's random seed
+ * @param identification approver, conditions and instruments as the user gave them (issue 14)
  */
 public record RunDetails(Path stageFile, String stageSha256, Path sweepFile, String profile,
                          List<String> importWarnings, Optional<String> operator, Optional<String> board, int samples,
-                         long seed) {
+                         long seed, Identification identification) {
     public RunDetails {
         importWarnings = List.copyOf(importWarnings);
     }
 
+    /** @return these details with the given approver, conditions and instruments */
+    public RunDetails with(Identification given) {
+        return new RunDetails(stageFile, stageSha256, sweepFile, profile, importWarnings, operator, board, samples, seed,
+                given);
+    }
+
     /**
+     * The details with nothing identified beyond the operator and board ({@link Identification#NONE}).
+     *
      * @throws IOException when the stage file cannot be read for its digest
      */
     public static RunDetails of(Path stageFile, Path sweepFile, String profile, List<InputWarning> importWarnings,
                                 Optional<String> operator, Optional<String> board, int samples, long seed)
             throws IOException {
         return new RunDetails(stageFile, FileDigest.sha256(stageFile), sweepFile, profile,
-                importWarnings.stream().map(InputWarning::describe).toList(), operator, board, samples, seed);
+                importWarnings.stream().map(InputWarning::describe).toList(), operator, board, samples, seed,
+                Identification.NONE);
     }
 
     /** @return the polebench version from the jar's manifest, or "development build" outside a jar */

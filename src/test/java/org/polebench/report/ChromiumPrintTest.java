@@ -4,11 +4,14 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 import static org.junit.jupiter.api.Assumptions.assumeTrue;
 
+import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.Instant;
+import java.time.LocalDate;
 import java.util.List;
 import java.util.Optional;
+import java.util.OptionalDouble;
 import java.util.concurrent.TimeUnit;
 import org.apache.pdfbox.Loader;
 import org.apache.pdfbox.pdmodel.PDDocument;
@@ -29,7 +32,13 @@ class ChromiumPrintTest {
         Optional<Path> chromium = chromium();
         assumeTrue(chromium.isPresent(), "chromium is not installed (apt-get install chromium); print test skipped");
         Path out = dir.resolve("report");
-        new TestReportWriter().write(DemoResult.shared(), out, false, false, Instant.parse("2026-03-14T09:30:00Z"));
+        // the identification filled in (issue 14): page 1 at its longest still carries it all
+        ObjectNode root = DemoResult.shared();
+        new ResultJson().identify(root, new Identification(Optional.of("B. Checker"), OptionalDouble.of(23.5),
+                OptionalDouble.of(12.02), Optional.of(new TestLevel(0.1, Optional.of("rms"), TestLevel.COMMAND_LINE)),
+                List.of(new Instrument("Generator G1", Optional.of("SN-0042"), Optional.of(LocalDate.of(2027, 3, 31))),
+                        new Instrument("Meter M2", Optional.empty(), Optional.empty()))));
+        new TestReportWriter().write(root, out, false, false, Instant.parse("2026-03-14T09:30:00Z"));
         Path pdf = dir.resolve("report.pdf");
         Path profile = Files.createDirectory(dir.resolve("chromium-profile"));
         Process process = new ProcessBuilder(List.of(chromium.get().toString(), "--headless", "--no-sandbox",
@@ -63,6 +72,9 @@ class ChromiumPrintTest {
             assertTrue(first.contains("A. Tester"), first);
             assertTrue(first.contains("GF2-0417"), first);
             assertTrue(first.contains("issued 2026-03-14T09:30:00Z"), first);
+            assertTrue(first.contains("approved by B. Checker"), first);
+            assertTrue(first.contains("ambient 23.5 °C; supply 12.02 V; test level 100 mV rms"), first);
+            assertTrue(first.contains("Generator G1, serial SN-0042, calibration due 2027-03-31"), first);
         }
     }
 

@@ -64,6 +64,31 @@ class ResultCheckTest {
         assertTrue(order.getMessage().contains("$.sweep.points[5].frequency_hz"), order.getMessage());
     }
 
+    // issue 14: the identification fields are optional (a result written before them is read), and
+    // typed when present: a calibration due date in ISO 8601 form, a test level measured one of three ways
+    @Test
+    void identificationFieldsAreOptionalAndTyped(@TempDir Path dir) throws Exception {
+        ObjectNode older = DemoResult.shared();
+        ((ObjectNode) older.path("run")).remove(List.of("approved_by", "ambient_celsius", "supply_volts",
+                "test_level_volts", "test_level_measure", "instruments"));
+        assertEquals("fail", new ResultFile().read(write(dir, older)).path("verdict").path("overall").asText());
+
+        InputProblem date = refused(dir, r -> ((ObjectNode) r.path("run")).putArray("instruments").addObject()
+                .put("identity", "Generator G1").put("calibration_due", "31/03/2027"));
+        assertTrue(date.getMessage().contains("$.run.instruments[0].calibration_due is \"31/03/2027\""),
+                date.getMessage());
+        InputProblem nameless = refused(dir, r -> ((ObjectNode) r.path("run")).putArray("instruments").addObject()
+                .put("serial", "SN-1"));
+        assertTrue(nameless.getMessage().contains("$.run.instruments[0].identity is missing"), nameless.getMessage());
+        InputProblem measure = refused(dir, r -> ((ObjectNode) r.path("run")).put("test_level_volts", 0.1)
+                .put("test_level_measure", "loud"));
+        assertTrue(measure.getMessage().contains("$.run.test_level_measure"), measure.getMessage());
+        InputProblem level = refused(dir, r -> ((ObjectNode) r.path("run")).put("test_level_volts", -1));
+        assertTrue(level.getMessage().contains("$.run.test_level_volts is -1"), level.getMessage());
+        InputProblem ambient = refused(dir, r -> ((ObjectNode) r.path("run")).put("ambient_celsius", "warm"));
+        assertTrue(ambient.getMessage().contains("$.run.ambient_celsius"), ambient.getMessage());
+    }
+
     // the verdict is decided again from the file (LimitCheck.decide, simple acceptance): the corner
     // 59.99 Hz against "at most 35 Hz" fails whatever the file says
     @Test
