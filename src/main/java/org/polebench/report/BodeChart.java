@@ -41,9 +41,10 @@ import org.polebench.sweep.SweepPoint;
 import org.polebench.units.MeasuredValueFormat;
 
 /**
- * A Bode plot: gain (dB) above phase (°) on a shared logarithmic frequency axis, with any number
- * of measured series, computed curves and shaded gain bands ({@link BodeSeries}). Immutable: each
- * {@code with…} returns a new chart. Phases are drawn continuous: each curve is unwrapped along
+ * A Bode plot: gain (dB) above phase (°) on a shared logarithmic frequency axis with 1-2-5 ticks
+ * ({@link OneTwoFiveAxis}), with any number of measured series, computed curves and shaded gain
+ * bands ({@link BodeSeries}), labelled level and limit lines, and optionally a residual panel
+ * between gain and phase. Immutable: each {@code with…} returns a new chart. Phases are drawn continuous: each curve is unwrapped along
  * frequency and placed so its top-frequency phase lies in (−180°, 180°]; a measured series is
  * unwrapped along frequency too (a phase reading is only known modulo 360°), then moved as a whole
  * by the whole turns that bring it nearest, on average, to the first curve. Moving each point on

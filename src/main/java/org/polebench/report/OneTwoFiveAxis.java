@@ -39,11 +39,19 @@ final class OneTwoFiveAxis extends LogAxis {
         setMinorTickMarksVisible(true);
     }
 
-    /** The 1-2-5 values within [low, high], ascending. */
+    /**
+     * The 1-2-5 values within [low, high], ascending; over a range too narrow to hold three of
+     * them (a back-solve near nominal, 0.8 to 1.25), every whole step 1…9 × 10ⁿ instead.
+     */
     static List<Double> majorValues(double low, double high) {
+        List<Double> values = steps(low, high, new int[]{1, 2, 5});
+        return values.size() >= 3 ? values : steps(low, high, new int[]{1, 2, 3, 4, 5, 6, 7, 8, 9});
+    }
+
+    private static List<Double> steps(double low, double high, int[] steps) {
         List<Double> values = new ArrayList<>();
         for (int decade = (int) Math.floor(Math.log10(low)); decade <= (int) Math.ceil(Math.log10(high)); decade++) {
-            for (int step : new int[]{1, 2, 5}) {
+            for (int step : steps) {
                 // parsed from text so that 2e-1 is the double nearest 0.2, not 2 × 0.1000…01
                 double v = Double.parseDouble(step + "e" + decade);
                 if (v >= low && v <= high) {
@@ -70,12 +78,9 @@ final class OneTwoFiveAxis extends LogAxis {
             boolean decade = Math.abs(Math.log10(v) - Math.rint(Math.log10(v))) < 1e-9;
             ticks.add(new NumberTick(TickType.MAJOR, v, all || decade ? labels.apply(v) : "", anchor, TextAnchor.CENTER, 0));
         }
-        for (int decade = (int) Math.floor(Math.log10(low)); decade <= (int) Math.ceil(Math.log10(high)); decade++) {
-            for (int step : new int[]{3, 4, 6, 7, 8, 9}) {
-                double v = Double.parseDouble(step + "e" + decade);
-                if (v >= low && v <= high) {
-                    ticks.add(new NumberTick(TickType.MINOR, v, "", anchor, TextAnchor.CENTER, 0));
-                }
+        for (double v : steps(low, high, new int[]{1, 2, 3, 4, 5, 6, 7, 8, 9})) {
+            if (!majors.contains(v)) {
+                ticks.add(new NumberTick(TickType.MINOR, v, "", anchor, TextAnchor.CENTER, 0));
             }
         }
         return ticks;

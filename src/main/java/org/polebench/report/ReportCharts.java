@@ -4,6 +4,7 @@ import com.fasterxml.jackson.databind.JsonNode;
 import java.awt.BasicStroke;
 import java.awt.Color;
 import java.awt.Font;
+import java.awt.Paint;
 import java.awt.Rectangle;
 import java.awt.geom.Ellipse2D;
 import java.awt.geom.Rectangle2D;
@@ -47,10 +48,11 @@ import org.polebench.units.MeasuredValueFormat;
  * ({@link ResultJson}) alone, so a saved {@code result.json} redraws them:
  * <ul>
  * <li>{@link #bode}: measured points, fitted model, the nominal stage's exact response, the SCTC
- *     single-pole estimate and the tolerance band shaded on the gain panel;</li>
+ *     single-pole estimate and the tolerance band shaded on the gain panel, the residuals against
+ *     the fitted model under it, the measured midband less 3.01 dB and the lower-corner limit;</li>
  * <li>{@link #cornerShares}: each capacitor's share of the SCTC corner, (1/τᵢ)/Σ(1/τ), in %;</li>
  * <li>{@link #capacitorBands}: each back-solved capacitor as C/C_nom with ±U (k = 2) against its
- *     tolerance band, on a log axis.</li>
+ *     tolerance band, on a log axis with 1-2-5 ticks, the most probable culprit in red.</li>
  * </ul>
  * SVG goes through JFreeSVG with a fixed defs-key prefix per chart, so the bytes repeat from run
  * to run and several charts can sit inline in one page without their ids colliding
@@ -132,7 +134,7 @@ public final class ReportCharts {
         return MeasuredValueFormat.engineering(value, "Hz", 3);
     }
 
-    /** Each capacitor's share of the SCTC corner, in percent. */
+    /** Each capacitor's share of the SCTC corner, in percent; the culprit's bar (see {@link #culprit}) in red. */
     public JFreeChart cornerShares(JsonNode root) {
         DefaultCategoryDataset shares = new DefaultCategoryDataset();
         for (JsonNode row : root.path("predicted").path("capacitors")) {
@@ -141,7 +143,15 @@ public final class ReportCharts {
         NumberAxis percent = new NumberAxis("Share of the SCTC corner Σ 1/(2πτᵢ) (%)");
         percent.setRange(0, Math.max(10, Math.ceil(maxValue(shares) / 10) * 10));
         percent.setTickUnit(new NumberTickUnit(5));
-        BarRenderer bars = new BarRenderer();
+        int culpritColumn = culprit(root).map(shares::getColumnIndex).orElse(-1);
+        BarRenderer bars = new BarRenderer() {
+            private static final long serialVersionUID = 1L;
+
+            @Override
+            public Paint getItemPaint(int row, int column) {
+                return column == culpritColumn ? CULPRIT : super.getItemPaint(row, column);
+            }
+        };
         bars.setBarPainter(new StandardBarPainter());
         bars.setShadowVisible(false);
         bars.setSeriesPaint(0, BAND);

@@ -183,6 +183,8 @@ class ReportChartsTest {
         assertEquals(List.of("500 mHz", "1 Hz", "2 Hz", "5 Hz", "10 Hz", "20 Hz", "50 Hz", "100 Hz", "200 Hz", "500 Hz",
                 "1 kHz", "2 kHz", "5 kHz"), ticks);
         assertEquals(List.of(0.5, 1.0, 2.0, 5.0, 10.0, 20.0), OneTwoFiveAxis.majorValues(0.45, 21));
+        // too narrow for three 1-2-5 values: every whole step of the decade instead
+        assertEquals(List.of(0.8, 0.9, 1.0, 2.0), OneTwoFiveAxis.majorValues(0.75, 2.2));
     }
 
     // the stage's lower-corner-max (35 Hz in the demo stage file) is a dashed red vertical line in
@@ -268,6 +270,13 @@ class ReportChartsTest {
         }
         assertEquals(row, estimates.getXValue(1, 0), 0);
         assertTrue(!plot.getRenderer(1).getSeriesPaint(1).equals(plot.getRenderer(1).getSeriesPaint(0)));
+        // and its bar among the SCTC shares has a colour of its own
+        org.jfree.chart.plot.CategoryPlot shares = (org.jfree.chart.plot.CategoryPlot) charts.cornerShares(root).getPlot();
+        int column = shares.getDataset().getColumnIndex("C2");
+        for (int c = 0; c < shares.getDataset().getColumnCount(); c++) {
+            boolean same = shares.getRenderer().getItemPaint(0, c).equals(shares.getRenderer().getItemPaint(0, column));
+            assertEquals(c == column, same, "column " + c);
+        }
     }
 
     // a title as long as a paragraph takes no more height than a short one: it keeps to one line
