@@ -9,6 +9,8 @@ import java.io.IOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.text.DecimalFormat;
+import java.text.DecimalFormatSymbols;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
@@ -42,7 +44,7 @@ import org.polebench.units.MeasuredValueFormat;
 
 /**
  * A Bode plot: gain (dB) above phase (°) on a shared logarithmic frequency axis with 1-2-5 ticks
- * ({@link OneTwoFiveAxis}), with any number of measured series, computed curves and shaded gain
+ * (OneTwoFiveAxis), with any number of measured series, computed curves and shaded gain
  * bands ({@link BodeSeries}), labelled level and limit lines, and optionally a residual panel
  * between gain and phase. Immutable: each {@code with…} returns a new chart. Phases are drawn continuous: each curve is unwrapped along
  * frequency and placed so its top-frequency phase lies in (−180°, 180°]; a measured series is
@@ -243,6 +245,7 @@ public final class BodeChart {
         frequency.setRange(low / 1.1, high * 1.1);
 
         NumberAxis gainAxis = new NumberAxis("Gain (dB)");
+        gainAxis.setNumberFormatOverride(plainNumbers());
         gainAxis.setAutoRangeIncludesZero(false);
         XYPlot gainPlot = panel(gainCurves, gainCurveRenderer, gainPoints, gainPointRenderer, gainAxis);
         if (bands.getSeriesCount() > 0) {
@@ -262,6 +265,7 @@ public final class BodeChart {
             gainPlot.addRangeMarker(line, Layer.FOREGROUND);
         }
         NumberAxis phaseAxis = new NumberAxis("Phase (°)");
+        phaseAxis.setNumberFormatOverride(plainNumbers());
         phaseAxis.setAutoRangeIncludesZero(false);
         XYPlot phasePlot = panel(phaseCurves, phaseCurveRenderer, phasePoints, phasePointRenderer, phaseAxis);
         // the phase panel repeats the gain panel's series; one legend entry each is enough
@@ -295,6 +299,17 @@ public final class BodeChart {
 
     private static final Color[] PALETTE = {new Color(0, 0, 0), new Color(200, 40, 40), new Color(30, 90, 200),
         new Color(20, 140, 60), new Color(150, 70, 170)};
+
+    /**
+     * Tick labels with a decimal point whatever the default locale (JFreeChart's NumberAxis
+     * formats with it: 0,2 under de_DE), so a plot's bytes do not depend on where it was drawn.
+     */
+    private static DecimalFormat plainNumbers() {
+        DecimalFormatSymbols symbols = DecimalFormatSymbols.getInstance(Locale.ROOT);
+        // the one minus sign the report prints everywhere (U+2212), not the hyphen
+        symbols.setMinusSign('\u2212');
+        return new DecimalFormat("0.####", symbols);
+    }
 
     private static XYLineAndShapeRenderer lines() {
         XYLineAndShapeRenderer renderer = new XYLineAndShapeRenderer(true, false);
@@ -354,6 +369,7 @@ public final class BodeChart {
             return null;
         }
         NumberAxis axis = new NumberAxis("Residual (dB)");
+        axis.setNumberFormatOverride(plainNumbers());
         // symmetric about zero, so a bias shows as the points sitting to one side of the line
         double extent = Math.max(Math.abs(residuals.getMinY()), Math.abs(residuals.getMaxY()));
         extent = extent > 0 ? extent * 1.15 : 0.1;

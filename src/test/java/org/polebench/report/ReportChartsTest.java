@@ -183,6 +183,9 @@ class ReportChartsTest {
         assertEquals(List.of("500 mHz", "1 Hz", "2 Hz", "5 Hz", "10 Hz", "20 Hz", "50 Hz", "100 Hz", "200 Hz", "500 Hz",
                 "1 kHz", "2 kHz", "5 kHz"), ticks);
         assertEquals(List.of(0.5, 1.0, 2.0, 5.0, 10.0, 20.0), OneTwoFiveAxis.majorValues(0.45, 21));
+        // gain ticks below zero carry U+2212, never the ASCII hyphen
+        assertTrue(svg.select("text").stream().anyMatch(t -> t.text().matches("\u2212[0-9]+")));
+        assertTrue(svg.select("text").stream().noneMatch(t -> t.text().matches("-[0-9.]+")));
         // too narrow for three 1-2-5 values: every whole step of the decade instead
         assertEquals(List.of(0.8, 0.9, 1.0, 2.0), OneTwoFiveAxis.majorValues(0.75, 2.2));
     }
