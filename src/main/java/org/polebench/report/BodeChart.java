@@ -2,6 +2,7 @@ package org.polebench.report;
 
 import java.awt.BasicStroke;
 import java.awt.Color;
+import java.awt.Font;
 import java.awt.geom.Ellipse2D;
 import java.io.ByteArrayOutputStream;
 import java.io.IOException;
@@ -17,13 +18,18 @@ import java.util.OptionalDouble;
 import org.apache.commons.math3.complex.Complex;
 import org.jfree.chart.ChartUtils;
 import org.jfree.chart.JFreeChart;
-import org.jfree.chart.axis.LogAxis;
 import org.jfree.chart.axis.NumberAxis;
-import org.jfree.chart.axis.NumberTickUnit;
 import org.jfree.chart.plot.CombinedDomainXYPlot;
+import org.jfree.chart.plot.DatasetRenderingOrder;
+import org.jfree.chart.plot.SeriesRenderingOrder;
+import org.jfree.chart.plot.ValueMarker;
 import org.jfree.chart.plot.XYPlot;
 import org.jfree.chart.renderer.xy.DeviationRenderer;
 import org.jfree.chart.renderer.xy.XYLineAndShapeRenderer;
+import org.jfree.chart.ui.Layer;
+import org.jfree.chart.ui.RectangleAnchor;
+import org.jfree.chart.ui.RectangleInsets;
+import org.jfree.chart.ui.TextAnchor;
 import org.jfree.data.xy.XYSeries;
 import org.jfree.data.xy.XYSeriesCollection;
 import org.jfree.data.xy.YIntervalSeries;
@@ -34,11 +40,13 @@ import org.polebench.fit.FitResult;
 import org.polebench.fit.FittedModel;
 import org.polebench.sweep.Sweep;
 import org.polebench.sweep.SweepPoint;
+import org.polebench.units.MeasuredValueFormat;
 
 /**
- * A Bode plot: gain (dB) above phase (°) on a shared logarithmic frequency axis, with any number
- * of measured series, computed curves and shaded gain bands ({@link BodeSeries}). Immutable: each
- * {@code with…} returns a new chart. Phases are drawn continuous: each curve is unwrapped along
+ * A Bode plot: gain (dB) above phase (°) on a shared logarithmic frequency axis with 1-2-5 ticks
+ * (OneTwoFiveAxis), with any number of measured series, computed curves and shaded gain
+ * bands ({@link BodeSeries}), labelled level and limit lines, and optionally a residual panel
+ * between gain and phase. Immutable: each {@code with…} returns a new chart. Phases are drawn continuous: each curve is unwrapped along
  * frequency and placed so its top-frequency phase lies in (−180°, 180°]; a measured series is
  * unwrapped along frequency too (a phase reading is only known modulo 360°), then moved as a whole
  * by the whole turns that bring it nearest, on average, to the first curve. Moving each point on
@@ -53,30 +61,71 @@ public final class BodeChart {
     /** Curve points per decade when drawing a fitted model. */
     private static final int CURVE_POINTS_PER_DECADE = 60;
 
+    /** −3 dB below midband, to the digits the trade writes: 20·log10(1/√2) = −3.0103 dB. */
+    public static final double HALF_POWER_DB = 20 * Math.log10(Math.sqrt(0.5));
+
+    private static final Color LIMIT = new Color(200, 40, 40);
+    private static final Color LEVEL = new Color(90, 90, 90);
+
     private final String title;
     private final List<BodeSeries> series;
+    private final List<Level> gainLevels;
+    private final List<Level> frequencyLimits;
+    private final String residualsAgainst;
 
-    public BodeChart(String title) {
-        this(title, List.of());
+    /** A labelled line across a panel: a gain level in dB or a frequency in Hz. */
+    private record Level(String label, double value) {
     }
 
-    private BodeChart(String title, List<BodeSeries> series) {
+    public BodeChart(String title) {
+        this(title, List.of(), List.of(), List.of(), null);
+    }
+
+    private BodeChart(String title, List<BodeSeries> series, List<Level> gainLevels, List<Level> frequencyLimits,
+            String residualsAgainst) {
         this.title = title;
         this.series = List.copyOf(series);
+        this.gainLevels = List.copyOf(gainLevels);
+        this.frequencyLimits = List.copyOf(frequencyLimits);
+        this.residualsAgainst = residualsAgainst;
     }
 
     /** Data and fitted model of one sweep, the curve spanning the sweep. */
     public static BodeChart ofFit(String title, Sweep sweep, FitResult fit) {
+        String model = "fitted model (" + fit.structure().describe() + ")";
         return new BodeChart(title)
                 .with(new BodeSeries.Measured("measured", measured(sweep)))
-                .with(new BodeSeries.Curve("fitted model (" + fit.structure().describe() + ")",
-                        curve(fit.model(), sweep.lowestHz(), sweep.highestHz())));
+                .with(new BodeSeries.Curve(model, curve(fit.model(), sweep.lowestHz(), sweep.highestHz())))
+                .withResidualsAgainst(model);
     }
 
     public BodeChart with(BodeSeries more) {
         List<BodeSeries> all = new ArrayList<>(series);
         all.add(more);
-        return new BodeChart(title, all);
+        return new BodeChart(title, all, gainLevels, frequencyLimits, residualsAgainst);
+    }
+
+    /** A horizontal line across the gain panel at {@code db}, labelled at its right end. */
+    public BodeChart withGainLevel(String label, double db) {
+        List<Level> all = new ArrayList<>(gainLevels);
+        all.add(new Level(label, db));
+        return new BodeChart(title, series, all, frequencyLimits, residualsAgainst);
+    }
+
+    /** A vertical line through every panel at {@code hz} (a limit), labelled on the gain panel. */
+    public BodeChart withFrequencyLimit(String label, double hz) {
+        List<Level> all = new ArrayList<>(frequencyLimits);
+        all.add(new Level(label, hz));
+        return new BodeChart(title, series, gainLevels, all, residualsAgainst);
+    }
+
+    /**
+     * A residual panel under the gain panel: each measured point's gain minus the named curve's
+     * at the same frequency (interpolated linearly in log frequency between the curve's points),
+     * in dB. Points outside the curve's span are left out.
+     */
+    public BodeChart withResidualsAgainst(String curveLabel) {
+        return new BodeChart(title, series, gainLevels, frequencyLimits, curveLabel);
     }
 
     public List<BodeSeries> series() {
@@ -104,20 +153,28 @@ public final class BodeChart {
         return points;
     }
 
-    /** The JFreeChart object, for callers that draw it themselves. */
+    /**
+     * The JFreeChart object, for callers that draw it themselves. Each panel holds the curves in
+     * dataset 0, the measured points in dataset 1 and (gain panel) the shaded bands in dataset 2;
+     * datasets are drawn from the highest index down and series from the last down, so the
+     * shading lies at the bottom, the points above it and the first curve (the fitted model, as
+     * the callers list it) on top of everything: points drawn over the model hid it.
+     */
     public JFreeChart chart() {
-        XYSeriesCollection gainLines = new XYSeriesCollection();
-        XYSeriesCollection phaseLines = new XYSeriesCollection();
+        XYSeriesCollection gainCurves = new XYSeriesCollection();
+        XYSeriesCollection gainPoints = new XYSeriesCollection();
+        XYSeriesCollection phaseCurves = new XYSeriesCollection();
+        XYSeriesCollection phasePoints = new XYSeriesCollection();
         YIntervalSeriesCollection bands = new YIntervalSeriesCollection();
-        XYLineAndShapeRenderer gainRenderer = new XYLineAndShapeRenderer();
-        XYLineAndShapeRenderer phaseRenderer = new XYLineAndShapeRenderer();
-        // one path per curve instead of one <line> element per segment in the SVG
-        gainRenderer.setDrawSeriesLineAsPath(true);
-        phaseRenderer.setDrawSeriesLineAsPath(true);
+        XYLineAndShapeRenderer gainCurveRenderer = lines();
+        XYLineAndShapeRenderer phaseCurveRenderer = lines();
+        XYLineAndShapeRenderer gainPointRenderer = markers();
+        XYLineAndShapeRenderer phasePointRenderer = markers();
         double low = Double.POSITIVE_INFINITY;
         double high = 0;
         double[][] reference = null;
-        int index = 0;
+        List<ResponsePoint> residualCurve = null;
+        List<ResponsePoint> residualPoints = null;
         for (BodeSeries s : series) {
             Drawing drawing = s.match(DRAWING);
             if (drawing.curve()) {
@@ -125,8 +182,14 @@ public final class BodeChart {
                 if (reference == null && unwrapped != null) {
                     reference = unwrapped;
                 }
+                if (residualCurve == null && s.label().equals(residualsAgainst)) {
+                    residualCurve = drawing.points();
+                }
+            } else if (drawing.band() == null && residualPoints == null) {
+                residualPoints = drawing.points();
             }
         }
+        int index = 0;
         for (BodeSeries s : series) {
             Drawing drawing = s.match(DRAWING);
             if (drawing.band() != null) {
@@ -154,26 +217,37 @@ public final class BodeChart {
                     phase.add(p.frequencyHz(), curvePhase != null ? curvePhase[1][i] : measuredPhase[i]);
                 }
             }
-            gainLines.addSeries(gain);
-            phaseLines.addSeries(phase);
-            style(gainRenderer, index, isCurve);
-            style(phaseRenderer, index, isCurve);
+            Color colour = PALETTE[index % PALETTE.length];
+            if (isCurve) {
+                gainCurves.addSeries(gain);
+                phaseCurves.addSeries(phase);
+                gainCurveRenderer.setSeriesPaint(gainCurves.getSeriesCount() - 1, colour);
+                phaseCurveRenderer.setSeriesPaint(phaseCurves.getSeriesCount() - 1, colour);
+            } else {
+                gainPoints.addSeries(gain);
+                phasePoints.addSeries(phase);
+                gainPointRenderer.setSeriesPaint(gainPoints.getSeriesCount() - 1, colour);
+                phasePointRenderer.setSeriesPaint(phasePoints.getSeriesCount() - 1, colour);
+            }
             index++;
         }
         if (!(high > low)) {
             low = high > 0 ? high / 10 : 1;
             high = low * 100;
         }
-        LogAxis frequency = new LogAxis("Frequency (Hz)");
+        for (Level limit : frequencyLimits) {
+            if (limit.value() > 0 && Double.isFinite(limit.value())) {
+                low = Math.min(low, limit.value());
+                high = Math.max(high, limit.value());
+            }
+        }
+        OneTwoFiveAxis frequency = new OneTwoFiveAxis("Frequency", hz -> MeasuredValueFormat.engineering(hz, "Hz", 3));
         frequency.setRange(low / 1.1, high * 1.1);
-        frequency.setNumberFormatOverride(new DecimalFormat("#,##0.###", DecimalFormatSymbols.getInstance(Locale.ROOT)));
-        frequency.setBase(10);
-        // one tick per decade: the default half-decade ticks print as 3.162, 31.623, …
-        frequency.setTickUnit(new NumberTickUnit(1));
 
         NumberAxis gainAxis = new NumberAxis("Gain (dB)");
+        gainAxis.setNumberFormatOverride(plainNumbers());
         gainAxis.setAutoRangeIncludesZero(false);
-        XYPlot gainPlot = new XYPlot(gainLines, null, gainAxis, gainRenderer);
+        XYPlot gainPlot = panel(gainCurves, gainCurveRenderer, gainPoints, gainPointRenderer, gainAxis);
         if (bands.getSeriesCount() > 0) {
             DeviationRenderer shade = new DeviationRenderer(true, false);
             for (int i = 0; i < bands.getSeriesCount(); i++) {
@@ -181,29 +255,155 @@ public final class BodeChart {
                 shade.setSeriesPaint(i, new Color(120, 160, 220));
             }
             shade.setAlpha(0.3f);
-            gainPlot.setDataset(1, bands);
-            gainPlot.setRenderer(1, shade);
+            gainPlot.setDataset(2, bands);
+            gainPlot.setRenderer(2, shade);
+        }
+        for (Level level : gainLevels) {
+            ValueMarker line = marker(level, LEVEL);
+            line.setLabelAnchor(RectangleAnchor.BOTTOM_RIGHT);
+            line.setLabelTextAnchor(TextAnchor.TOP_RIGHT);
+            gainPlot.addRangeMarker(line, Layer.FOREGROUND);
         }
         NumberAxis phaseAxis = new NumberAxis("Phase (°)");
+        phaseAxis.setNumberFormatOverride(plainNumbers());
         phaseAxis.setAutoRangeIncludesZero(false);
-        XYPlot phasePlot = new XYPlot(phaseLines, null, phaseAxis, phaseRenderer);
-        phasePlot.setRenderer(phaseRenderer);
+        XYPlot phasePlot = panel(phaseCurves, phaseCurveRenderer, phasePoints, phasePointRenderer, phaseAxis);
+        // the phase panel repeats the gain panel's series; one legend entry each is enough
+        phaseCurveRenderer.setDefaultSeriesVisibleInLegend(false);
+        phasePointRenderer.setDefaultSeriesVisibleInLegend(false);
 
         CombinedDomainXYPlot plot = new CombinedDomainXYPlot(frequency);
-        plot.setGap(10);
+        plot.setGap(8);
         plot.add(gainPlot, 3);
+        XYPlot residualPlot = residualPanel(residualPoints, residualCurve);
+        if (residualPlot != null) {
+            plot.add(residualPlot, 1);
+        }
         plot.add(phasePlot, 2);
-        JFreeChart chart = new JFreeChart(title, JFreeChart.DEFAULT_TITLE_FONT, plot, true);
-        chart.setBackgroundPaint(Color.WHITE);
-        gainPlot.setBackgroundPaint(Color.WHITE);
-        phasePlot.setBackgroundPaint(Color.WHITE);
-        gainPlot.setDomainGridlinePaint(Color.LIGHT_GRAY);
-        gainPlot.setRangeGridlinePaint(Color.LIGHT_GRAY);
-        phasePlot.setDomainGridlinePaint(Color.LIGHT_GRAY);
-        phasePlot.setRangeGridlinePaint(Color.LIGHT_GRAY);
-        // the phase panel repeats the gain panel's series; one legend entry each is enough
-        phaseRenderer.setDefaultSeriesVisibleInLegend(false);
-        return chart;
+        for (Level limit : frequencyLimits) {
+            for (XYPlot panel : plot.getSubplots()) {
+                ValueMarker line = marker(limit, LIMIT);
+                if (panel != gainPlot) {
+                    line.setLabel(null);
+                }
+                line.setLabelAnchor(RectangleAnchor.BOTTOM_RIGHT);
+                line.setLabelTextAnchor(TextAnchor.BOTTOM_LEFT);
+                panel.addDomainMarker(line, Layer.FOREGROUND);
+            }
+        }
+        return ReportCharts.titled(new JFreeChart(title, TITLE_FONT, plot, true));
+    }
+
+    /** Font of a chart's title: smaller than JFreeChart's 18 pt bold, which took the plot's room. */
+    static final Font TITLE_FONT = new Font(Font.SANS_SERIF, Font.BOLD, 13);
+
+    private static final Color[] PALETTE = {new Color(0, 0, 0), new Color(200, 40, 40), new Color(30, 90, 200),
+        new Color(20, 140, 60), new Color(150, 70, 170)};
+
+    /**
+     * Tick labels with a decimal point whatever the default locale (JFreeChart's NumberAxis
+     * formats with it: 0,2 under de_DE), so a plot's bytes do not depend on where it was drawn.
+     */
+    private static DecimalFormat plainNumbers() {
+        DecimalFormatSymbols symbols = DecimalFormatSymbols.getInstance(Locale.ROOT);
+        // the one minus sign the report prints everywhere (U+2212), not the hyphen
+        symbols.setMinusSign('\u2212');
+        return new DecimalFormat("0.####", symbols);
+    }
+
+    private static XYLineAndShapeRenderer lines() {
+        XYLineAndShapeRenderer renderer = new XYLineAndShapeRenderer(true, false);
+        // one path per curve instead of one <line> element per segment in the SVG
+        renderer.setDrawSeriesLineAsPath(true);
+        renderer.setDefaultStroke(new BasicStroke(1.8f));
+        renderer.setAutoPopulateSeriesStroke(false);
+        return renderer;
+    }
+
+    private static XYLineAndShapeRenderer markers() {
+        XYLineAndShapeRenderer renderer = new XYLineAndShapeRenderer(false, true);
+        renderer.setDefaultShape(new Ellipse2D.Double(-3, -3, 6, 6));
+        renderer.setAutoPopulateSeriesShape(false);
+        // open circles: the model's line drawn over them stays visible through each point
+        renderer.setDefaultShapesFilled(false);
+        return renderer;
+    }
+
+    private static XYPlot panel(XYSeriesCollection curves, XYLineAndShapeRenderer curveRenderer, XYSeriesCollection points,
+            XYLineAndShapeRenderer pointRenderer, NumberAxis axis) {
+        XYPlot panel = new XYPlot(curves, null, axis, curveRenderer);
+        panel.setDataset(1, points);
+        panel.setRenderer(1, pointRenderer);
+        panel.setDatasetRenderingOrder(DatasetRenderingOrder.REVERSE);
+        panel.setSeriesRenderingOrder(SeriesRenderingOrder.REVERSE);
+        panel.setBackgroundPaint(Color.WHITE);
+        panel.setDomainGridlinePaint(Color.LIGHT_GRAY);
+        panel.setRangeGridlinePaint(Color.LIGHT_GRAY);
+        return panel;
+    }
+
+    private static ValueMarker marker(Level level, Color colour) {
+        ValueMarker line = new ValueMarker(level.value(), colour, new BasicStroke(1.2f, BasicStroke.CAP_BUTT,
+                BasicStroke.JOIN_MITER, 1f, new float[]{6f, 3f}, 0f));
+        line.setLabel(level.label());
+        line.setLabelFont(new Font(Font.SANS_SERIF, Font.PLAIN, 10));
+        line.setLabelPaint(colour);
+        line.setLabelBackgroundColor(new Color(255, 255, 255, 220));
+        line.setLabelOffset(new RectangleInsets(3, 4, 3, 4));
+        return line;
+    }
+
+    /** Gain residuals of the points against the curve, as a small panel; null without both. */
+    private static XYPlot residualPanel(List<ResponsePoint> points, List<ResponsePoint> curve) {
+        if (points == null || curve == null || curve.size() < 2) {
+            return null;
+        }
+        XYSeries residuals = new XYSeries("residual", false, true);
+        for (ResponsePoint p : points) {
+            OptionalDouble model = gainAt(curve, p.frequencyHz());
+            if (model.isPresent()) {
+                residuals.add(p.frequencyHz(), p.gainDb() - model.getAsDouble());
+            }
+        }
+        if (residuals.getItemCount() == 0) {
+            return null;
+        }
+        NumberAxis axis = new NumberAxis("Residual (dB)");
+        axis.setNumberFormatOverride(plainNumbers());
+        // symmetric about zero, so a bias shows as the points sitting to one side of the line
+        double extent = Math.max(Math.abs(residuals.getMinY()), Math.abs(residuals.getMaxY()));
+        extent = extent > 0 ? extent * 1.15 : 0.1;
+        axis.setRange(-extent, extent);
+        XYLineAndShapeRenderer dots = markers();
+        dots.setSeriesPaint(0, PALETTE[0]);
+        dots.setDefaultSeriesVisibleInLegend(false);
+        XYPlot panel = new XYPlot(new XYSeriesCollection(residuals), null, axis, dots);
+        panel.setBackgroundPaint(Color.WHITE);
+        panel.setDomainGridlinePaint(Color.LIGHT_GRAY);
+        panel.setRangeGridlinePaint(Color.LIGHT_GRAY);
+        panel.addRangeMarker(new ValueMarker(0, Color.DARK_GRAY, new BasicStroke(1f)));
+        return panel;
+    }
+
+    /**
+     * The curve's gain at {@code f}, linear in log frequency between its two neighbouring points;
+     * empty outside the curve's span.
+     */
+    static OptionalDouble gainAt(List<ResponsePoint> curve, double f) {
+        for (int i = 1; i < curve.size(); i++) {
+            ResponsePoint a = curve.get(i - 1);
+            ResponsePoint b = curve.get(i);
+            double lo = Math.min(a.frequencyHz(), b.frequencyHz());
+            double hi = Math.max(a.frequencyHz(), b.frequencyHz());
+            if (f >= lo && f <= hi) {
+                if (hi == lo) {
+                    return OptionalDouble.of(a.gainDb());
+                }
+                double t = Math.log(f / a.frequencyHz()) / Math.log(b.frequencyHz() / a.frequencyHz());
+                return OptionalDouble.of(a.gainDb() + t * (b.gainDb() - a.gainDb()));
+            }
+        }
+        return OptionalDouble.empty();
     }
 
     /** The chart as an SVG document; byte-identical for an identical chart. */
@@ -262,17 +462,6 @@ public final class BodeChart {
             return new Drawing(band.points(), null, false);
         }
     };
-
-    private static void style(XYLineAndShapeRenderer renderer, int index, boolean curve) {
-        Color[] palette = {new Color(0, 0, 0), new Color(200, 40, 40), new Color(30, 90, 200), new Color(20, 140, 60),
-            new Color(150, 70, 170)};
-        Color colour = palette[index % palette.length];
-        renderer.setSeriesPaint(index, colour);
-        renderer.setSeriesLinesVisible(index, curve);
-        renderer.setSeriesShapesVisible(index, !curve);
-        renderer.setSeriesShape(index, new Ellipse2D.Double(-2.5, -2.5, 5, 5));
-        renderer.setSeriesStroke(index, new BasicStroke(curve ? 1.8f : 1f));
-    }
 
     /** {frequencies, unwrapped phases} of a curve, top phase in (−180°, 180°]; null without phase. */
     private static double[][] unwrappedPhases(List<ResponsePoint> points) {

@@ -4,8 +4,10 @@ import com.fasterxml.jackson.databind.JsonNode;
 import java.awt.BasicStroke;
 import java.awt.Color;
 import java.awt.Font;
+import java.awt.Paint;
 import java.awt.Rectangle;
 import java.awt.geom.Ellipse2D;
+import java.awt.geom.Rectangle2D;
 import java.io.ByteArrayOutputStream;
 import java.io.IOException;
 import java.text.DecimalFormat;
@@ -13,6 +15,7 @@ import java.text.DecimalFormatSymbols;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
+import java.util.Optional;
 import java.util.OptionalDouble;
 import org.jfree.chart.ChartUtils;
 import org.jfree.chart.JFreeChart;
@@ -38,16 +41,18 @@ import org.jfree.data.xy.YIntervalSeries;
 import org.jfree.data.xy.YIntervalSeriesCollection;
 import org.jfree.svg.SVGGraphics2D;
 import org.jfree.svg.ViewBox;
+import org.polebench.units.MeasuredValueFormat;
 
 /**
  * The report's three charts, drawn with JFreeChart from a result's JSON object
  * ({@link ResultJson}) alone, so a saved {@code result.json} redraws them:
  * <ul>
  * <li>{@link #bode}: measured points, fitted model, the nominal stage's exact response, the SCTC
- *     single-pole estimate and the tolerance band shaded on the gain panel;</li>
+ *     single-pole estimate and the tolerance band shaded on the gain panel, the residuals against
+ *     the fitted model under it, the measured midband less 3.01 dB and the lower-corner limit;</li>
  * <li>{@link #cornerShares}: each capacitor's share of the SCTC corner, (1/τᵢ)/Σ(1/τ), in %;</li>
  * <li>{@link #capacitorBands}: each back-solved capacitor as C/C_nom with ±U (k = 2) against its
- *     tolerance band, on a log axis.</li>
+ *     tolerance band, on a log axis with 1-2-5 ticks, the most probable culprit in red.</li>
  * </ul>
  * SVG goes through JFreeSVG with a fixed defs-key prefix per chart, so the bytes repeat from run
  * to run and several charts can sit inline in one page without their ids colliding
@@ -60,7 +65,10 @@ public final class ReportCharts {
     public static final int BAR_HEIGHT = 300;
 
     private static final Color BAND = new Color(120, 160, 220);
-    private static final Color ESTIMATE = new Color(180, 40, 40);
+    private static final Color ESTIMATE = new Color(40, 40, 40);
+    /** The most probable hypothesis' part, drawn apart from the rest. */
+    private static final Color CULPRIT = new Color(200, 40, 40);
+    private static final String FITTED = "fitted model";
 
     /** The Bode plot. */
     public BodeChart bode(JsonNode root) {
@@ -81,16 +89,52 @@ public final class ReportCharts {
             }
         }
         String coverage = Math.round(100 * curves.path("band_coverage").asDouble()) + " %";
-        return new BodeChart("Gain and phase: " + root.path("predicted").path("stage").asText())
+        BodeChart chart = new BodeChart("Gain and phase: " + root.path("predicted").path("stage").asText())
                 .with(new BodeSeries.Measured("measured", measured))
-                .with(new BodeSeries.Curve("fitted model", curve(curves, "fitted")))
+                .with(new BodeSeries.Curve(FITTED, curve(curves, "fitted")))
                 .with(new BodeSeries.Curve("nominal stage, exact", curve(curves, "nominal")))
                 .with(new BodeSeries.Curve("SCTC single-pole estimate", curve(curves, "sctc")))
                 .with(new BodeSeries.GainBand("tolerance band, central " + coverage + " of "
-                        + curves.path("band_boards").asInt() + " boards", band));
+                        + curves.path("band_boards").asInt() + " boards", band))
+                .withResidualsAgainst(FITTED);
+        JsonNode midband = root.path("measured").path("midband_gain_db");
+        if (midband.isNumber()) {
+            double level = midband.asDouble() + BodeChart.HALF_POWER_DB;
+            chart = chart.withGainLevel("midband − 3.01 dB = " + MeasuredValueFormat.fixed(level, 2) + " dB", level);
+        }
+        for (JsonNode check : root.path("verdict").path("checks")) {
+            if (!"lower corner".equals(check.path("quantity").asText())) {
+                continue;
+            }
+            if (check.path("max").isNumber() && check.path("max").asDouble() > 0) {
+                double max = check.path("max").asDouble();
+                chart = chart.withFrequencyLimit("lower-corner limit " + hz(max), max);
+            }
+            if (check.path("min").isNumber() && check.path("min").asDouble() > 0) {
+                double min = check.path("min").asDouble();
+                chart = chart.withFrequencyLimit("lower-corner minimum " + hz(min), min);
+            }
+        }
+        return chart;
     }
 
-    /** Each capacitor's share of the SCTC corner, in percent. */
+    /**
+     * The part the most probable hypothesis names when it is one capacitor's fault (the
+     * hypotheses are stored most probable first), else empty.
+     */
+    static Optional<String> culprit(JsonNode root) {
+        JsonNode top = root.path("hypotheses").path(0);
+        if ("capacitor".equals(top.path("kind").asText()) && top.path("part").isTextual()) {
+            return Optional.of(top.path("part").asText());
+        }
+        return Optional.empty();
+    }
+
+    private static String hz(double value) {
+        return MeasuredValueFormat.engineering(value, "Hz", 3);
+    }
+
+    /** Each capacitor's share of the SCTC corner, in percent; the culprit's bar (see {@link #culprit}) in red. */
     public JFreeChart cornerShares(JsonNode root) {
         DefaultCategoryDataset shares = new DefaultCategoryDataset();
         for (JsonNode row : root.path("predicted").path("capacitors")) {
@@ -99,7 +143,15 @@ public final class ReportCharts {
         NumberAxis percent = new NumberAxis("Share of the SCTC corner Σ 1/(2πτᵢ) (%)");
         percent.setRange(0, Math.max(10, Math.ceil(maxValue(shares) / 10) * 10));
         percent.setTickUnit(new NumberTickUnit(5));
-        BarRenderer bars = new BarRenderer();
+        int culpritColumn = culprit(root).map(shares::getColumnIndex).orElse(-1);
+        BarRenderer bars = new BarRenderer() {
+            private static final long serialVersionUID = 1L;
+
+            @Override
+            public Paint getItemPaint(int row, int column) {
+                return column == culpritColumn ? CULPRIT : super.getItemPaint(row, column);
+            }
+        };
         bars.setBarPainter(new StandardBarPainter());
         bars.setShadowVisible(false);
         bars.setSeriesPaint(0, BAND);
@@ -108,10 +160,7 @@ public final class ReportCharts {
         plot.setOrientation(PlotOrientation.HORIZONTAL);
         plot.setBackgroundPaint(Color.WHITE);
         plot.setRangeGridlinePaint(Color.LIGHT_GRAY);
-        JFreeChart chart = new JFreeChart("Capacitor shares of the SCTC lower corner", JFreeChart.DEFAULT_TITLE_FONT,
-                plot, false);
-        chart.setBackgroundPaint(Color.WHITE);
-        return chart;
+        return titled(new JFreeChart("Shares of the SCTC lower corner", BodeChart.TITLE_FONT, plot, false));
     }
 
     /** Each back-solved capacitor against its tolerance band, as C/C_nom on a log axis. */
@@ -120,6 +169,8 @@ public final class ReportCharts {
         List<String> names = new ArrayList<>();
         XYIntervalSeries tolerance = new XYIntervalSeries("tolerance band");
         YIntervalSeries estimate = new YIntervalSeries("back-solved ± U (k = 2)");
+        Optional<String> culprit = culprit(root);
+        YIntervalSeries suspect = new YIntervalSeries("most probable fault" + culprit.map(c -> ", " + c).orElse(""));
         double low = 1;
         double high = 1;
         for (int i = 0; i < rows.size(); i++) {
@@ -128,7 +179,8 @@ public final class ReportCharts {
             double nominal = row.path("nominal_farads").asDouble();
             double factor = row.path("factor").asDouble(row.path("estimated_farads").asDouble() / nominal);
             double spread = Math.exp(2 * row.path("u_ln").asDouble(0));
-            estimate.add(i, factor, factor / spread, factor * spread);
+            (culprit.isPresent() && culprit.get().equals(row.path("id").asText()) ? suspect : estimate)
+                    .add(i, factor, factor / spread, factor * spread);
             low = Math.min(low, factor / spread);
             high = Math.max(high, factor * spread);
             if (row.path("min_farads").isNumber()) {
@@ -143,6 +195,9 @@ public final class ReportCharts {
         bands.addSeries(tolerance);
         YIntervalSeriesCollection estimates = new YIntervalSeriesCollection();
         estimates.addSeries(estimate);
+        if (suspect.getItemCount() > 0) {
+            estimates.addSeries(suspect);
+        }
 
         SymbolAxis parts = new SymbolAxis("Capacitor", names.toArray(new String[0]));
         parts.setRange(-0.6, Math.max(0.6, names.size() - 0.4));
@@ -151,14 +206,10 @@ public final class ReportCharts {
         // (issue 14, "nominal_farads": 0); twelve decades hold any back-solve worth drawing
         low = Math.max(low, 1e-6);
         high = Math.min(high, 1e6);
-        LogAxis ratio = new LogAxis("Back-solved value over nominal, C/C_nom");
-        ratio.setBase(10);
+        // 1-2-5 ticks: the default log ticks print as 0.126, 0.158, …
+        DecimalFormat plain = new DecimalFormat("0.###", DecimalFormatSymbols.getInstance(Locale.ROOT));
+        LogAxis ratio = new OneTwoFiveAxis("Back-solved value over nominal, C/C_nom", plain::format);
         ratio.setRange(low / 1.25, high * 1.25);
-        ratio.setNumberFormatOverride(new DecimalFormat("0.###", DecimalFormatSymbols.getInstance(Locale.ROOT)));
-        // decade ticks with minor marks between: the default log ticks print as 0.126, 0.158, …
-        ratio.setTickUnit(new NumberTickUnit(Math.log10(high / low) > 1.2 ? 1 : 0.1));
-        ratio.setMinorTickCount(9);
-        ratio.setMinorTickMarksVisible(true);
 
         XYBarRenderer shade = new XYBarRenderer();
         shade.setUseYInterval(true);
@@ -168,10 +219,12 @@ public final class ReportCharts {
         XYErrorRenderer marks = new XYErrorRenderer();
         marks.setDrawXError(false);
         marks.setDefaultLinesVisible(false);
+        // error bars take each series' own colour (no error paint set), so the culprit's bar is red too
         marks.setSeriesPaint(0, ESTIMATE);
-        marks.setErrorPaint(ESTIMATE);
+        marks.setSeriesPaint(1, CULPRIT);
         marks.setErrorStroke(new BasicStroke(1.6f));
         marks.setSeriesShape(0, new Ellipse2D.Double(-4, -4, 8, 8));
+        marks.setSeriesShape(1, new Rectangle2D.Double(-4.5, -4.5, 9, 9));
 
         XYPlot plot = new XYPlot(bands, parts, ratio, shade);
         plot.setDataset(1, estimates);
@@ -185,10 +238,18 @@ public final class ReportCharts {
                 BasicStroke.JOIN_MITER, 1f, new float[]{4f, 3f}, 0f));
         nominal.setLabel("nominal");
         nominal.setLabelFont(new Font(Font.SANS_SERIF, Font.PLAIN, 11));
+        nominal.setLabelBackgroundColor(Color.WHITE);
         plot.addRangeMarker(nominal);
-        JFreeChart chart = new JFreeChart("Back-solved capacitors against their tolerance bands",
-                JFreeChart.DEFAULT_TITLE_FONT, plot, true);
+        return titled(new JFreeChart("Capacitors against their tolerance bands", BodeChart.TITLE_FONT, plot, true));
+    }
+
+    /**
+     * A white chart whose title keeps to one line: a long title wrapped onto a second and third
+     * line and took that height from the plot (the figure's caption says the rest).
+     */
+    static JFreeChart titled(JFreeChart chart) {
         chart.setBackgroundPaint(Color.WHITE);
+        chart.getTitle().setMaximumLinesToDisplay(1);
         return chart;
     }
 

@@ -251,13 +251,15 @@ public final class ReportHtml {
         h.append("<figure id=\"chart-bode\" class=\"chart\">\n")
                 .append(ReportCharts.svgElement(charts.bode(root).chart(), ReportCharts.WIDTH, ReportCharts.BODE_HEIGHT,
                         "pb-bode"))
-                .append("\n<figcaption>Figure 1. Measured gain and phase (points), the fitted model, the nominal stage's "
-                        + "exact response and the SCTC single-pole estimate D·s/(s + 2π·")
+                .append("\n<figcaption>Figure 1. Measured gain and phase (open circles), the fitted model drawn over "
+                        + "them, the nominal stage's exact response and the SCTC single-pole estimate D·s/(s + 2π·")
                 .append(hz(root.path("curves").path("sctc_corner_hz").asDouble()))
                 .append("). The shading holds, at each frequency, the central ")
                 .append(Math.round(100 * root.path("curves").path("band_coverage").asDouble()))
                 .append(" % of the gains of ").append(root.path("curves").path("band_boards").asInt())
-                .append(" boards drawn across the part tolerances (a pointwise band, not one board's curve).")
+                .append(" boards drawn across the part tolerances (a pointwise band, not one board's curve). "
+                        + "The middle panel holds each point's gain minus the fitted model's, in dB; dashed lines mark "
+                        + "the measured midband less 3.01 dB and the stage's lower-corner limit.")
                 .append("</figcaption>\n</figure>\n");
         apportionment(root, h);
         capacitors(root, h);
@@ -384,7 +386,8 @@ public final class ReportHtml {
                 .append(ReportCharts.svgElement(charts.capacitorBands(root), ReportCharts.WIDTH, ReportCharts.BAR_HEIGHT,
                         "pb-caps"))
                 .append("\n<figcaption>Figure 3. Each back-solved capacitor over its nominal value with ± U (k = 2), "
-                        + "against its tolerance band (shaded).</figcaption>\n</figure>\n");
+                        + "against its tolerance band (shaded); the part the most probable hypothesis names, if a "
+                        + "capacitor, in red.</figcaption>\n</figure>\n");
         resistors(root, h);
         JsonNode nuisance = root.path("nuisance");
         if (nuisance.path("bias").size() > 0 || nuisance.path("current_gain").size() > 0
@@ -751,6 +754,13 @@ public final class ReportHtml {
             "  figure, table.data, table.fields, section.summary, section.statement { break-inside: avoid; }",
             "  h2, h3 { break-after: avoid; }",
             "  a { color: inherit; text-decoration: none; }",
+            // a long table may break between rows (each row stays whole, the header repeats): kept
+            // whole it jumped to the next page and left the one before half empty; a figure stays
+            // whole, and is capped in height so it fits in the lower half of a page instead of
+            // pushing itself, blank space before it, onto the next
+            "  table.data { break-inside: auto; }",
+            "  figure.chart svg { max-height: 115mm; }",
+            "  figure.chart.bar svg { max-height: 62mm; }",
             "}",
             "");
 }

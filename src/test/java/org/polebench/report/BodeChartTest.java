@@ -45,7 +45,7 @@ class BodeChartTest {
         Document svg = Jsoup.parse(chart().svg(900, 700), "", Parser.xmlParser());
         assertEquals("svg", svg.child(0).tagName());
         String text = svg.text();
-        assertTrue(text.contains("Frequency (Hz)"));
+        assertTrue(text.contains("Frequency"));
         assertTrue(text.contains("Demo stage, synthetic sweep"));
         assertTrue(text.contains("measured"));
         assertTrue(text.contains("fitted model (3 poles, 2 DC zeros, 1 real zero)"));
@@ -53,9 +53,11 @@ class BodeChartTest {
         // a log axis needs an explicit positive range (docs/contributing.md, "Library behaviour the code works around"); the sweep starts at 1 Hz
         assertTrue(plot.getDomainAxis().getLowerBound() > 0);
         assertTrue(plot.getDomainAxis().getLowerBound() < 1);
-        assertEquals(2, plot.getSubplots().size());
+        // gain, residuals against the fitted model, phase
+        assertEquals(3, plot.getSubplots().size());
         XYPlot gain = plot.getSubplots().get(0);
-        assertEquals(100, gain.getDataset().getItemCount(0));
+        // dataset 1 holds the measured points, dataset 0 the curves (drawn last, on top)
+        assertEquals(100, gain.getDataset(1).getItemCount(0));
     }
 
     @Test
@@ -88,7 +90,7 @@ class BodeChartTest {
                 .with(new BodeSeries.Curve("c", curve));
         XYPlot phase = ((CombinedDomainXYPlot) chart.chart().getPlot()).getSubplots().get(1);
         for (int i = 0; i < 20; i++) {
-            double y = phase.getDataset().getYValue(0, i);
+            double y = phase.getDataset(1).getYValue(0, i);
             // 179.5° and −179.5° (≡ 180.5°) lie 0.5° and 1.5° from the curve's 179° on its branch;
             // drawn raw, −179.5° would sit 358.5° away
             assertEquals(179, y, 1.5 + 1e-9);
