@@ -157,13 +157,11 @@ public final class FaultRanking {
         Stage loaded = new Stage(stage.name(), stage.sourceFile(), stage.ground(), stage.supplies(),
                 new org.polebench.circuit.StageInput(in.node(), in.sourceOhms() + GENERATOR_OHMS, in.reference(), in.line()),
                 stage.output(), stage.limits(), stage.temperatureKelvin(), stage.gainCalibrationDb(), stage.parts());
-        try {
-            StateModel low = new org.polebench.spread.StageAnalysis().predictNetwork(loaded,
-                    new org.polebench.circuit.SmallSignalExpansion().expand(loaded, points)).lowBand();
-            return new BoardModel(loaded, points, low, frequenciesHz);
-        } catch (org.polebench.InputProblem singular) {
-            return null;
-        }
+        // the low band's state model alone (one port reduction), not a whole prediction
+        java.util.Optional<StateModel> low = new org.polebench.analysis.PortReduction().reduce(
+                new org.polebench.circuit.SmallSignalExpansion().expand(loaded, points),
+                org.polebench.circuit.Band.LOW).stateModel();
+        return low.isEmpty() ? null : new BoardModel(loaded, points, low.get(), frequenciesHz);
     }
 
     /** @return the back-solve's parameters for this stage, in model order, with no bench declared */
