@@ -182,8 +182,7 @@ public final class MeasuringChain {
         if (bench.input().isPresent()) {
             addLoads(parts, bench.input().get().channel(), "input", inputPointNode(stage), stage.ground(), acLoads);
         }
-        return new Stage(stage.name(), stage.sourceFile(), stage.ground(), stage.supplies(), measuredInput,
-                stage.output(), stage.limits(), stage.temperatureKelvin(), stage.gainCalibrationDb(), parts);
+        return stage.withInput(measuredInput).withParts(parts);
     }
 
     private static void addLoads(List<Part> parts, Channel channel, String which, String node, String ground,

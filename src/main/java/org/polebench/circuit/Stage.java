@@ -165,6 +165,12 @@ public record Stage(String name, Path sourceFile, String ground, List<Supply> su
         return withPart(bjt(id).withBeta(beta));
     }
 
+    /** @return a copy driven through another input (a generator's resistance, another gain reference) */
+    public Stage withInput(StageInput newInput) {
+        return new Stage(name, sourceFile, ground, supplies, newInput, output, limits, temperatureKelvin,
+                gainCalibrationDb, parts);
+    }
+
     /**
      * @return a copy with a whole new part list (same names expected, as a Monte Carlo draw
      *         makes); one copy instead of one per part

@@ -154,9 +154,8 @@ public final class FaultRanking {
             return null;
         }
         org.polebench.circuit.StageInput in = stage.input();
-        Stage loaded = new Stage(stage.name(), stage.sourceFile(), stage.ground(), stage.supplies(),
-                new org.polebench.circuit.StageInput(in.node(), in.sourceOhms() + GENERATOR_OHMS, in.reference(), in.line()),
-                stage.output(), stage.limits(), stage.temperatureKelvin(), stage.gainCalibrationDb(), stage.parts());
+        Stage loaded = stage.withInput(
+                new org.polebench.circuit.StageInput(in.node(), in.sourceOhms() + GENERATOR_OHMS, in.reference(), in.line()));
         // the low band's state model alone (one port reduction), not a whole prediction
         java.util.Optional<StateModel> low = new org.polebench.analysis.PortReduction().reduce(
                 new org.polebench.circuit.SmallSignalExpansion().expand(loaded, points),

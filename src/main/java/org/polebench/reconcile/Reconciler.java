@@ -264,9 +264,8 @@ public final class Reconciler {
             return seen;
         }
         StageInput in = seen.input();
-        return new Stage(seen.name(), seen.sourceFile(), seen.ground(), seen.supplies(),
-                new StageInput(chain.inputPointNode(board), in.sourceOhms(), GainReference.INPUT_NODE, in.line()),
-                seen.output(), seen.limits(), seen.temperatureKelvin(), seen.gainCalibrationDb(), seen.parts());
+        return seen.withInput(new StageInput(chain.inputPointNode(board), in.sourceOhms(), GainReference.INPUT_NODE,
+                in.line()));
     }
 
     private static boolean adequate(FitResult fit) {

@@ -1,13 +1,11 @@
 package org.polebench.synth;
 
-import java.util.ArrayList;
 import java.util.List;
 import java.util.Optional;
 import org.apache.commons.math3.complex.Complex;
 import org.polebench.InputProblem;
 import org.polebench.bench.AsMeasuredResponse;
 import org.polebench.bench.MeasuringChain;
-import org.polebench.circuit.OperatingPoints;
 import org.polebench.circuit.Stage;
 
 /**
@@ -34,26 +32,10 @@ public final class MeasuredBoard implements BoardResponse {
      */
     public static MeasuredBoard asBuilt(Stage designed, List<Fault> faults, MeasuringChain chain)
             throws InputProblem {
-        Stage built = designed;
-        List<Fault> changingParts = new ArrayList<>();
-        for (Fault fault : faults) {
-            Stage next = fault.applyTo(built);
-            if (next != built) {
-                changingParts.add(fault);
-            }
-            built = next;
-        }
-        OperatingPoints points = StageBoard.biasAsBuilt(chain.forBias(designed), chain.forBias(built), changingParts);
-        double gainFactor = 1;
-        List<String> described = new ArrayList<>();
-        for (Fault fault : faults) {
-            points = fault.applyTo(points);
-            gainFactor *= fault.gainFactor();
-            described.add(fault.describe());
-        }
-        String faultText = described.isEmpty() ? new Fault.None().describe() : String.join("; ", described);
-        return new MeasuredBoard(chain.response(built, points), gainFactor,
-                "stage \"" + built.name() + "\", " + faultText + ", through the bench: " + chain.bench().describe());
+        StageBoard.Built board = StageBoard.build(designed, faults, chain::forBias);
+        return new MeasuredBoard(chain.response(board.stage(), board.points()), board.gainFactor(),
+                "stage \"" + board.stage().name() + "\", " + board.faults() + ", through the bench: "
+                        + chain.bench().describe());
     }
 
     @Override

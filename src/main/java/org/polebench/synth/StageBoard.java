@@ -2,6 +2,7 @@ package org.polebench.synth;
 
 import java.util.ArrayList;
 import java.util.List;
+import java.util.function.UnaryOperator;
 import java.util.Optional;
 import org.apache.commons.math3.complex.Complex;
 import org.polebench.InputProblem;
@@ -64,6 +65,24 @@ public final class StageBoard implements BoardResponse {
      *                      since the stage file is not at fault
      */
     public static StageBoard asBuilt(Stage designed, List<Fault> faults) throws InputProblem {
+        Built board = build(designed, faults, UnaryOperator.identity());
+        return of(board.stage(), board.points(), board.gainFactor(), board.faults());
+    }
+
+    /**
+     * A board as built, before it is measured: its parts, its operating points with the bias
+     * faults applied, the gain faults' product, and what differs from the design in words.
+     */
+    record Built(Stage stage, OperatingPoints points, double gainFactor, String faults) {
+    }
+
+    /**
+     * The faults applied in the order of {@link #asBuilt}, the bias solved on
+     * {@code forBias(stage)} (a bench's DC loads added, or the stage itself).
+     *
+     * @throws InputProblem as {@link #asBuilt}
+     */
+    static Built build(Stage designed, List<Fault> faults, UnaryOperator<Stage> forBias) throws InputProblem {
         Stage built = designed;
         List<Fault> changingParts = new ArrayList<>();
         for (Fault fault : faults) {
@@ -73,7 +92,7 @@ public final class StageBoard implements BoardResponse {
             }
             built = next;
         }
-        OperatingPoints points = biasAsBuilt(designed, built, changingParts);
+        OperatingPoints points = biasAsBuilt(forBias.apply(designed), forBias.apply(built), changingParts);
         double gainFactor = 1;
         List<String> described = new ArrayList<>();
         for (Fault fault : faults) {
@@ -81,8 +100,8 @@ public final class StageBoard implements BoardResponse {
             gainFactor *= fault.gainFactor();
             described.add(fault.describe());
         }
-        return of(built, points, gainFactor, described.isEmpty() ? new Fault.None().describe()
-                : String.join("; ", described));
+        return new Built(built, points, gainFactor,
+                described.isEmpty() ? new Fault.None().describe() : String.join("; ", described));
     }
 
     static OperatingPoints biasAsBuilt(Stage designed, Stage built, List<Fault> changingParts)

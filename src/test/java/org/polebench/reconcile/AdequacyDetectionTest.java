@@ -108,8 +108,6 @@ class AdequacyDetectionTest {
 
     private static Stage withSource(Stage stage, double ohms) {
         StageInput input = stage.input();
-        return new Stage(stage.name(), stage.sourceFile(), stage.ground(), stage.supplies(),
-                new StageInput(input.node(), ohms, input.reference(), input.line()), stage.output(), stage.limits(),
-                stage.temperatureKelvin(), stage.gainCalibrationDb(), stage.parts());
+        return stage.withInput(new StageInput(input.node(), ohms, input.reference(), input.line()));
     }
 }
