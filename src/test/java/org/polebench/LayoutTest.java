@@ -40,14 +40,19 @@ class LayoutTest {
             entry("bench", Set.of("units", "yaml", "circuit", "analysis")),
             entry("sweep", Set.of()),
             entry("profile", Set.of("units", "yaml", "sweep", "bench")),
-            entry("sweepfile", Set.of("units", "sweep", "profile")),
-            entry("capture", Set.of("units", "sweep", "profile", "sweepfile")),
-            entry("synth", Set.of("units", "circuit", "analysis", "bench", "sweep", "profile", "capture")),
+            entry("waveform", Set.of("units", "yaml", "sweep", "profile")),
+            entry("sweepfile", Set.of("units", "sweep", "profile", "waveform")),
+            entry("capture", Set.of("units", "sweep", "profile", "sweepfile", "waveform")),
+            entry("synth", Set.of("units", "circuit", "analysis", "bench", "sweep", "profile", "capture", "waveform")),
             entry("fit", Set.of("units", "sweep")),
             entry("reconcile", Set.of("units", "linalg", "circuit", "analysis", "spread", "bench", "sweep", "fit")),
-            entry("report", Set.of("units", "circuit", "analysis", "spread", "bench", "sweep", "fit", "reconcile")),
+            entry("lot", Set.of("units", "circuit", "analysis", "spread", "bench", "sweep", "fit", "reconcile")),
+            entry("ledger", Set.of("units", "circuit", "analysis", "spread", "bench", "sweep", "profile", "sweepfile",
+                    "fit", "reconcile", "lot")),
+            entry("report", Set.of("units", "circuit", "analysis", "spread", "bench", "sweep", "fit", "reconcile",
+                    "lot")),
             entry("cli", Set.of("units", "yaml", "linalg", "circuit", "analysis", "spread", "bench", "sweep", "profile",
-                    "sweepfile", "capture", "synth", "fit", "reconcile", "report")));
+                    "sweepfile", "capture", "synth", "fit", "reconcile", "report", "waveform", "lot", "ledger")));
 
     private static final Pattern IMPORT = Pattern.compile("^import\\s+(?:static\\s+)?org\\.polebench\\.([a-z]\\w*)\\.");
     private static final Pattern QUALIFIED = Pattern.compile("\\borg\\.polebench\\.([a-z]\\w*)\\.[A-Z]");
