@@ -29,22 +29,36 @@ import picocli.CommandLine.Model.UsageMessageSpec;
 public final class Main implements Runnable {
 
     /**
-     * The subcommands, in the order the usage lists them. They are added in {@link #run}, not
-     * named in {@code @Command}: picocli builds the whole model of every command it is given
-     * (options, mixins, help sections) by reflection, which cost about a tenth of a second of
-     * every start; a command line that names its subcommand gets only that one's model.
+     * The subcommands, in the order the usage lists them, by name and class name. They are added
+     * in {@link #run}, not named in {@code @Command}: picocli builds the whole model of every
+     * command it is given (options, mixins, help sections) by reflection, which cost about a tenth
+     * of a second of every start; a command line that names its subcommand gets only that one's
+     * model. Names and class names, not class literals, so that naming one command loads none of
+     * the others (a class literal loads its class, and reading each one's annotation to find the
+     * named one parsed them all); MainTest checks each name against its class's annotation.
      */
-    private static final List<Class<?>> SUBCOMMANDS = List.of(
-            CommandLine.HelpCommand.class,
-            PredictCommand.class,
-            InspectCommand.class,
-            ProfilesCommand.class,
-            FitCommand.class,
-            ReconcileCommand.class,
-            ReportCommand.class,
-            SynthesizeCommand.class,
-            CaptureCommand.class,
-            SimulateCommand.class);
+    private static final List<Subcommand> SUBCOMMANDS = List.of(
+            new Subcommand("help", "picocli.CommandLine$HelpCommand"),
+            new Subcommand("predict", "org.polebench.cli.PredictCommand"),
+            new Subcommand("inspect", "org.polebench.cli.InspectCommand"),
+            new Subcommand("profiles", "org.polebench.cli.ProfilesCommand"),
+            new Subcommand("fit", "org.polebench.cli.FitCommand"),
+            new Subcommand("reconcile", "org.polebench.cli.ReconcileCommand"),
+            new Subcommand("report", "org.polebench.cli.ReportCommand"),
+            new Subcommand("synthesize", "org.polebench.cli.SynthesizeCommand"),
+            new Subcommand("capture", "org.polebench.cli.CaptureCommand"),
+            new Subcommand("simulate", "org.polebench.cli.SimulateCommand"));
+
+    /** A subcommand's name on the command line and the class that implements it. */
+    private record Subcommand(String name, String className) {
+        Class<?> type() {
+            try {
+                return Class.forName(className);
+            } catch (ClassNotFoundException missing) {
+                throw new IllegalStateException("the subcommand " + name + "'s class is not in the jar", missing);
+            }
+        }
+    }
 
     @CommandLine.Spec
     CommandLine.Model.CommandSpec spec;
@@ -55,6 +69,13 @@ public final class Main implements Runnable {
 
     /** Runs one command line with the given writers; returns the exit code. Tests call this. */
     public static int run(String[] args, PrintWriter out, PrintWriter err) {
+        if (args.length == 1 && (args[0].equals("--version") || args[0].equals("-V"))) {
+            // answered before picocli builds any model: a version query is a script's start-up
+            // check and should cost no more than the JVM's start (issue 15)
+            out.println(VersionProvider.versionLine());
+            out.flush();
+            return ExitCodes.OK;
+        }
         CommandLine line = new CommandLine(new Main());
         for (Class<?> subcommand : subcommandsFor(args)) {
             line.addSubcommand(subcommand);
@@ -87,15 +108,16 @@ public final class Main implements Runnable {
      *         {@code help}; otherwise all of them (usage, help, a misspelt name's suggestions)
      */
     static List<Class<?>> subcommandsFor(String[] args) {
-        if (args.length > 0) {
-            for (Class<?> subcommand : SUBCOMMANDS) {
-                Command command = subcommand.getAnnotation(Command.class);
-                if (command != null && command.name().equals(args[0]) && subcommand != CommandLine.HelpCommand.class) {
-                    return List.of(subcommand);
-                }
+        List<Class<?>> types = new java.util.ArrayList<>();
+        for (Subcommand subcommand : SUBCOMMANDS) {
+            if (args.length > 0 && !args[0].equals("help") && subcommand.name().equals(args[0])) {
+                return List.of(subcommand.type());
             }
         }
-        return SUBCOMMANDS;
+        for (Subcommand subcommand : SUBCOMMANDS) {
+            types.add(subcommand.type());
+        }
+        return types;
     }
 
     @Override

@@ -6,7 +6,12 @@ import picocli.CommandLine;
 public final class VersionProvider implements CommandLine.IVersionProvider {
     @Override
     public String[] getVersion() {
+        return new String[] {versionLine()};
+    }
+
+    /** @return "polebench" and the version the jar's manifest names */
+    static String versionLine() {
         String version = Main.class.getPackage().getImplementationVersion();
-        return new String[] {"polebench " + (version == null ? "development build" : version)};
+        return "polebench " + (version == null ? "development build" : version);
     }
 }

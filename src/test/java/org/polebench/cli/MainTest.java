@@ -38,6 +38,35 @@ class MainTest {
     }
 
     @Test
+    void eachSubcommandsListedNameIsTheNameItsClassDeclares() {
+        // the list keeps names beside class names (so that naming one loads no other); the
+        // names must be the @Command names picocli matches, in the usage's order
+        List<String> declared = new java.util.ArrayList<>();
+        for (Class<?> type : Main.subcommandsFor(new String[0])) {
+            declared.add(type.getAnnotation(picocli.CommandLine.Command.class).name());
+        }
+        assertEquals(NAMES, declared);
+        for (String name : NAMES) {
+            if (!name.equals("help")) {
+                Class<?> only = Main.subcommandsFor(new String[] {name}).get(0);
+                assertEquals(name, only.getAnnotation(picocli.CommandLine.Command.class).name());
+            }
+        }
+    }
+
+    @Test
+    void theVersionIsTheSameWhetherAnsweredEarlyOrThroughPicocli() {
+        // the early answer to --version must print what picocli's own version option prints
+        StringWriter early = new StringWriter();
+        assertEquals(ExitCodes.OK, Main.run(new String[] {"--version"}, new PrintWriter(early, true),
+                new PrintWriter(new StringWriter(), true)));
+        StringWriter viaPicocli = new StringWriter();
+        new picocli.CommandLine(new Main()).setOut(new PrintWriter(viaPicocli, true)).execute("--version");
+        assertEquals(viaPicocli.toString(), early.toString());
+        assertTrue(early.toString().startsWith("polebench "), early.toString());
+    }
+
+    @Test
     void aMisspeltSubcommandIsAnsweredWithTheNearOnes() {
         StringWriter err = new StringWriter();
         int exit = Main.run(new String[] {"recon"}, new PrintWriter(new StringWriter(), true), new PrintWriter(err, true));
