@@ -19,9 +19,10 @@ import org.polebench.units.EngineeringValue;
  * @param output        the output channel ({@link Channel#IDEAL} when the file has none)
  * @param input         the input channel, when the file has one
  * @param sourceFile    the file it was read from (a bench file or a profile); null when built in code
+ * @param instruments   the instruments the file lists, for the report only (none in the model)
  */
 public record Bench(double generatorOhms, Optional<Reference> reference, Channel output,
-                    Optional<InputChannel> input, Path sourceFile) {
+                    Optional<InputChannel> input, Path sourceFile, List<BenchInstrument> instruments) {
     /** The bench a stage file assumes: no generator resistance, ideal channels, the stage's own reference. */
     public static final Bench IDEAL = new Bench(0, Optional.empty(), Channel.IDEAL, Optional.empty(), null);
 
@@ -33,6 +34,13 @@ public record Bench(double generatorOhms, Optional<Reference> reference, Channel
         if (reference == null || output == null || input == null) {
             throw new IllegalArgumentException("reference, output and input must not be null");
         }
+        instruments = List.copyOf(instruments);
+    }
+
+    /** A bench that lists no instruments (built in code, or a file without {@code instruments:}). */
+    public Bench(double generatorOhms, Optional<Reference> reference, Channel output, Optional<InputChannel> input,
+                 Path sourceFile) {
+        this(generatorOhms, reference, output, input, sourceFile, List.of());
     }
 
     /**

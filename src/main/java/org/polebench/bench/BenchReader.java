@@ -1,6 +1,9 @@
 package org.polebench.bench;
 
 import java.nio.file.Path;
+import java.time.LocalDate;
+import java.time.format.DateTimeParseException;
+import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 import java.util.Optional;
@@ -21,7 +24,9 @@ import org.polebench.yaml.YamlReader;
  */
 public final class BenchReader {
     /** The keys of a bench file, at its top level. */
-    public static final List<String> TOP_KEYS = List.of("generator", "reference", "output-channel", "input-channel");
+    public static final List<String> TOP_KEYS = List.of("generator", "reference", "output-channel", "input-channel",
+            "instruments");
+    static final List<String> INSTRUMENT_KEYS = List.of("identity", "serial", "calibration-due");
     static final List<String> GENERATOR_KEYS = List.of("output-resistance");
     static final List<String> OUTPUT_KEYS = List.of("coupling", "corner", "resistance", "capacitance");
     static final List<String> INPUT_KEYS = List.of("at", "coupling", "corner", "resistance", "capacitance");
@@ -104,7 +109,51 @@ public final class BenchReader {
             }
             input = Optional.of(new InputChannel(point, channel(map, "input-channel", inputEntry.get().line(), keys)));
         }
-        return new Bench(generatorOhms, reference, output, input, file);
+        return new Bench(generatorOhms, reference, output, input, file, instruments(section, keys));
+    }
+
+    /**
+     * The {@code instruments:} list: each an identity, with its serial number and calibration due
+     * date when the file gives them; nothing is filled in that the file does not say.
+     */
+    private static List<BenchInstrument> instruments(YamlNode.Mapping section, Keys keys) throws InputProblem {
+        Optional<YamlNode.Entry> entry = section.entry("instruments");
+        if (entry.isEmpty()) {
+            return List.of();
+        }
+        String example = "'- identity: Generator G1', with 'serial: SN-0042' and 'calibration-due: 2027-03-31' under it"
+                + " when known";
+        if (!(entry.get().value() instanceof YamlNode.Sequence)) {
+            throw new InputProblem(keys.file, entry.get().line(), "instruments is not a list",
+                    "write one item per instrument: " + example);
+        }
+        List<BenchInstrument> list = new ArrayList<>();
+        for (YamlNode item : ((YamlNode.Sequence) entry.get().value()).items()) {
+            YamlNode.Mapping map = keys.map(item, "an instruments item", "identity: Generator G1");
+            keys.check(map, INSTRUMENT_KEYS, "an instruments item");
+            Optional<YamlNode> identity = map.get("identity");
+            if (identity.isEmpty() || keys.text(identity.get(), "instruments.identity").isBlank()) {
+                throw new InputProblem(keys.file, item.line(), "an instruments item has no identity",
+                        "give each instrument its maker and model or asset name: " + example);
+            }
+            Optional<String> serial = Optional.empty();
+            if (map.get("serial").isPresent()) {
+                serial = Optional.of(keys.text(map.get("serial").get(), "instruments.serial")).filter(s -> !s.isBlank());
+            }
+            Optional<LocalDate> due = Optional.empty();
+            Optional<YamlNode> dueNode = map.get("calibration-due");
+            if (dueNode.isPresent()) {
+                String text = keys.text(dueNode.get(), "instruments.calibration-due");
+                try {
+                    due = Optional.of(LocalDate.parse(text));
+                } catch (DateTimeParseException unreadable) {
+                    throw new InputProblem(keys.file, dueNode.get().line(), "instruments.calibration-due '" + text
+                            + "' is not a date", "write it as YYYY-MM-DD, such as 2027-03-31");
+                }
+            }
+            list.add(new BenchInstrument(keys.text(identity.get(), "instruments.identity").strip(), serial, due));
+        }
+        return list;
     }
 
     private static Channel channel(YamlNode.Mapping map, String where, int line, Keys keys) throws InputProblem {

@@ -14,6 +14,8 @@ import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import org.polebench.InputProblem;
 import org.polebench.capture.SweepCapture;
+import org.polebench.bench.Bench;
+import org.polebench.bench.BenchInstrument;
 import org.polebench.report.Identification;
 import org.polebench.report.Instrument;
 import org.polebench.report.TestLevel;
@@ -111,6 +113,22 @@ final class IdentificationOptions {
             throw new InputProblem(null, 0, "--supply '" + text + "' is zero", "give the supply voltage measured");
         }
         return OptionalDouble.of(written.value());
+    }
+
+    /**
+     * The identification with the instruments the bench file lists and those the sweep's
+     * {@code instrument:} line names (a capture's {@code *IDN?} answers) after the ones given
+     * as options; nothing that none of them says.
+     */
+    static Identification withEquipment(Identification given, Optional<Bench> bench, String sweepInstrument) {
+        List<Instrument> found = new ArrayList<>();
+        if (bench.isPresent()) {
+            for (BenchInstrument listed : bench.get().instruments()) {
+                found.add(new Instrument(listed.identity(), listed.serial(), listed.calibrationDue()));
+            }
+        }
+        found.addAll(Instrument.ofSweepIdentity(sweepInstrument));
+        return given.withInstruments(found);
     }
 
     /**

@@ -138,7 +138,10 @@ final class ReconcileCommand implements Callable<Integer> {
         ObjectNode root = null;
         if (json || report != null) {
             RunDetails run = RunDetails.of(stageFile, sweepFile, imported.profileName(), imported.warnings(),
-                    Optional.ofNullable(operator), Optional.ofNullable(board), samples, seed).with(IdentificationOptions.withRecordedLevel(identified, imported.sweep().source().notes()));
+                    Optional.ofNullable(operator), Optional.ofNullable(board), samples, seed)
+                    .with(IdentificationOptions.withEquipment(
+                            IdentificationOptions.withRecordedLevel(identified, imported.sweep().source().notes()),
+                            bench, imported.sweep().source().instrument()));
             root = new ResultJson().of(result, run);
         }
         var out = spec.commandLine().getOut();

@@ -27,6 +27,34 @@ public record Identification(Optional<String> approvedBy, OptionalDouble ambient
         instruments = List.copyOf(instruments);
     }
 
+    /**
+     * @return this identification with the given instruments after its own, each instrument
+     *         listed once (the same identity and serial number given twice is one instrument; a
+     *         later mention adds a serial number or due date the earlier one lacked)
+     */
+    public Identification withInstruments(List<Instrument> more) {
+        List<Instrument> merged = new java.util.ArrayList<>(instruments);
+        for (Instrument next : more) {
+            int same = -1;
+            for (int i = 0; i < merged.size(); i++) {
+                Instrument known = merged.get(i);
+                if (known.identity().equalsIgnoreCase(next.identity())
+                        && (known.serial().isEmpty() || next.serial().isEmpty() || known.serial().equals(next.serial()))) {
+                    same = i;
+                    break;
+                }
+            }
+            if (same < 0) {
+                merged.add(next);
+            } else {
+                Instrument known = merged.get(same);
+                merged.set(same, new Instrument(known.identity(), known.serial().or(next::serial),
+                        known.calibrationDue().or(next::calibrationDue)));
+            }
+        }
+        return new Identification(approvedBy, ambientCelsius, supplyVolts, testLevel, merged);
+    }
+
     /** @return this identification with the given test level in place of its own */
     public Identification with(Optional<TestLevel> level) {
         return new Identification(approvedBy, ambientCelsius, supplyVolts, level, instruments);

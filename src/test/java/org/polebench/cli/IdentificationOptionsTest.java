@@ -164,4 +164,60 @@ class IdentificationOptionsTest {
         assertEquals("2", report[0]);
         assertTrue(report[2].contains("--instrument"), report[2]);
     }
+
+    @Test
+    void theBenchFileAndTheSweepsInstrumentLineNameTheEquipmentToo(@TempDir Path dir) throws Exception {
+        // the demo sweep (invented demo data) as if captured from two instruments whose *IDN?
+        // answers have the four fields of IEEE Std 488.2-1992, 10.14; the meter's serial field is
+        // 0, which that clause reserves for "not available"
+        Path demo = BundledSamples.locate(ReconcileCommand.DEMO_SWEEP);
+        String text = Files.readString(demo).replace("# instrument: polebench board synthesizer (no instrument)",
+                "# instrument: gen: Korvel Labs,FG-7,SN77,1.02; meter: Volta,DMM-2,0,3.1");
+        Path captured = Files.writeString(dir.resolve("captured.sweep.csv"), text);
+        Path bench = Files.writeString(dir.resolve("lab.bench.yaml"), String.join("\n",
+                "# invented bench of the demo: instruments only, an ideal chain",
+                "instruments:",
+                "  - identity: Korvel Labs FG-7",
+                "    calibration-due: 2027-05-31",
+                "  - identity: Probe rack P4",
+                "    serial: PR-9",
+                ""));
+        Path out = dir.resolve("a");
+        String[] result = run("reconcile", "--stage", BundledSamples.locate(BundledSamples.DEMO_STAGE).toString(),
+                "--sweep", captured.toString(), "--bench", bench.toString(), "--samples", "100",
+                "--instrument", "Scope S3;77;2027-02-28", "--report", out.toString());
+        assertEquals("1", result[0], result[2]);
+        JsonNode instruments = new ObjectMapper().readTree(out.resolve("result.json").toFile()).path("run")
+                .path("instruments");
+        // options first, then the bench file, then the sweep; the generator the bench file lists
+        // and the sweep names is one instrument, with the bench file's date and the sweep's serial
+        assertEquals(4, instruments.size(), instruments.toString());
+        assertEquals("Scope S3", instruments.get(0).path("identity").asText());
+        assertEquals("Korvel Labs FG-7", instruments.get(1).path("identity").asText());
+        assertEquals("SN77", instruments.get(1).path("serial").asText());
+        assertEquals("2027-05-31", instruments.get(1).path("calibration_due").asText());
+        assertEquals("Probe rack P4", instruments.get(2).path("identity").asText());
+        assertEquals("PR-9", instruments.get(2).path("serial").asText());
+        assertTrue(instruments.get(2).path("calibration_due").isNull(), "not given, not made up");
+        assertEquals("Volta DMM-2", instruments.get(3).path("identity").asText());
+        assertTrue(instruments.get(3).path("serial").isNull(), "serial field 0: not available");
+        String used = cell(Files.readString(out.resolve("report.html")), "instruments-used");
+        assertTrue(used.contains("Korvel Labs FG-7, serial SN77, calibration due 2027-05-31"), used);
+    }
+
+    @Test
+    void aBenchFileInstrumentWithoutIdentityOrWithABadDateIsRefusedWithItsLine(@TempDir Path dir) throws Exception {
+        Path noIdentity = Files.writeString(dir.resolve("a.bench.yaml"), "instruments:\n  - serial: 12\n");
+        String[] first = run("reconcile", "--stage", BundledSamples.locate(BundledSamples.DEMO_STAGE).toString(),
+                "--sweep", BundledSamples.locate(ReconcileCommand.DEMO_SWEEP).toString(), "--bench", noIdentity.toString());
+        assertEquals("2", first[0]);
+        assertTrue(first[2].contains("a.bench.yaml:2:") && first[2].contains("identity"),
+                first[2]);
+        Path badDate = Files.writeString(dir.resolve("b.bench.yaml"),
+                "instruments:\n  - identity: Meter\n    calibration-due: 31.05.2027\n");
+        String[] second = run("reconcile", "--stage", BundledSamples.locate(BundledSamples.DEMO_STAGE).toString(),
+                "--sweep", BundledSamples.locate(ReconcileCommand.DEMO_SWEEP).toString(), "--bench", badDate.toString());
+        assertEquals("2", second[0]);
+        assertTrue(second[2].contains("b.bench.yaml:3:") && second[2].contains("YYYY-MM-DD"), second[2]);
+    }
 }
