@@ -29,7 +29,10 @@ final class VerdictHtml {
                     .append(ReportHtml.esc(c.path("quantity").asText())).append("</td><td>")
                     .append(c.path("value").isNumber() ? ReportHtml.quantity(c.path("value").asDouble(), expanded, unit)
                             : ReportHtml.NONE).append("</td><td>")
-                    .append(c.path("value").isNumber() ? ReportHtml.uncertainty(expanded, unit) : ReportHtml.NONE)
+                    // U in the value's prefix and decimal place, with its own k, as section 4.6 and
+                    // the terminal print it (issue 14: one number, one formatter)
+                    .append(c.path("value").isNumber() ? ReportHtml.uncertaintyBeside(c.path("value").asDouble(), expanded,
+                            unit) + ReportHtml.k(c.path("coverage_factor")) : ReportHtml.NONE)
                     .append("</td><td>").append(ReportHtml.limit(c.path("min"), c.path("max"), unit)).append("</td><td>")
                     .append(decided ? ReportHtml.quantity(c.path("margin").asDouble(), expanded, unit) : ReportHtml.NONE)
                     .append("</td><td><b>").append(decided ? "FAIL" : "not decided: "
@@ -39,7 +42,7 @@ final class VerdictHtml {
             return;
         }
         h.append("<table id=\"summary-checks\" class=\"summary-checks\">\n<thead><tr><th>Check</th><th>Value</th>"
-                + "<th>U (k = 2)</th><th>Limit</th><th>Margin</th><th>Decision</th></tr></thead>\n<tbody>\n")
+                + "<th>U (k)</th><th>Limit</th><th>Margin</th><th>Decision</th></tr></thead>\n<tbody>\n")
                 .append(rows).append("</tbody>\n</table>\n");
     }
 
