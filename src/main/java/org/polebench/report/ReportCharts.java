@@ -74,10 +74,16 @@ public final class ReportCharts {
     public BodeChart bode(JsonNode root) {
         JsonNode curves = root.path("curves");
         List<ResponsePoint> measured = new ArrayList<>();
+        List<ResponsePoint> residuals = new ArrayList<>();
         for (JsonNode p : root.path("sweep").path("points")) {
             measured.add(new ResponsePoint(p.path("frequency_hz").asDouble(), p.path("gain_db").asDouble(),
                     p.path("phase_deg").isNumber() ? OptionalDouble.of(p.path("phase_deg").asDouble())
                             : OptionalDouble.empty()));
+            if (p.path("fitted_gain_db").isNumber()) {
+                // the fitted model at the point's own frequency, as result.json holds it
+                residuals.add(new ResponsePoint(p.path("frequency_hz").asDouble(),
+                        p.path("gain_db").asDouble() - p.path("fitted_gain_db").asDouble(), OptionalDouble.empty()));
+            }
         }
         JsonNode grid = curves.path("frequency_hz");
         List<GainBandPoint> band = new ArrayList<>();
@@ -96,7 +102,7 @@ public final class ReportCharts {
                 .with(new BodeSeries.Curve("SCTC single-pole estimate", curve(curves, "sctc")))
                 .with(new BodeSeries.GainBand("tolerance band, central " + coverage + " of "
                         + curves.path("band_boards").asInt() + " boards", band))
-                .withResidualsAgainst(FITTED);
+                .withResiduals(residuals);
         JsonNode midband = root.path("measured").path("midband_gain_db");
         if (midband.isNumber()) {
             double level = midband.asDouble() + BodeChart.HALF_POWER_DB;

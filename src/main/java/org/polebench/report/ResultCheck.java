@@ -181,7 +181,7 @@ final class ResultCheck {
             may("sweep.captured_utc", Kind.TEXT), may("sweep.board", Kind.TEXT), must("sweep.notes", Kind.LIST),
             must("sweep.notes[]", Kind.TEXT), must("sweep.has_phase", Kind.BOOLEAN), must("sweep.points", Kind.LIST),
             must("sweep.points[].frequency_hz", Kind.POSITIVE), must("sweep.points[].gain_db", Kind.NUMBER),
-            may("sweep.points[].phase_deg", Kind.NUMBER),
+            may("sweep.points[].phase_deg", Kind.NUMBER), may("sweep.points[].fitted_gain_db", Kind.NUMBER),
 
             must("curves", Kind.OBJECT), must("curves.frequency_hz", Kind.LIST), must("curves.frequency_hz[]", Kind.POSITIVE),
             may("curves.fitted_gain_db[]", Kind.NUMBER), may("curves.fitted_phase_deg[]", Kind.NUMBER),

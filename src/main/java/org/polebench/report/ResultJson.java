@@ -95,6 +95,8 @@ public final class ResultJson {
             ObjectNode row = points.addObject();
             row.put("frequency_hz", p.frequencyHz());
             row.put("gain_db", p.gainDb());
+            // the fitted model's gain at this point's own frequency: the report's residual panel
+            row.put("fitted_gain_db", 20 * Math.log10(result.measured().model().responseAt(p.frequencyHz()).abs()));
             if (p.phaseDeg().isPresent()) {
                 row.put("phase_deg", p.phaseDeg().getAsDouble());
             } else {
