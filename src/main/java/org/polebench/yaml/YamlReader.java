@@ -17,6 +17,7 @@ import java.util.ArrayList;
 import java.util.HashSet;
 import java.util.List;
 import java.util.Set;
+import org.polebench.InputLimits;
 import org.polebench.InputProblem;
 
 /**
@@ -26,11 +27,27 @@ import org.polebench.InputProblem;
  */
 public final class YamlReader {
     private final YAMLFactory factory = new YAMLFactory();
+    private final long maxBytes;
+
+    /** A reader under the limit this JVM was started with ({@link InputLimits#standing()}). */
+    public YamlReader() {
+        this(InputLimits.standing().maxYamlBytes());
+    }
+
+    /** @param maxBytes the largest file read; a larger one is refused before it is read */
+    public YamlReader(long maxBytes) {
+        this.maxBytes = maxBytes;
+    }
 
     /** @return the root node; an empty document reads as an empty map */
     public YamlNode read(Path file) throws InputProblem {
         String text;
         try {
+            if (Files.size(file) > maxBytes) {
+                throw new InputProblem(file, 0, "the file has " + Files.size(file) + " bytes, more than " + maxBytes
+                        + ", the limit on a stage, profile or bench file (" + InputLimits.MAX_YAML_BYTES + ")",
+                        InputLimits.raise(InputLimits.MAX_YAML_BYTES, maxBytes, "check that this is the right file"));
+            }
             byte[] bytes = Files.readAllBytes(file);
             text = StandardCharsets.UTF_8.newDecoder().decode(java.nio.ByteBuffer.wrap(bytes)).toString();
         } catch (NoSuchFileException e) {
