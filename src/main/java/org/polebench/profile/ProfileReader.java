@@ -8,8 +8,8 @@ import java.util.Optional;
 import java.util.OptionalDouble;
 import java.util.Set;
 import java.util.function.Function;
-import java.util.regex.Pattern;
-import java.util.regex.PatternSyntaxException;
+import com.google.re2j.Pattern;
+import com.google.re2j.PatternSyntaxException;
 import org.polebench.InputProblem;
 import org.polebench.bench.Bench;
 import org.polebench.bench.BenchReader;
@@ -567,8 +567,11 @@ public final class ProfileReader {
             try {
                 return Pattern.compile(regex);
             } catch (PatternSyntaxException e) {
-                throw problemAt(line, "not a valid regular expression: " + e.getDescription(),
-                        "check the brackets and escapes (YAML single quotes keep backslashes as they are)");
+                // RE2 syntax (RE2/J): matching takes time linear in the line whatever the pattern, which a
+                // backtracking engine cannot promise (issue 15), at the price of backreferences and lookaround
+                throw problemAt(line, "not a regular expression polebench can match: " + e.getDescription(),
+                        "check the brackets and escapes (YAML single quotes keep backslashes as they are); "
+                                + "backreferences (\\1) and lookaround ((?=, (?!, (?<=) are not supported");
             }
         }
     }

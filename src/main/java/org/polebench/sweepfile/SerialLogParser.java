@@ -8,8 +8,8 @@ import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
-import java.util.regex.Matcher;
-import java.util.regex.Pattern;
+import com.google.re2j.Matcher;
+import com.google.re2j.Pattern;
 import org.polebench.InputLimits;
 import org.polebench.InputProblem;
 import org.polebench.profile.CommandRole;
@@ -41,10 +41,12 @@ import org.polebench.units.StrictNumber;
  * <p>One instance per log or capture; not for sharing between threads.
  */
 public final class SerialLogParser {
-    private static final Pattern PREFIX = Pattern.compile(
+    // the two patterns of our own log form stay Java's (the prefix needs a lookahead, which RE2
+    // lacks); every pattern a profile supplies is RE2/J's, linear in the line (issue 15)
+    private static final java.util.regex.Pattern PREFIX = java.util.regex.Pattern.compile(
             "^(?:(?<iso>\\d{4}-\\d{2}-\\d{2}[T ]\\d{2}:\\d{2}:\\d{2}(?:[.,]\\d+)?(?:Z|[+-]\\d{2}:?\\d{2})?)|\\[[^\\]]*\\])?"
                     + "\\s*(?:(?<who>[A-Za-z][\\w.-]*)\\s*(?=->|<-|>|<))?(?<dir>->|<-|>|<|TX:|RX:)?\\s*(?<body>.*)$");
-    private static final Pattern ERROR_ANSWER = Pattern.compile("^(?<code>[+-]?\\d+)\\s*,\\s*\"(?<text>.*)\"$");
+    private static final java.util.regex.Pattern ERROR_ANSWER = java.util.regex.Pattern.compile("^(?<code>[+-]?\\d+)\\s*,\\s*\"(?<text>.*)\"$");
     /** SCPI's +9.9E37 stands for an overrange (infinite) reading, 9.91E37 for NaN. */
     private static final double SCPI_OVERRANGE = 9.9e37;
 
@@ -164,7 +166,7 @@ public final class SerialLogParser {
             notes.accept(lineNo, stripped.substring(1), tally);
             return;
         }
-        Matcher prefix = PREFIX.matcher(stripped);
+        java.util.regex.Matcher prefix = PREFIX.matcher(stripped);
         if (!prefix.matches()) {
             unparseable(lineNo, stripped, "cannot be read");
             return;
@@ -271,7 +273,7 @@ public final class SerialLogParser {
         Known query = pending;
         pending = null;
         CommandRole role = query.command.role();
-        Matcher error = ERROR_ANSWER.matcher(body);
+        java.util.regex.Matcher error = ERROR_ANSWER.matcher(body);
         if (role == CommandRole.READS_ERROR_QUEUE) {
             if (!error.matches()) {
                 unparseable(lineNo, body, "is not an error-queue answer <code>,\"<text>\"");
