@@ -144,6 +144,12 @@ public final class ProfileReader {
         boolean readsIn = step.stream().anyMatch(c -> c.role() == CommandRole.READS_INPUT_AMPLITUDE);
         boolean readsOut = step.stream().anyMatch(c -> c.role() == CommandRole.READS_OUTPUT_AMPLITUDE);
         int stepLine = top.entry("step").orElseThrow().line();
+        if (step.stream().noneMatch(c -> c.role() == CommandRole.SETS_FREQUENCY)) {
+            // found by the command-line fuzzer: LineProtocol refused it as a broken precondition (exit 70)
+            throw doc.problemAt(stepLine, "no step command sets the frequency",
+                    "give one step command with the " + ScpiCommand.FREQUENCY + " placeholder, such as 'FREQ "
+                            + ScpiCommand.FREQUENCY + "'");
+        }
         if (readsGain == (readsIn || readsOut) || readsIn != readsOut) {
             throw doc.problemAt(stepLine, "a step reads either the gain or both amplitudes",
                     "give one reads-gain command, or one reads-input-amplitude and one reads-output-amplitude");
