@@ -11,7 +11,7 @@ import java.util.Properties;
  * ({@code java -Dpolebench.max-points=40000000 -jar polebench.jar …}); the user guide lists them.
  *
  * @param maxPoints     readings kept from one sweep file, and points one command may make
- * @param maxLineChars  characters in one line of a sweep file or serial log
+ * @param maxLineChars  characters in one line of a sweep file, serial log, stage, profile or bench file
  * @param maxFileBytes  bytes in one sweep file or serial log
  * @param maxYamlBytes  bytes in one stage, profile or bench file (YAML)
  * @param maxSamples    boards one tolerance spread may draw ({@code --samples})
@@ -26,12 +26,14 @@ public record InputLimits(long maxPoints, long maxLineChars, long maxFileBytes, 
     /**
      * Sized for a 1 GB heap: a sweep point costs at most 64 bytes while it is read
      * (sweepfile's columns), so 12 million of them leave room for the rest; a table row is
-     * under 100 characters and a serial-log line under 1000, so a 1 MiB line is no sweep;
+     * under 100 characters and a serial-log or YAML line under 1000, so a 64 KiB line is no
+     * input of ours (and the YAML scanner copies its buffer for every kilobyte of one unbroken
+     * value, so its time grows with the square of a line's length: 14 s for one 1 MB value);
      * 2 GiB of rows would be about 60 million points; stage and profile files are a few
      * kilobytes; a draw of the tolerance spread keeps a few numbers per board.
      */
     public static final InputLimits DEFAULTS =
-            new InputLimits(12_000_000L, 1L << 20, 1L << 30, 16L << 20, 1_000_000L);
+            new InputLimits(12_000_000L, 1L << 16, 1L << 30, 4L << 20, 1_000_000L);
 
     public InputLimits {
         if (maxPoints < 1 || maxLineChars < 1 || maxFileBytes < 1 || maxYamlBytes < 1 || maxSamples < 1) {

@@ -95,8 +95,18 @@ class StatedLimitsTest {
     void aYamlFilePastItsLimitIsRefusedBeforeItIsRead() throws Exception {
         Path stage = Files.writeString(dir.resolve("big.stage.yaml"), "name: " + "x".repeat(2000) + "\n");
         InputProblem problem = org.junit.jupiter.api.Assertions.assertThrows(InputProblem.class,
-                () -> new YamlReader(1024).read(stage));
+                () -> new YamlReader(1024, 1 << 16).read(stage));
         assertTrue(problem.getMessage().contains(InputLimits.MAX_YAML_BYTES), problem.getMessage());
+    }
+
+    @Test
+    void aLongYamlValueIsRefusedBeforeItIsParsed() throws Exception {
+        // the value is on line 2 (counted in the text below)
+        Path stage = Files.writeString(dir.resolve("long.stage.yaml"), "# a stage\nname: " + "x".repeat(2000) + "\n");
+        InputProblem problem = org.junit.jupiter.api.Assertions.assertThrows(InputProblem.class,
+                () -> new YamlReader(1 << 20, 1000).read(stage));
+        assertEquals(2, problem.line());
+        assertTrue(problem.getMessage().contains(InputLimits.MAX_LINE_CHARS), problem.getMessage());
     }
 
     @Test
