@@ -21,8 +21,8 @@ import org.junit.jupiter.api.io.TempDir;
 
 /**
  * Seeded mutations of every kind of input polebench reads, run through {@link Main#run} in this
- * JVM: stage files, sweep tables, serial logs, instrument profiles, report result files and
- * option values. Whatever the input, the exit code is one of the documented 0–4 and nothing
+ * JVM: stage files, bench files, sweep tables, serial logs, instrument profiles, report result
+ * files and option values. Whatever the input, the exit code is one of the documented 0–4 and nothing
  * prints a stack trace (issue 15). Each kind runs {@link #ROUNDS} mutations by default; a longer
  * run is {@code mvn -B -o test -Dtest=CliFuzzTest -Dpolebench.fuzz.rounds=5000}
  * (docs/contributing.md, "Build, test, benchmark").
@@ -149,6 +149,13 @@ class CliFuzzTest {
             throw new java.io.UncheckedIOException(e);
         }
         return Path.of("sample-measurements", "imports", "db-degrees.csv");
+    }
+
+    @Test
+    void mutatedBenchFiles() throws IOException {
+        String stage = Path.of("sample-measurements", "hydrophone-preamp-ce.stage.yaml").toString();
+        fuzz("bench", files(Path.of("sample-measurements", "benches"), ".yaml"), ".bench.yaml",
+                bench -> List.of("predict", "--samples", "20", "--bench", bench.toString(), stage));
     }
 
     @Test
