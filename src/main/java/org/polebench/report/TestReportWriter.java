@@ -32,7 +32,8 @@ import org.polebench.OutputFile;
  * (files hard-linked where the file system allows, else copied), the old folder is renamed
  * aside, the new one renamed in, and the old one deleted. Between those two renames, a
  * matter of microseconds, the report is under the aside name
- * ({@code .<name>.polebench-old-…}) only.
+ * ({@code .<name>.polebench-old-…}) only; a run killed there is mended by the next write to
+ * the same folder, which renames the old report back before it starts.
  */
 public final class TestReportWriter {
     public static final String HTML = "report.html";
@@ -63,6 +64,7 @@ public final class TestReportWriter {
     public ReportStamp write(JsonNode root, Path dir, boolean force, boolean pngs, Instant now)
             throws InputProblem, IOException {
         Path target = dir.toAbsolutePath().normalize();
+        restoreAside(target);
         if (Files.exists(target) && !Files.isDirectory(target)) {
             throw new InputProblem(dir, 0, "the report folder " + dir + " is a file, not a folder", "name a folder for --report/--out");
         }
@@ -161,9 +163,33 @@ public final class TestReportWriter {
         }
     }
 
+    /**
+     * Puts back a report that a killed run had renamed aside just before renaming its new one
+     * in: the folder is missing and exactly one aside copy of it is there.
+     */
+    private static void restoreAside(Path target) throws IOException {
+        Path parent = target.getParent();
+        if (parent == null || Files.exists(target, LinkOption.NOFOLLOW_LINKS) || !Files.isDirectory(parent)) {
+            return;
+        }
+        String prefix = asidePrefix(target);
+        List<Path> asides = new ArrayList<>();
+        try (DirectoryStream<Path> siblings = Files.newDirectoryStream(parent, p -> p.getFileName().toString()
+                .startsWith(prefix))) {
+            siblings.forEach(asides::add);
+        }
+        if (asides.size() == 1) {
+            move(asides.get(0), target);
+        }
+    }
+
+    private static String asidePrefix(Path target) {
+        return "." + target.getFileName() + ".polebench-old-";
+    }
+
     /** Renames the old folder aside, the new one in, and deletes the old one. */
     private static void swap(Path target, Path temp) throws IOException {
-        Path aside = target.resolveSibling("." + target.getFileName() + ".polebench-old-"
+        Path aside = target.resolveSibling(asidePrefix(target)
                 + Long.toUnsignedString(ThreadLocalRandom.current().nextLong(), 36));
         move(target, aside);
         try {

@@ -69,6 +69,21 @@ class ReportReplacementTest {
     }
 
     @Test
+    void aReportLeftAsideByAKilledRunIsPutBackBeforeTheNextWrite() throws Exception {
+        Path out = dir.resolve("report");
+        run("report", resultA.toString(), "--out", out.toString());
+        // as a run killed between its two renames leaves it: the old report aside, no folder
+        Files.move(out, dir.resolve(".report.polebench-old-k1ll3d"));
+        int exit = run("report", resultB.toString(), "--out", out.toString());
+        // the old report is back, and without --force it is kept (exit 2, bad usage)
+        assertEquals(ExitCodes.BAD_INPUT, exit);
+        assertEquals(Files.readString(resultA), Files.readString(out.resolve("result.json")));
+        try (Stream<Path> left = Files.list(dir)) {
+            assertEquals(List.of("report"), left.map(p -> p.getFileName().toString()).collect(Collectors.toList()));
+        }
+    }
+
+    @Test
     void aKilledReplacementLeavesTheOldReportOrTheNewOneWhole() throws Exception {
         Path out = dir.resolve("report");
         run("report", resultA.toString(), "--out", out.toString());
