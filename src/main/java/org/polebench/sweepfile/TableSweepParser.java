@@ -102,7 +102,7 @@ final class TableSweepParser {
         } catch (NoSuchFileException e) {
             throw new InputProblem(file, 0, "file not found", "check the path");
         } catch (CharacterCodingException e) {
-            int bad = firstUndecodableLine();
+            long bad = firstUndecodableLine();
             throw new InputProblem(file, bad, "bytes that are not " + layout.encoding().word() + " text",
                     layout.encoding() == TextEncoding.UTF_8
                             ? "if the file is Latin-1 (ISO-8859-1), use a profile with 'encoding: latin-1'; "
@@ -384,13 +384,13 @@ final class TableSweepParser {
     }
 
     /** @return the 1-based line of the first byte sequence the profile's encoding cannot decode */
-    private int firstUndecodableLine() {
+    private long firstUndecodableLine() {
         try (InputStream in = Files.newInputStream(file)) {
             CharsetDecoder decoder = layout.encoding().charset().newDecoder()
                     .onMalformedInput(CodingErrorAction.REPORT).onUnmappableCharacter(CodingErrorAction.REPORT);
             ByteBuffer bytes = ByteBuffer.allocate(1 << 16);
             CharBuffer chars = CharBuffer.allocate(1 << 16);
-            int line = 1;
+            long line = 1;
             boolean end = false;
             while (!end) {
                 int read = in.read(bytes.array(), bytes.position(), bytes.remaining());
