@@ -13,10 +13,10 @@ public final class InputProblem extends Exception {
     private static final long serialVersionUID = 1L;
 
     private final Path file;   // null for a live port or a command-line value
-    private final int line;    // 1-based; 0 when no single line is at fault
+    private final long line;   // 1-based, a long so that no file is too long to count; 0 when no single line is at fault
     private final String hint; // what to change, in the user's terms; may be empty
 
-    public InputProblem(Path file, int line, String message, String hint) {
+    public InputProblem(Path file, long line, String message, String hint) {
         super(message);
         if (line < 0) {
             throw new IllegalArgumentException("line must be 1-based or 0, was " + line);
@@ -26,7 +26,7 @@ public final class InputProblem extends Exception {
         this.hint = hint == null ? "" : hint;
     }
 
-    public InputProblem(Path file, int line, String message, String hint, Throwable cause) {
+    public InputProblem(Path file, long line, String message, String hint, Throwable cause) {
         this(file, line, message, hint);
         initCause(cause);
     }
@@ -37,7 +37,7 @@ public final class InputProblem extends Exception {
     }
 
     /** @return the 1-based line at fault, or 0 when no single line is */
-    public int line() {
+    public long line() {
         return line;
     }
 

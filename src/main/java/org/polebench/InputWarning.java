@@ -9,10 +9,10 @@ import java.util.Optional;
  * corner. Carried in results so that reports can list every one.
  *
  * @param file    the file it concerns, or null for a live port or computed result
- * @param line    1-based line, or 0 when no single line is concerned
+ * @param line    1-based line, or 0 when no single line is concerned (a long: files past 2³¹ lines)
  * @param message what was noticed and what was done about it
  */
-public record InputWarning(Path file, int line, String message) {
+public record InputWarning(Path file, long line, String message) {
     public InputWarning {
         if (line < 0) {
             throw new IllegalArgumentException("line must be 1-based or 0, was " + line);

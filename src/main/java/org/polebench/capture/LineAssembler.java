@@ -8,16 +8,22 @@ import java.nio.charset.StandardCharsets;
 import java.util.ArrayDeque;
 import java.util.Arrays;
 import java.util.Optional;
+import org.polebench.InputLimits;
 import org.polebench.profile.PortSettings;
 
 /**
  * Splits received bytes into lines at the line ending's last character ({@code \n} for LF
  * and CRLF, {@code \r} for CR), dropping a {@code \r} before a {@code \n}, so a device that
  * sends CRLF where LF was configured still reads. Bytes are decoded per line as UTF-8 with
- * replacement, so one bad byte spoils one line only. Not thread-safe.
+ * replacement, so one bad byte spoils one line only. A line longer than the limit on one line
+ * ({@link InputLimits#maxLineChars()}) keeps its first part, ends in "…" so that no pattern
+ * takes it for a reading, and the rest is dropped: a device that never sends its line ending
+ * cannot fill the memory (issue 15). Not thread-safe.
  */
 final class LineAssembler {
     private final byte terminator;
+    private final int maxBytes;
+    private boolean cut;
     private byte[] partial = new byte[256];
     private int length;
     private final ArrayDeque<String> lines = new ArrayDeque<>();
@@ -26,6 +32,7 @@ final class LineAssembler {
 
     LineAssembler(PortSettings.LineEnding ending) {
         this.terminator = ending == PortSettings.LineEnding.CR ? (byte) '\r' : (byte) '\n';
+        this.maxBytes = (int) Math.min(Integer.MAX_VALUE - 8, InputLimits.standing().maxLineChars());
     }
 
     void accept(byte[] bytes, int count) {
@@ -36,11 +43,14 @@ final class LineAssembler {
                 if (terminator == '\n' && end > 0 && partial[end - 1] == '\r') {
                     end--;
                 }
-                lines.add(decode(end));
+                lines.add(cut ? decode(end) + "\u2026" : decode(end));
                 length = 0;
+                cut = false;
+            } else if (length >= maxBytes) {
+                cut = true;
             } else {
                 if (length == partial.length) {
-                    partial = Arrays.copyOf(partial, partial.length * 2);
+                    partial = Arrays.copyOf(partial, (int) Math.min((long) partial.length * 2, maxBytes));
                 }
                 partial[length++] = b;
             }

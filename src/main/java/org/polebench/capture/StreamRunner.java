@@ -6,7 +6,7 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
-import java.util.regex.Matcher;
+import com.google.re2j.Matcher;
 import org.polebench.profile.GainForm;
 import org.polebench.profile.LineProtocol;
 import org.polebench.profile.PortSettings;

@@ -31,9 +31,12 @@ final class BundledSamples {
             }
             Path folder = Files.createTempDirectory("polebench-demo");
             Path copy = folder.resolve(name);
-            Files.copy(bundled, copy, StandardCopyOption.REPLACE_EXISTING);
-            copy.toFile().deleteOnExit();
+            // deleteOnExit deletes in the reverse order of registration: the folder is registered
+            // first so that it goes after the file in it (registered the other way round, its
+            // delete came first, failed on a folder not yet empty, and every demo run left one, issue 15)
             folder.toFile().deleteOnExit();
+            copy.toFile().deleteOnExit();
+            Files.copy(bundled, copy, StandardCopyOption.REPLACE_EXISTING);
             return copy;
         }
     }

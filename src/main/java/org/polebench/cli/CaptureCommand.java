@@ -11,6 +11,7 @@ import java.util.concurrent.Callable;
 import java.util.concurrent.CountDownLatch;
 import java.util.concurrent.TimeUnit;
 import java.util.concurrent.atomic.AtomicBoolean;
+import org.polebench.sweep.Provenance;
 import org.polebench.InputProblem;
 import org.polebench.bench.Bench;
 import org.polebench.bench.BenchReader;
@@ -225,7 +226,7 @@ final class CaptureCommand implements Callable<Integer> {
 
             @Override
             public Integer stopped(CaptureOutcome.Stopped stopped) {
-                err.println("polebench: capture stopped: " + stopped.message());
+                err.println("polebench: capture stopped: " + Provenance.printable(stopped.message()));
                 err.println("polebench: " + stopped.points() + " of " + stopped.total() + " points are in "
                         + stopped.sweepFile() + "; every line is in " + stopped.transcript());
                 err.println("polebench: continue with: polebench capture " + linkArguments() + " --profile "

@@ -3,6 +3,7 @@ package org.polebench.cli;
 import java.io.PrintWriter;
 import java.time.Duration;
 import java.util.Locale;
+import org.polebench.sweep.Provenance;
 import org.polebench.capture.CaptureListener;
 import org.polebench.capture.CaptureProgress;
 import org.polebench.units.EngineeringValue;
@@ -28,7 +29,9 @@ final class CaptureDisplay implements CaptureListener {
 
     @Override
     public void identified(String instrument, String identity) {
-        out.println(instrument + ": " + identity);
+        // an instrument's answer reaches the terminal with ESC, BEL and the like as \xNN: raw,
+        // they would move the cursor, recolour or ring it (issue 15)
+        out.println(Provenance.printable(instrument) + ": " + Provenance.printable(identity));
         out.flush();
     }
 
@@ -63,7 +66,7 @@ final class CaptureDisplay implements CaptureListener {
     @Override
     public void retrying(double frequencyHz, String reason, int attempt, int allowed) {
         endBar();
-        err.println("polebench: " + EngineeringValue.format(frequencyHz, "Hz", 4) + ": " + reason + "; repeating the step ("
+        err.println("polebench: " + EngineeringValue.format(frequencyHz, "Hz", 4) + ": " + Provenance.printable(reason) + "; repeating the step ("
                 + attempt + " of " + allowed + ")");
         err.flush();
     }
@@ -71,7 +74,7 @@ final class CaptureDisplay implements CaptureListener {
     @Override
     public void warning(String message) {
         endBar();
-        err.println("polebench: warning: " + message);
+        err.println("polebench: warning: " + Provenance.printable(message));
         err.flush();
     }
 

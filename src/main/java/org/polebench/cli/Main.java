@@ -5,6 +5,7 @@ import java.io.PrintWriter;
 import java.io.UncheckedIOException;
 import java.nio.file.FileSystemException;
 import java.util.List;
+import org.polebench.InputLimits;
 import org.polebench.InputProblem;
 import org.polebench.OutputFile;
 import picocli.CommandLine;
@@ -88,7 +89,12 @@ public final class Main implements Runnable {
         line.setExecutionExceptionHandler(Main::handle);
         int code;
         try {
+            // a limit set to nonsense is refused before any command runs (InputLimits)
+            InputLimits.from(System.getProperties());
             code = line.execute(args);
+        } catch (InputProblem badLimit) {
+            err.println("polebench: " + badLimit.describe());
+            code = ExitCodes.BAD_INPUT;
         } catch (OutOfMemoryError exhausted) {
             // picocli hands on errors; a file or option too large for the heap is the user's to
             // size, so it gets a message and the I/O exit code, never a stack trace (issue 15)

@@ -64,6 +64,7 @@ final class PredictCommand implements Callable<Integer> {
             throw new InputProblem(null, 0, "--samples " + samples + " is too few for 5 % and 95 % points",
                     "use at least 20 (the default is " + ToleranceSpread.DEFAULT_SAMPLES + ")");
         }
+        CountLimits.samples(samples);
         Bench bench = benchFile == null ? null : new BenchReader().read(benchFile);
         StagePrediction result = new StageAnalysis()
                 .withSpread(new ToleranceSpread(samples, seed))

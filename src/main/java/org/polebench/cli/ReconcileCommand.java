@@ -118,6 +118,7 @@ final class ReconcileCommand implements Callable<Integer> {
             throw new InputProblem(null, 0, "--samples " + samples + " is too few for a tolerance spread",
                     "use at least 20");
         }
+        CountLimits.samples(samples);
         DecisionRule decisionRule = decisionRule(rule);
         if (report == null && (force || png)) {
             throw new InputProblem(null, 0, (force ? "--force" : "--png") + " only applies to --report",

@@ -91,6 +91,7 @@ final class SynthesizeCommand implements Callable<Integer> {
         if (points < 2) {
             throw new InputProblem(null, 0, "--points " + points + " is too few for a sweep", "use 2 or more");
         }
+        CountLimits.points(points);
         Stage stage = new StageReader().read(stageFile).stage();
         Optional<MeasuringChain> bench = benchFile == null ? Optional.empty()
                 : Optional.of(MeasuringChain.of(new BenchReader().read(benchFile), "synthesize --bench"));

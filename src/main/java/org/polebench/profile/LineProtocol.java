@@ -3,7 +3,7 @@ package org.polebench.profile;
 import java.util.List;
 import java.util.Objects;
 import java.util.Optional;
-import java.util.regex.Pattern;
+import com.google.re2j.Pattern;
 
 /** How a serial instrument talks: SCPI command and answer, or a stream of result lines. */
 public sealed interface LineProtocol permits LineProtocol.ScpiExchange, LineProtocol.StreamedLines {

@@ -8,8 +8,8 @@ import java.util.Optional;
 import java.util.OptionalDouble;
 import java.util.Set;
 import java.util.function.Function;
-import java.util.regex.Pattern;
-import java.util.regex.PatternSyntaxException;
+import com.google.re2j.Pattern;
+import com.google.re2j.PatternSyntaxException;
 import org.polebench.InputProblem;
 import org.polebench.bench.Bench;
 import org.polebench.bench.BenchReader;
@@ -144,6 +144,12 @@ public final class ProfileReader {
         boolean readsIn = step.stream().anyMatch(c -> c.role() == CommandRole.READS_INPUT_AMPLITUDE);
         boolean readsOut = step.stream().anyMatch(c -> c.role() == CommandRole.READS_OUTPUT_AMPLITUDE);
         int stepLine = top.entry("step").orElseThrow().line();
+        if (step.stream().noneMatch(c -> c.role() == CommandRole.SETS_FREQUENCY)) {
+            // found by the command-line fuzzer: LineProtocol refused it as a broken precondition (exit 70)
+            throw doc.problemAt(stepLine, "no step command sets the frequency",
+                    "give one step command with the " + ScpiCommand.FREQUENCY + " placeholder, such as 'FREQ "
+                            + ScpiCommand.FREQUENCY + "'");
+        }
         if (readsGain == (readsIn || readsOut) || readsIn != readsOut) {
             throw doc.problemAt(stepLine, "a step reads either the gain or both amplitudes",
                     "give one reads-gain command, or one reads-input-amplitude and one reads-output-amplitude");
@@ -567,8 +573,11 @@ public final class ProfileReader {
             try {
                 return Pattern.compile(regex);
             } catch (PatternSyntaxException e) {
-                throw problemAt(line, "not a valid regular expression: " + e.getDescription(),
-                        "check the brackets and escapes (YAML single quotes keep backslashes as they are)");
+                // RE2 syntax (RE2/J): matching takes time linear in the line whatever the pattern, which a
+                // backtracking engine cannot promise (issue 15), at the price of backreferences and lookaround
+                throw problemAt(line, "not a regular expression polebench can match: " + e.getDescription(),
+                        "check the brackets and escapes (YAML single quotes keep backslashes as they are); "
+                                + "backreferences (\\1) and lookaround ((?=, (?!, (?<=) are not supported");
             }
         }
     }

@@ -1,8 +1,8 @@
 package org.polebench.profile;
 
 import java.util.Locale;
-import java.util.regex.Matcher;
-import java.util.regex.Pattern;
+import com.google.re2j.Matcher;
+import com.google.re2j.Pattern;
 
 /**
  * One command of a SCPI exchange, as a template. Placeholders are {@code {frequency_nr3}} and

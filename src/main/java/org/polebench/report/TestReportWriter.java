@@ -6,12 +6,15 @@ import java.nio.charset.StandardCharsets;
 import java.nio.file.AtomicMoveNotSupportedException;
 import java.nio.file.DirectoryStream;
 import java.nio.file.Files;
+import java.nio.file.LinkOption;
 import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
 import java.time.Instant;
 import java.util.ArrayList;
+import java.util.Comparator;
 import java.util.List;
 import java.util.concurrent.ThreadLocalRandom;
+import java.util.stream.Stream;
 import org.jfree.chart.JFreeChart;
 import org.polebench.InputProblem;
 import org.polebench.OutputFile;
@@ -22,10 +25,15 @@ import org.polebench.OutputFile;
  * and each chart as its own SVG ({@code bode.svg}, {@code capacitor-shares.svg},
  * {@code capacitors.svg}), with PNG copies on request.
  *
- * <p>Every file is written into a fresh temporary folder beside the target, then moved into
- * place, so a failure half-way leaves the target as it was. A folder that already holds any of
- * these files is refused unless {@code force} is set; then only these files are replaced and
- * anything else in the folder is left alone.
+ * <p>The whole folder is written as a fresh temporary folder beside the target and then renamed
+ * into place, so that a failure or a killed run leaves the old report or the new one, never a
+ * mix of the two (issue 15). A folder that already holds any of these files is refused unless
+ * {@code force} is set; then the new folder also receives everything else the old one held
+ * (files hard-linked where the file system allows, else copied), the old folder is renamed
+ * aside, the new one renamed in, and the old one deleted. Between those two renames, a
+ * matter of microseconds, the report is under the aside name
+ * ({@code .<name>.polebench-old-…}) only; a run killed there is mended by the next write to
+ * the same folder, which renames the old report back before it starts.
  */
 public final class TestReportWriter {
     public static final String HTML = "report.html";
@@ -56,6 +64,7 @@ public final class TestReportWriter {
     public ReportStamp write(JsonNode root, Path dir, boolean force, boolean pngs, Instant now)
             throws InputProblem, IOException {
         Path target = dir.toAbsolutePath().normalize();
+        restoreAside(target);
         if (Files.exists(target) && !Files.isDirectory(target)) {
             throw new InputProblem(dir, 0, "the report folder " + dir + " is a file, not a folder", "name a folder for --report/--out");
         }
@@ -96,15 +105,8 @@ public final class TestReportWriter {
             if (!Files.exists(target)) {
                 move(temp, target);
             } else {
-                for (String name : FILES) {
-                    Path made = temp.resolve(name);
-                    if (Files.exists(made)) {
-                        move(made, target.resolve(name));
-                    } else if (existing.contains(name)) {
-                        // a PNG of the replaced report that this one does not make would be stale
-                        Files.delete(target.resolve(name));
-                    }
-                }
+                keepOthers(target, temp);
+                swap(target, temp);
             }
         } catch (IOException e) {
             throw OutputFile.failure(dir, e);
@@ -112,6 +114,91 @@ public final class TestReportWriter {
             removeIfPresent(temp);
         }
         return stamp;
+    }
+
+    /**
+     * Brings what the old folder holds besides a report into the new one, so that replacing the
+     * report loses none of the user's files. A PNG of the old report that the new one does not
+     * make is left out: it would be stale.
+     */
+    private static void keepOthers(Path target, Path temp) throws IOException {
+        try (DirectoryStream<Path> entries = Files.newDirectoryStream(target)) {
+            for (Path entry : entries) {
+                String name = entry.getFileName().toString();
+                if (FILES.contains(name)) {
+                    continue;
+                }
+                Path copy = temp.resolve(name);
+                if (Files.isDirectory(entry, LinkOption.NOFOLLOW_LINKS)) {
+                    copyTree(entry, copy);
+                } else {
+                    linkOrCopy(entry, copy);
+                }
+            }
+        }
+    }
+
+    private static void linkOrCopy(Path file, Path copy) throws IOException {
+        if (Files.isRegularFile(file, LinkOption.NOFOLLOW_LINKS)) {
+            try {
+                Files.createLink(copy, file);
+                return;
+            } catch (IOException | UnsupportedOperationException notHere) {
+                // another file system or no hard links: copy instead
+            }
+        }
+        Files.copy(file, copy, LinkOption.NOFOLLOW_LINKS, StandardCopyOption.COPY_ATTRIBUTES);
+    }
+
+    private static void copyTree(Path from, Path to) throws IOException {
+        try (Stream<Path> walk = Files.walk(from)) {
+            for (Path source : (Iterable<Path>) walk::iterator) {
+                Path made = to.resolve(from.relativize(source).toString());
+                if (Files.isDirectory(source, LinkOption.NOFOLLOW_LINKS)) {
+                    Files.createDirectories(made);
+                } else {
+                    linkOrCopy(source, made);
+                }
+            }
+        }
+    }
+
+    /**
+     * Puts back a report that a killed run had renamed aside just before renaming its new one
+     * in: the folder is missing and exactly one aside copy of it is there.
+     */
+    private static void restoreAside(Path target) throws IOException {
+        Path parent = target.getParent();
+        if (parent == null || Files.exists(target, LinkOption.NOFOLLOW_LINKS) || !Files.isDirectory(parent)) {
+            return;
+        }
+        String prefix = asidePrefix(target);
+        List<Path> asides = new ArrayList<>();
+        try (DirectoryStream<Path> siblings = Files.newDirectoryStream(parent, p -> p.getFileName().toString()
+                .startsWith(prefix))) {
+            siblings.forEach(asides::add);
+        }
+        if (asides.size() == 1) {
+            move(asides.get(0), target);
+        }
+    }
+
+    private static String asidePrefix(Path target) {
+        return "." + target.getFileName() + ".polebench-old-";
+    }
+
+    /** Renames the old folder aside, the new one in, and deletes the old one. */
+    private static void swap(Path target, Path temp) throws IOException {
+        Path aside = target.resolveSibling(asidePrefix(target)
+                + Long.toUnsignedString(ThreadLocalRandom.current().nextLong(), 36));
+        move(target, aside);
+        try {
+            move(temp, target);
+        } catch (IOException e) {
+            move(aside, target);   // put the old report back before saying why
+            throw e;
+        }
+        deleteTree(aside);
     }
 
     private static void chart(Path folder, String name, JFreeChart chart, int height, String prefix, boolean pngs)
@@ -136,14 +223,18 @@ public final class TestReportWriter {
     }
 
     private static void removeIfPresent(Path folder) throws IOException {
-        if (!Files.exists(folder)) {
-            return;
+        if (Files.exists(folder, LinkOption.NOFOLLOW_LINKS)) {
+            deleteTree(folder);
         }
-        try (DirectoryStream<Path> files = Files.newDirectoryStream(folder)) {
-            for (Path file : files) {
-                Files.delete(file);
+    }
+
+    /** Deletes a folder and what it holds, deepest first; links are removed, never followed. */
+    private static void deleteTree(Path folder) throws IOException {
+        try (Stream<Path> walk = Files.walk(folder)) {
+            List<Path> all = walk.sorted(Comparator.reverseOrder()).toList();
+            for (Path path : all) {
+                Files.delete(path);
             }
         }
-        Files.delete(folder);
     }
 }

@@ -27,15 +27,16 @@ public final class RoughLowerCorner {
 
     public LowerCornerEstimate estimate(Sweep sweep) {
         int n = sweep.size();
-        double[] gains = new double[n];
+        // read from the packed columns: a 10-million-point sweep needs one copy of its gains here, not two
+        PackedPoints gains = sweep.packed();
+        double[] sorted = new double[n];
         int highest = 0;
         for (int i = 0; i < n; i++) {
-            gains[i] = sweep.points().get(i).gainDb();
-            if (gains[i] > gains[highest]) {
+            sorted[i] = gains.gainDb(i);
+            if (sorted[i] > sorted[highest]) {
                 highest = i;
             }
         }
-        double[] sorted = gains.clone();
         Arrays.sort(sorted);
         int top = Math.max(1, (int) Math.ceil(n / 10.0));
         double midband = median(sorted, n - top, n);
@@ -44,11 +45,11 @@ public final class RoughLowerCorner {
         OptionalDouble corner = OptionalDouble.empty();
         boolean reachesBelow = false;
         for (int i = highest - 1; i >= 0; i--) {
-            if (gains[i] < target) {
+            if (gains.gainDb(i) < target) {
                 reachesBelow = true;
-                double logLow = Math.log(sweep.points().get(i).frequencyHz());
-                double logHigh = Math.log(sweep.points().get(i + 1).frequencyHz());
-                double t = (target - gains[i]) / (gains[i + 1] - gains[i]);
+                double logLow = Math.log(gains.frequencyHz(i));
+                double logHigh = Math.log(gains.frequencyHz(i + 1));
+                double t = (target - gains.gainDb(i)) / (gains.gainDb(i + 1) - gains.gainDb(i));
                 corner = OptionalDouble.of(Math.exp(logLow + t * (logHigh - logLow)));
                 break;
             }

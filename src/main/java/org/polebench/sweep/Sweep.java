@@ -4,7 +4,8 @@ import java.util.List;
 import java.util.Optional;
 
 /**
- * One bench sweep, strictly ascending in frequency, and where it came from. Either every
+ * One bench sweep, strictly ascending in frequency, and where it came from. Its points are
+ * held as {@link PackedPoints}, whatever list they were given in. Either every
  * point has a phase or none has (a magnitude-only instrument); importers enforce this with
  * a clear message before building one.
  *
@@ -14,18 +15,16 @@ import java.util.Optional;
  */
 public record Sweep(Provenance source, List<SweepPoint> points, Optional<CalibrationAccuracy> calibration) {
     public Sweep {
-        points = List.copyOf(points);
+        // packed, not List.copyOf: the same immutability at a third of the memory (PackedPoints)
+        PackedPoints packed = PackedPoints.of(points);
+        points = packed;
         calibration = calibration == null ? Optional.empty() : calibration;
-        if (points.size() < 2) {
-            throw new IllegalArgumentException("a sweep needs two points, had " + points.size());
+        if (packed.size() < 2) {
+            throw new IllegalArgumentException("a sweep needs two points, had " + packed.size());
         }
-        boolean phase = points.get(0).hasPhase();
-        for (int i = 1; i < points.size(); i++) {
-            if (!(points.get(i).frequencyHz() > points.get(i - 1).frequencyHz())) {
+        for (int i = 1; i < packed.size(); i++) {
+            if (!(packed.frequencyHz(i) > packed.frequencyHz(i - 1))) {
                 throw new IllegalArgumentException("sweep frequencies must be strictly ascending at point " + i);
-            }
-            if (points.get(i).hasPhase() != phase) {
-                throw new IllegalArgumentException("point " + i + " differs from point 0 in having a phase");
             }
         }
     }
@@ -42,7 +41,7 @@ public record Sweep(Provenance source, List<SweepPoint> points, Optional<Calibra
 
     /** @return true when every point carries a phase */
     public boolean hasPhase() {
-        return points.get(0).hasPhase();
+        return packed().hasPhase();
     }
 
     public int size() {
@@ -50,10 +49,15 @@ public record Sweep(Provenance source, List<SweepPoint> points, Optional<Calibra
     }
 
     public double lowestHz() {
-        return points.get(0).frequencyHz();
+        return packed().frequencyHz(0);
     }
 
     public double highestHz() {
-        return points.get(points.size() - 1).frequencyHz();
+        return packed().frequencyHz(points.size() - 1);
+    }
+
+    /** @return the points as columns, for loops over millions of points that need no records */
+    public PackedPoints packed() {
+        return (PackedPoints) points;
     }
 }

@@ -103,7 +103,7 @@ public final class AppendedSweep implements Closeable {
         List<String> comments = new ArrayList<>();
         String header = null;
         List<SweepPoint> points = new ArrayList<>();
-        int lineNo = 0;
+        long lineNo = 0;
         for (String line : text.lines().toList()) {
             lineNo++;
             if (header == null) {
@@ -131,7 +131,7 @@ public final class AppendedSweep implements Closeable {
         return new AppendedSweep(file, comments, header, points, stream);
     }
 
-    private static SweepPoint parseRow(Path file, int lineNo, String line, String header) throws InputProblem {
+    private static SweepPoint parseRow(Path file, long lineNo, String line, String header) throws InputProblem {
         String[] cells = line.strip().split(",", -1);
         String[] names = header.split(",");
         if (cells.length != names.length) {

@@ -18,6 +18,7 @@ import java.util.Locale;
 import java.util.Optional;
 import java.util.OptionalDouble;
 import java.util.Set;
+import org.polebench.InputLimits;
 import org.polebench.InputProblem;
 import org.polebench.profile.AmplitudeKind;
 import org.polebench.profile.AngleUnit;
@@ -74,9 +75,11 @@ final class LayoutSniffer {
     private static final Set<String> RATIO_WORDS = Set.of("ratio", "linear", "lin", "x", "vv");
 
     private final ProfileLibrary library;
+    private final InputLimits limits;
 
-    LayoutSniffer(ProfileLibrary library) {
+    LayoutSniffer(ProfileLibrary library, InputLimits limits) {
         this.library = library;
+        this.limits = limits;
     }
 
     /** What the sniffer chose: a profile, and the words that say how it was found. */
@@ -323,7 +326,7 @@ final class LayoutSniffer {
     private Choice withoutHeader(Path file, List<String> lines) throws InputProblem {
         List<SerialProfile> fitting = new ArrayList<>();
         for (SerialProfile serial : library.serialProfiles()) {
-            SerialLogParser parser = new SerialLogParser(serial, file);
+            SerialLogParser parser = new SerialLogParser(serial, file, limits.maxPoints());
             int unreadable = 0;
             for (int i = 0; i < lines.size(); i++) {
                 parser.accept(i + 1, lines.get(i));
@@ -356,7 +359,7 @@ final class LayoutSniffer {
         List<String> names = new ArrayList<>();
         for (TableProfile profile : library.tableProfiles()) {
             try {
-                ImportedSweep trial = new TableSweepParser(file, profile).read(profile.name(), "");
+                ImportedSweep trial = new TableSweepParser(file, profile, limits).read(profile.name(), "");
                 boolean clean = trial.warnings().stream().allMatch(w -> w.line() == 0);
                 if (clean) {
                     names.add(profile.name());

@@ -28,7 +28,7 @@ final class ProvenanceNotes {
     private final List<String> notes = new ArrayList<>();
 
     /** @param text the comment without its prefix */
-    void accept(int line, String text, WarningTally tally) {
+    void accept(long line, String text, WarningTally tally) {
         String body = text.strip();
         if (body.isEmpty()) {
             return;

@@ -8,8 +8,9 @@ import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
-import java.util.regex.Matcher;
-import java.util.regex.Pattern;
+import com.google.re2j.Matcher;
+import com.google.re2j.Pattern;
+import org.polebench.InputLimits;
 import org.polebench.InputProblem;
 import org.polebench.profile.CommandRole;
 import org.polebench.profile.GainForm;
@@ -40,10 +41,12 @@ import org.polebench.units.StrictNumber;
  * <p>One instance per log or capture; not for sharing between threads.
  */
 public final class SerialLogParser {
-    private static final Pattern PREFIX = Pattern.compile(
+    // the two patterns of our own log form stay Java's (the prefix needs a lookahead, which RE2
+    // lacks); every pattern a profile supplies is RE2/J's, linear in the line (issue 15)
+    private static final java.util.regex.Pattern PREFIX = java.util.regex.Pattern.compile(
             "^(?:(?<iso>\\d{4}-\\d{2}-\\d{2}[T ]\\d{2}:\\d{2}:\\d{2}(?:[.,]\\d+)?(?:Z|[+-]\\d{2}:?\\d{2})?)|\\[[^\\]]*\\])?"
                     + "\\s*(?:(?<who>[A-Za-z][\\w.-]*)\\s*(?=->|<-|>|<))?(?<dir>->|<-|>|<|TX:|RX:)?\\s*(?<body>.*)$");
-    private static final Pattern ERROR_ANSWER = Pattern.compile("^(?<code>[+-]?\\d+)\\s*,\\s*\"(?<text>.*)\"$");
+    private static final java.util.regex.Pattern ERROR_ANSWER = java.util.regex.Pattern.compile("^(?<code>[+-]?\\d+)\\s*,\\s*\"(?<text>.*)\"$");
     /** SCPI's +9.9E37 stands for an overrange (infinite) reading, 9.91E37 for NaN. */
     private static final double SCPI_OVERRANGE = 9.9e37;
 
@@ -57,11 +60,11 @@ public final class SerialLogParser {
     private final String mapping;
     /** Takes one line's body as the profile's protocol reads it, chosen once. */
     private final LineTaker lines;
-    private int lastLine;
+    private long lastLine;
 
     // the open SCPI step
     private boolean stepOpen;
-    private int stepLine;
+    private long stepLine;
     private double stepFrequency;
     private double gain;
     private double input;
@@ -70,7 +73,9 @@ public final class SerialLogParser {
     private int errorsInStep;
     // the query awaiting its answer
     private Known pending;
-    private int pendingLine;
+    private long pendingLine;
+    /** the refusal once the limit on points is passed; null until then */
+    private InputProblem refused;
     private String lastCommandText = "";
     private boolean answeredSinceCommand = true;
 
@@ -85,8 +90,16 @@ public final class SerialLogParser {
         }
     }
 
-    /** @param file the log file, named in warnings; null for a live port */
+    /** A parser under the limit on points this JVM was started with ({@link InputLimits#standing()}). */
     public SerialLogParser(SerialProfile profile, Path file) {
+        this(profile, file, InputLimits.standing().maxPoints());
+    }
+
+    /**
+     * @param file      the log file, named in warnings; null for a live port
+     * @param maxPoints the most points kept before the log is refused
+     */
+    public SerialLogParser(SerialProfile profile, Path file, long maxPoints) {
         this.profile = profile;
         this.file = file;
         this.tally = new WarningTally(file);
@@ -122,7 +135,7 @@ public final class SerialLogParser {
         mapping = reading.mapping();
         lines = reading.lines();
         boolean hasPhase = reading.hasPhase();
-        this.assembly = new SweepAssembly(file, profile, hasPhase, tally);
+        this.assembly = new SweepAssembly(file, profile, hasPhase, tally, maxPoints);
         resetReadings();
     }
 
@@ -137,7 +150,10 @@ public final class SerialLogParser {
      * @param lineNo 1-based line number, named in warnings
      * @param line   the line without its line ending
      */
-    public void accept(int lineNo, String line) {
+    public void accept(long lineNo, String line) {
+        if (refused != null) {
+            return;
+        }
         lastLine = Math.max(lastLine, lineNo);
         String stripped = line.strip();
         if (lineNo == 1 && stripped.startsWith("\uFEFF")) {
@@ -150,7 +166,7 @@ public final class SerialLogParser {
             notes.accept(lineNo, stripped.substring(1), tally);
             return;
         }
-        Matcher prefix = PREFIX.matcher(stripped);
+        java.util.regex.Matcher prefix = PREFIX.matcher(stripped);
         if (!prefix.matches()) {
             unparseable(lineNo, stripped, "cannot be read");
             return;
@@ -168,7 +184,7 @@ public final class SerialLogParser {
         lines.take(lineNo, body, prefix.group("who"), sent, received);
     }
 
-    private void scpiLine(LineProtocol.ScpiExchange scpi, int lineNo, String body, String sender, boolean sent,
+    private void scpiLine(LineProtocol.ScpiExchange scpi, long lineNo, String body, String sender, boolean sent,
                           boolean received) {
         Known command = received ? null : matchCommand(body, sender);
         if (received && matchCommand(body, sender) != null) {
@@ -206,7 +222,7 @@ public final class SerialLogParser {
         return first;
     }
 
-    private void command(LineProtocol.ScpiExchange scpi, int lineNo, Known known, String body) {
+    private void command(LineProtocol.ScpiExchange scpi, long lineNo, Known known, String body) {
         if (pending != null) {
             tally.add("unanswered queries", pendingLine, "'" + pending.command.template() + "' got no answer before line "
                     + lineNo);
@@ -248,7 +264,7 @@ public final class SerialLogParser {
         }
     }
 
-    private void answer(int lineNo, String body) {
+    private void answer(long lineNo, String body) {
         answeredSinceCommand = true;
         if (pending == null) {
             unparseable(lineNo, body, "answers no query");
@@ -257,7 +273,7 @@ public final class SerialLogParser {
         Known query = pending;
         pending = null;
         CommandRole role = query.command.role();
-        Matcher error = ERROR_ANSWER.matcher(body);
+        java.util.regex.Matcher error = ERROR_ANSWER.matcher(body);
         if (role == CommandRole.READS_ERROR_QUEUE) {
             if (!error.matches()) {
                 unparseable(lineNo, body, "is not an error-queue answer <code>,\"<text>\"");
@@ -312,7 +328,7 @@ public final class SerialLogParser {
         }
     }
 
-    private void errorAnswer(int lineNo, String body) {
+    private void errorAnswer(long lineNo, String body) {
         tally.add("error answers", lineNo, "error answer " + body
                 + (stepOpen ? "; readings of the step for " + ReadingConversion.format(stepFrequency) + " Hz so far are void"
                         : ""));
@@ -341,7 +357,7 @@ public final class SerialLogParser {
         }
         stepOpen = false;
         if (complete()) {
-            assembly.offer(stepLine, stepFrequency, gain, input, output, phase, Double.NaN, Double.NaN);
+            offer(stepLine, stepFrequency, gain, input, output, phase);
         } else {
             tally.add("incomplete steps", stepLine, "the step for " + ReadingConversion.format(stepFrequency)
                     + " Hz lacks " + missing() + (errorsInStep > 0 ? " (after an error answer)" : "") + "; skipped");
@@ -367,7 +383,7 @@ public final class SerialLogParser {
         return String.join(" and ", lacking);
     }
 
-    private void streamLine(LineProtocol.StreamedLines stream, int lineNo, String body, boolean sent) {
+    private void streamLine(LineProtocol.StreamedLines stream, long lineNo, String body, boolean sent) {
         if (sent) {
             lastCommandText = body;
             return;
@@ -407,7 +423,7 @@ public final class SerialLogParser {
         unparseable(lineNo, body, "matches no line this profile knows");
     }
 
-    private void streamPoint(int lineNo, String body, Matcher point) {
+    private void streamPoint(long lineNo, String body, Matcher point) {
         double frequency = group(point, "frequency");
         boolean amplitudes = profile.scale().gainForm() == GainForm.AMPLITUDES;
         double g = amplitudes ? Double.NaN : group(point, "gain");
@@ -419,7 +435,20 @@ public final class SerialLogParser {
             unparseable(lineNo, body, "has a field that is not a number");
             return;
         }
-        assembly.offer(lineNo, frequency, g, in, out, ph, Double.NaN, Double.NaN);
+        offer(lineNo, frequency, g, in, out, ph);
+    }
+
+    /**
+     * Keeps a point; past the limit on points the refusal is kept for {@link #result} to
+     * throw, and later lines are ignored, so that memory stops growing at once while
+     * {@link #accept} stays free of checked exceptions for the capture loop.
+     */
+    private void offer(long lineNo, double frequency, double g, double in, double out, double ph) {
+        try {
+            assembly.offer(lineNo, frequency, g, in, out, ph, Double.NaN, Double.NaN);
+        } catch (InputProblem tooMany) {
+            refused = tooMany;
+        }
     }
 
     private static double group(Matcher matcher, String name) {
@@ -427,7 +456,7 @@ public final class SerialLogParser {
         return text == null ? Double.NaN : StrictNumber.parse(text, false);
     }
 
-    private void unparseable(int lineNo, String body, String why) {
+    private void unparseable(long lineNo, String body, String why) {
         tally.add("unparseable lines", lineNo, "'" + TableSweepParser.printable(body) + "' " + why + "; line skipped");
     }
 
@@ -451,11 +480,17 @@ public final class SerialLogParser {
      * @throws InputProblem when fewer than 8 usable points were read
      */
     public ImportedSweep result(String sha256) throws InputProblem {
+        if (refused != null) {
+            throw refused;
+        }
         if (pending != null) {
             tally.add("unanswered queries", pendingLine, "'" + pending.command.template() + "' got no answer");
             pending = null;
         }
         completeStep();
+        if (refused != null) {
+            throw refused;
+        }
         if (!identities.isEmpty()) {
             List<String> parts = new ArrayList<>();
             identities.forEach((who, idn) -> parts.add(identities.size() == 1 ? idn : who + ": " + idn));
@@ -487,6 +522,6 @@ public final class SerialLogParser {
          * @param sent     the line went to the instrument
          * @param received the line came from the instrument (neither when the log has no markers)
          */
-        void take(int lineNo, String body, String sender, boolean sent, boolean received);
+        void take(long lineNo, String body, String sender, boolean sent, boolean received);
     }
 }

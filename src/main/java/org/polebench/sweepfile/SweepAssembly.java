@@ -3,37 +3,37 @@ package org.polebench.sweepfile;
 import static org.polebench.sweepfile.ReadingConversion.format;
 
 import java.nio.file.Path;
-import java.util.ArrayList;
-import java.util.Arrays;
-import java.util.Comparator;
 import java.util.List;
 import java.util.Locale;
 import java.util.Optional;
-import java.util.OptionalDouble;
+import org.polebench.InputLimits;
 import org.polebench.InputProblem;
 import org.polebench.profile.InstrumentProfile;
 import org.polebench.profile.ReadingScale;
 import org.polebench.sweep.CalibrationAccuracy;
 import org.polebench.sweep.LowerCornerEstimate;
 import org.polebench.sweep.PhaseUnwrap;
+import org.polebench.sweep.PackedPoints;
 import org.polebench.sweep.Provenance;
 import org.polebench.sweep.RoughLowerCorner;
 import org.polebench.sweep.Sweep;
-import org.polebench.sweep.SweepPoint;
 
 /**
  * Turns an instrument's raw readings, offered one at a time with their line, into a sweep:
  * converts units and applies the data checks ({@link ReadingConversion}, the rule live capture
  * shares) and drops bad readings with a warning each, then
  * sorts, merges duplicate frequencies, unwraps phase and refuses a sweep of fewer than
- * {@link #MIN_POINTS} points. Readings are kept in growing primitive arrays, so memory is a
- * few doubles per point whatever the file's size.
+ * {@link #MIN_POINTS} points. Readings are kept in columns of doubles grown a block at a time
+ * ({@link DoubleColumn}), so memory is four numbers a kept point (frequency, gain, phase, line)
+ * while reading and three in the finished sweep ({@link PackedPoints}), whatever the file's
+ * size, and columns the file does not have cost nothing.
  *
  * <p>One instance serves one import and is not shared between threads.
  */
 final class SweepAssembly {
     /** Fewer points than this cannot support a pole-zero fit of a two-pole stage (issue 3). */
     static final int MIN_POINTS = 8;
+    private static final int MAX_ARRAY = Integer.MAX_VALUE - 8;
 
     private final Path file;
     private final ReadingScale scale;
@@ -42,19 +42,22 @@ final class SweepAssembly {
     private final Optional<CalibrationAccuracy> calibration;
     private final WarningTally tally;
 
-    private double[] frequencyHz = new double[256];
-    private double[] gainDb = new double[256];
-    private double[] phaseDeg = new double[256];
-    private double[] gainUncertaintyDb = new double[256];
-    private double[] phaseUncertaintyDeg = new double[256];
-    private int[] lines = new int[256];
+    private final long maxPoints;
+    private DoubleColumn frequencyHz = new DoubleColumn();
+    private DoubleColumn gainDb = new DoubleColumn();
+    private DoubleColumn phaseDeg = new DoubleColumn();
+    private DoubleColumn gainUncertaintyDb = new DoubleColumn();
+    private DoubleColumn phaseUncertaintyDeg = new DoubleColumn();
+    private LineColumn lines = new LineColumn();
     private int count;
 
     /**
      * @param file      named in warnings and problems; null for a live port
      * @param hasPhase  whether every point carries a phase
+     * @param maxPoints the most readings kept before the import is refused ({@link InputLimits})
      */
-    SweepAssembly(Path file, InstrumentProfile profile, boolean hasPhase, WarningTally tally) {
+    SweepAssembly(Path file, InstrumentProfile profile, boolean hasPhase, WarningTally tally, long maxPoints) {
+        this.maxPoints = maxPoints;
         this.file = file;
         this.scale = profile.scale();
         this.conversion = new ReadingConversion(profile);
@@ -84,9 +87,10 @@ final class SweepAssembly {
      * @param uGainDb   this point's standard uncertainty of gain in dB, NaN when the file states none
      * @param uPhaseDeg this point's standard uncertainty of phase in degrees, NaN when the file states none
      * @return true when the reading was kept
+     * @throws InputProblem when keeping it would pass the limit on points
      */
-    boolean offer(int line, double rawFrequency, double rawGain, double rawInput, double rawOutput,
-                  double rawPhase, double uGainDb, double uPhaseDeg) {
+    boolean offer(long line, double rawFrequency, double rawGain, double rawInput, double rawOutput,
+                  double rawPhase, double uGainDb, double uPhaseDeg) throws InputProblem {
         ReadingConversion.Reading hz = conversion.frequencyHz(rawFrequency);
         if (hz.dropped().isPresent()) {
             return drop(hz.dropped().get(), line);
@@ -107,33 +111,25 @@ final class SweepAssembly {
             tally.add("bad uncertainties", line, "an uncertainty must be finite and not negative; row skipped");
             return false;
         }
-        grow();
-        frequencyHz[count] = hz.value();
-        gainDb[count] = gain.value();
-        phaseDeg[count] = phase;
-        gainUncertaintyDb[count] = uGainDb;
-        phaseUncertaintyDeg[count] = uPhaseDeg;
-        lines[count] = line;
+        // a Java array holds at most about 2³¹ values, so no setting passes that
+        if (count >= Math.min(maxPoints, MAX_ARRAY)) {
+            throw new InputProblem(file, line, "more than " + Math.min(maxPoints, MAX_ARRAY)
+                    + " readings kept: the limit on points in one sweep (" + InputLimits.MAX_POINTS + ")",
+                    InputLimits.raise(InputLimits.MAX_POINTS, maxPoints, "keep every n-th row, or split the file"));
+        }
+        frequencyHz.add(hz.value());
+        gainDb.add(gain.value());
+        phaseDeg.add(phase);
+        gainUncertaintyDb.add(uGainDb);
+        phaseUncertaintyDeg.add(uPhaseDeg);
+        lines.add(line);
         count++;
         return true;
     }
 
-    private boolean drop(ReadingConversion.Dropped dropped, int line) {
+    private boolean drop(ReadingConversion.Dropped dropped, long line) {
         tally.add(dropped.reason().plural(), line, dropped.rowMessage());
         return false;
-    }
-
-    private void grow() {
-        if (count < frequencyHz.length) {
-            return;
-        }
-        int size = frequencyHz.length * 2;
-        frequencyHz = Arrays.copyOf(frequencyHz, size);
-        gainDb = Arrays.copyOf(gainDb, size);
-        phaseDeg = Arrays.copyOf(phaseDeg, size);
-        gainUncertaintyDb = Arrays.copyOf(gainUncertaintyDb, size);
-        phaseUncertaintyDeg = Arrays.copyOf(phaseUncertaintyDeg, size);
-        lines = Arrays.copyOf(lines, size);
     }
 
     /**
@@ -148,24 +144,22 @@ final class SweepAssembly {
      * @param lastLine the file's last line, named when too few points remain
      * @throws InputProblem when fewer than {@link #MIN_POINTS} points remain
      */
-    Sweep finish(Provenance provenance, int lastLine) throws InputProblem {
+    Sweep finish(Provenance provenance, long lastLine) throws InputProblem {
         requireEnough(count, lastLine);
         order();
         int merged = mergeDuplicates();
         requireEnough(merged, lastLine);
-        if (hasPhase && scale.phaseWrapped()) {
-            PhaseUnwrap.unwrap(phaseDeg, merged, indexOfHighestGain(merged));
+        for (DoubleColumn column : List.of(frequencyHz, gainDb, phaseDeg, gainUncertaintyDb, phaseUncertaintyDeg)) {
+            column.truncate(merged);
         }
-        List<SweepPoint> points = new ArrayList<>(merged);
-        OptionalDouble lastUGain = OptionalDouble.empty();
-        OptionalDouble lastUPhase = OptionalDouble.empty();
-        for (int i = 0; i < merged; i++) {
-            // a profile's default uncertainty is one value for every point: share one instance
-            lastUGain = shared(lastUGain, gainUncertaintyDb[i]);
-            lastUPhase = hasPhase ? shared(lastUPhase, phaseUncertaintyDeg[i]) : OptionalDouble.empty();
-            OptionalDouble phase = hasPhase ? OptionalDouble.of(phaseDeg[i]) : OptionalDouble.empty();
-            points.add(new SweepPoint(frequencyHz[i], gainDb[i], phase, lastUGain, lastUPhase));
+        lines.truncate(merged);
+        double[] phase = hasPhase ? phaseDeg.release() : null;
+        if (phase != null && scale.phaseWrapped()) {
+            PhaseUnwrap.unwrap(phase, merged, indexOfHighestGain(merged));
         }
+        // each column is let go as it is copied, so the finished sweep never sits beside all of them
+        PackedPoints points = PackedPoints.adopt(frequencyHz.release(), gainDb.release(), phase,
+                gainUncertaintyDb.release(), hasPhase ? phaseUncertaintyDeg.release() : null);
         Sweep sweep = new Sweep(provenance, points, calibration);
         checkBand(sweep);
         return sweep;
@@ -187,17 +181,7 @@ final class SweepAssembly {
         }
     }
 
-    private static OptionalDouble shared(OptionalDouble last, double value) {
-        if (Double.isNaN(value)) {
-            return OptionalDouble.empty();
-        }
-        if (last.isPresent() && Double.compare(last.getAsDouble(), value) == 0) {
-            return last;
-        }
-        return OptionalDouble.of(value);
-    }
-
-    private void requireEnough(int points, int lastLine) throws InputProblem {
+    private void requireEnough(int points, long lastLine) throws InputProblem {
         if (points < MIN_POINTS) {
             throw new InputProblem(file, Math.max(lastLine, 0),
                     "only " + points + " usable point" + (points == 1 ? "" : "s") + " in the data up to this line; "
@@ -210,48 +194,68 @@ final class SweepAssembly {
         boolean ascending = true;
         boolean descending = true;
         for (int i = 1; i < count && (ascending || descending); i++) {
-            ascending &= frequencyHz[i] >= frequencyHz[i - 1];
-            descending &= frequencyHz[i] <= frequencyHz[i - 1];
+            ascending &= frequencyHz.get(i) >= frequencyHz.get(i - 1);
+            descending &= frequencyHz.get(i) <= frequencyHz.get(i - 1);
         }
         if (ascending) {
             return;
         }
         if (descending) {
-            tally.add("order changes", lines[0], "frequencies descend from this line on (a sweep from high to low); "
+            tally.add("order changes", lines.get(0), "frequencies descend from this line on (a sweep from high to low); "
                     + "points reversed into ascending order");
             reverse();
             return;
         }
         for (int i = 1; i < count; i++) {
-            if (frequencyHz[i] < frequencyHz[i - 1]) {
-                tally.add("order changes", lines[i], "frequency " + format(frequencyHz[i]) + " Hz comes after "
-                        + format(frequencyHz[i - 1]) + " Hz (line " + lines[i - 1] + "); points sorted by frequency");
+            if (frequencyHz.get(i) < frequencyHz.get(i - 1)) {
+                tally.add("order changes", lines.get(i), "frequency " + format(frequencyHz.get(i)) + " Hz comes after "
+                        + format(frequencyHz.get(i - 1)) + " Hz (line " + lines.get(i - 1) + "); points sorted by frequency");
             }
         }
-        Integer[] index = new Integer[count];
+        // stable, so repeated frequencies keep file order for merging
+        int[] index = stableOrder();
+        frequencyHz = frequencyHz.permuted(index);
+        gainDb = gainDb.permuted(index);
+        phaseDeg = phaseDeg.permuted(index);
+        gainUncertaintyDb = gainUncertaintyDb.permuted(index);
+        phaseUncertaintyDeg = phaseUncertaintyDeg.permuted(index);
+        lines = lines.permuted(index);
+    }
+
+    /**
+     * @return the reading indices in ascending frequency, equal frequencies in file order: a
+     *         bottom-up merge sort on plain int arrays (Knuth, TAOCP vol. 3, 5.2.4), which needs
+     *         8 bytes a point where boxed indices sorted by a comparator needed about 20
+     */
+    private int[] stableOrder() {
+        int[] index = new int[count];
         for (int i = 0; i < count; i++) {
             index[i] = i;
         }
-        // stable, so repeated frequencies keep file order for merging
-        Arrays.sort(index, Comparator.comparingDouble(i -> frequencyHz[i]));
-        frequencyHz = permute(frequencyHz, index);
-        gainDb = permute(gainDb, index);
-        phaseDeg = permute(phaseDeg, index);
-        gainUncertaintyDb = permute(gainUncertaintyDb, index);
-        phaseUncertaintyDeg = permute(phaseUncertaintyDeg, index);
-        int[] sortedLines = new int[count];
-        for (int i = 0; i < count; i++) {
-            sortedLines[i] = lines[index[i]];
+        int[] spare = new int[count];
+        for (int width = 1; width < count; width *= 2) {
+            for (int from = 0; from < count; from += 2 * width) {
+                int middle = Math.min(from + width, count);
+                int to = (int) Math.min((long) from + 2L * width, count);
+                int a = from;
+                int b = middle;
+                for (int k = from; k < to; k++) {
+                    // take from the left run on ties: that keeps the sort stable
+                    if (a < middle && (b >= to || frequencyHz.get(index[a]) <= frequencyHz.get(index[b]))) {
+                        spare[k] = index[a++];
+                    } else {
+                        spare[k] = index[b++];
+                    }
+                }
+            }
+            int[] swap = index;
+            index = spare;
+            spare = swap;
+            if (width > count / 2) {
+                break;
+            }
         }
-        lines = sortedLines;
-    }
-
-    private double[] permute(double[] values, Integer[] index) {
-        double[] out = new double[count];
-        for (int i = 0; i < count; i++) {
-            out[i] = values[index[i]];
-        }
-        return out;
+        return index;
     }
 
     private void reverse() {
@@ -261,16 +265,16 @@ final class SweepAssembly {
             swap(phaseDeg, i, j);
             swap(gainUncertaintyDb, i, j);
             swap(phaseUncertaintyDeg, i, j);
-            int line = lines[i];
-            lines[i] = lines[j];
-            lines[j] = line;
+            long line = lines.get(i);
+            lines.set(i, lines.get(j));
+            lines.set(j, line);
         }
     }
 
-    private static void swap(double[] values, int i, int j) {
-        double value = values[i];
-        values[i] = values[j];
-        values[j] = value;
+    private static void swap(DoubleColumn values, int i, int j) {
+        double value = values.get(i);
+        values.set(i, values.get(j));
+        values.set(j, value);
     }
 
     /** @return the number of points after merging runs of equal frequency in place */
@@ -279,28 +283,39 @@ final class SweepAssembly {
         int i = 0;
         while (i < count) {
             int j = i + 1;
-            while (j < count && frequencyHz[j] == frequencyHz[i]) {
-                tally.add("repeated frequencies", lines[j], "frequency " + format(frequencyHz[j]) + " Hz repeats line "
-                        + lines[i] + "; the readings are averaged into one point");
+            while (j < count && frequencyHz.get(j) == frequencyHz.get(i)) {
+                tally.add("repeated frequencies", lines.get(j), "frequency " + format(frequencyHz.get(j))
+                        + " Hz repeats line " + lines.get(i) + "; the readings are averaged into one point");
                 j++;
             }
-            double gainSum = 0;
-            double phaseSum = 0;
-            double uGain = gainUncertaintyDb[i];
-            double uPhase = phaseUncertaintyDeg[i];
-            for (int k = i; k < j; k++) {
-                gainSum += gainDb[k];
-                phaseSum += hasPhase ? PhaseUnwrap.nearestTurn(phaseDeg[k], phaseDeg[i]) : 0;
-                uGain = Math.max(uGain, gainUncertaintyDb[k]);
-                uPhase = Math.max(uPhase, phaseUncertaintyDeg[k]);
-            }
             int n = j - i;
-            frequencyHz[out] = frequencyHz[i];
-            gainDb[out] = n == 1 ? gainDb[i] : gainSum / n;
-            phaseDeg[out] = n == 1 ? phaseDeg[i] : (hasPhase ? phaseSum / n : Double.NaN);
-            gainUncertaintyDb[out] = uGain;
-            phaseUncertaintyDeg[out] = uPhase;
-            lines[out] = lines[i];
+            if (n == 1) {
+                if (out != i) {
+                    frequencyHz.set(out, frequencyHz.get(i));
+                    gainDb.set(out, gainDb.get(i));
+                    phaseDeg.set(out, phaseDeg.get(i));
+                    gainUncertaintyDb.set(out, gainUncertaintyDb.get(i));
+                    phaseUncertaintyDeg.set(out, phaseUncertaintyDeg.get(i));
+                    lines.set(out, lines.get(i));
+                }
+            } else {
+                double gainSum = 0;
+                double phaseSum = 0;
+                double uGain = gainUncertaintyDb.get(i);
+                double uPhase = phaseUncertaintyDeg.get(i);
+                for (int k = i; k < j; k++) {
+                    gainSum += gainDb.get(k);
+                    phaseSum += hasPhase ? PhaseUnwrap.nearestTurn(phaseDeg.get(k), phaseDeg.get(i)) : 0;
+                    uGain = Math.max(uGain, gainUncertaintyDb.get(k));
+                    uPhase = Math.max(uPhase, phaseUncertaintyDeg.get(k));
+                }
+                frequencyHz.set(out, frequencyHz.get(i));
+                gainDb.set(out, gainSum / n);
+                phaseDeg.set(out, hasPhase ? phaseSum / n : Double.NaN);
+                gainUncertaintyDb.set(out, uGain);
+                phaseUncertaintyDeg.set(out, uPhase);
+                lines.set(out, lines.get(i));
+            }
             out++;
             i = j;
         }
@@ -310,7 +325,7 @@ final class SweepAssembly {
     private int indexOfHighestGain(int n) {
         int best = 0;
         for (int i = 1; i < n; i++) {
-            if (gainDb[i] > gainDb[best]) {
+            if (gainDb.get(i) > gainDb.get(best)) {
                 best = i;
             }
         }

@@ -1,6 +1,5 @@
 package org.polebench.sweepfile;
 
-import java.io.BufferedReader;
 import java.io.IOException;
 import java.io.InputStream;
 import java.io.InputStreamReader;
@@ -22,6 +21,7 @@ import java.util.HexFormat;
 import java.util.List;
 import java.util.Locale;
 import java.util.Optional;
+import org.polebench.InputLimits;
 import org.polebench.InputProblem;
 import org.polebench.profile.ColumnRef;
 import org.polebench.profile.Delimiter;
@@ -46,6 +46,7 @@ final class TableSweepParser {
     private final CellSplitter splitter;
     private final WarningTally tally;
     private final ProvenanceNotes notes = new ProvenanceNotes();
+    private final InputLimits limits;
 
     private int frequencyColumn = -1;
     private int gainColumn = -1;
@@ -59,10 +60,11 @@ final class TableSweepParser {
     private boolean rowRejected;
     /** cells the header row names (0 when the columns are numbered), and its line */
     private int headerCells;
-    private int headerLine;
+    private long headerLine;
 
-    TableSweepParser(Path file, TableProfile profile) {
+    TableSweepParser(Path file, TableProfile profile, InputLimits limits) {
         this.file = file;
+        this.limits = limits;
         this.profile = profile;
         this.layout = profile.layout();
         this.splitter = new CellSplitter(layout.delimiter());
@@ -80,18 +82,18 @@ final class TableSweepParser {
         } catch (NoSuchAlgorithmException e) {
             throw new IllegalStateException("every Java platform has SHA-256", e);
         }
-        int lineNo = 0;
+        long lineNo = 0;
         try (InputStream raw = Files.newInputStream(file);
              DigestInputStream hashed = new DigestInputStream(raw, sha256)) {
             CharsetDecoder decoder = layout.encoding().charset().newDecoder()
                     .onMalformedInput(CodingErrorAction.REPORT).onUnmappableCharacter(CodingErrorAction.REPORT);
-            BufferedReader reader = new BufferedReader(new InputStreamReader(hashed, decoder), 1 << 16);
+            BoundedLines reader = new BoundedLines(new InputStreamReader(hashed, decoder), file, limits.maxLineChars());
             if (!layout.header()) {
                 resolveNumbered();
             }
             String line;
-            while ((line = reader.readLine()) != null) {
-                lineNo++;
+            while ((line = reader.next()) != null) {
+                lineNo = reader.lineNo();
                 if (lineNo == 1) {
                     line = withoutByteOrderMark(line);
                 }
@@ -100,7 +102,7 @@ final class TableSweepParser {
         } catch (NoSuchFileException e) {
             throw new InputProblem(file, 0, "file not found", "check the path");
         } catch (CharacterCodingException e) {
-            int bad = firstUndecodableLine();
+            long bad = firstUndecodableLine();
             throw new InputProblem(file, bad, "bytes that are not " + layout.encoding().word() + " text",
                     layout.encoding() == TextEncoding.UTF_8
                             ? "if the file is Latin-1 (ISO-8859-1), use a profile with 'encoding: latin-1'; "
@@ -132,7 +134,7 @@ final class TableSweepParser {
         return line;
     }
 
-    private void take(int lineNo, String line) throws InputProblem {
+    private void take(long lineNo, String line) throws InputProblem {
         if (lineNo <= layout.preambleLines()) {
             if (!line.isBlank()) {
                 notes.note("preamble: " + line.strip());
@@ -167,7 +169,7 @@ final class TableSweepParser {
         phaseColumn = columns.phase().map(c -> numbered(c, "phase")).orElse(-1);
         gainUncertaintyColumn = columns.gainUncertainty().map(c -> numbered(c, "gain uncertainty")).orElse(-1);
         phaseUncertaintyColumn = columns.phaseUncertainty().map(c -> numbered(c, "phase uncertainty")).orElse(-1);
-        assembly = new SweepAssembly(file, profile, phaseColumn >= 0, tally);
+        assembly = new SweepAssembly(file, profile, phaseColumn >= 0, tally, limits.maxPoints());
     }
 
     private int numbered(ColumnRef column, String what) {
@@ -175,7 +177,7 @@ final class TableSweepParser {
         return column.number() - 1;
     }
 
-    private void resolveHeader(int lineNo, String line) throws InputProblem {
+    private void resolveHeader(long lineNo, String line) throws InputProblem {
         int count = splitter.split(line);
         headerLine = lineNo;
         headerCells = filledCells(count);
@@ -194,14 +196,14 @@ final class TableSweepParser {
         if (phaseColumn < 0) {
             phaseUncertaintyColumn = -1;
         }
-        assembly = new SweepAssembly(file, profile, phaseColumn >= 0, tally);
+        assembly = new SweepAssembly(file, profile, phaseColumn >= 0, tally, limits.maxPoints());
     }
 
-    private int resolve(Optional<ColumnRef> column, List<String> header, int lineNo, String what) throws InputProblem {
+    private int resolve(Optional<ColumnRef> column, List<String> header, long lineNo, String what) throws InputProblem {
         return column.isPresent() ? resolve(column.get(), header, lineNo, what) : -1;
     }
 
-    private int resolve(ColumnRef column, List<String> header, int lineNo, String what) throws InputProblem {
+    private int resolve(ColumnRef column, List<String> header, long lineNo, String what) throws InputProblem {
         if (column.byNumber()) {
             int index = column.number() - 1;
             String name = index < header.size() ? " '" + header.get(index) + "'" : "";
@@ -231,7 +233,7 @@ final class TableSweepParser {
         return quoted.isEmpty() ? "no cells" : String.join(", ", quoted);
     }
 
-    private void readRow(int lineNo, String line) throws InputProblem {
+    private void readRow(long lineNo, String line) throws InputProblem {
         int count = splitter.split(line);
         if (splitter.unclosedQuote()) {
             tally.add("unclosed quotes", lineNo, "a quote opened in this row is never closed; row skipped");
@@ -300,7 +302,7 @@ final class TableSweepParser {
      * after the split would be read one column to the right (a decimal comma in a comma-separated
      * file does exactly this), so the file is refused rather than read shifted.
      */
-    private InputProblem moreCellsThanHeader(int lineNo, int filled) {
+    private InputProblem moreCellsThanHeader(long lineNo, int filled) {
         String hint = layout.delimiter() == Delimiter.COMMA && !layout.decimalComma()
                 ? "if the numbers use a decimal comma, read the file with a profile whose delimiter is not a comma "
                   + "and whose decimal-mark is comma, or save it with decimal points; otherwise remove the extra cells"
@@ -310,7 +312,7 @@ final class TableSweepParser {
     }
 
     /** @return the cell's number (±Infinity when too large), or NaN after warning why there is none */
-    private double reading(String line, int lineNo, int column, String what, boolean mayOverload) {
+    private double reading(String line, long lineNo, int column, String what, boolean mayOverload) {
         if (column >= splitter.count()) {
             tally.add("rows with missing cells", lineNo, "the row has " + splitter.count() + " cell"
                     + (splitter.count() == 1 ? "" : "s") + "; the " + what + " (column " + (column + 1)
@@ -343,7 +345,7 @@ final class TableSweepParser {
      * @return NaN when the cell is absent or blank (use the profile's default), else the value;
      *         a cell that is not a number is warned about and sets {@link #rowRejected}
      */
-    private double uncertainty(String line, int lineNo, int column, String what) {
+    private double uncertainty(String line, long lineNo, int column, String what) {
         if (column < 0 || column >= splitter.count() || splitter.blank(column)) {
             return Double.NaN;
         }
@@ -382,13 +384,13 @@ final class TableSweepParser {
     }
 
     /** @return the 1-based line of the first byte sequence the profile's encoding cannot decode */
-    private int firstUndecodableLine() {
+    private long firstUndecodableLine() {
         try (InputStream in = Files.newInputStream(file)) {
             CharsetDecoder decoder = layout.encoding().charset().newDecoder()
                     .onMalformedInput(CodingErrorAction.REPORT).onUnmappableCharacter(CodingErrorAction.REPORT);
             ByteBuffer bytes = ByteBuffer.allocate(1 << 16);
             CharBuffer chars = CharBuffer.allocate(1 << 16);
-            int line = 1;
+            long line = 1;
             boolean end = false;
             while (!end) {
                 int read = in.read(bytes.array(), bytes.position(), bytes.remaining());

@@ -17,6 +17,7 @@ import java.util.ArrayList;
 import java.util.HashSet;
 import java.util.List;
 import java.util.Set;
+import org.polebench.InputLimits;
 import org.polebench.InputProblem;
 
 /**
@@ -26,11 +27,32 @@ import org.polebench.InputProblem;
  */
 public final class YamlReader {
     private final YAMLFactory factory = new YAMLFactory();
+    private final long maxBytes;
+    private final long maxLineChars;
+
+    /** A reader under the limits this JVM was started with ({@link InputLimits#standing()}). */
+    public YamlReader() {
+        this(InputLimits.standing().maxYamlBytes(), InputLimits.standing().maxLineChars());
+    }
+
+    /**
+     * @param maxBytes     the largest file read; a larger one is refused before it is read
+     * @param maxLineChars the longest line; a file with a longer one is refused before it is parsed
+     */
+    public YamlReader(long maxBytes, long maxLineChars) {
+        this.maxBytes = maxBytes;
+        this.maxLineChars = maxLineChars;
+    }
 
     /** @return the root node; an empty document reads as an empty map */
     public YamlNode read(Path file) throws InputProblem {
         String text;
         try {
+            if (Files.size(file) > maxBytes) {
+                throw new InputProblem(file, 0, "the file has " + Files.size(file) + " bytes, more than " + maxBytes
+                        + ", the limit on a stage, profile or bench file (" + InputLimits.MAX_YAML_BYTES + ")",
+                        InputLimits.raise(InputLimits.MAX_YAML_BYTES, maxBytes, "check that this is the right file"));
+            }
             byte[] bytes = Files.readAllBytes(file);
             text = StandardCharsets.UTF_8.newDecoder().decode(java.nio.ByteBuffer.wrap(bytes)).toString();
         } catch (NoSuchFileException e) {
@@ -44,7 +66,29 @@ public final class YamlReader {
         if (!text.isEmpty() && text.charAt(0) == '\uFEFF') {
             text = text.substring(1);
         }
+        checkLines(file, text);
         return read(file, new StringReader(text));
+    }
+
+    /**
+     * Refuses a line past the limit before the YAML scanner sees it: the scanner's time grows
+     * with the square of an unbroken value's length (a 50 MB value ran for over 15 minutes).
+     */
+    private void checkLines(Path file, String text) throws InputProblem {
+        long line = 1;
+        int start = 0;
+        for (int i = 0; i <= text.length(); i++) {
+            if (i == text.length() || text.charAt(i) == '\n') {
+                if (i - start > maxLineChars) {
+                    throw new InputProblem(file, line, "the line has " + (i - start) + " characters, more than "
+                            + maxLineChars + ", the limit on one line (" + InputLimits.MAX_LINE_CHARS + ")",
+                            InputLimits.raise(InputLimits.MAX_LINE_CHARS, maxLineChars,
+                                    "check that this is the right file"));
+                }
+                line++;
+                start = i + 1;
+            }
+        }
     }
 
     /** @param file named in errors; may be null for text that came from elsewhere */

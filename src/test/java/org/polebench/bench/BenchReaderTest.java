@@ -100,7 +100,7 @@ class BenchReaderTest {
         assertEquals(1, lineOf("output-channel: ac"));                            // a value, not a map
     }
 
-    private int lineOf(String... lines) {
+    private long lineOf(String... lines) {
         return assertThrows(InputProblem.class, () -> BenchFiles.bench(dir, lines)).line();
     }
 }

@@ -47,6 +47,22 @@ class CapturePartsTest {
     }
 
     @Test
+    void aLineWithoutItsEndingIsCutAtTheLimitAndTheNextLineReads() {
+        // a device streaming 200,000 bytes with no line ending (issue 15): memory stops at the limit
+        LineAssembler lines = new LineAssembler(PortSettings.LineEnding.LF);
+        byte[] noise = new byte[200_000];
+        java.util.Arrays.fill(noise, (byte) '7');
+        lines.accept(noise, noise.length);
+        byte[] rest = "\nok\n".getBytes(StandardCharsets.US_ASCII);
+        lines.accept(rest, rest.length);
+        String cut = lines.next().orElseThrow();
+        long limit = org.polebench.InputLimits.standing().maxLineChars();
+        assertEquals(limit + 1, cut.length());          // the first part, and the "…" that marks the cut
+        assertEquals('\u2026', cut.charAt(cut.length() - 1));
+        assertEquals(Optional.of("ok"), lines.next());
+    }
+
+    @Test
     void transcriptKeepsOneLinePerReceivedLine() {
         assertEquals("a\\x0Db\\\\c\tz", CaptureTranscript.escaped("a\rb\\c\tz"));
     }
