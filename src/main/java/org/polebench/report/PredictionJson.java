@@ -63,6 +63,9 @@ public final class PredictionJson {
         putOptional(tolerance, "p50_hz", spread.percentileHz(0.50));
         putOptional(tolerance, "p95_hz", spread.percentileHz(0.95));
         tolerance.put("samples", spread.samplesDrawn());
+        tolerance.put("samples_planned", spread.samplesPlanned());
+        tolerance.put("stopped_early", spread.stoppedEarly());
+        tolerance.put("stopped_at_precision", spread.stoppedAt());
         tolerance.put("samples_analysed", spread.analysed());
         tolerance.put("samples_out_of_active_region", spread.biasFailures());
         tolerance.put("seed", spread.seed());

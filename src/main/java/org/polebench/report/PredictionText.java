@@ -60,11 +60,11 @@ public final class PredictionText {
         }
         CornerSpread spread = result.spread();
         if (spread.analysed() > 0) {
-            out.println(String.format(Locale.ROOT, "  tolerance spread   5 %% %s   50 %% %s   95 %% %s   (%d boards drawn, seed %d%s)",
+            out.println(String.format(Locale.ROOT, "  tolerance spread   5 %% %s   50 %% %s   95 %% %s   (%s, seed %d%s)",
                     EngineeringValue.format(spread.percentileHz(0.05).getAsDouble(), "Hz"),
                     EngineeringValue.format(spread.percentileHz(0.50).getAsDouble(), "Hz"),
                     EngineeringValue.format(spread.percentileHz(0.95).getAsDouble(), "Hz"),
-                    spread.samplesDrawn(), spread.seed(),
+                    boardsDrawn(spread), spread.seed(),
                     spread.biasFailures() > 0 ? ", " + spread.biasFailures() + " left the active region" : ""));
         } else {
             out.println("  tolerance spread   none: no drawn board could be analysed");
@@ -85,6 +85,24 @@ public final class PredictionText {
                 ? zeros(prediction.zeros().get()) : "not defined (midband gain is 0)"));
         conditioning(out, "low-band poles", prediction.poles());
         prediction.zeros().ifPresent(zeros -> conditioning(out, "low-band zeros", zeros));
+    }
+
+    /**
+     * @return "10000 boards drawn", or for a spread that stopped early "3000 of 10000 boards
+     *         drawn, stopped with the 5, 50 and 95 % points known to ±0.5 % (95 % intervals)"
+     */
+    public static String boardsDrawn(CornerSpread spread) {
+        if (!spread.stoppedEarly()) {
+            return spread.samplesDrawn() + " boards drawn";
+        }
+        return String.format(Locale.ROOT, "%d of %d boards drawn, stopped with the 5, 50 and 95 %% points known to "
+                + "±%.2g %% (95 %% intervals)", spread.samplesDrawn(), spread.samplesPlanned(), 100 * spread.stoppedAt());
+    }
+
+    /** @return the line a long tolerance spread shows while it runs */
+    public static String spreadProgress(int drawn, int planned, double seconds) {
+        return String.format(Locale.ROOT, "tolerance spread: %d of at most %d boards drawn (%.0f s)", drawn, planned,
+                seconds);
     }
 
     // a many-fold zero at DC as one entry ("17 at DC (s = 0)"), then the others
