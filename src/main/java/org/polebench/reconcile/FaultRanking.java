@@ -150,8 +150,8 @@ public final class FaultRanking {
      * that every hypothesis weighs the points alike) and added to the points' σ: the low band
      * is a sum D + cᵀ·x whose terms are of the midband gain's size, so a long high-pass cascade
      * far below its corner (−300 dB against the midband) is computed with no correct digit
-     * there, while the sweep's own full solve of the network is not (docs/method.md, "Least
-     * squares by QR"). ε = {@value #MODEL_ERROR_FACTOR}·u·(cancellation ratio): the factor
+     * there, while the sweep's own full solve of the network is not
+     * (docs/method.md, "Least squares by QR"). ε = {@value #MODEL_ERROR_FACTOR}·u·(cancellation ratio): the factor
      * covers the errors the reduction's k + 1 solves and the port solve carry into the terms.
      */
     private static MeasuredResponse withModelError(MeasuredResponse measured, BoardModel model) {

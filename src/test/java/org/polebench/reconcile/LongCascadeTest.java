@@ -44,8 +44,8 @@ class LongCascadeTest {
     }
 
     /**
-     * 65 capacitors: minutes of CPU, so run on request only (docs/contributing.md, "Build, test,
-     * benchmark": {@code -Dpolebench.long=true}). Among 32 exchangeable input couplings the
+     * 65 capacitors: minutes of CPU, so run on request only
+     * (docs/contributing.md, "Build, test, benchmark": {@code -Dpolebench.long=true}). Among 32 exchangeable input couplings the
      * input stage's is barely told apart from its siblings by 41 points, so the check is the
      * rule "never confidently wrong": C1's own hypothesis reads the true value, and the top
      * hypothesis is C1 or is not held with confidence.
