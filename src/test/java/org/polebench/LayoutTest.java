@@ -44,7 +44,7 @@ class LayoutTest {
             entry("sweepfile", Set.of("units", "sweep", "profile", "waveform")),
             entry("capture", Set.of("units", "sweep", "profile", "sweepfile", "waveform")),
             entry("synth", Set.of("units", "circuit", "analysis", "bench", "sweep", "profile", "capture", "waveform")),
-            entry("fit", Set.of("units", "sweep")),
+            entry("fit", Set.of("units", "linalg", "sweep")),
             entry("reconcile", Set.of("units", "linalg", "circuit", "analysis", "spread", "bench", "sweep", "fit")),
             entry("lot", Set.of("units", "circuit", "analysis", "spread", "bench", "sweep", "fit", "reconcile")),
             entry("ledger", Set.of("units", "circuit", "analysis", "spread", "bench", "sweep", "profile", "sweepfile",

@@ -3,7 +3,7 @@ package org.polebench.analysis;
 import org.polebench.linalg.RealLu;
 
 /**
- * Y⁻¹ (ohms) of one port reduction, from the LU of the row-equilibrated Y that the reduction's
+ * Y⁻¹ (ohms) of one port reduction, from the LU of the row-scaled Y that the reduction's
  * singularity test makes: (R·Y)⁻¹ = Y⁻¹·R⁻¹, so Y⁻¹ = (R·Y)⁻¹·R with R the row scales. The
  * inverse is formed on first use only, since the lower corner never needs it (a tolerance
  * spread's boards never ask) while the OCTC terms and the link resistances do. Safe to share

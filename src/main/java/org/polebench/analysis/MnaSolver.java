@@ -12,6 +12,13 @@ public final class MnaSolver {
     /** Default relative pivot threshold: far above round-off on well-posed stages (about 1e-16). */
     public static final double DEFAULT_RELATIVE_PIVOT = 1e-13;
 
+    /**
+     * τ of threshold pivoting ({@link RealLu}): a node's own conductance stays its pivot unless
+     * some entry below it is a thousand times larger, so that a cascade's transconductances do
+     * not shrink the later pivots by the cascade's gain (docs/method.md, "Port reduction").
+     */
+    static final double DIAGONAL_PREFERENCE = 1e-3;
+
     private final double relativePivot;
 
     public MnaSolver() {
@@ -29,7 +36,7 @@ public final class MnaSolver {
         for (double[] row : m) {
             largest = Math.max(largest, largestMagnitude(row));
         }
-        RealLu lu = new RealLu(m, relativePivot * largest);
+        RealLu lu = new RealLu(m, relativePivot * largest, DIAGONAL_PREFERENCE);
         return lu.isNonSingular() ? Optional.of(new Factored(system, lu)) : Optional.empty();
     }
 

@@ -228,19 +228,25 @@ public final class PortReduction {
                         + "-band analysis, so their voltages are not independent");
     }
 
-    // Row equilibration makes the pivot test relative to each row's size: a port seen through
-    // a large resistance is not singular, a dependent combination of ports is.
+    // Each row scaled by its own diagonal, the port's self-admittance 1/R_i (SCTC), makes the
+    // pivot test relative to the port's own size: a port seen through a large resistance is not
+    // singular, a dependent combination of ports (series capacitors around a node without a DC
+    // path) leaves a pivot of round-off size. Threshold pivoting keeps the diagonal as the pivot
+    // (RealLu): in a cascade of amplifying stages a port drives the later ports' currents with
+    // the cascade's gain, and a row scaled by its largest entry, or partial pivoting, would
+    // shrink the diagonal by that gain (1e-18 after eight stages of 35 dB) and call a regular Y
+    // singular (docs/method.md, "Port reduction").
     /** @return Y⁻¹ to be formed on request, or null when Y is singular */
     private AdmittanceInverse equilibratedInverse(double[][] y) {
         int k = y.length;
         double[] rowScale = new double[k];
         double[][] scaled = new double[k][];
         for (int i = 0; i < k; i++) {
-            double max = MnaSolver.largestMagnitude(y[i]);
-            rowScale[i] = max > 0 ? 1 / max : 1;
+            double size = Math.abs(y[i][i]) > 0 ? Math.abs(y[i][i]) : MnaSolver.largestMagnitude(y[i]);
+            rowScale[i] = size > 0 ? 1 / size : 1;
             scaled[i] = scaledRow(y[i], rowScale[i]);
         }
-        RealLu lu = new RealLu(scaled, admittancePivot);
+        RealLu lu = new RealLu(scaled, admittancePivot, MnaSolver.DIAGONAL_PREFERENCE);
         return lu.isNonSingular() ? new AdmittanceInverse(lu, rowScale) : null;
     }
 

@@ -52,6 +52,11 @@ final class PredictCommand implements Callable<Integer> {
             description = "random seed of the tolerance spread (default ${DEFAULT-VALUE})")
     long seed;
 
+    @Option(names = "--spread-precision", paramLabel = "FRACTION", defaultValue = "" + ToleranceSpread.DEFAULT_PRECISION,
+            description = "stop the tolerance spread once its 5, 50 and 95 %% points are known to this relative"
+                    + " precision (95 %% intervals; default ${DEFAULT-VALUE}, 0 to draw every board)")
+    double spreadPrecision;
+
     @Option(names = "--bench", paramLabel = "FILE",
             description = "a bench file (*.bench.yaml): also show the response this bench will measure, and warn"
                     + " when it moves the lower corner or the midband gain by more than 1 %%")
@@ -65,10 +70,14 @@ final class PredictCommand implements Callable<Integer> {
                     "use at least 20 (the default is " + ToleranceSpread.DEFAULT_SAMPLES + ")");
         }
         CountLimits.samples(samples);
+        if (!(spreadPrecision >= 0 && spreadPrecision < 1)) {
+            throw new InputProblem(null, 0, "--spread-precision " + spreadPrecision + " is not a fraction in [0, 1)",
+                    "write it as a fraction, such as 0.005 for ±0.5 %, or 0 to draw every board");
+        }
         Bench bench = benchFile == null ? null : new BenchReader().read(benchFile);
         StagePrediction result = new StageAnalysis()
-                .withSpread(new ToleranceSpread(samples, seed))
-                .analyse(new StageReader().read(stage));
+                .withSpread(new ToleranceSpread(samples, seed).withPrecision(spreadPrecision))
+                .analyse(new StageReader().read(stage), new SpreadProgressLine(spec.commandLine().getErr()));
         BenchEffect effect = bench == null ? null : new BenchEffects().of(result.stage(), bench);
         if (json) {
             ObjectNode root = new PredictionJson().of(result);

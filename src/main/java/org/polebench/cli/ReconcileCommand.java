@@ -128,7 +128,7 @@ final class ReconcileCommand implements Callable<Integer> {
         Path stageFile = stage != null ? stage : BundledSamples.locate(BundledSamples.DEMO_STAGE);
         Path sweepFile = sweep != null ? sweep : BundledSamples.locate(DEMO_SWEEP);
         StagePrediction predicted = new StageAnalysis().withSpread(new ToleranceSpread(samples, seed))
-                .analyse(new StageReader().read(stageFile));
+                .analyse(new StageReader().read(stageFile), new SpreadProgressLine(spec.commandLine().getErr()));
         // the bundled demo sweep is canonical: no need to sniff its layout
         ImportedSweep imported = sweep == null && layout.isAuto()
                 ? layout.read(sweepFile, SweepWriter.CANONICAL) : layout.read(sweepFile);

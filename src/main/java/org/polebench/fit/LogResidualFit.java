@@ -10,13 +10,11 @@ import org.apache.commons.math3.fitting.leastsquares.ValueAndJacobianFunction;
 import org.apache.commons.math3.linear.AbstractRealMatrix;
 import org.apache.commons.math3.linear.Array2DRowRealMatrix;
 import org.apache.commons.math3.linear.ArrayRealVector;
-import org.apache.commons.math3.linear.CholeskyDecomposition;
 import org.apache.commons.math3.linear.MatrixUtils;
-import org.apache.commons.math3.linear.NonPositiveDefiniteMatrixException;
-import org.apache.commons.math3.linear.NonSymmetricMatrixException;
 import org.apache.commons.math3.linear.RealMatrix;
 import org.apache.commons.math3.linear.RealVector;
 import org.apache.commons.math3.util.Pair;
+import org.polebench.linalg.HouseholderQr;
 
 /**
  * Weighted least squares on complex-log residuals rₖ = ln(H_meas,k / H_model,k): real part in
@@ -168,7 +166,11 @@ final class LogResidualFit {
         }
     }
 
-    /** χ² and (JᵀWJ)⁻¹ with the points' own (not robust) weights at the given parameters. */
+    /**
+     * χ² and (JᵀWJ)⁻¹ with the points' own (not robust) weights at the given parameters, the
+     * inverse from the QR factor of the weighted Jacobian W^½·J (JᵀWJ = RᵀR is never formed:
+     * docs/method.md, "Least squares by QR").
+     */
     RefinedFit assess(PreparedSweep data, RationalModel model, double[] p) {
         int n = data.size();
         int rows = data.residualCount();
@@ -177,25 +179,16 @@ final class LogResidualFit {
         double[] jacobian = new double[rows * np];
         evaluate(data, model, p, value, jacobian);
         double chi2 = 0;
-        double[][] info = new double[np][np];
+        double[][] weighted = new double[np][rows];
         for (int r = 0; r < rows; r++) {
             double sigma = r < n ? data.sigmaGain[r] : data.sigmaPhase[r - n];
-            double w = 1 / (sigma * sigma);
-            chi2 += w * value[r] * value[r];
+            chi2 += value[r] * value[r] / (sigma * sigma);
             int row = r * np;
             for (int i = 0; i < np; i++) {
-                double wg = w * jacobian[row + i];
-                for (int j = 0; j <= i; j++) {
-                    info[i][j] += wg * jacobian[row + j];
-                }
+                weighted[i][r] = jacobian[row + i] / sigma;
             }
         }
-        for (int i = 0; i < np; i++) {
-            for (int j = 0; j < i; j++) {
-                info[j][i] = info[i][j];
-            }
-        }
-        return new RefinedFit(model, p, chi2, invert(info), rows);
+        return new RefinedFit(model, p, chi2, covariance(weighted, rows), rows);
     }
 
     /** Model value −r and its Jacobian ∂ ln H_model/∂p as one array per row. */
@@ -365,22 +358,20 @@ final class LogResidualFit {
         }
     }
 
-    private static double[][] invert(double[][] info) {
-        try {
-            // relative symmetry 1e-9 and absolute positivity 1e-300: only a truly singular
-            // information matrix (a parameter the data do not touch) is refused here; a poorly
-            // determined one gives large, honest uncertainties
-            RealMatrix inverse = new CholeskyDecomposition(new Array2DRowRealMatrix(info, false), 1e-9, 1e-300)
-                    .getSolver().getInverse();
-            double[][] cov = inverse.getData();
-            for (int i = 0; i < cov.length; i++) {
-                if (!(cov[i][i] > 0) || !Double.isFinite(cov[i][i])) {
-                    return null;
-                }
-            }
-            return cov;
-        } catch (NonPositiveDefiniteMatrixException | NonSymmetricMatrixException singular) {
+    // a weighted Jacobian whose information JᵀWJ = RᵀR is singular to working precision (some
+    // |R_jj| below √u of the largest: a parameter the data do not determine) is refused, the
+    // rule the explicit Cholesky factor of JᵀWJ kept by failing there; a poorly determined
+    // parameter short of that gives large, honest uncertainties
+    private static double[][] covariance(double[][] weightedColumns, int rows) {
+        if (rows < weightedColumns.length) {
             return null;
         }
+        double[][] cov = HouseholderQr.ofColumns(weightedColumns, rows, Math.sqrt(Math.ulp(1.0))).map(HouseholderQr::gramInverse).orElse(null);
+        for (int i = 0; cov != null && i < cov.length; i++) {
+            if (!(cov[i][i] > 0) || !Double.isFinite(cov[i][i])) {
+                return null;
+            }
+        }
+        return cov;
     }
 }

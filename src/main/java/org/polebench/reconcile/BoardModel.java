@@ -210,6 +210,33 @@ final class BoardModel {
         return true;
     }
 
+    /**
+     * @return per frequency, the cancellation ratio (|D| + Σ|c_i·x_i|)/|H_low| of the low-band sum
+     *         H_low = D + cᵀ·x at θ: 1 where nothing cancels, 1e16 where the terms of order D
+     *         cancel to a result 1e16 times smaller, which then holds no correct digit (the
+     *         error bound of a sum, Higham, Accuracy and Stability of Numerical Algorithms, 2nd
+     *         ed., 2002, 4.2 and 3.1: |error| ≤ γ_k·Σ|terms|); null where the model is undefined
+     */
+    double[] cancellation(double[] theta) {
+        int k = capacitors.size();
+        double[] lnBias = Arrays.copyOfRange(theta, k, k + board.size());
+        Reduced reduced = reduced(lnBias);
+        HighFactor high = reduced == null ? null : highFactor(lnBias, true, reduced.d);
+        int f = omegas.length;
+        if (reduced == null || high == null || !response(reduced, high, theta, new double[f], new double[f], null, null)) {
+            return null;
+        }
+        double[] ratio = new double[f];
+        for (int n = 0; n < f; n++) {
+            double terms = Math.abs(reduced.d);
+            for (int i = 0; i < k; i++) {
+                terms += Math.abs(reduced.c[i]) * Math.hypot(xr[i][n], xi[i][n]);
+            }
+            ratio[n] = terms / Math.hypot(responseRe[n], responseIm[n]);
+        }
+        return ratio;
+    }
+
     // The low band's change from one reduction to a nearby one, to first order, with the
     // capacitors held: with M = Y + s·Cd, x = −M⁻¹·b and u = M⁻ᵀ·c of the last response (this
     // call's), H_low = D + cᵀ·x moves by ΔH = ΔD + Δcᵀ·x − uᵀ·(ΔY·x + Δb) (the derivative of an

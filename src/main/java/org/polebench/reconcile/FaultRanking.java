@@ -137,12 +137,37 @@ public final class FaultRanking {
      */
     HypothesisSearch search(Stage stage, OperatingPoints nominalPoints, StateModel nominalModel, Sweep sweep,
                             java.util.concurrent.Executor helper, DeclaredChain declared) {
-        MeasuredResponse measured = new MeasuredResponse(sweep, DEFAULT_GAIN_SIGMA_DB, DEFAULT_PHASE_SIGMA_DEG);
-        BoardModel model = new BoardModel(stage, nominalPoints, nominalModel, measured.frequenciesHz());
+        MeasuredResponse stated = new MeasuredResponse(sweep, DEFAULT_GAIN_SIGMA_DB, DEFAULT_PHASE_SIGMA_DEG);
+        BoardModel model = new BoardModel(stage, nominalPoints, nominalModel, stated.frequenciesHz());
+        MeasuredResponse measured = withModelError(stated, model);
         return new HypothesisSearch(model, measured, parameters(stage, nominalPoints, model, declared),
                 () -> new BoardModel(stage, nominalPoints, nominalModel, measured.frequenciesHz()), helper, declared,
                 declared.stated() ? null : generatorModel(stage, nominalPoints, measured.frequenciesHz()));
     }
+
+    /**
+     * The board model's own rounding error at each point, taken once at the nominal parts (so
+     * that every hypothesis weighs the points alike) and added to the points' σ: the low band
+     * is a sum D + cᵀ·x whose terms are of the midband gain's size, so a long high-pass cascade
+     * far below its corner (−300 dB against the midband) is computed with no correct digit
+     * there, while the sweep's own full solve of the network is not
+     * (docs/method.md, "Least squares by QR"). ε = {@value #MODEL_ERROR_FACTOR}·u·(cancellation ratio): the factor
+     * covers the errors the reduction's k + 1 solves and the port solve carry into the terms.
+     */
+    private static MeasuredResponse withModelError(MeasuredResponse measured, BoardModel model) {
+        double[] ratio = model.cancellation(new double[model.parameterCount()]);
+        if (ratio == null) {
+            return measured;
+        }
+        double[] error = new double[ratio.length];
+        for (int n = 0; n < ratio.length; n++) {
+            error[n] = MODEL_ERROR_FACTOR * Math.ulp(1.0) / 2 * ratio[n];
+        }
+        return measured.withModelError(error);
+    }
+
+    /** Bound on the board model's error over u·(cancellation ratio); see {@link #withModelError}. */
+    static final double MODEL_ERROR_FACTOR = 1e3;
 
     /**
      * @return the board model of the stage with a {@value #GENERATOR_OHMS} Ω generator output

@@ -8,7 +8,6 @@ import java.util.concurrent.CompletableFuture;
 import java.util.concurrent.Executor;
 import java.util.function.Supplier;
 import org.polebench.bench.MeasuringChain;
-import org.polebench.linalg.Cholesky;
 
 /**
  * The hypotheses of one sweep on one stage, searched as {@link FaultRanking} describes: the
@@ -471,7 +470,7 @@ final class HypothesisSearch {
             single.stated = screen(single.misfit, starts, free);
             return;
         }
-        MapPoint quadratic = atNoFault.endOf(step, single.priors, single.active, none);
+        MapPoint quadratic = atNoFault.endOf(step, single.priors, single.active);
         if (quadratic != null) {
             single.stated = quadratic;
             single.settled = true;
@@ -572,7 +571,7 @@ final class HypothesisSearch {
         List<MapPoint> points = new ArrayList<>();
         for (Candidate candidate : candidates) {
             points.add(magnitudeScale > 1 || phaseScale > 1
-                    ? candidate.stated.withNoiseScales(magnitudeScale, phaseScale, candidate.priors) : candidate.stated);
+                    ? candidate.stated.withNoiseScales(magnitudeScale, phaseScale) : candidate.stated);
         }
         List<Misfit> scaled = new ArrayList<>();
         for (Candidate candidate : candidates) {
@@ -760,17 +759,12 @@ final class HypothesisSearch {
     private BackSolve backSolve(MapPoint point, Candidate candidate, double chiSquaredAtStated) {
         int p = parameters.size();
         Prior[] priors = candidate.priors;
-        // identifiability at this MAP: swap this hypothesis' prior curvature for the tolerance one
-        double[][] withTolerance = new double[p][p];
+        // identifiability at this MAP: this hypothesis' prior rows swapped for the tolerance ones
+        double[] toleranceSigma = new double[p];
         for (int i = 0; i < p; i++) {
-            for (int j = 0; j < p; j++) {
-                withTolerance[i][j] = point.hessian(i, j);
-            }
-            if (candidate.active[i]) {
-                withTolerance[i][i] += 1 / sq(tolerance[i].standardDeviation()) - 1 / sq(priors[i].standardDeviation());
-            }
+            toleranceSigma[i] = tolerance[i].standardDeviation();
         }
-        double[][] toleranceCovariance = Cholesky.of(withTolerance).map(Cholesky::inverse).orElse(null);
+        double[][] toleranceCovariance = point.covarianceWithPriors(toleranceSigma);
         List<ParameterEstimate> estimates = new ArrayList<>();
         List<Integer> kept = new ArrayList<>();
         for (int i = 0; i < p; i++) {
@@ -797,10 +791,6 @@ final class HypothesisSearch {
             correlation.add(row);
         }
         return new BackSolve(estimates, correlation, chiSquaredAtStated, measured.rows(), point.converged());
-    }
-
-    private static double sq(double x) {
-        return x * x;
     }
 
     private Hypothesis hypothesis(Candidate candidate, double logEvidence, double probability, BackSolve backSolve) {

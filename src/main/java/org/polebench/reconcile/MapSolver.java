@@ -1,16 +1,22 @@
 package org.polebench.reconcile;
 
 import java.util.Optional;
-import org.polebench.linalg.Cholesky;
+import org.polebench.linalg.HouseholderQr;
 
 /**
  * Levenberg–Marquardt on a {@link Misfit} (Marquardt, J. SIAM 11(2), 1963; Nocedal and Wright,
- * Numerical Optimization, 2nd ed., 10.3): the step solves (JᵀJ + λ·diag(JᵀJ))·δ = −Jᵀr, is
- * accepted when it lowers ‖r‖², and λ shrinks tenfold on success and grows tenfold on failure.
- * A step longer than {@value #MAX_STEP} on any log-scale parameter is shortened, because the
- * response is strongly nonlinear in ln C and a long Gauss–Newton step can leap over the mode
- * it was heading for. The prior rows keep JᵀJ positive definite. Stateless; per-call state is
- * in locals.
+ * Numerical Optimization, 2nd ed., 10.3): the step is the least-squares solution of
+ * [J; √λ·D]·δ ≈ −[r; 0] with D = diag(‖J_j‖) (the same step as (JᵀJ + λ·diag(JᵀJ))·δ = −Jᵀr),
+ * is accepted when it lowers ‖r‖², and λ shrinks tenfold on success and grows tenfold on
+ * failure. The step comes from QR factors, never from the normal equations: J = Q·R once per
+ * iteration, then for each λ the QR of the small [R; √λ·D] with right-hand side [Qᵀr; 0]
+ * (Moré, "The Levenberg–Marquardt algorithm: implementation and theory", Lecture Notes in
+ * Mathematics 630, 1978; docs/method.md, "Least squares by QR"). Forming JᵀJ squares the
+ * condition number, and a long cascade's Jacobian (columns 1e9 apart) made it indefinite in
+ * floating point. A step longer than {@value #MAX_STEP} on any log-scale parameter is
+ * shortened, because the response is strongly nonlinear in ln C and a long Gauss–Newton step
+ * can leap over the mode it was heading for. The prior rows keep J of full column rank.
+ * Stateless; per-call state is in locals.
  */
 final class MapSolver {
     static final double MAX_STEP = 1.0;
@@ -60,28 +66,18 @@ final class MapSolver {
         double[][] trialJacobian = new double[p][rows];
         boolean converged = false;
         int iteration = 0;
-        double[][] normal = new double[p][p];
-        double[] gradient = new double[p];
         while (iteration < maxIterations && !converged) {
             iteration++;
-            normalEquations(jacobian, r, free, normal, gradient);
-            hold(free, normal, gradient);
-            boolean accepted = false;
+            Damping damping = Damping.of(jacobian, r, free);
+            boolean accepted = damping == null;
             while (!accepted && lambda <= MAX_LAMBDA) {
-                double[][] damped = new double[p][p];
-                for (int i = 0; i < p; i++) {
-                    damped[i] = normal[i].clone();
-                    damped[i][i] += lambda * normal[i][i];
-                }
-                Optional<Cholesky> factor = Cholesky.of(damped);
-                if (factor.isEmpty()) {
+                double[] step = damping.step(lambda);
+                if (step == null) {
                     lambda *= 10;
                     continue;
                 }
-                double[] step = factor.get().solve(gradient);
                 double longest = 0;
                 for (int j = 0; j < p; j++) {
-                    step[j] = -step[j];
                     longest = Math.max(longest, Math.abs(step[j]));
                 }
                 if (longest > MAX_STEP) {
@@ -115,8 +111,9 @@ final class MapSolver {
                 }
                 lambda *= 10;
             }
-            if (!accepted) {
-                // no step lowers the cost at any damping: a minimum to working precision
+            if (!accepted || damping == null) {
+                // no step lowers the cost at any damping (or nothing moves): a minimum to
+                // working precision
                 converged = true;
             }
         }
@@ -124,15 +121,93 @@ final class MapSolver {
         if (exactHessian && !misfit.evaluate(theta, r, jacobian, true, active)) {
             return Optional.empty();
         }
-        normalEquations(jacobian, r, active, normal, gradient);
-        hold(active, normal, gradient);
-        Optional<Cholesky> factor = Cholesky.of(normal);
-        if (factor.isEmpty()) {
-            return Optional.empty();
+        return Optional.ofNullable(point(misfit, theta, r, jacobian, active, converged, iteration));
+    }
+
+    private static MapPoint point(Misfit misfit, double[] theta, double[] r, double[][] jacobian, boolean[] active,
+                                  boolean converged, int iterations) {
+        double[] sigma = new double[theta.length];
+        for (int j = 0; j < sigma.length; j++) {
+            sigma[j] = misfit.prior(j).standardDeviation();
         }
-        return Optional.of(new MapPoint(theta, misfit.dataChiSquared(r), misfit.magnitudeChiSquared(r),
-                misfit.priorMisfit(r), normal, magnitudeNormal(jacobian, misfit.magnitudeRows(), active),
-                factor.get().inverse(), factor.get().lnDeterminant(), active, converged, iteration));
+        return MapPoint.of(theta, misfit.dataChiSquared(r), misfit.magnitudeChiSquared(r), misfit.priorMisfit(r),
+                jacobian, misfit.dataRows(), misfit.magnitudeRows(), sigma, active, converged, iterations);
+    }
+
+    /**
+     * One iteration's J = Q·R over the moving parameters, with c = the first entries of Qᵀr and
+     * D = diag(‖J_j‖), from which each λ's step costs one QR of a 2n×n matrix.
+     */
+    private static final class Damping {
+        private final int[] moving;
+        private final int parameters;
+        private final double[][] r;
+        private final double[] c;
+        private final double[] scale;
+
+        private Damping(int[] moving, int parameters, double[][] r, double[] c, double[] scale) {
+            this.moving = moving;
+            this.parameters = parameters;
+            this.r = r;
+            this.c = c;
+            this.scale = scale;
+        }
+
+        /** @return the factors, or null when nothing moves or J is rank deficient */
+        static Damping of(double[][] jacobian, double[] residuals, boolean[] free) {
+            int n = 0;
+            for (boolean f : free) {
+                n += f ? 1 : 0;
+            }
+            if (n == 0) {
+                return null;
+            }
+            int[] moving = new int[n];
+            double[][] columns = new double[n][];
+            double[] scale = new double[n];
+            int c = 0;
+            for (int j = 0; j < free.length; j++) {
+                if (free[j]) {
+                    moving[c] = j;
+                    columns[c] = jacobian[j];
+                    scale[c] = Math.sqrt(dot(jacobian[j], jacobian[j]));
+                    c++;
+                }
+            }
+            Optional<HouseholderQr> qr = HouseholderQr.ofColumns(columns, residuals.length);
+            if (qr.isEmpty()) {
+                return null;
+            }
+            double[] qtr = java.util.Arrays.copyOf(qr.get().transposedQTimes(residuals), n);
+            return new Damping(moving, free.length, qr.get().r(), qtr, scale);
+        }
+
+        /** @return δ over every parameter (0 for a held one), or null when [R; √λ·D] is rank deficient */
+        double[] step(double lambda) {
+            int n = moving.length;
+            double root = Math.sqrt(lambda);
+            double[][] columns = new double[n][2 * n];
+            for (int j = 0; j < n; j++) {
+                for (int i = 0; i <= j; i++) {
+                    columns[j][i] = r[i][j];
+                }
+                columns[j][n + j] = root * scale[j];
+            }
+            Optional<HouseholderQr> qr = HouseholderQr.ofColumns(columns, 2 * n);
+            if (qr.isEmpty()) {
+                return null;
+            }
+            double[] rhs = new double[2 * n];
+            for (int i = 0; i < n; i++) {
+                rhs[i] = -c[i];
+            }
+            double[] solved = qr.get().solve(rhs);
+            double[] step = new double[parameters];
+            for (int j = 0; j < n; j++) {
+                step[moving[j]] = solved[j];
+            }
+            return step;
+        }
     }
 
     // the parameters that move: free (all when null) and active
@@ -142,44 +217,6 @@ final class MapSolver {
             moving[j] = active[j] && (free == null || free[j]);
         }
         return moving;
-    }
-
-    // JᵀJ and Jᵀr from the Jacobian's columns, each entry one contiguous dot product; the rows
-    // and columns of held parameters are left zero, for hold() to finish
-    private static void normalEquations(double[][] jacobian, double[] r, boolean[] free, double[][] normal,
-                                        double[] gradient) {
-        int p = gradient.length;
-        for (int i = 0; i < p; i++) {
-            boolean moves = free == null || free[i];
-            double[] column = jacobian[i];
-            gradient[i] = moves ? dot(column, r) : 0;
-            for (int j = 0; j <= i; j++) {
-                normal[i][j] = moves && (free == null || free[j]) ? dot(column, jacobian[j]) : 0;
-                normal[j][i] = normal[i][j];
-            }
-        }
-    }
-
-    // JₘᵀJₘ over the gain rows [0, rows) of the active parameters: the gain part of the Hessian,
-    // kept so that gain and phase σ can be rescaled apart
-    private static double[][] magnitudeNormal(double[][] jacobian, int rows, boolean[] active) {
-        int p = active.length;
-        double[][] normal = new double[p][p];
-        for (int i = 0; i < p; i++) {
-            for (int j = 0; j <= i && active[i]; j++) {
-                if (active[j]) {
-                    double sum = 0;
-                    double[] a = jacobian[i];
-                    double[] b = jacobian[j];
-                    for (int k = 0; k < rows; k++) {
-                        sum += a[k] * b[k];
-                    }
-                    normal[i][j] = sum;
-                    normal[j][i] = sum;
-                }
-            }
-        }
-        return normal;
     }
 
     // four partial sums: independent additions the processor can overlap
@@ -211,33 +248,7 @@ final class MapSolver {
         if (!misfit.evaluate(theta, r, jacobian, true, active)) {
             return Optional.empty();
         }
-        double[][] normal = new double[p][p];
-        double[] gradient = new double[p];
-        normalEquations(jacobian, r, active, normal, gradient);
-        hold(active, normal, gradient);
-        Optional<Cholesky> factor = Cholesky.of(normal);
-        if (factor.isEmpty()) {
-            return Optional.empty();
-        }
-        return Optional.of(new MapPoint(theta.clone(), misfit.dataChiSquared(r), misfit.magnitudeChiSquared(r),
-                misfit.priorMisfit(r), normal, magnitudeNormal(jacobian, misfit.magnitudeRows(), active),
-                factor.get().inverse(), factor.get().lnDeterminant(), active, false, 0));
-    }
-
-    // a held or inactive parameter gets a unit row and column and no gradient, so its step is 0
-    // and its ln det contribution is 0
-    private static void hold(boolean[] free, double[][] normal, double[] gradient) {
-        for (int i = 0; i < free.length; i++) {
-            if (free[i]) {
-                continue;
-            }
-            gradient[i] = 0;
-            for (int j = 0; j < free.length; j++) {
-                normal[i][j] = 0;
-                normal[j][i] = 0;
-            }
-            normal[i][i] = 1;
-        }
+        return Optional.ofNullable(point(misfit, theta.clone(), r, jacobian, active, false, 0));
     }
 
     private static double squaredNorm(double[] r) {

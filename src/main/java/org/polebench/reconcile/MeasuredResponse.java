@@ -18,6 +18,8 @@ final class MeasuredResponse {
     private final double[] sigmaPhase;
     private final boolean withPhase;
     private final boolean stated;
+    /** Points whose σ the model's own rounding error dominates ({@link #withModelError}). */
+    private final int modelLimited;
 
     /**
      * @param defaultGainDb  σ of the gain where the sweep states none, in dB, positive
@@ -48,6 +50,48 @@ final class MeasuredResponse {
             }
         }
         this.stated = allStated;
+        this.modelLimited = 0;
+    }
+
+    private MeasuredResponse(MeasuredResponse from, double[] sigmaMagnitude, double[] sigmaPhase, int modelLimited) {
+        this.frequenciesHz = from.frequenciesHz;
+        this.lnMagnitude = from.lnMagnitude;
+        this.phaseRad = from.phaseRad;
+        this.withPhase = from.withPhase;
+        this.stated = from.stated;
+        this.sigmaMagnitude = sigmaMagnitude;
+        this.sigmaPhase = sigmaPhase;
+        this.modelLimited = modelLimited;
+    }
+
+    /**
+     * @param relativeError per point, the relative error ε with which the board model can
+     *                      compute H there (a relative error ε of H is about ε in ln|H| and in
+     *                      arg H, in nepers and radians)
+     * @return the same sweep with every σ widened to √(σ² + ε²): the model's error added in
+     *         quadrature as an uncertainty of its own (GUM, JCGM 100:2008, 5.1.2), so that a
+     *         point the model cannot compute to its measurement's precision weighs as little as
+     *         that precision deserves (docs/method.md, "Least squares by QR")
+     */
+    MeasuredResponse withModelError(double[] relativeError) {
+        int n = size();
+        double[] magnitude = new double[n];
+        double[] phase = new double[n];
+        int limited = 0;
+        for (int i = 0; i < n; i++) {
+            double e = relativeError[i];
+            magnitude[i] = Math.hypot(sigmaMagnitude[i], e);
+            phase[i] = withPhase ? Math.hypot(sigmaPhase[i], e) : sigmaPhase[i];
+            if (e > sigmaMagnitude[i]) {
+                limited++;
+            }
+        }
+        return new MeasuredResponse(this, magnitude, phase, limited);
+    }
+
+    /** @return how many points the model computes less precisely than they were measured */
+    int modelLimited() {
+        return modelLimited;
     }
 
     /** @return whether every point stated its own σ (gain, and phase where measured) */

@@ -1,22 +1,26 @@
 package org.polebench.reconcile;
 
+import java.util.Arrays;
 import java.util.Optional;
-import org.polebench.linalg.Cholesky;
+import org.polebench.linalg.HouseholderQr;
 
 /**
- * The misfit's quadratic model at one point θ₀: JᵀJ and Jᵀr of the data rows, with the gain
- * rows' part kept apart, from one Jacobian with every parameter active. From it, any
- * hypothesis' Gauss–Newton step from θ₀ (its own priors and parameters) and the drop of ‖r‖² it
- * promises, and the MAP that step reaches if the model is quadratic (Nocedal and Wright,
- * Numerical Optimization, 2nd ed., 10.3). One Jacobian serves every hypothesis judged there:
- * the resistors from the no-fault MAP, the second faults from a single fault's MAP. Immutable.
+ * The misfit's linear model at one point θ₀: the data rows' residuals r and Jacobian J (gain
+ * rows first) from one evaluation with every parameter active. From it, any hypothesis'
+ * Gauss–Newton step from θ₀ (its own priors and parameters) and the drop of ‖r‖² it promises,
+ * and the MAP that step reaches if the model is quadratic (Nocedal and Wright, Numerical
+ * Optimization, 2nd ed., 10.3). Every solve is a QR factorisation of the stacked matrix
+ * [J; diag(1/σ)], never of JᵀJ (docs/method.md, "Least squares by QR"). One Jacobian serves
+ * every hypothesis judged there: the resistors from the no-fault MAP, the second faults from a
+ * single fault's MAP. Immutable.
  */
 final class QuadraticModel {
     private final double[] theta;
-    private final double[][] normal;
-    private final double[] gradient;
-    private final double[][] magnitudeNormal;
-    private final double[] magnitudeGradient;
+    /** ∂r/∂θ_j over the data rows, by parameter. */
+    private final double[][] columns;
+    /** The data rows' residuals at θ₀. */
+    private final double[] residuals;
+    private final int magnitudeRows;
 
     /** A Gauss–Newton step δ and the drop of ‖r‖² it promises, gᵀ(JᵀJ + Σp⁻¹)⁻¹g. */
     static final class Step {
@@ -29,13 +33,11 @@ final class QuadraticModel {
         }
     }
 
-    private QuadraticModel(double[] theta, double[][] normal, double[] gradient, double[][] magnitudeNormal,
-                           double[] magnitudeGradient) {
+    private QuadraticModel(double[] theta, double[][] columns, double[] residuals, int magnitudeRows) {
         this.theta = theta;
-        this.normal = normal;
-        this.gradient = gradient;
-        this.magnitudeNormal = magnitudeNormal;
-        this.magnitudeGradient = magnitudeGradient;
+        this.columns = columns;
+        this.residuals = residuals;
+        this.magnitudeRows = magnitudeRows;
     }
 
     /**
@@ -50,111 +52,103 @@ final class QuadraticModel {
             return null;
         }
         int rows = every.dataRows();
-        int gainRows = every.magnitudeRows();
-        double[][] normal = new double[p][p];
-        double[] gradient = new double[p];
-        double[][] magnitudeNormal = new double[p][p];
-        double[] magnitudeGradient = new double[p];
-        for (int a = 0; a < p; a++) {
-            for (int b = 0; b <= a; b++) {
-                double gain = dot(jacobian[a], jacobian[b], 0, gainRows);
-                double all = gain + dot(jacobian[a], jacobian[b], gainRows, rows);
-                magnitudeNormal[a][b] = gain;
-                magnitudeNormal[b][a] = gain;
-                normal[a][b] = all;
-                normal[b][a] = all;
-            }
-            magnitudeGradient[a] = dot(jacobian[a], r, 0, gainRows);
-            gradient[a] = magnitudeGradient[a] + dot(jacobian[a], r, gainRows, rows);
+        double[][] columns = new double[p][];
+        for (int j = 0; j < p; j++) {
+            columns[j] = Arrays.copyOf(jacobian[j], rows);
         }
-        return new QuadraticModel(theta.clone(), normal, gradient, magnitudeNormal, magnitudeGradient);
-    }
-
-    private static double dot(double[] a, double[] b, int from, int to) {
-        double sum = 0;
-        for (int k = from; k < to; k++) {
-            sum += a[k] * b[k];
-        }
-        return sum;
+        return new QuadraticModel(theta.clone(), columns, Arrays.copyOf(r, rows), every.magnitudeRows());
     }
 
     /**
-     * @return δ = −(JᵀJ + Σp⁻¹)⁻¹·g over the hypothesis' active parameters at θ₀, with its
-     *         promised drop; null when that normal matrix is singular
+     * @return δ minimising ‖r + J·δ‖² + Σ((θ₀ + δ − μ)/σ)² over the hypothesis' active
+     *         parameters, by QR of [J; diag(1/σ)], with its promised drop ‖Q₁ᵀb‖² (b the stacked
+     *         residual, so that gᵀH⁻¹g = bᵀA(AᵀA)⁻¹Aᵀb); null when the stacked matrix is rank deficient
      */
     Step step(Prior[] priors, boolean[] active) {
         int p = theta.length;
-        double[][] matrix = new double[p][p];
-        double[] g = new double[p];
-        for (int a = 0; a < p; a++) {
-            if (!active[a]) {
-                matrix[a][a] = 1;
-                continue;
-            }
-            double sigma = priors[a].standardDeviation();
-            for (int b = 0; b < p; b++) {
-                matrix[a][b] = active[b] ? normal[a][b] : 0;
-            }
-            matrix[a][a] += 1 / (sigma * sigma);
-            g[a] = gradient[a] + (theta[a] - priors[a].mean()) / (sigma * sigma);
+        int rows = residuals.length;
+        int[] index = activeIndex(active);
+        int n = index.length;
+        double[][] stacked = new double[n][rows + n];
+        double[] b = new double[rows + n];
+        System.arraycopy(residuals, 0, b, 0, rows);
+        for (int c = 0; c < n; c++) {
+            int j = index[c];
+            double sigma = priors[j].standardDeviation();
+            System.arraycopy(columns[j], 0, stacked[c], 0, rows);
+            stacked[c][rows + c] = 1 / sigma;
+            b[rows + c] = (theta[j] - priors[j].mean()) / sigma;
         }
-        Optional<Cholesky> factor = Cholesky.of(matrix);
-        if (factor.isEmpty()) {
+        Optional<HouseholderQr> qr = HouseholderQr.ofColumns(stacked, rows + n);
+        if (qr.isEmpty()) {
             return null;
         }
-        double[] solved = factor.get().solve(g);
+        double[] qtb = Arrays.copyOf(qr.get().transposedQTimes(b), n);
         double drop = 0;
-        for (int a = 0; a < p; a++) {
-            drop += g[a] * solved[a];
-            solved[a] = -solved[a];
+        for (double v : qtb) {
+            drop += v * v;
         }
-        return new Step(solved, drop);
+        double[] solved = qr.get().backSubstitute(qtb);
+        double[] delta = new double[p];
+        for (int c = 0; c < n; c++) {
+            delta[index[c]] = -solved[c];
+        }
+        return new Step(delta, drop);
+    }
+
+    private static int[] activeIndex(boolean[] active) {
+        int n = 0;
+        for (boolean a : active) {
+            n += a ? 1 : 0;
+        }
+        int[] index = new int[n];
+        int c = 0;
+        for (int j = 0; j < active.length; j++) {
+            if (active[j]) {
+                index[c++] = j;
+            }
+        }
+        return index;
     }
 
     /**
-     * The MAP one step from θ₀ if the model is quadratic, with no evaluation of the board:
+     * The MAP one step from θ₀ if the model is linear, with no evaluation of the board:
      * θ = θ₀ + δ, χ² = ‖r + Jδ‖² (gain rows apart), H = JᵀJ + Σp⁻¹ over the hypothesis'
-     * parameters. Exact for a model linear in θ; meant for a step that promises a small drop,
-     * where the objective is near quadratic and the step lands close to the MAP.
+     * parameters (through the QR of the stacked matrix). Exact for a model linear in θ; meant
+     * for a step that promises a small drop, where the objective is near quadratic and the
+     * step lands close to the MAP.
      *
-     * @param from the point this model was made at, for its χ² (at the same σ)
-     * @return the point, or null when its Hessian is not positive definite
+     * @return the point, or null when its stacked matrix is rank deficient
      */
-    MapPoint endOf(Step step, Prior[] priors, boolean[] active, MapPoint from) {
+    MapPoint endOf(Step step, Prior[] priors, boolean[] active) {
         int p = theta.length;
+        int rows = residuals.length;
         double[] end = theta.clone();
         double[] delta = step.delta;
-        double data2 = from.dataChiSquared();
-        double gain2 = from.magnitudeChiSquared();
-        double[][] hessian = new double[p][p];
-        double[][] gainHessian = new double[p][p];
+        double[] moved = residuals.clone();
         double priorMisfit = 0;
+        double[] sigma = new double[p];
         for (int a = 0; a < p; a++) {
+            sigma[a] = priors[a].standardDeviation();
             if (!active[a]) {
-                hessian[a][a] = 1;
                 continue;
             }
-            data2 += 2 * gradient[a] * delta[a];
-            gain2 += 2 * magnitudeGradient[a] * delta[a];
-            for (int b = 0; b < p; b++) {
-                if (active[b]) {
-                    data2 += delta[a] * normal[a][b] * delta[b];
-                    gain2 += delta[a] * magnitudeNormal[a][b] * delta[b];
-                    hessian[a][b] = normal[a][b];
-                    gainHessian[a][b] = magnitudeNormal[a][b];
-                }
+            double[] column = columns[a];
+            for (int k = 0; k < rows; k++) {
+                moved[k] += column[k] * delta[a];
             }
-            double sigma = priors[a].standardDeviation();
-            hessian[a][a] += 1 / (sigma * sigma);
-            double z = (theta[a] + delta[a] - priors[a].mean()) / sigma;
+            double z = (theta[a] + delta[a] - priors[a].mean()) / sigma[a];
             priorMisfit += z * z;
             end[a] += delta[a];
         }
-        Optional<Cholesky> factor = Cholesky.of(hessian);
-        if (factor.isEmpty() || !(data2 >= 0) || !(gain2 >= 0)) {
-            return null;
+        double data2 = 0;
+        double gain2 = 0;
+        for (int k = 0; k < rows; k++) {
+            data2 += moved[k] * moved[k];
+            if (k < magnitudeRows) {
+                gain2 += moved[k] * moved[k];
+            }
         }
-        return new MapPoint(end, data2, Math.min(gain2, data2), priorMisfit, hessian, gainHessian,
-                factor.get().inverse(), factor.get().lnDeterminant(), active, true, 0);
+        return MapPoint.of(end, data2, gain2, priorMisfit, columns, rows, magnitudeRows, sigma, active, true, 0);
     }
 }

@@ -9,6 +9,7 @@ import java.util.OptionalDouble;
 import org.polebench.InputWarning;
 import org.polebench.analysis.CapacitorSensitivity;
 import org.polebench.analysis.ComplexFrequency;
+import org.polebench.analysis.Spectrum;
 import org.polebench.spread.CornerSpread;
 import org.polebench.analysis.Prediction;
 import org.polebench.analysis.SctcTerm;
@@ -45,15 +46,16 @@ public final class PredictionJson {
             row.put("share", term.share());
             putOptional(row, "corner_sensitivity", sensitivities.get(i).exactCornerPerLnC());
         }
-        root.set("poles_hz", roots(prediction.poles().roots()));
-        root.set("zeros_hz", prediction.zeros().isPresent() ? roots(prediction.zeros().get().roots())
+        root.set("poles_hz", roots(prediction.poles()));
+        root.set("zeros_hz", prediction.zeros().isPresent() ? roots(prediction.zeros().get())
                 : nodes.arrayNode());
+        root.put("zeros_at_dc", prediction.zeros().map(Spectrum::atDc).orElse(0));
         if (prediction.upperBand().isPresent()) {
             UpperBand upper = prediction.upperBand().get();
             ObjectNode high = root.putObject("upper_band");
             high.put("octc_upper_corner_hz", upper.octcUpperCornerHz());
             putOptional(high, "exact_upper_corner_hz", upper.exactUpperCornerHz());
-            high.set("poles_hz", roots(upper.poles().roots()));
+            high.set("poles_hz", roots(upper.poles()));
         }
         CornerSpread spread = result.spread();
         ObjectNode tolerance = root.putObject("tolerance_spread");
@@ -61,6 +63,9 @@ public final class PredictionJson {
         putOptional(tolerance, "p50_hz", spread.percentileHz(0.50));
         putOptional(tolerance, "p95_hz", spread.percentileHz(0.95));
         tolerance.put("samples", spread.samplesDrawn());
+        tolerance.put("samples_planned", spread.samplesPlanned());
+        tolerance.put("stopped_early", spread.stoppedEarly());
+        tolerance.put("stopped_at_precision", spread.stoppedAt());
         tolerance.put("samples_analysed", spread.analysed());
         tolerance.put("samples_out_of_active_region", spread.biasFailures());
         tolerance.put("seed", spread.seed());
@@ -104,6 +109,26 @@ public final class PredictionJson {
             ObjectNode entry = list.addObject();
             entry.put("re", root.realHz());
             entry.put("im", root.imaginaryHz());
+        }
+        return list;
+    }
+
+    /**
+     * Each root with its relative condition number ({@code condition}, {@link Spectrum#conditions()};
+     * 0 for a zero at DC, null where infinite) and whether it is determined to the digits printed
+     * ({@code determined}).
+     */
+    ArrayNode roots(Spectrum spectrum) {
+        ArrayNode list = roots(spectrum.roots());
+        for (int i = 0; i < list.size(); i++) {
+            ObjectNode entry = (ObjectNode) list.get(i);
+            double condition = spectrum.conditions().get(i);
+            if (Double.isFinite(condition)) {
+                entry.put("condition", condition);
+            } else {
+                entry.putNull("condition");
+            }
+            entry.put("determined", spectrum.determined(i));
         }
         return list;
     }

@@ -6,6 +6,7 @@ import java.util.Locale;
 import java.util.OptionalDouble;
 import org.polebench.InputWarning;
 import org.polebench.analysis.ComplexFrequency;
+import org.polebench.analysis.Spectrum;
 import org.polebench.spread.CornerSpread;
 import org.polebench.analysis.Prediction;
 import org.polebench.analysis.SctcTerm;
@@ -59,11 +60,11 @@ public final class PredictionText {
         }
         CornerSpread spread = result.spread();
         if (spread.analysed() > 0) {
-            out.println(String.format(Locale.ROOT, "  tolerance spread   5 %% %s   50 %% %s   95 %% %s   (%d boards drawn, seed %d%s)",
+            out.println(String.format(Locale.ROOT, "  tolerance spread   5 %% %s   50 %% %s   95 %% %s   (%s, seed %d%s)",
                     EngineeringValue.format(spread.percentileHz(0.05).getAsDouble(), "Hz"),
                     EngineeringValue.format(spread.percentileHz(0.50).getAsDouble(), "Hz"),
                     EngineeringValue.format(spread.percentileHz(0.95).getAsDouble(), "Hz"),
-                    spread.samplesDrawn(), spread.seed(),
+                    boardsDrawn(spread), spread.seed(),
                     spread.biasFailures() > 0 ? ", " + spread.biasFailures() + " left the active region" : ""));
         } else {
             out.println("  tolerance spread   none: no drawn board could be analysed");
@@ -81,7 +82,58 @@ public final class PredictionText {
         out.println();
         out.println("Low-band poles (Hz, s/2π): " + roots(prediction.poles().roots()));
         out.println("Low-band zeros (Hz, s/2π): " + (prediction.zeros().isPresent()
-                ? roots(prediction.zeros().get().roots()) : "not defined (midband gain is 0)"));
+                ? zeros(prediction.zeros().get()) : "not defined (midband gain is 0)"));
+        conditioning(out, "low-band poles", prediction.poles());
+        prediction.zeros().ifPresent(zeros -> conditioning(out, "low-band zeros", zeros));
+    }
+
+    /**
+     * @return "10000 boards drawn", or for a spread that stopped early "3000 of 10000 boards
+     *         drawn, stopped with the 5, 50 and 95 % points known to ±0.5 % (95 % intervals)"
+     */
+    public static String boardsDrawn(CornerSpread spread) {
+        if (!spread.stoppedEarly()) {
+            return spread.samplesDrawn() + " boards drawn";
+        }
+        return String.format(Locale.ROOT, "%d of %d boards drawn, stopped with the 5, 50 and 95 %% points known to "
+                + "±%.2g %% (95 %% intervals)", spread.samplesDrawn(), spread.samplesPlanned(), 100 * spread.stoppedAt());
+    }
+
+    /** @return the line a long tolerance spread shows while it runs */
+    public static String spreadProgress(int drawn, int planned, double seconds) {
+        return String.format(Locale.ROOT, "tolerance spread: %d of at most %d boards drawn (%.0f s)", drawn, planned,
+                seconds);
+    }
+
+    // a many-fold zero at DC as one entry ("17 at DC (s = 0)"), then the others
+    static String zeros(Spectrum zeros) {
+        int atDc = zeros.atDc();
+        List<ComplexFrequency> others = new java.util.ArrayList<>();
+        for (ComplexFrequency zero : zeros.roots()) {
+            if (zero.realRadPerS() != 0 || zero.imaginaryRadPerS() != 0) {
+                others.add(zero);
+            }
+        }
+        if (atDc <= 1) {
+            return roots(zeros.roots());
+        }
+        return "s = 0 (" + atDc + "-fold, at DC)" + (others.isEmpty() ? "" : ", " + roots(others));
+    }
+
+    /**
+     * The warning when some roots are not determined to the 4 digits printed: their relative
+     * move under a 1e-15 change of the model exceeds half a unit in the fourth digit (Spectrum).
+     */
+    static void conditioning(PrintWriter out, String what, Spectrum spectrum) {
+        int undetermined = spectrum.undetermined();
+        if (undetermined == 0) {
+            return;
+        }
+        out.println(String.format(Locale.ROOT, "  warning: %d of the %s are not determined to the digits printed: "
+                        + "a relative change of 1e-15 in the model moves them by up to %s of their size (near-repeated "
+                        + "roots, as identical stages in cascade give, are ill-conditioned one by one; their sum "
+                        + "and the response are not)", undetermined, what, spectrum.worstRelativeError() >= 1
+                        ? "more than all" : String.format(Locale.ROOT, "%.1g", spectrum.worstRelativeError())));
     }
 
     static String roots(List<ComplexFrequency> roots) {

@@ -10,10 +10,25 @@ import java.util.OptionalDouble;
  * @param seed           the random seed, so that the spread can be repeated
  * @param biasFailures   draws whose bias left the active region (not in {@code cornersHz})
  * @param cornersHz      the exact lower corner of every analysed draw, ascending, in Hz
+ * @param samplesPlanned how many boards the spread would have drawn had it not stopped early
+ * @param stoppedAt      the relative precision to which the 5, 50 and 95 % points were known
+ *                       when the spread stopped early (their 95 % intervals' half-widths,
+ *                       {@link ToleranceSpread}); 0 when every planned board was drawn
  */
-public record CornerSpread(int samplesDrawn, long seed, int biasFailures, List<Double> cornersHz) {
+public record CornerSpread(int samplesDrawn, long seed, int biasFailures, List<Double> cornersHz, int samplesPlanned,
+                           double stoppedAt) {
     public CornerSpread {
         cornersHz = List.copyOf(cornersHz);
+    }
+
+    /** A spread that drew every planned board. */
+    public CornerSpread(int samplesDrawn, long seed, int biasFailures, List<Double> cornersHz) {
+        this(samplesDrawn, seed, biasFailures, cornersHz, samplesDrawn, 0);
+    }
+
+    /** @return whether the spread stopped before its planned number of boards */
+    public boolean stoppedEarly() {
+        return samplesDrawn < samplesPlanned;
     }
 
     /**

@@ -40,11 +40,19 @@ public final class StageAnalysis {
 
     /** @return the nominal stage's prediction with its tolerance spread */
     public StagePrediction analyse(StageFile file) throws InputProblem {
+        return analyse(file, SpreadProgress.NONE);
+    }
+
+    /**
+     * @param progress told how far the tolerance spread has got
+     * @return the nominal stage's prediction with its tolerance spread
+     */
+    public StagePrediction analyse(StageFile file, SpreadProgress progress) throws InputProblem {
         Stage stage = file.stage();
         OperatingPoints points = biasSolver.solve(stage);
         SmallSignalNetwork network = expansion.expand(stage, points);
         Prediction prediction = predictNetwork(stage, network);
-        CornerSpread corners = spread.lowerCorner(stage);
+        CornerSpread corners = spread.lowerCorner(stage, progress);
         return new StagePrediction(stage, file.warnings(), points, network, prediction, corners);
     }
 

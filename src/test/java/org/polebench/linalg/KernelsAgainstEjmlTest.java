@@ -7,7 +7,6 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
-import java.util.Optional;
 import java.util.SplittableRandom;
 import org.ejml.data.Complex_F64;
 import org.ejml.data.DMatrixRMaj;
@@ -33,10 +32,10 @@ import org.polebench.synth.BoardSynthesizer;
 /**
  * The linalg kernels against EJML (test scope, an independent library) on seeded random
  * matrices: the real LU's solve and inverse, the complex LU's solve and transposed solve,
- * Cholesky's solve, inverse and ln det, the eigenvalue recipe's eigenvalues and vectors, and the
+ * the eigenvalue recipe's eigenvalues and vectors, and the
  * swept port LU's solves at every frequency (on random equations and on a demo stage's).
  *
- * <p>Tolerances: an LU or Cholesky solve with pivoting is backward stable, so two of them agree
+ * <p>Tolerances: an LU solve with pivoting is backward stable, so two of them agree
  * to about n·u·κ(A) relative to the solution (Higham, Accuracy and Stability of Numerical
  * Algorithms, 2nd ed., §9.3 and §10.1; u = 2⁻⁵³ ≈ 1.1e-16). Each check below computes κ∞(A) with
  * EJML and allows 100·n·u·κ∞(A): a factor 100 over the bound's own size for the constants the
@@ -125,56 +124,6 @@ class KernelsAgainstEjmlTest {
             assertClose(expected[0], expected[1], xr, xi, tolerance, "trial " + trial + ", A·x = b");
             assertClose(expectedT[0], expectedT[1], tr, ti, tolerance, "trial " + trial + ", Aᵀ·x = b");
         }
-    }
-
-    @Test
-    void choleskySolvesInvertsAndGivesLnDetAsEjml() {
-        SplittableRandom random = new SplittableRandom(SEED + 2);
-        for (int trial = 0; trial < TRIALS; trial++) {
-            int n = 1 + random.nextInt(12);
-            // A = GᵀG + 0.1·I is symmetric positive definite by construction
-            DMatrixRMaj g = new DMatrixRMaj(n, n, true, gaussians(random, n * n));
-            DMatrixRMaj m = new DMatrixRMaj(n, n);
-            CommonOps_DDRM.multTransA(g, g, m);
-            for (int i = 0; i < n; i++) {
-                m.add(i, i, 0.1);
-            }
-            double[][] a = new double[n][n];
-            for (int i = 0; i < n; i++) {
-                for (int j = 0; j < n; j++) {
-                    a[i][j] = m.get(i, j);
-                }
-            }
-            DMatrixRMaj inverse = new DMatrixRMaj(n, n);
-            assertTrue(CommonOps_DDRM.invertSPD(m.copy(), inverse));
-            double kappa = NormOps_DDRM.inducedPInf(m) * NormOps_DDRM.inducedPInf(inverse);
-            double[] b = gaussians(random, n);
-            DMatrixRMaj expected = new DMatrixRMaj(n, 1);
-            CommonOps_DDRM.mult(inverse, new DMatrixRMaj(n, 1, true, b), expected);
-
-            Optional<Cholesky> factor = Cholesky.of(a);
-            assertTrue(factor.isPresent(), "trial " + trial);
-            double tolerance = 100 * n * U * kappa;
-            assertClose(expected.data, factor.get().solve(b), tolerance, "trial " + trial + ", x");
-            double[][] ours = factor.get().inverse();
-            for (int i = 0; i < n; i++) {
-                double[] row = new double[n];
-                System.arraycopy(inverse.data, i * n, row, 0, n);
-                assertClose(row, ours[i], tolerance, "trial " + trial + ", inverse row " + i);
-            }
-            // ln det: each of the n logs carries about u of relative error in det, so the sum is
-            // within n·u·κ of EJML's LU determinant; 100 times that, as above
-            assertEquals(Math.log(CommonOps_DDRM.det(m)), factor.get().lnDeterminant(), tolerance,
-                    "trial " + trial + ", ln det");
-        }
-    }
-
-    @Test
-    void aMatrixThatIsNotPositiveDefiniteHasNoCholeskyFactor() {
-        // eigenvalues 3 and −1 (closed form for [[1, 2], [2, 1]]): indefinite, as EJML also finds
-        double[][] a = {{1, 2}, {2, 1}};
-        assertTrue(Cholesky.of(a).isEmpty());
-        assertFalse(DecompositionFactory_DDRM.chol(2, true).decompose(new DMatrixRMaj(a)));
     }
 
     @Test
