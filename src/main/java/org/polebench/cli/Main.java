@@ -44,7 +44,9 @@ public final class Main implements Runnable {
             ReportCommand.class,
             SynthesizeCommand.class,
             CaptureCommand.class,
-            SimulateCommand.class);
+            SimulateCommand.class,
+            BatchCommand.class,
+            HistoryCommand.class);
 
     @CommandLine.Spec
     CommandLine.Model.CommandSpec spec;
