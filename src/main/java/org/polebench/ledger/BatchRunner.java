@@ -57,12 +57,13 @@ public final class BatchRunner {
      */
     public BatchTally run(BatchRequest request, Ledger ledger, ResultDocument document, BatchListener listener)
             throws InputProblem, IOException {
-        byte[] stageBytes = Files.readAllBytes(request.stageFile());
-        String stageSha = Sha256.of(stageBytes);
-        String stageText = new String(stageBytes, StandardCharsets.UTF_8);
+        // the reader first: a missing or bad stage file is the user's to fix, with its hint
         StagePrediction predicted = new StageAnalysis()
                 .withSpread(new ToleranceSpread(SPREAD_SAMPLES, ToleranceSpread.DEFAULT_SEED))
                 .analyse(new StageReader().read(request.stageFile()));
+        byte[] stageBytes = Files.readAllBytes(request.stageFile());
+        String stageSha = Sha256.of(stageBytes);
+        String stageText = new String(stageBytes, StandardCharsets.UTF_8);
         Optional<Bench> bench = Optional.empty();
         Optional<String> benchText = Optional.empty();
         if (request.benchFile().isPresent()) {
