@@ -21,6 +21,7 @@ import org.polebench.ledger.SweepFiles;
 import org.polebench.lot.BoardOutcome.Outcome;
 import org.polebench.reconcile.DecisionRule;
 import org.polebench.report.BatchText;
+import org.polebench.report.ReportCurves;
 import org.polebench.report.ResultJson;
 import org.polebench.report.RunDetails;
 import org.polebench.spread.ToleranceSpread;
@@ -123,12 +124,15 @@ final class BatchCommand implements Callable<Integer> {
         BatchRequest request = new BatchRequest(stage, Optional.ofNullable(benchFile), files, lotName, station,
                 operator, layout.profile, SweepLayoutOption.profiles(), pattern, decisionRule,
                 RunDetails.polebenchVersion(), workers);
+        // one tolerance band for every board swept over the same band: the same bytes, drawn once
+        ReportCurves curves = ReportCurves.sharingBands(ResultJson.bandSpread(BatchRunner.SPREAD_SAMPLES,
+                ToleranceSpread.DEFAULT_SEED));
         ResultDocument document = (result, stageFile, sweepFile, imported, boardId) -> {
             RunDetails run = RunDetails.of(stageFile, sweepFile, imported.profileName(), imported.warnings(),
                     operator.isEmpty() ? Optional.empty() : Optional.of(operator), Optional.of(boardId),
                     BatchRunner.SPREAD_SAMPLES, ToleranceSpread.DEFAULT_SEED);
             ResultJson json = new ResultJson();
-            return json.text(json.of(result, run));
+            return json.text(json.of(result, run, curves));
         };
         PrintWriter out = spec.commandLine().getOut();
         BatchTally tally;
