@@ -10,10 +10,10 @@ import org.polebench.lot.BoardOutcome.Outcome;
 
 /**
  * One of the processes of the concurrency test: records boards {@code board-0} to
- * {@code board-(N−1)} into a ledger, in an order shuffled by its own seed, and prints how many
- * of them it was the one to record. Run as {@code java -cp <test classpath>
- * org.polebench.ledger.ConcurrentWriter LEDGER N SEED}, with PGUSER and PGPASSWORD in the
- * environment for PostgreSQL.
+ * {@code board-(N−1)} into a ledger (lot {@code concurrent}, or the lot given), in an order
+ * shuffled by its own seed, and prints how many of them it was the one to record. Run as
+ * {@code java -cp <test classpath> org.polebench.ledger.ConcurrentWriter LEDGER N SEED [LOT]},
+ * with PGUSER and PGPASSWORD (or PGPASSFILE) in the environment for PostgreSQL.
  */
 public final class ConcurrentWriter {
     private ConcurrentWriter() {
@@ -26,10 +26,11 @@ public final class ConcurrentWriter {
             order.add(i);
         }
         Collections.shuffle(order, new Random(Long.parseLong(args[2])));
+        String lot = args.length > 3 ? args[3] : "concurrent";
         int mine = 0;
         try (Ledger ledger = Ledger.open(LedgerLocation.parse(Optional.of(args[0]), System.getenv()))) {
             for (int i : order) {
-                Recording done = ledger.record(LedgerSamples.test("board-" + i, "concurrent", "board-" + i,
+                Recording done = ledger.record(LedgerSamples.test("board-" + i, lot, lot + "-board-" + i,
                         Outcome.PASS, 0.0, Instant.now()));
                 if (done == Recording.RECORDED) {
                     mine++;

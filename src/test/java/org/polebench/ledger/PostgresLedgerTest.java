@@ -5,6 +5,9 @@ import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.nio.file.attribute.PosixFilePermissions;
 import java.sql.Connection;
 import java.sql.ResultSet;
 import java.sql.Statement;
@@ -21,6 +24,7 @@ import org.junit.jupiter.api.Order;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.TestInstance;
 import org.junit.jupiter.api.TestMethodOrder;
+import org.junit.jupiter.api.io.TempDir;
 import org.polebench.lot.BoardOutcome;
 import org.polebench.lot.BoardOutcome.Outcome;
 
@@ -109,6 +113,20 @@ class PostgresLedgerTest {
 
     @Test
     @Order(4)
+    void thePasswordMayComeFromAPasswordFile(@TempDir Path home) throws Exception {
+        // the .pgpass format (PostgreSQL documentation, "The Password File"):
+        // hostname:port:database:username:password, in a file only its owner may read
+        Path passwordFile = home.resolve("pgpass");
+        Files.writeString(passwordFile, "127.0.0.1:" + server.url().replaceAll(".*:(\\d+)/.*", "$1") + ":"
+                + ThrowawayPostgres.DATABASE + ":" + ThrowawayPostgres.USER + ":" + ThrowawayPostgres.PASSWORD + "\n");
+        Files.setPosixFilePermissions(passwordFile, PosixFilePermissions.fromString("rw-------"));
+        List<Integer> recorded = WriterProcesses.run(server.url(),
+                Map.of("PGUSER", ThrowawayPostgres.USER, "PGPASSFILE", passwordFile.toString()), 1, 3, "pgpass");
+        assertEquals(List.of(3), recorded);
+    }
+
+    @Test
+    @Order(5)
     void fourProcessesRecordEveryBoardExactlyOnce() throws Exception {
         List<Integer> recorded = WriterProcesses.run(server.url(), server.environment(), 4, 250);
         assertEquals(250, recorded.stream().mapToInt(Integer::intValue).sum(), recorded.toString());

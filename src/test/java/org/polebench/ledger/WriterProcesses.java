@@ -16,12 +16,21 @@ final class WriterProcesses {
     /** @return per process, how many boards it was the one to record */
     static List<Integer> run(String ledger, Map<String, String> environment, int processes, int boards)
             throws IOException, InterruptedException {
+        return run(ledger, environment, processes, boards, "concurrent");
+    }
+
+    /** @return per process, how many boards of the lot it was the one to record */
+    static List<Integer> run(String ledger, Map<String, String> environment, int processes, int boards, String lot)
+            throws IOException, InterruptedException {
         String java = Path.of(System.getProperty("java.home"), "bin", "java").toString();
         List<Process> started = new ArrayList<>();
         for (int i = 0; i < processes; i++) {
             ProcessBuilder builder = new ProcessBuilder(java, "-Xshare:auto", "-XX:TieredStopAtLevel=1", "-cp",
                     System.getProperty("java.class.path"), ConcurrentWriter.class.getName(), ledger,
-                    Integer.toString(boards), Integer.toString(i + 1));
+                    Integer.toString(boards), Integer.toString(i + 1), lot);
+            // the environment as a station would have it: PGPASSWORD or PGPASSFILE, never both from here
+            builder.environment().remove("PGPASSWORD");
+            builder.environment().remove("PGPASSFILE");
             builder.environment().putAll(environment);
             builder.redirectError(ProcessBuilder.Redirect.DISCARD);
             started.add(builder.start());
