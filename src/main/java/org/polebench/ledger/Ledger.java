@@ -336,7 +336,8 @@ public final class Ledger implements AutoCloseable {
         }
     }
 
-    private static Connection connect(LedgerLocation location) throws SQLException {
+    /** @return a new connection to the ledger, set up as every ledger connection is */
+    static Connection connect(LedgerLocation location) throws SQLException {
         Properties properties = new Properties();
         if (location.kind() == LedgerLocation.Kind.SQLITE) {
             // xerial's driver applies these as pragmas on every connection it opens
@@ -393,7 +394,7 @@ public final class Ledger implements AutoCloseable {
     private static void flyway(LedgerLocation location, String serialKey) throws IOException {
         try {
             Flyway.configure(Ledger.class.getClassLoader())
-                    .dataSource(location.url(), location.user().orElse(null), location.password().orElse(null))
+                    .dataSource(new LedgerDataSource(location))
                     .locations("classpath:db/ledger")
                     .placeholders(Map.of("serial_key", serialKey))
                     .loggers(SilentFlywayLog.class.getName())

@@ -116,11 +116,16 @@ class PostgresLedgerTest {
     void thePasswordMayComeFromAPasswordFile(@TempDir Path home) throws Exception {
         // the .pgpass format (PostgreSQL documentation, "The Password File"):
         // hostname:port:database:username:password, in a file only its owner may read
+        // a new database, so that Flyway too (creating the schema) connects with that password
+        try (Connection plain = server.connect(); Statement statement = plain.createStatement()) {
+            statement.execute("CREATE DATABASE fresh");
+        }
+        String fresh = server.url().replace("/" + ThrowawayPostgres.DATABASE, "/fresh");
         Path passwordFile = home.resolve("pgpass");
-        Files.writeString(passwordFile, "127.0.0.1:" + server.url().replaceAll(".*:(\\d+)/.*", "$1") + ":"
-                + ThrowawayPostgres.DATABASE + ":" + ThrowawayPostgres.USER + ":" + ThrowawayPostgres.PASSWORD + "\n");
+        Files.writeString(passwordFile, "127.0.0.1:" + fresh.replaceAll(".*:(\\d+)/.*", "$1") + ":fresh:"
+                + ThrowawayPostgres.USER + ":" + ThrowawayPostgres.PASSWORD + "\n");
         Files.setPosixFilePermissions(passwordFile, PosixFilePermissions.fromString("rw-------"));
-        List<Integer> recorded = WriterProcesses.run(server.url(),
+        List<Integer> recorded = WriterProcesses.run(fresh,
                 Map.of("PGUSER", ThrowawayPostgres.USER, "PGPASSFILE", passwordFile.toString()), 1, 3, "pgpass");
         assertEquals(List.of(3), recorded);
     }
