@@ -118,6 +118,10 @@ final class BatchCommand implements Callable<Integer> {
                         + e.getDescription(), "write e.g. 'board-(\\d+)'");
             }
         }
+        if (!layout.isAuto()) {
+            // a profile that does not exist is the command line's fault, not every file's
+            SweepLayoutOption.profiles().resolve(layout.profile);
+        }
         LedgerLocation location = LedgerLocation.parse(Optional.ofNullable(ledger), System.getenv());
         List<Path> files = new SweepFiles().expand(sweeps);
         String lotName = lot != null ? lot : stageName(stage);

@@ -42,7 +42,7 @@ import org.polebench.sweepfile.SweepWriter;
  * reconciled again but counted with its recorded outcome: a batch that was stopped at any point
  * resumes by being run again, keeping the boards it finished and recording each of the others
  * once. A sweep that cannot be read or reconciled is recorded as an input problem, and the batch
- * goes on.
+ * goes on; run again, it is tried again, and a test that now reconciles takes its place.
  */
 public final class BatchRunner {
     /** Boards drawn for the predicted tolerance spread, as {@code polebench reconcile} draws by default. */
@@ -180,7 +180,8 @@ public final class BatchRunner {
                     return;
                 }
                 Optional<Ledger.Held> earlier = ledger.recorded(stageSha, sweepSha);
-                if (earlier.isPresent()) {
+                // an input problem is tried again: an option may have caused it (a wrong profile)
+                if (earlier.isPresent() && earlier.get().outcome() != Outcome.INPUT_PROBLEM) {
                     progress.done(earlier.get().boardId(), earlier.get().outcome(), true);
                     return;
                 }

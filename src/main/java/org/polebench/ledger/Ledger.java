@@ -105,7 +105,8 @@ public final class Ledger implements AutoCloseable {
      * Records one test in one transaction: its stage text (once per stage), its row and its part
      * factors.
      *
-     * @return {@link Recording#ALREADY_RECORDED} when the ledger already holds this sweep of this stage
+     * @return {@link Recording#ALREADY_RECORDED} when the ledger already holds this sweep of this
+     *         stage; a held input problem is replaced by a test that reconciled
      * @throws IOException when the database fails
      */
     public synchronized Recording record(TestRecord test) throws IOException {
@@ -258,7 +259,7 @@ public final class Ledger implements AutoCloseable {
             setNumber(row, ++i, Optional.of(outcome.topProbability()));
             try (ResultSet key = row.executeQuery()) {
                 if (!key.next()) {
-                    return Recording.ALREADY_RECORDED;
+                    return replacesInputProblem(test) ? insert(test) : Recording.ALREADY_RECORDED;
                 }
                 testId = key.getLong(1);
             }
@@ -286,6 +287,26 @@ public final class Ledger implements AutoCloseable {
      * Reads tests and then their part factors, each in autocommit mode: a test and its parts are
      * committed together, so every test the first query sees has all its parts by the second.
      */
+    /**
+     * An input problem that an option caused (a wrong {@code --profile}, a missing bench file)
+     * is no test of the board: when the same sweep now reconciles, the new test takes its place,
+     * in the same transaction. Input problems have no part factors to remove.
+     *
+     * @return whether an input-problem row of this sweep and stage was removed for the new test
+     */
+    private boolean replacesInputProblem(TestRecord test) throws SQLException {
+        if (test.outcome().outcome() == Outcome.INPUT_PROBLEM) {
+            return false;
+        }
+        try (PreparedStatement delete = connection.prepareStatement("DELETE FROM board_test WHERE stage_sha256 = ? "
+                + "AND sweep_sha256 = ? AND outcome = ?")) {
+            delete.setString(1, test.stageSha256());
+            delete.setString(2, test.sweepSha256());
+            delete.setString(3, Outcome.INPUT_PROBLEM.word());
+            return delete.executeUpdate() == 1;
+        }
+    }
+
     private List<RecordedTest> tests(String where, String value, String order) throws IOException {
         try {
             List<RecordedTest> tests = new ArrayList<>();

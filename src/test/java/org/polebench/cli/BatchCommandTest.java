@@ -98,6 +98,30 @@ class BatchCommandTest {
     }
 
     @Test
+    void anInputProblemAnOptionCausedGivesWayToTheTestOnceTheOptionIsRight() throws Exception {
+        Path sweeps = folder.resolve("layout");
+        Files.createDirectories(sweeps);
+        String[] made = run("synthesize", "--stage", GEOPHONE, "--seed", "5", "--layout", "two-channel-rms", "--out",
+                sweeps.resolve("gf-020.txt").toString());
+        assertEquals("0", made[0], made[2]);
+        // read with the wrong layout: an input problem, recorded
+        String[] wrong = run("batch", "--stage", GEOPHONE, "--ledger", ledger(), "--lot", "L", "--profile",
+                "canonical", sweeps.toString());
+        assertEquals("2", wrong[0], wrong[2]);
+        assertEquals(Outcome.INPUT_PROBLEM, lot("L").get(0).outcome());
+        // the same file with its layout recognised: the healthy board's test replaces the problem
+        String[] right = run("batch", "--stage", GEOPHONE, "--ledger", ledger(), "--lot", "L", sweeps.toString());
+        assertEquals("0", right[0], right[2]);
+        List<BoardOutcome> lot = lot("L");
+        assertEquals(1, lot.size());
+        assertEquals(Outcome.PASS, lot.get(0).outcome());
+        // a profile that does not exist stops the batch before any board
+        assertEquals("2", run("batch", "--stage", GEOPHONE, "--ledger", ledger(), "--profile", "no-such-layout",
+                sweeps.toString())[0]);
+        assertEquals(1, lot("L").size());
+    }
+
+    @Test
     void exitCodesFollowTheWorstOutcome() throws Exception {
         Path passing = synthesize(GEOPHONE, folder.resolve("pass").resolve("gf-010.csv"), 10);
         assertEquals("0", run("batch", "--stage", GEOPHONE, "--ledger", ledger(), passing.toString())[0]);
