@@ -50,7 +50,7 @@ class LayoutTest {
             entry("ledger", Set.of("units", "circuit", "analysis", "spread", "bench", "sweep", "profile", "sweepfile",
                     "fit", "reconcile", "lot")),
             entry("report", Set.of("units", "circuit", "analysis", "spread", "bench", "sweep", "fit", "reconcile",
-                    "lot")),
+                    "lot", "ledger")),
             entry("cli", Set.of("units", "yaml", "linalg", "circuit", "analysis", "spread", "bench", "sweep", "profile",
                     "sweepfile", "capture", "synth", "fit", "reconcile", "report", "waveform", "lot", "ledger")));
 

@@ -48,7 +48,9 @@ public final class Main implements Runnable {
             new Subcommand("report", "org.polebench.cli.ReportCommand"),
             new Subcommand("synthesize", "org.polebench.cli.SynthesizeCommand"),
             new Subcommand("capture", "org.polebench.cli.CaptureCommand"),
-            new Subcommand("simulate", "org.polebench.cli.SimulateCommand"));
+            new Subcommand("simulate", "org.polebench.cli.SimulateCommand"),
+            new Subcommand("batch", "org.polebench.cli.BatchCommand"),
+            new Subcommand("history", "org.polebench.cli.HistoryCommand"));
 
     /** A subcommand's name on the command line and the class that implements it. */
     private record Subcommand(String name, String className) {

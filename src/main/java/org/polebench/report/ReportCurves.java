@@ -5,11 +5,14 @@ import com.fasterxml.jackson.databind.node.JsonNodeFactory;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Map;
 import java.util.Optional;
+import java.util.concurrent.ConcurrentHashMap;
 import org.apache.commons.math3.complex.Complex;
 import org.polebench.analysis.FullResponse;
 import org.polebench.spread.GainSpread;
 import org.polebench.analysis.Prediction;
+import org.polebench.circuit.Stage;
 import org.polebench.spread.ResponseSpread;
 import org.polebench.fit.FittedModel;
 import org.polebench.reconcile.ReconcileResult;
@@ -33,11 +36,47 @@ import org.polebench.reconcile.ReconcileResult;
 public final class ReportCurves {
     public static final int POINTS_PER_DECADE = 40;
 
+    /** The most tolerance bands {@link #sharingBands} keeps; past it, it starts afresh. */
+    static final int SHARED_BANDS = 64;
+
     private final JsonNodeFactory nodes = JsonNodeFactory.instance;
     private final ResponseSpread spread;
+    private final Optional<Map<BandKey, GainSpread>> shared;
 
     public ReportCurves(ResponseSpread spread) {
+        this(spread, Optional.empty());
+    }
+
+    private ReportCurves(ResponseSpread spread, Optional<Map<BandKey, GainSpread>> shared) {
         this.spread = spread;
+        this.shared = shared;
+    }
+
+    /**
+     * @return curves that draw the tolerance band once per stage and swept band and reuse it: a
+     *         batch reconciles many boards of one stage, usually swept over one band, and the
+     *         band (hundreds of boards' full responses) would otherwise cost as much as the
+     *         reconcile itself. The band depends only on the stage, the grid and the spread's
+     *         seeded draws, so a reused one is the same to the last bit. Safe for many threads.
+     */
+    public static ReportCurves sharingBands(ResponseSpread spread) {
+        return new ReportCurves(spread, Optional.of(new ConcurrentHashMap<>()));
+    }
+
+    /** What a tolerance band depends on besides the spread's own settings. */
+    private record BandKey(Stage stage, List<Double> grid) {
+    }
+
+    private GainSpread band(Stage stage, List<Double> grid) {
+        if (shared.isEmpty()) {
+            return spread.gain(stage, grid);
+        }
+        Map<BandKey, GainSpread> bands = shared.get();
+        if (bands.size() >= SHARED_BANDS) {
+            // sweeps over ever new bands: keep the memory bounded
+            bands.clear();
+        }
+        return bands.computeIfAbsent(new BandKey(stage, List.copyOf(grid)), key -> spread.gain(key.stage(), key.grid()));
     }
 
     public ObjectNode of(ReconcileResult result) {
@@ -73,7 +112,7 @@ public final class ReportCurves {
             sctcGain.add(20 * Math.log10(single.abs()));
             sctcPhase.add(Math.toDegrees(single.getArgument()));
         }
-        GainSpread band = spread.gain(result.predicted().stage(), grid);
+        GainSpread band = band(result.predicted().stage(), grid);
         ArrayNode low = node.putArray("band_low_db");
         ArrayNode high = node.putArray("band_high_db");
         for (int i = 0; i < grid.size(); i++) {

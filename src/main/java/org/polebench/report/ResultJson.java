@@ -51,6 +51,14 @@ public final class ResultJson {
     private final ObjectMapper mapper = new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT);
 
     public ObjectNode of(ReconcileResult result, RunDetails run) {
+        return of(result, run, new ReportCurves(bandSpread(run)));
+    }
+
+    /**
+     * @param curves the Bode curves' maker, made with {@link #bandSpread}: one that shares its
+     *               tolerance bands serves a batch of boards
+     */
+    public ObjectNode of(ReconcileResult result, RunDetails run, ReportCurves curves) {
         ObjectNode root = mapper.createObjectNode();
         root.put("format", FORMAT);
         root.put("format_version", FORMAT_VERSION);
@@ -103,10 +111,18 @@ public final class ResultJson {
                 row.putNull("phase_deg");
             }
         }
-        int boards = Math.max(20, Math.min(BAND_BOARDS, run.samples()));
-        root.set("curves", new ReportCurves(new ResponseSpread(boards, run.seed(), ResponseSpread.DEFAULT_COVERAGE))
-                .of(result));
+        root.set("curves", curves.of(result));
         return root;
+    }
+
+    /** @return the spread of the Bode plot's tolerance band for a run of these details */
+    public static ResponseSpread bandSpread(RunDetails run) {
+        return bandSpread(run.samples(), run.seed());
+    }
+
+    /** @return the spread of the Bode plot's tolerance band for a predicted spread of these samples and seed */
+    public static ResponseSpread bandSpread(int samples, long seed) {
+        return new ResponseSpread(Math.max(20, Math.min(BAND_BOARDS, samples)), seed, ResponseSpread.DEFAULT_COVERAGE);
     }
 
     /** The object as indented UTF-8 text with a final newline: the bytes of {@code result.json}. */
