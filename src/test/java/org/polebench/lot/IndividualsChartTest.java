@@ -1,0 +1,83 @@
+package org.polebench.lot;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.OptionalDouble;
+import org.junit.jupiter.api.Test;
+
+class IndividualsChartTest {
+    private static List<ChartPoint> points(double... values) {
+        List<ChartPoint> out = new ArrayList<>();
+        for (int i = 0; i < values.length; i++) {
+            out.add(new ChartPoint(i + 1, "B" + (i + 1), values[i]));
+        }
+        return out;
+    }
+
+    @Test
+    void constantMovingRangesGiveLimitsInClosedForm() {
+        // 10, 12, 10, 12, …: every moving range is 2, so MR̄ = 2, σ̂ = 2/1.128 and the limits are
+        // 11 ± 3·2/1.128 (Montgomery's individuals chart: closed form by hand)
+        double[] values = new double[20];
+        for (int i = 0; i < values.length; i++) {
+            values[i] = i % 2 == 0 ? 10 : 12;
+        }
+        IndividualsChart chart = IndividualsChart.of(LotQuantity.LOWER_CORNER, points(values));
+
+        assertEquals(11, chart.centre(), 1e-12);
+        assertEquals(2, chart.averageMovingRange(), 1e-12);
+        assertEquals(2 / 1.128, chart.sigma(), 1e-12);
+        assertEquals(11 - 6 / 1.128, chart.lowerLimit(), 1e-12);
+        assertEquals(11 + 6 / 1.128, chart.upperLimit(), 1e-12);
+        // every point lies 1 from the centre, 0.564σ: inside every zone. Rule 4 (eight on one
+        // side) cannot hold as the points alternate sides, so nothing is flagged
+        assertEquals(List.of(), chart.breaks());
+    }
+
+    @Test
+    void cpkIsTheNearerLimitOverThreeSigmaAndOneSidedWithOneLimit() {
+        // the same chart: μ = 11, σ̂ = 2/1.128; USL 20, LSL 5: Cpk = min(9, 6)/(3σ̂) = 6·1.128/6
+        // (Montgomery's Cpk, closed form by hand)
+        double[] values = new double[20];
+        for (int i = 0; i < values.length; i++) {
+            values[i] = i % 2 == 0 ? 10 : 12;
+        }
+        IndividualsChart chart = IndividualsChart.of(LotQuantity.MIDBAND_GAIN, points(values));
+        // sample standard deviation of ten 10s and ten 12s: √(20/19)
+        double sd = Math.sqrt(20 / 19.0);
+        Capability both = Capability.of(chart, sd, OptionalDouble.of(5), OptionalDouble.of(20)).orElseThrow();
+        assertEquals(1.128, both.cpk(), 1e-12);
+        assertEquals(6 / (3 * sd), both.ppk(), 1e-12);
+        assertEquals(false, both.oneSided());
+        assertEquals(20, both.boards());
+
+        Capability upper = Capability.of(chart, sd, OptionalDouble.empty(), OptionalDouble.of(20)).orElseThrow();
+        // Cpu = (20 − 11)/(3·2/1.128) = 9·1.128/6
+        assertEquals(9 * 1.128 / 6, upper.cpk(), 1e-12);
+        assertTrue(upper.oneSided());
+        assertTrue(Capability.of(chart, sd, OptionalDouble.empty(), OptionalDouble.empty()).isEmpty());
+    }
+
+    @Test
+    void aPointBeyondTheLimitsIsFlaggedByRuleOne() {
+        // 21 points alternating 101, 99 with 130 in place of the 101 at index 10: the moving
+        // ranges are eighteen 2s and two 31s, so MR̄ = 98/20 = 4.9 and σ̂ = 4.9/1.128 by hand; the
+        // centre is 2130/21 = 101.43, and 130 lies 6.6σ̂ above it
+        double[] values = new double[21];
+        for (int i = 0; i < 21; i++) {
+            values[i] = i % 2 == 0 ? 101 : 99;
+        }
+        values[10] = 130;
+        IndividualsChart chart = IndividualsChart.of(LotQuantity.LOWER_CORNER, points(values));
+        assertEquals(4.9, chart.averageMovingRange(), 1e-12);
+        assertEquals(2130 / 21.0, chart.centre(), 1e-12);
+        // the wild point lifts the centre above every other point, so rule 4 (eight on one side)
+        // completes at 7, 8, 9 (points 0 to 9 below) and at 18, 19, 20 (points 11 to 20 below)
+        assertEquals(List.of(new RuleBreak(RunRule.BEYOND_3_SIGMA, List.of(10)),
+                new RuleBreak(RunRule.EIGHT_ON_ONE_SIDE, List.of(7, 8, 9, 18, 19, 20))), chart.breaks());
+        assertEquals(List.of(7, 8, 9, 10, 18, 19, 20), chart.flagged());
+    }
+}
