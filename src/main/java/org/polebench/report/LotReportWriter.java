@@ -25,7 +25,7 @@ import org.polebench.lot.QuantityFindings;
  * {@code midband-gain-spread.svg}, {@code midband-gain-chart.svg}, {@code culprits.svg}).
  *
  * <p>Every file is written into a fresh folder beside the target and the folder is then moved
- * into place (docs/contributing.md, atomic writes), so a failure half-way leaves the target as it
+ * into place (docs/contributing.md, "Rules every change keeps"), so a failure half-way leaves the target as it
  * was. A folder that already holds any of these files is refused unless {@code force} is set;
  * then only these files are replaced and anything else in it is left alone.
  */
