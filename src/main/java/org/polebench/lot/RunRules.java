@@ -10,6 +10,12 @@ import java.util.List;
  * seen. A zero σ (every point equal) breaks no rule.
  */
 final class RunRules {
+    /**
+     * A point within 1e-9σ of a zone edge or of the centre line is taken as on it (not beyond,
+     * and on neither side), so that round-off in the mean cannot decide a rule.
+     */
+    private static final double EDGE = 1e-9;
+
     private RunRules() {
     }
 
@@ -40,7 +46,7 @@ final class RunRules {
     private static boolean completes(RunRule rule, double[] z, int i) {
         switch (rule) {
             case BEYOND_3_SIGMA:
-                return Math.abs(z[i]) > 3;
+                return Math.abs(z[i]) > 3 + EDGE;
             case TWO_OF_THREE_BEYOND_2_SIGMA:
                 return count(z, i, 3, 2, 2);
             case FOUR_OF_FIVE_BEYOND_1_SIGMA:
@@ -55,16 +61,16 @@ final class RunRules {
      *         {@code needed} points beyond {@code zone} σ on the side of point i, point i among them
      */
     private static boolean count(double[] z, int i, int length, double zone, int needed) {
-        if (i + 1 < length || z[i] == 0) {
+        if (i + 1 < length || Math.abs(z[i]) <= EDGE) {
             return false;
         }
         double side = Math.signum(z[i]);
-        if (!(side * z[i] > zone)) {
+        if (!(side * z[i] > zone + EDGE)) {
             return false;
         }
         int beyond = 0;
         for (int j = i - length + 1; j <= i; j++) {
-            if (side * z[j] > zone) {
+            if (side * z[j] > zone + EDGE) {
                 beyond++;
             }
         }

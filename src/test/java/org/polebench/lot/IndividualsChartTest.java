@@ -80,4 +80,32 @@ class IndividualsChartTest {
                 new RuleBreak(RunRule.EIGHT_ON_ONE_SIDE, List.of(7, 8, 9, 18, 19, 20))), chart.breaks());
         assertEquals(List.of(7, 8, 9, 10, 18, 19, 20), chart.flagged());
     }
+
+    @net.jqwik.api.Property(tries = 200)
+    void shiftingAndScalingTheValuesMovesTheChartAndKeepsItsFlags(
+            @net.jqwik.api.ForAll("sequences") List<Double> values,
+            @net.jqwik.api.ForAll @net.jqwik.api.constraints.DoubleRange(min = -1000, max = 1000) double shift,
+            @net.jqwik.api.ForAll @net.jqwik.api.constraints.DoubleRange(min = 0.01, max = 100) double scale) {
+        // identities of the chart's definition: x → a + b·x (b > 0) maps the centre and the
+        // limits the same way, σ̂ to b·σ̂, and leaves every run rule's flags where they were
+        double[] x = values.stream().mapToDouble(Double::doubleValue).toArray();
+        double[] y = new double[x.length];
+        for (int i = 0; i < x.length; i++) {
+            y[i] = shift + scale * x[i];
+        }
+        IndividualsChart a = IndividualsChart.of(LotQuantity.MIDBAND_GAIN, points(x));
+        IndividualsChart b = IndividualsChart.of(LotQuantity.MIDBAND_GAIN, points(y));
+        double tolerance = 1e-9 * (Math.abs(shift) + scale * 100);
+        assertEquals(shift + scale * a.centre(), b.centre(), tolerance);
+        assertEquals(scale * a.sigma(), b.sigma(), tolerance);
+        assertEquals(shift + scale * a.upperLimit(), b.upperLimit(), tolerance);
+        // flags compare points against limits: round-off could move a point lying within 1e-9 of
+        // a zone edge, which random doubles almost never do
+        assertEquals(a.flagged(), b.flagged());
+    }
+
+    @net.jqwik.api.Provide
+    net.jqwik.api.Arbitrary<List<Double>> sequences() {
+        return net.jqwik.api.Arbitraries.integers().between(-50, 50).map(i -> i / 7.0).list().ofMinSize(2).ofMaxSize(40);
+    }
 }
