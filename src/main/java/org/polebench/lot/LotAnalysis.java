@@ -120,7 +120,7 @@ public final class LotAnalysis {
         }
         IndividualsChart chart = IndividualsChart.of(quantity, points);
         return new QuantityFindings(quantity, band, Optional.of(distribution), Optional.of(chart),
-                Capability.of(chart, distribution.standardDeviation(), positive(quantity, lower),
+                Capability.of(chart, distribution.mean(), distribution.standardDeviation(), positive(quantity, lower),
                         positive(quantity, upper)));
     }
 

@@ -9,7 +9,8 @@ import java.util.Optional;
  * whether the lot as a whole reads outside the part's tolerance.
  *
  * @param part         the part's name as the boards' results give it
- * @param readings     boards that gave a reading of the part, identifiable or not
+ * @param readings     boards whose sweep the stage explains that gave a reading of the part,
+ *                     identifiable or not
  * @param identifiable boards whose reading the sweep determined; only these are pooled
  * @param pooled       the random-effects estimate over the identifiable boards not kept apart;
  *                     empty when there were none

@@ -14,9 +14,11 @@ import org.polebench.circuit.Transistor;
  * For each part, pools the boards' back-solved ln-factors into a lot mean and a between-board
  * spread (docs/method.md, "Systematic shifts across a lot").
  *
- * <p>Only identifiable readings are pooled: an unidentifiable one echoes its tolerance prior, so
- * pooling k of them would count that prior k times and shrink u(μ̂) towards it without any
- * measurement behind it. Boards far from the rest are kept apart before pooling, because the
+ * <p>Only identifiable readings of boards whose sweep the stage explains are pooled: an
+ * unidentifiable one echoes its tolerance prior, so pooling k of them would count that prior k
+ * times and shrink u(μ̂) towards it without any measurement behind it; and the back-solve of an
+ * unexplained sweep is the closest of several wrong models, whose values are not readings of
+ * the parts (those boards are in the Pareto of culprits instead). Boards far from the rest are kept apart before pooling, because the
  * DerSimonian–Laird τ̂² is a moment estimate and one decade slip among fifty boards would swell
  * it until the shift of the other 49 hid in it. The screen starts robustly, from the median and
  * the median absolute deviation (MAD × 1.4826 estimates σ of a normal population; Rousseeuw and
@@ -51,6 +53,9 @@ final class SystematicShifts {
     static List<PartShift> of(List<BoardOutcome> boards, Stage stage) {
         Map<String, List<Reading>> byPart = new LinkedHashMap<>();
         for (BoardOutcome board : boards) {
+            if (!board.explained()) {
+                continue;
+            }
             for (BoardOutcome.PartFactor f : board.parts()) {
                 byPart.computeIfAbsent(f.part(), k -> new ArrayList<>()).add(new Reading(board.boardId(), f));
             }

@@ -170,6 +170,11 @@ public final class LotJson {
             number(chart, "sigma", c.sigma());
             number(chart, "lower_limit", c.lowerLimit());
             number(chart, "upper_limit", c.upperLimit());
+            chart.put("points_used", c.pointsUsed());
+            ArrayNode aside = chart.putArray("set_aside");
+            for (int i : c.setAside()) {
+                aside.add(c.points().get(i).boardId());
+            }
             chart.put("rules", "Western Electric Statistical Quality Control Handbook (1956), rules 1 to 4");
             ArrayNode breaks = chart.putArray("breaks");
             for (RuleBreak b : c.breaks()) {
@@ -203,6 +208,7 @@ public final class LotJson {
             number(cap, "mean", k.mean());
             number(cap, "sigma", k.sigma());
             cap.put("boards", k.boards());
+            cap.put("boards_ppk", k.allBoards());
         }
         return o;
     }

@@ -77,6 +77,11 @@ final class LotStatements {
         StringBuilder s = new StringBuilder("Individuals chart in test order: centre ").append(value(c.centre(), unit))
                 .append(", limits ").append(value(c.lowerLimit(), unit)).append(" to ").append(value(c.upperLimit(), unit))
                 .append(" (±3σ, σ = MR̄/1.128 = ").append(value(c.sigma(), unit)).append(")");
+        if (!c.setAside().isEmpty()) {
+            s.append(", from the ").append(boards(c.pointsUsed())).append(" within them (set aside, beyond the trial "
+                    + "limits: ").append(c.setAside().stream().map(i -> c.points().get(i).boardId())
+                    .collect(Collectors.joining(", "))).append(")");
+        }
         if (c.breaks().isEmpty()) {
             return s.append("; no Western Electric rule broken.").toString();
         }
@@ -102,8 +107,10 @@ final class LotStatements {
             against = "the limits " + value(c.lowerLimit().getAsDouble(), unit) + " and "
                     + value(c.upperLimit().getAsDouble(), unit);
         }
-        return "Cpk " + index(c.cpk()) + " against " + against + ", from " + boards(c.boards())
-                + " (σ = MR̄/1.128); Ppk " + index(c.ppk()) + " with the overall standard deviation.";
+        String within = c.boards() < c.allBoards() ? " within the control limits" : "";
+        return "Cpk " + index(c.cpk()) + " against " + against + ", from " + boards(c.boards()) + within
+                + " (σ = MR̄/1.128); Ppk " + index(c.ppk()) + " from all " + boards(c.allBoards())
+                + " with their mean and standard deviation.";
     }
 
     /** The Pareto in one sentence. */

@@ -48,37 +48,38 @@ class IndividualsChartTest {
         IndividualsChart chart = IndividualsChart.of(LotQuantity.MIDBAND_GAIN, points(values));
         // sample standard deviation of ten 10s and ten 12s: √(20/19)
         double sd = Math.sqrt(20 / 19.0);
-        Capability both = Capability.of(chart, sd, OptionalDouble.of(5), OptionalDouble.of(20)).orElseThrow();
+        Capability both = Capability.of(chart, 11, sd, OptionalDouble.of(5), OptionalDouble.of(20)).orElseThrow();
         assertEquals(1.128, both.cpk(), 1e-12);
         assertEquals(6 / (3 * sd), both.ppk(), 1e-12);
         assertEquals(false, both.oneSided());
         assertEquals(20, both.boards());
 
-        Capability upper = Capability.of(chart, sd, OptionalDouble.empty(), OptionalDouble.of(20)).orElseThrow();
+        Capability upper = Capability.of(chart, 11, sd, OptionalDouble.empty(), OptionalDouble.of(20)).orElseThrow();
         // Cpu = (20 − 11)/(3·2/1.128) = 9·1.128/6
         assertEquals(9 * 1.128 / 6, upper.cpk(), 1e-12);
         assertTrue(upper.oneSided());
-        assertTrue(Capability.of(chart, sd, OptionalDouble.empty(), OptionalDouble.empty()).isEmpty());
+        assertTrue(Capability.of(chart, 11, sd, OptionalDouble.empty(), OptionalDouble.empty()).isEmpty());
     }
 
     @Test
-    void aPointBeyondTheLimitsIsFlaggedByRuleOne() {
-        // 21 points alternating 101, 99 with 130 in place of the 101 at index 10: the moving
-        // ranges are eighteen 2s and two 31s, so MR̄ = 98/20 = 4.9 and σ̂ = 4.9/1.128 by hand; the
-        // centre is 2130/21 = 101.43, and 130 lies 6.6σ̂ above it
+    void aPointBeyondTheTrialLimitsIsSetAsideAndFlaggedByRuleOne() {
+        // 21 points alternating 101, 99 with 130 in place of the 101 at index 10. Trial limits
+        // from all 21: MR̄ = (18·2 + 2·31)/20 = 4.9, centre 2130/21 = 101.43, σ̂ = 4.344; 130 lies
+        // 6.6σ̂ above, so it is set aside. Revised, from the other 20 (by hand): centre 100, the
+        // moving ranges between successive kept points are eighteen 2s and one 0 (99 at 9 to 99
+        // at 11), MR̄ = 36/19; every kept point is 1 from the centre, 0.53σ̂, on alternating sides
         double[] values = new double[21];
         for (int i = 0; i < 21; i++) {
             values[i] = i % 2 == 0 ? 101 : 99;
         }
         values[10] = 130;
         IndividualsChart chart = IndividualsChart.of(LotQuantity.LOWER_CORNER, points(values));
-        assertEquals(4.9, chart.averageMovingRange(), 1e-12);
-        assertEquals(2130 / 21.0, chart.centre(), 1e-12);
-        // the wild point lifts the centre above every other point, so rule 4 (eight on one side)
-        // completes at 7, 8, 9 (points 0 to 9 below) and at 18, 19, 20 (points 11 to 20 below)
-        assertEquals(List.of(new RuleBreak(RunRule.BEYOND_3_SIGMA, List.of(10)),
-                new RuleBreak(RunRule.EIGHT_ON_ONE_SIDE, List.of(7, 8, 9, 18, 19, 20))), chart.breaks());
-        assertEquals(List.of(7, 8, 9, 10, 18, 19, 20), chart.flagged());
+        assertEquals(List.of(10), chart.setAside());
+        assertEquals(20, chart.pointsUsed());
+        assertEquals(100, chart.centre(), 1e-12);
+        assertEquals(36 / 19.0, chart.averageMovingRange(), 1e-12);
+        assertEquals(List.of(new RuleBreak(RunRule.BEYOND_3_SIGMA, List.of(10))), chart.breaks());
+        assertEquals(List.of(10), chart.flagged());
     }
 
     @net.jqwik.api.Property(tries = 200)

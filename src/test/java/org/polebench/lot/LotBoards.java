@@ -15,7 +15,7 @@ final class LotBoards {
                               PartFactor... parts) {
         return new BoardOutcome(id, "demo-lot", "bench-1", "tester", Instant.parse("2026-05-04T10:00:00Z")
                 .plusSeconds(60 * order), order, outcome, Optional.of(gainDb), Optional.of(0.1), Optional.of(cornerHz),
-                Optional.of(0.5), 2, outcome != Outcome.FAIL, outcome == Outcome.FAIL ? "C2" : "no fault",
+                Optional.of(0.5), 2, true, outcome == Outcome.FAIL ? "C2" : "no fault",
                 0.9, List.of(parts), Optional.empty());
     }
 

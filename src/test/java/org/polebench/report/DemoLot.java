@@ -47,7 +47,7 @@ final class DemoLot {
             String top = b == 12 ? "C3" : b <= 37 ? "C2" : "no fault";
             out.add(new BoardOutcome(id, "HP-lot-7", station, "A. Tester", at, b, fail ? Outcome.FAIL : Outcome.PASS,
                     Optional.of(43.2 + 0.15 * r.nextGaussian()), Optional.of(0.08), Optional.of(corner),
-                    Optional.of(0.6), 2, b > 37 || b == 12, top, 0.93,
+                    Optional.of(0.6), 2, true, top, 0.93,
                     List.of(new PartFactor("C1", 0.05 * r.nextGaussian(), 0.04, true),
                             new PartFactor("C2", c2 + 0.03 * r.nextGaussian(), 0.03, true),
                             new PartFactor("C3", c3 + 0.05 * r.nextGaussian(), 0.05, true),
