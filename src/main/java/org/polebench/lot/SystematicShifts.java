@@ -101,14 +101,31 @@ final class SystematicShifts {
             kept = next;
             pooled = pool(usable, kept);
         }
+        if (pooled.count() < PartShift.FEWEST_BOARDS) {
+            // too few boards to have a lot distribution: a reading outside the band is a fault of
+            // its board on its own evidence
+            for (int i = 0; i < usable.size(); i++) {
+                if (kept[i] && outside(usable.get(i), band)) {
+                    kept[i] = false;
+                }
+            }
+        }
         List<ApartBoard> apart = new ArrayList<>();
         for (int i = 0; i < usable.size(); i++) {
             if (!kept[i]) {
                 Reading r = usable.get(i);
-                boolean outside = r.y() + K * r.u() < band[0] || r.y() - K * r.u() > band[1];
-                apart.add(new ApartBoard(r.boardId(), r.y(), r.u(), outside));
+                apart.add(new ApartBoard(r.boardId(), r.y(), r.u(), outside(r, band)));
             }
         }
+        boolean anyKept = false;
+        for (boolean k : kept) {
+            anyKept |= k;
+        }
+        if (!anyKept) {
+            return new PartShift(name, all.size(), usable.size(), Optional.empty(), band[0], band[1],
+                    PartShift.Finding.TOO_FEW_READINGS, apart);
+        }
+        pooled = pool(usable, kept);
         PartShift.Finding finding;
         if (pooled.count() < PartShift.FEWEST_BOARDS) {
             finding = PartShift.Finding.TOO_FEW_READINGS;
@@ -118,6 +135,10 @@ final class SystematicShifts {
             finding = PartShift.Finding.WITHIN_TOLERANCE;
         }
         return new PartShift(name, all.size(), usable.size(), Optional.of(pooled), band[0], band[1], finding, apart);
+    }
+
+    private static boolean outside(Reading r, double[] band) {
+        return r.y() + K * r.u() < band[0] || r.y() - K * r.u() > band[1];
     }
 
     /** Keeps the boards within 3.5 robust scales of the median. */

@@ -84,6 +84,7 @@ public final class LotCharts {
                     new Color(BAND.getRed(), BAND.getGreen(), BAND.getBlue(), 70));
             shade.setLabel("predicted, central " + MeasuredValueFormat.percent(band.coverage(), 0));
             shade.setLabelFont(LABEL);
+            shade.setLabelBackgroundColor(Color.WHITE);
             shade.setLabelAnchor(RectangleAnchor.TOP_LEFT);
             shade.setLabelTextAnchor(TextAnchor.TOP_LEFT);
             plot.addRangeMarker(shade, Layer.BACKGROUND);
@@ -194,6 +195,7 @@ public final class LotCharts {
         marker.setLabel(label);
         marker.setLabelFont(LABEL);
         marker.setLabelPaint(colour);
+        marker.setLabelBackgroundColor(Color.WHITE);
         marker.setLabelAnchor(RectangleAnchor.TOP_RIGHT);
         marker.setLabelTextAnchor(TextAnchor.BOTTOM_RIGHT);
         return marker;

@@ -96,7 +96,8 @@ class SystematicShiftsTest {
     void unidentifiableReadingsCarryNoWeight() {
         // 30 boards whose C1 reading only echoes its prior (ln factor 0, u of a ±10 % band read as
         // rectangular, 0.2/√12 · … ≈ 0.058) and 2 that identify it at ×0.5: the echoes must not
-        // outvote the two, nor shrink u towards the prior; two boards are too few for a finding
+        // outvote the two, nor shrink u towards the prior; two boards are too few for a lot
+        // finding, so each is a fault of its own board (×0.5 ± 2·0.02 in ln lies outside ±10 %)
         List<BoardOutcome> boards = new ArrayList<>();
         for (int b = 0; b < 30; b++) {
             boards.add(LotBoards.board("E" + b, b, Outcome.PASS, 30, 20, new PartFactor("C1", 0, 0.058, false)));
@@ -108,9 +109,9 @@ class SystematicShiftsTest {
         assertEquals(32, c1.readings());
         assertEquals(2, c1.identifiable());
         assertEquals(PartShift.Finding.TOO_FEW_READINGS, c1.finding());
-        // two equal readings: μ is the reading, u = 0.02/√2 (identity)
-        assertEquals(0.5, c1.factor(), 1e-12);
-        assertEquals(0.02 / Math.sqrt(2), c1.pooled().orElseThrow().uMean(), 1e-12);
+        assertEquals(List.of("F1", "F2"), c1.singleBoardFaults().stream().map(ApartBoard::boardId).toList());
+        assertEquals(0.5, c1.singleBoardFaults().get(0).factor(), 1e-12);
+        assertTrue(c1.pooled().isEmpty());
     }
 
     @Test
