@@ -125,4 +125,15 @@ class SystematicShiftsTest {
         // a name the stage does not know: the point 0
         assertEquals(0, SystematicShifts.band(STAGE, "bench")[1]);
     }
+
+    @Test
+    void theLotNamesTheShiftedPartOnceAndAHealthyLotNamesNone() {
+        // through LotAnalysis, as the lot command calls it (bands given: no Monte Carlo needed)
+        PredictedBand none = new PredictedBand(Double.NaN, Double.NaN, Double.NaN, 0.9, 0, 0, 1);
+        LotFindings shifted = LotAnalysis.of("demo-lot", lot(47, 50, 47, 0.68), STAGE, none, none, 1, 0);
+        assertEquals(List.of("C2"), shifted.systematic().stream().map(PartShift::part).toList());
+        assertEquals(0, shifted.parts().stream().mapToInt(p -> p.singleBoardFaults().size()).sum());
+        LotFindings healthy = LotAnalysis.of("demo-lot", lot(3, 40, 0, 1), STAGE, none, none, 1, 0);
+        assertEquals(List.of(), healthy.systematic());
+    }
 }
