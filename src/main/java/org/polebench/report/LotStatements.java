@@ -137,8 +137,8 @@ final class LotStatements {
                 .append(" that identified it, outside its tolerance band ").append(band(p))
                 .append(": a lot finding, such as a wrong reel or a wrong value in the bill of materials, not ")
                 .append(pooled.count()).append(" single-board faults");
-        s.append("; between boards it spreads by ").append(MeasuredValueFormat.fixed(100 * pooled.tau(), 1))
-                .append(" % (τ in ln)");
+        s.append("; from board to board it spreads by τ = ").append(MeasuredValueFormat.fixed(pooled.tau(), 3))
+                .append(" in ln(value), about ").append(MeasuredValueFormat.fixed(100 * pooled.tau(), 0)).append(" %");
         List<ApartBoard> within = p.apart().stream().filter(a -> !a.outsideTolerance()).toList();
         if (!within.isEmpty()) {
             s.append("; ").append(ids(within)).append(within.size() == 1 ? " reads" : " read")
