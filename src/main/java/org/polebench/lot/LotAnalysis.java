@@ -32,8 +32,9 @@ public final class LotAnalysis {
     /** The central fraction of drawn boards the predicted band holds: the 5th to 95th percentile. */
     public static final double BAND_COVERAGE = 0.90;
     /**
-     * Boards drawn for the predicted bands when the caller does not say: the 5 % and 95 % points
-     * of 2,000 draws move by about 1 % of the band from one seed to another.
+     * Boards drawn for the predicted bands when the caller does not say: a 5 % point of 2,000
+     * draws has a standard error of √(0.05·0.95/2000) ≈ 0.005 in probability (the binomial
+     * standard error of a sample quantile's level), half a percent of the boards.
      */
     public static final int DEFAULT_DRAWS = 2000;
     /** The seed when the caller does not say: the tolerance spread's own, so lot and predict agree. */
