@@ -32,7 +32,8 @@ public final class LotHtml {
         h.append("<style>\n").append(CSS).append("</style>\n</head>\n<body>\n");
         h.append("<header>\n<h1>Lot report</h1>\n<p class=\"subtitle\">What the boards of lot <b id=\"lot-name\">")
                 .append(name).append("</b> say together · issued ").append(ReportHtml.esc(issued)).append("</p>\n</header>\n");
-        String css = lot.counts().failed() > 0 ? "fail" : lot.counts().boards() == lot.counts().passed() ? "pass" : "mixed";
+        String css = lot.counts().failed() > 0 ? "fail"
+                : lot.counts().boards() > 0 && lot.counts().boards() == lot.counts().passed() ? "pass" : "mixed";
         h.append("<section id=\"summary\" class=\"summary ").append(css).append("\">\n<p id=\"counts\">")
                 .append(ReportHtml.esc(LotStatements.counts(lot))).append("</p>\n");
         h.append("<p class=\"yield\">Yield <b id=\"yield\">").append(percent(lot.counts().yield())).append("</b></p>\n");

@@ -59,4 +59,21 @@ class LotReportWriterTest {
         assertTrue(Files.readString(out.resolve(LotReportWriter.HTML)).contains("2026-05-05T12:01:00Z"));
         assertEquals("mine", Files.readString(out.resolve("notes.txt")));
     }
+
+    @Test
+    void aLotWithNoBoardsGetsAPageWithoutCharts(@TempDir Path dir) throws Exception {
+        LotFindings empty = org.polebench.lot.LotAnalysis.of("empty-lot", java.util.List.of(),
+                new org.polebench.circuit.StageReader().read(Path.of("sample-measurements/hydrophone-preamp-ce.stage.yaml"))
+                        .stage(), 1, 20);
+        Path out = dir.resolve("r");
+        new LotReportWriter().write(out, empty, false, ISSUED);
+        try (Stream<Path> files = Files.list(out)) {
+            // the page, the JSON and the header-only CSV; no chart has anything to draw
+            assertEquals(java.util.Set.of(LotReportWriter.HTML, LotReportWriter.JSON, LotReportWriter.CSV),
+                    files.map(p -> p.getFileName().toString()).collect(java.util.stream.Collectors.toSet()));
+        }
+        Document page = Jsoup.parse(out.resolve(LotReportWriter.HTML).toFile(), "UTF-8");
+        assertEquals("Lot empty-lot: no boards recorded.", page.getElementById("counts").text());
+        assertEquals(0, page.select("figure.chart").size());
+    }
 }
