@@ -19,7 +19,9 @@ import org.polebench.circuit.StageReader;
 import org.polebench.synth.BoardSynthesizer;
 import org.polebench.synth.Fault;
 import org.polebench.synth.FaultText;
+import org.polebench.sweep.Provenance;
 import org.polebench.sweep.Sweep;
+import org.polebench.spread.BoardDraw;
 import org.polebench.synth.SweepNoise;
 import org.polebench.sweepfile.SweepWriter;
 import org.polebench.profile.TableProfile;
@@ -41,7 +43,8 @@ import picocli.CommandLine.Spec;
                         + "again), gain=10 (a flat gain factor, as a x10 probe read as x1)."},
         footer = {"", "Examples:", "  polebench synthesize --stage s.stage.yaml --fault C3=4.7u --out board.csv",
                 "  polebench synthesize --stage s.stage.yaml --fault R2=12k --fault beta:Q1=1.7 --out board.csv",
-                "  polebench synthesize --stage s.stage.yaml --fault bias:Q1=0.6 --fault gain=10 --seed 7 --out b.csv"})
+                "  polebench synthesize --stage s.stage.yaml --fault bias:Q1=0.6 --fault gain=10 --seed 7 --out b.csv",
+                "  polebench synthesize --stage s.stage.yaml --draw-seed 12 --board B-012 --seed 12 --out b-012.csv"})
 final class SynthesizeCommand implements Callable<Integer> {
     @Spec
     CommandSpec spec;
@@ -82,6 +85,14 @@ final class SynthesizeCommand implements Callable<Integer> {
             description = "a bench file (*.bench.yaml): the sweep as that bench would record it; the notes name it")
     Path benchFile;
 
+    @Option(names = "--draw-seed", paramLabel = "SEED",
+            description = "build the board with every resistor, capacitor and beta drawn within its tolerance "
+                    + "(uniform in ln, as predict's spread draws), from this seed, before the faults")
+    Long drawSeed;
+
+    @Option(names = "--board", paramLabel = "ID", description = "the board's id, written in the file's board line")
+    String board;
+
     @Override
     public Integer call() throws InputProblem, IOException {
         if (Files.exists(out) && !force) {
@@ -93,6 +104,9 @@ final class SynthesizeCommand implements Callable<Integer> {
         }
         CountLimits.points(points);
         Stage stage = new StageReader().read(stageFile).stage();
+        if (drawSeed != null) {
+            stage = BoardDraw.draw(stage, drawSeed);
+        }
         Optional<MeasuringChain> bench = benchFile == null ? Optional.empty()
                 : Optional.of(MeasuringChain.of(new BenchReader().read(benchFile), "synthesize --bench"));
         List<Fault> parsed = new ArrayList<>();
@@ -118,6 +132,9 @@ final class SynthesizeCommand implements Callable<Integer> {
         }
         Sweep sweep = new BoardSynthesizer().synthesize(stage, parsed, sweepNoise,
                 BoardSynthesizer.logSpaced(low, high, points), true, seed, bench);
+        if (drawSeed != null || board != null) {
+            sweep = labelled(sweep);
+        }
         SweepWriter writer = new SweepWriter();
         if (layout.equals(SweepWriter.CANONICAL)) {
             writer.writeCanonical(sweep, out, force);
@@ -134,6 +151,22 @@ final class SynthesizeCommand implements Callable<Integer> {
             spec.commandLine().getOut().println("  " + note);
         }
         return ExitCodes.OK;
+    }
+
+    /** The sweep with its board id and, for a drawn board, the draw's seed in its notes. */
+    private Sweep labelled(Sweep sweep) throws InputProblem {
+        if (board != null && (board.isBlank() || board.chars().anyMatch(Character::isISOControl))) {
+            throw new InputProblem(null, 0, "--board '" + board + "' is not a board id",
+                    "give a name of printable characters, such as HP-012");
+        }
+        List<String> notes = new ArrayList<>(sweep.source().notes());
+        if (drawSeed != null) {
+            notes.add("parts drawn within their tolerances (uniform in ln), draw seed: " + drawSeed
+                    + ", before the faults");
+        }
+        Provenance p = sweep.source();
+        return new Sweep(new Provenance(p.sourceFile(), p.sha256(), p.instrument(), p.profile(), p.captured(),
+                board == null ? p.board() : Optional.of(board), notes), sweep.points(), sweep.calibration());
     }
 
     private static double frequency(String text, String option) throws InputProblem {

@@ -115,9 +115,9 @@ class DocumentCommandsTest {
         }
         // the README's five (the demo reconcile and the tour's four) and the user guide's six
         // (predict, fit, reconcile, synthesize, and capture against simulate over socat and over
-        // TCP), and batch with history (issue 16): counted, so that a block lost or turned into
-        // text in an edit is noticed
-        assertEquals(14, blocks.size(), blocks.stream().map(Block::name).collect(Collectors.joining("\n")));
+        // TCP), batch with history and synthesize --draw-seed (issue 16): counted, so that a block
+        // lost or turned into text in an edit is noticed
+        assertEquals(15, blocks.size(), blocks.stream().map(Block::name).collect(Collectors.joining("\n")));
 
         List<Future<Outcome>> runs = new ArrayList<>();
         for (Block block : blocks) {

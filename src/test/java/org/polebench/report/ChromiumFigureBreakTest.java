@@ -30,7 +30,7 @@ class ChromiumFigureBreakTest {
 
     @Test
     void noPageBeforeAFigureIsHalfEmpty(@TempDir Path dir) throws Exception {
-        Optional<Path> chromium = chromium();
+        Optional<Path> chromium = HeadlessChromium.find();
         assumeTrue(chromium.isPresent(), "chromium is not installed (apt-get install chromium); print test skipped");
         Path out = dir.resolve("report");
         new TestReportWriter().write(DemoResult.shared(), out, false, false, Instant.parse("2026-03-14T09:30:00Z"));
@@ -89,17 +89,5 @@ class ChromiumFigureBreakTest {
         stripper.setEndPage(page);
         String text = stripper.getText(document);
         return new Page(text, lowest[0]);
-    }
-
-    private static Optional<Path> chromium() {
-        for (String name : new String[]{"chromium", "chromium-browser"}) {
-            for (String folder : System.getenv().getOrDefault("PATH", "/usr/bin").split(":")) {
-                Path candidate = Path.of(folder, name);
-                if (Files.isExecutable(candidate)) {
-                    return Optional.of(candidate);
-                }
-            }
-        }
-        return Optional.empty();
     }
 }

@@ -29,7 +29,7 @@ import org.junit.jupiter.api.io.TempDir;
 class ChromiumPrintTest {
     @Test
     void everyPrintedPageSaysPageNOfNAndPageOneCarriesTheVerdict(@TempDir Path dir) throws Exception {
-        Optional<Path> chromium = chromium();
+        Optional<Path> chromium = HeadlessChromium.find();
         assumeTrue(chromium.isPresent(), "chromium is not installed (apt-get install chromium); print test skipped");
         Path out = dir.resolve("report");
         // the identification filled in (issue 14): page 1 at its longest still carries it all
@@ -83,17 +83,5 @@ class ChromiumPrintTest {
         stripper.setStartPage(page);
         stripper.setEndPage(page);
         return stripper.getText(document);
-    }
-
-    private static Optional<Path> chromium() {
-        for (String name : new String[]{"chromium", "chromium-browser"}) {
-            for (String folder : System.getenv().getOrDefault("PATH", "/usr/bin").split(":")) {
-                Path candidate = Path.of(folder, name);
-                if (Files.isExecutable(candidate)) {
-                    return Optional.of(candidate);
-                }
-            }
-        }
-        return Optional.empty();
     }
 }

@@ -26,7 +26,7 @@ class ChromiumRenderTest {
 
     @Test
     void reportRendersWithContent(@TempDir Path dir) throws Exception {
-        Optional<Path> chromium = chromium();
+        Optional<Path> chromium = HeadlessChromium.find();
         assumeTrue(chromium.isPresent(), "chromium is not installed (apt-get install chromium); render test skipped");
         Path out = dir.resolve("report");
         new TestReportWriter().write(DemoResult.shared(), out, false, false, Instant.parse("2026-03-14T09:30:00Z"));
@@ -67,18 +67,6 @@ class ChromiumRenderTest {
         // (a blank or error page has almost none); the blue title and rules show the CSS applied
         assertTrue(ink > WIDTH * HEIGHT / 50, "inked pixels " + ink);
         assertTrue(accent > 500, "accent-coloured pixels " + accent);
-    }
-
-    private static Optional<Path> chromium() {
-        for (String name : new String[]{"chromium", "chromium-browser"}) {
-            for (String folder : System.getenv().getOrDefault("PATH", "/usr/bin").split(":")) {
-                Path candidate = Path.of(folder, name);
-                if (Files.isExecutable(candidate)) {
-                    return Optional.of(candidate);
-                }
-            }
-        }
-        return Optional.empty();
     }
 
     private static String tail(Path log) {
