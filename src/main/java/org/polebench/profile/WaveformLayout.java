@@ -7,10 +7,12 @@ import java.util.List;
  *
  * @param delimiter       what separates the cells of a sample row
  * @param decimalComma    true when numbers use a comma as the decimal mark
- * @param headerLines     how many lines at the top of a record are header (searched for the
- *                        sample interval, the frequency and the profile's signature)
- * @param commentPrefixes after the header, lines starting with one of these (and blank lines)
- *                        are skipped; their text is searched as the header's is
+ * @param headerLines     how many lines at the top of a record, comment and blank lines not
+ *                        counted, are header (searched for the sample interval, the frequency
+ *                        and the profile's signature)
+ * @param commentPrefixes lines starting with one of these (and blank lines) are skipped
+ *                        wherever they are; before the samples their text is searched as the
+ *                        header's is
  * @param files           the glob that picks a folder's record files, such as {@code *.csv}
  */
 public record WaveformLayout(Delimiter delimiter, boolean decimalComma, int headerLines, List<String> commentPrefixes,

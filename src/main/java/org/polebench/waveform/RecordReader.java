@@ -30,7 +30,8 @@ import org.polebench.units.StrictNumber;
 
 /**
  * Reads one waveform record file through a waveform profile: the header lines (searched for the
- * sample interval and the stated frequency), then one sample row per line, of which only the
+ * sample interval and the stated frequency; comment and blank lines are searched too and do not
+ * count as header lines), then one sample row per line, of which only the
  * time, input and output cells are parsed. Samples go into growing arrays, so memory is that of
  * one record. Sample times from a time column must be evenly spaced (the fits assume it).
  */
@@ -65,6 +66,7 @@ final class RecordReader {
         int firstLine = 0;
         boolean contiguous = true;
         int lastLine = 0;
+        int headerSeen = 0;
         double[] cells = new double[widest + 1];
         try (InputStream raw = Files.newInputStream(file);
              java.security.DigestInputStream hashed = new java.security.DigestInputStream(raw, sha256)) {
@@ -75,14 +77,18 @@ final class RecordReader {
             int lineNo = 0;
             while ((line = reader.readLine()) != null) {
                 lineNo++;
-                if (lineNo <= layout.headerLines()) {
-                    headerText.add(lineNo == 1 && line.startsWith("\uFEFF") ? line.substring(1) : line);
-                    continue;
+                if (lineNo == 1 && line.startsWith("\uFEFF")) {
+                    line = line.substring(1);
                 }
                 if (line.isBlank() || commented(line, layout.commentPrefixes())) {
                     if (count == 0 && headerText.size() < 1000) {
                         headerText.add(line);
                     }
+                    continue;
+                }
+                if (headerSeen < layout.headerLines()) {
+                    headerSeen++;
+                    headerText.add(line);
                     continue;
                 }
                 cut(file, lineNo, line, delimiter, spaces, layout.decimalComma(), cells, widest);
