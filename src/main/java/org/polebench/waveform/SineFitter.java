@@ -52,7 +52,7 @@ public final class SineFitter {
         for (int k = 0; k < 2; k++) {
             p[k] = solve3(sums, k);
         }
-        return result(record, w, p, false, 0, sums);
+        return result(record, w, p, false, 0, sums, frequencyHz);
     }
 
     /**
@@ -78,7 +78,7 @@ public final class SineFitter {
         Sums sums = new Sums();
         accumulate(record, first.w, sums);
         double[][] p = {solve3(sums, 0), solve3(sums, 1)};
-        return result(record, first.w, p, true, first.iterations, sums);
+        return result(record, first.w, p, true, first.iterations, sums, Double.NaN);
     }
 
     private static void checkLength(WaveformRecord record) throws InputProblem {
@@ -162,7 +162,9 @@ public final class SineFitter {
         return best;
     }
 
-    private RecordFit result(WaveformRecord record, double w, double[][] p, boolean free, int iterations, Sums sums) {
+    /** @param statedHz the stated frequency, reported as given; NaN when fitted */
+    private RecordFit result(WaveformRecord record, double w, double[][] p, boolean free, int iterations, Sums sums,
+                             double statedHz) {
         int n = record.length();
         double[] rss = residuals(record, w, p);
         double dof = n - (free ? 4 : 3);
@@ -223,7 +225,7 @@ public final class SineFitter {
         double uTheta = Math.sqrt(quadratic(gradTheta, cov));
         double gainDb = 20 * Math.log10(sines[1].amplitudeVolts() / sines[0].amplitudeVolts());
         double theta = Math.atan2(-p[1][1], p[1][0]) - Math.atan2(-p[0][1], p[0][0]);
-        double frequencyHz = w / (TWO_PI * duration);
+        double frequencyHz = free ? w / (TWO_PI * duration) : statedHz;
         double uFrequency = free ? Math.sqrt(Math.max(cov[6][6], 0)) / (TWO_PI * duration) : 0;
         return new RecordFit(frequencyHz, uFrequency, free, sines[0], sines[1], gainDb,
                 20 / Math.log(10) * uLnG, Math.toDegrees(fold(theta)), Math.toDegrees(uTheta), iterations);
