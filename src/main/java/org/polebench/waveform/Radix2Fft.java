@@ -45,15 +45,27 @@ final class Radix2Fft {
                 im[j] = t;
             }
         }
-        // one table of twiddles e^(−j2πk/N), k < N/2, each from Math.cos and Math.sin (no recurrence,
-        // so no rounding grows along the table); a stage of length L takes every (N/L)-th
+        // one table of twiddles e^(−j2πk/N), k < N/2: Math.cos and Math.sin for the first eighth
+        // of the turn and the rest by the quarter-turn symmetries (exact), so no rounding grows
+        // along the table; a stage of length L takes every (N/L)-th
         int halfN = n >> 1;
+        int quarter = n >> 2;
         double[] cos = new double[Math.max(halfN, 1)];
         double[] sin = new double[Math.max(halfN, 1)];
-        for (int k = 0; k < halfN; k++) {
-            double angle = -2 * Math.PI * k / n;
+        for (int k = 0; k <= n >> 3 && k < halfN; k++) {
+            double angle = 2 * Math.PI * k / n;
             cos[k] = Math.cos(angle);
-            sin[k] = Math.sin(angle);
+            sin[k] = -Math.sin(angle);
+        }
+        for (int k = (n >> 3) + 1; k <= quarter && k < halfN; k++) {
+            // angle = π/2 − angle(quarter − k)
+            cos[k] = -sin[quarter - k];
+            sin[k] = -cos[quarter - k];
+        }
+        for (int k = quarter + 1; k < halfN; k++) {
+            // angle = π/2 + angle(k − quarter)
+            cos[k] = sin[k - quarter];
+            sin[k] = -cos[k - quarter];
         }
         for (int length = 2; length <= n; length <<= 1) {
             int half = length >> 1;

@@ -75,10 +75,9 @@ public final class SineFitter {
                     + String.format(java.util.Locale.ROOT, "%.6g", startHz) + " Hz",
                     "check that the record holds one sine of a steady frequency, or state the frequency");
         }
-        Sums sums = new Sums();
-        accumulate(record, first.w, sums);
-        double[][] p = {solve3(sums, 0), solve3(sums, 1)};
-        return result(record, first.w, p, true, first.iterations, sums, Double.NaN);
+        // the last step was a thousandth of w's uncertainty or less: the parameters it solved for
+        // and the sums of the step before stand for the converged ones, which saves a pass
+        return result(record, first.w, first.p, true, first.iterations, first.sums, Double.NaN);
     }
 
     private static void checkLength(WaveformRecord record) throws InputProblem {
@@ -88,8 +87,9 @@ public final class SineFitter {
         }
     }
 
-    /** The result of the four-parameter iteration: the scaled frequency and how many steps it took. */
-    private record Iterated(double w, int iterations) {
+    /** The result of the four-parameter iteration: the scaled frequency, the channels' (a, b, d), the sums
+     * of the last pass, and how many steps it took. */
+    private record Iterated(double w, double[][] p, Sums sums, int iterations) {
     }
 
     private Iterated iterate(WaveformRecord record, double w0) {
@@ -124,14 +124,17 @@ public final class SineFitter {
                 p[k] = new double[] {x[3 * k], x[3 * k + 1], x[3 * k + 2]};
             }
             double size = Math.abs(step);
-            if (size <= 1e-12 * Math.max(w, TWO_PI)) {
-                return new Iterated(w, iteration);
+            // converged once the step is negligible against w itself, or against w's own standard
+            // uncertainty (a thousandth of it changes nothing the fit reports)
+            if (size <= 1e-12 * Math.max(w, TWO_PI) || size <= 1e-3 * Math.sqrt(x[7])) {
+                return new Iterated(w, p, sums, iteration);
             }
             // rounding keeps the last steps from shrinking further: converged once they are a
             // millionth of a bin and no longer halve
             stalled = size > 0.5 * lastStep ? stalled + 1 : 0;
             if (stalled >= 3 && size < 1e-6 * TWO_PI) {
-                return new Iterated(w, iteration);
+                accumulate(record, w, sums);
+                return new Iterated(w, new double[][] {solve3(sums, 0), solve3(sums, 1)}, sums, iteration);
             }
             lastStep = size;
             accumulate(record, w, sums);
@@ -233,24 +236,31 @@ public final class SineFitter {
 
     /** @return each channel's residual sum of squares at the fitted parameters, summed explicitly */
     private static double[] residuals(WaveformRecord record, double w, double[][] p) {
-        double[] rss = new double[2];
         double[] in = record.inputSamples();
         double[] out = record.outputSamples();
         int n = in.length;
-        Rotation r = new Rotation(w, n);
+        double invN = 1.0 / n;
+        double middle = (n - 1) / 2.0;
+        double stepCos = Math.cos(w * invN);
+        double stepSin = Math.sin(w * invN);
         double r0 = 0;
         double r1 = 0;
-        for (int i = 0; i < n; i++) {
-            r.at(i);
-            double e0 = in[i] - (p[0][0] * r.c + p[0][1] * r.s + p[0][2]);
-            double e1 = out[i] - (p[1][0] * r.c + p[1][1] * r.s + p[1][2]);
-            r0 += e0 * e0;
-            r1 += e1 * e1;
-            r.next();
+        for (int start = 0; start < n; start += RESYNC) {
+            double theta0 = w * ((start - middle) * invN);
+            double c = Math.cos(theta0);
+            double s = Math.sin(theta0);
+            int end = Math.min(n, start + RESYNC);
+            for (int i = start; i < end; i++) {
+                double e0 = in[i] - (p[0][0] * c + p[0][1] * s + p[0][2]);
+                double e1 = out[i] - (p[1][0] * c + p[1][1] * s + p[1][2]);
+                r0 += e0 * e0;
+                r1 += e1 * e1;
+                double next = c * stepCos - s * stepSin;
+                s = s * stepCos + c * stepSin;
+                c = next;
+            }
         }
-        rss[0] = r0;
-        rss[1] = r1;
-        return rss;
+        return new double[] {r0, r1};
     }
 
     /**
@@ -277,55 +287,62 @@ public final class SineFitter {
         int n = in.length;
         double invN = 1.0 / n;
         double middle = (n - 1) / 2.0;
+        double stepCos = Math.cos(w * invN);
+        double stepSin = Math.sin(w * invN);
         double cc = 0, ss = 0, cs = 0, c1 = 0, s1 = 0;
         double xcc = 0, xss = 0, xcs = 0, xc = 0, xs = 0;
         double x2cc = 0, x2ss = 0, x2cs = 0;
         double y0c = 0, y0s = 0, y0 = 0, y0y = 0, x0c = 0, x0s = 0;
         double y1c = 0, y1s = 0, y1 = 0, y1y = 0, x1c = 0, x1s = 0;
-        Rotation r = new Rotation(w, n);
-        for (int i = 0; i < n; i++) {
-            r.at(i);
-            double c = r.c;
-            double s = r.s;
-            double x = (i - middle) * invN;
-            double c2 = c * c;
-            double s2 = s * s;
-            double csp = c * s;
-            cc += c2;
-            ss += s2;
-            cs += csp;
-            c1 += c;
-            s1 += s;
-            double xc2 = x * c2;
-            double xs2 = x * s2;
-            double xcs1 = x * csp;
-            xcc += xc2;
-            xss += xs2;
-            xcs += xcs1;
-            xc += x * c;
-            xs += x * s;
-            x2cc += x * xc2;
-            x2ss += x * xs2;
-            x2cs += x * xcs1;
-            double a = in[i];
-            double b = op[i];
-            double ac = a * c;
-            double as = a * s;
-            double bc = b * c;
-            double bs = b * s;
-            y0c += ac;
-            y0s += as;
-            y0 += a;
-            y0y += a * a;
-            x0c += x * ac;
-            x0s += x * as;
-            y1c += bc;
-            y1s += bs;
-            y1 += b;
-            y1y += b * b;
-            x1c += x * bc;
-            x1s += x * bs;
-            r.next();
+        // blocks of RESYNC samples: each block starts from Math.cos and Math.sin, then rotates
+        for (int start = 0; start < n; start += RESYNC) {
+            double theta0 = w * ((start - middle) * invN);
+            double c = Math.cos(theta0);
+            double s = Math.sin(theta0);
+            int end = Math.min(n, start + RESYNC);
+            for (int i = start; i < end; i++) {
+                double x = (i - middle) * invN;
+                double c2 = c * c;
+                double s2 = s * s;
+                double csp = c * s;
+                cc += c2;
+                ss += s2;
+                cs += csp;
+                c1 += c;
+                s1 += s;
+                double xc2 = x * c2;
+                double xs2 = x * s2;
+                double xcs1 = x * csp;
+                xcc += xc2;
+                xss += xs2;
+                xcs += xcs1;
+                xc += x * c;
+                xs += x * s;
+                x2cc += x * xc2;
+                x2ss += x * xs2;
+                x2cs += x * xcs1;
+                double a = in[i];
+                double b = op[i];
+                double ac = a * c;
+                double as = a * s;
+                double bc = b * c;
+                double bs = b * s;
+                y0c += ac;
+                y0s += as;
+                y0 += a;
+                y0y += a * a;
+                x0c += x * ac;
+                x0s += x * as;
+                y1c += bc;
+                y1s += bs;
+                y1 += b;
+                y1y += b * b;
+                x1c += x * bc;
+                x1s += x * bs;
+                double next = c * stepCos - s * stepSin;
+                s = s * stepCos + c * stepSin;
+                c = next;
+            }
         }
         out.n = n;
         out.cc = cc;
@@ -390,6 +407,7 @@ public final class SineFitter {
         return new Array2DRowRealMatrix(m, false);
     }
 
+    /** @return (a₀, b₀, d₀, a₁, b₁, d₁, Δw) and, eighth, var(w) at these weights; null when singular */
     private static double[] solve7(Sums s, double[][] p, double[] weight) {
         double[] rhs = new double[7];
         for (int k = 0; k < 2; k++) {
@@ -398,11 +416,15 @@ public final class SineFitter {
             rhs[3 * k + 2] = weight[k] * s.y[k];
             rhs[6] += weight[k] * (-p[k][0] * s.xys[k] + p[k][1] * s.xyc[k]);
         }
-        LUDecomposition lu = new LUDecomposition(normal7(s, p, weight));
-        if (!lu.getSolver().isNonSingular()) {
+        DecompositionSolver solver = new LUDecomposition(normal7(s, p, weight)).getSolver();
+        if (!solver.isNonSingular()) {
             return null;
         }
-        double[] x = lu.getSolver().solve(new ArrayRealVector(rhs, false)).toArray();
+        double[] x = java.util.Arrays.copyOf(solver.solve(new ArrayRealVector(rhs, false)).toArray(), 8);
+        // the weights are 1/σ² of each channel, so the inverse's last diagonal element is var(w)
+        double[] unitW = new double[7];
+        unitW[6] = 1;
+        x[7] = Math.max(solver.solve(new ArrayRealVector(unitW, false)).getEntry(6), 0);
         for (double v : x) {
             if (!Double.isFinite(v)) {
                 return null;

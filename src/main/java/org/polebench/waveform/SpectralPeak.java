@@ -10,8 +10,9 @@ import org.polebench.InputProblem;
  * channels go through one complex FFT (the input as the real part, the output as the imaginary
  * part, each scaled to unit power and with its mean removed) and are separated by the symmetry
  * of a real signal's transform (E. O. Brigham, The Fast Fourier Transform and Its Applications,
- * 1988, on transforming two real functions at once; from memory). The record is zero-padded to
- * a power of two, which leaves the estimator a small bias the fit then removes.
+ * 1988, on transforming two real functions at once; from memory). Only the record's first 2^k
+ * samples are transformed (2^k the largest power of two it holds), which costs the start a
+ * little resolution the fit then recovers.
  */
 final class SpectralPeak {
     private SpectralPeak() {
@@ -19,8 +20,11 @@ final class SpectralPeak {
 
     /** @throws InputProblem when neither channel varies, so no frequency can be seen */
     static double estimateHz(WaveformRecord record) throws InputProblem {
-        int n = record.length();
-        int size = Radix2Fft.size(n);
+        // the largest power of two the record holds: its first `size` samples, at least half of it,
+        // are transformed unpadded, which halves the work of padding up and leaves the start
+        // within a fraction of the record's own bin, from where the fit converges
+        int size = Integer.highestOneBit(record.length());
+        int n = size;
         double[] re = new double[size];
         double[] im = new double[size];
         double[] in = record.inputSamples();
