@@ -1,12 +1,8 @@
 package org.polebench.waveform;
 
-import java.io.BufferedReader;
 import java.io.IOException;
 import java.io.InputStream;
-import java.io.InputStreamReader;
 import java.io.UncheckedIOException;
-import java.nio.charset.CharsetDecoder;
-import java.nio.charset.CodingErrorAction;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.NoSuchFileException;
@@ -38,6 +34,8 @@ import org.polebench.units.StrictNumber;
 final class RecordReader {
     /** A time column may stray this far, in sample intervals, from the even grid (scope timestamps are rounded). */
     static final double TIME_JITTER_INTERVALS = 0.25;
+    /** A record line longer than this is not a sample row (a binary file read by mistake). */
+    static final int MAX_LINE_BYTES = 1 << 20;
 
     private final WaveformProfile profile;
 
@@ -68,30 +66,76 @@ final class RecordReader {
         int lastLine = 0;
         int headerSeen = 0;
         double[] cells = new double[widest + 1];
+        byte[][] prefixes = new byte[layout.commentPrefixes().size()][];
+        for (int k = 0; k < prefixes.length; k++) {
+            prefixes[k] = layout.commentPrefixes().get(k).getBytes(StandardCharsets.UTF_8);
+        }
+        byte delimiterByte = (byte) delimiter;
+        Bytes view = new Bytes();
         try (InputStream raw = Files.newInputStream(file);
              java.security.DigestInputStream hashed = new java.security.DigestInputStream(raw, sha256)) {
-            CharsetDecoder decoder = StandardCharsets.UTF_8.newDecoder()
-                    .onMalformedInput(CodingErrorAction.REPLACE).onUnmappableCharacter(CodingErrorAction.REPLACE);
-            BufferedReader reader = new BufferedReader(new InputStreamReader(hashed, decoder), 1 << 16);
-            String line;
+            // lines are cut from the bytes in place (sample rows are ASCII): no decoding and no
+            // String per row, which is most of the time of a 100,000-row record
+            byte[] buffer = new byte[1 << 16];
+            int filled = 0;
+            int lineStart = 0;
             int lineNo = 0;
-            while ((line = reader.readLine()) != null) {
-                lineNo++;
-                if (lineNo == 1 && line.startsWith("\uFEFF")) {
-                    line = line.substring(1);
+            boolean eof = false;
+            while (true) {
+                int newline = -1;
+                for (int i = lineStart; i < filled; i++) {
+                    if (buffer[i] == '\n') {
+                        newline = i;
+                        break;
+                    }
                 }
-                if (line.isBlank() || commented(line, layout.commentPrefixes())) {
+                if (newline < 0 && !eof) {
+                    // keep the partial line, refill behind it (growing the buffer for a long line)
+                    int partial = filled - lineStart;
+                    if (partial == buffer.length) {
+                        if (buffer.length >= MAX_LINE_BYTES) {
+                            throw new InputProblem(file, lineNo + 1, "a line is longer than " + MAX_LINE_BYTES
+                                    + " bytes", "check that this is a waveform record with one sample a line");
+                        }
+                        buffer = Arrays.copyOf(buffer, buffer.length * 2);
+                    } else if (lineStart > 0) {
+                        System.arraycopy(buffer, lineStart, buffer, 0, partial);
+                    }
+                    filled = partial;
+                    lineStart = 0;
+                    int read = hashed.read(buffer, filled, buffer.length - filled);
+                    if (read < 0) {
+                        eof = true;
+                    } else {
+                        filled += read;
+                    }
+                    continue;
+                }
+                int lineEnd = newline >= 0 ? newline : filled;
+                if (newline < 0 && lineStart == filled) {
+                    break;
+                }
+                lineNo++;
+                int from = lineStart;
+                int to = lineEnd > from && buffer[lineEnd - 1] == '\r' ? lineEnd - 1 : lineEnd;
+                lineStart = newline >= 0 ? newline + 1 : filled;
+                if (lineNo == 1 && to - from >= 3 && (buffer[from] & 0xff) == 0xEF && (buffer[from + 1] & 0xff) == 0xBB
+                        && (buffer[from + 2] & 0xff) == 0xBF) {
+                    from += 3;
+                }
+                if (blank(buffer, from, to) || commented(buffer, from, to, prefixes)) {
                     if (count == 0 && headerText.size() < 1000) {
-                        headerText.add(line);
+                        headerText.add(new String(buffer, from, to - from, StandardCharsets.UTF_8));
                     }
                     continue;
                 }
                 if (headerSeen < layout.headerLines()) {
                     headerSeen++;
-                    headerText.add(line);
+                    headerText.add(new String(buffer, from, to - from, StandardCharsets.UTF_8));
                     continue;
                 }
-                cut(file, lineNo, line, delimiter, spaces, layout.decimalComma(), cells, widest);
+                view.bytes = buffer;
+                cut(file, lineNo, view, from, to, delimiterByte, spaces, layout.decimalComma(), cells, widest);
                 for (int column : new int[] {timeColumn, inColumn, outColumn}) {
                     if (column > 0 && !Double.isFinite(cells[column])) {
                         throw new InputProblem(file, lineNo, "column " + column + " of this sample row is not a number",
@@ -200,27 +244,62 @@ final class RecordReader {
         }
     }
 
-    private static boolean commented(String line, List<String> prefixes) {
-        for (String prefix : prefixes) {
-            if (line.startsWith(prefix)) {
+    private static boolean blank(byte[] b, int from, int to) {
+        for (int i = from; i < to; i++) {
+            if (b[i] != ' ' && b[i] != '\t') {
+                return false;
+            }
+        }
+        return true;
+    }
+
+    private static boolean commented(byte[] b, int from, int to, byte[][] prefixes) {
+        for (byte[] prefix : prefixes) {
+            if (to - from >= prefix.length && Arrays.equals(b, from, from + prefix.length, prefix, 0, prefix.length)) {
                 return true;
             }
         }
         return false;
     }
 
+    /** A byte array seen as the characters of its Latin-1 reading, for the number parser (rows are ASCII). */
+    private static final class Bytes implements CharSequence {
+        byte[] bytes;
+
+        @Override
+        public int length() {
+            return bytes.length;
+        }
+
+        @Override
+        public char charAt(int index) {
+            return (char) (bytes[index] & 0xff);
+        }
+
+        @Override
+        public CharSequence subSequence(int start, int end) {
+            return new String(bytes, start, end - start, StandardCharsets.ISO_8859_1);
+        }
+
+        @Override
+        public String toString() {
+            return new String(bytes, StandardCharsets.ISO_8859_1);
+        }
+    }
+
     /**
      * Cuts one sample row and parses its cells up to {@code widest} (1-based) into {@code cells};
      * cells beyond are not looked at. Double quotes around a cell are dropped.
      */
-    private static void cut(Path file, int lineNo, String line, char delimiter, boolean spaces, boolean decimalComma,
-                            double[] cells, int widest) throws InputProblem {
-        int length = line.length();
+    private static void cut(Path file, int lineNo, Bytes line, int start, int end, byte delimiter, boolean spaces,
+                            boolean decimalComma, double[] cells, int widest) throws InputProblem {
+        byte[] b = line.bytes;
+        int length = end;
         int column = 0;
-        int i = 0;
+        int i = start;
         while (column < widest) {
             if (spaces) {
-                while (i < length && (line.charAt(i) == ' ' || line.charAt(i) == '\t')) {
+                while (i < length && (b[i] == ' ' || b[i] == '\t')) {
                     i++;
                 }
             }
@@ -228,18 +307,18 @@ final class RecordReader {
                 break;
             }
             int from = i;
-            while (i < length && (spaces ? line.charAt(i) != ' ' && line.charAt(i) != '\t' : line.charAt(i) != delimiter)) {
+            while (i < length && (spaces ? b[i] != ' ' && b[i] != '\t' : b[i] != delimiter)) {
                 i++;
             }
             int to = i;
             column++;
-            while (from < to && line.charAt(from) == ' ') {
+            while (from < to && b[from] == ' ') {
                 from++;
             }
-            while (to > from && line.charAt(to - 1) == ' ') {
+            while (to > from && b[to - 1] == ' ') {
                 to--;
             }
-            if (to - from >= 2 && line.charAt(from) == '"' && line.charAt(to - 1) == '"') {
+            if (to - from >= 2 && b[from] == '"' && b[to - 1] == '"') {
                 from++;
                 to--;
             }
