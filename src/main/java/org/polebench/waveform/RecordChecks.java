@@ -199,33 +199,49 @@ public final class RecordChecks {
         double[] in = record.inputSamples();
         double[] out = record.outputSamples();
         for (int h = 2; h <= HIGHEST_HARMONIC && h * w < Math.PI * n; h++) {
-            SineFitter.Rotation base = new SineFitter.Rotation(w, n);
-            SineFitter.Rotation harmonic = new SineFitter.Rotation(h * w, n);
+            double invN = 1.0 / n;
+            double middleIndex = (n - 1) / 2.0;
+            double baseCos = Math.cos(w * invN);
+            double baseSin = Math.sin(w * invN);
+            double stepCos = Math.cos(h * w * invN);
+            double stepSin = Math.sin(h * w * invN);
             double cc = 0, ss = 0, cs = 0, c1 = 0, s1 = 0;
-            double[] rc = new double[2];
-            double[] rs = new double[2];
-            double[] r1 = new double[2];
-            for (int i = 0; i < n; i++) {
-                base.at(i);
-                harmonic.at(i);
-                double c = harmonic.c;
-                double s = harmonic.s;
-                cc += c * c;
-                ss += s * s;
-                cs += c * s;
-                c1 += c;
-                s1 += s;
-                double e0 = in[i] - (fundamental[0][0] * base.c + fundamental[0][1] * base.s + fundamental[0][2]);
-                double e1 = out[i] - (fundamental[1][0] * base.c + fundamental[1][1] * base.s + fundamental[1][2]);
-                rc[0] += e0 * c;
-                rs[0] += e0 * s;
-                r1[0] += e0;
-                rc[1] += e1 * c;
-                rs[1] += e1 * s;
-                r1[1] += e1;
-                base.next();
-                harmonic.next();
+            double rc0 = 0, rs0 = 0, r10 = 0, rc1 = 0, rs1 = 0, r11 = 0;
+            double a0 = fundamental[0][0], b0 = fundamental[0][1], d0 = fundamental[0][2];
+            double a1 = fundamental[1][0], b1 = fundamental[1][1], d1 = fundamental[1][2];
+            // blocks of 256 samples, each started from Math.cos and Math.sin (as SineFitter's sums)
+            for (int start = 0; start < n; start += 256) {
+                double theta = w * ((start - middleIndex) * invN);
+                double bc = Math.cos(theta);
+                double bs = Math.sin(theta);
+                double c = Math.cos(h * theta);
+                double s = Math.sin(h * theta);
+                int end = Math.min(n, start + 256);
+                for (int i = start; i < end; i++) {
+                    cc += c * c;
+                    ss += s * s;
+                    cs += c * s;
+                    c1 += c;
+                    s1 += s;
+                    double e0 = in[i] - (a0 * bc + b0 * bs + d0);
+                    double e1 = out[i] - (a1 * bc + b1 * bs + d1);
+                    rc0 += e0 * c;
+                    rs0 += e0 * s;
+                    r10 += e0;
+                    rc1 += e1 * c;
+                    rs1 += e1 * s;
+                    r11 += e1;
+                    double nb = bc * baseCos - bs * baseSin;
+                    bs = bs * baseCos + bc * baseSin;
+                    bc = nb;
+                    double nc = c * stepCos - s * stepSin;
+                    s = s * stepCos + c * stepSin;
+                    c = nc;
+                }
             }
+            double[] rc = {rc0, rc1};
+            double[] rs = {rs0, rs1};
+            double[] r1 = {r10, r11};
             SineFitter.Sums sums = new SineFitter.Sums();
             sums.n = n;
             sums.cc = cc;

@@ -136,11 +136,11 @@ final class RecordReader {
                 }
                 view.bytes = buffer;
                 cut(file, lineNo, view, from, to, delimiterByte, spaces, layout.decimalComma(), cells, widest);
-                for (int column : new int[] {timeColumn, inColumn, outColumn}) {
-                    if (column > 0 && !Double.isFinite(cells[column])) {
-                        throw new InputProblem(file, lineNo, "column " + column + " of this sample row is not a number",
-                                "check the profile's header-lines, delimiter and decimal-mark against the record");
-                    }
+                if (!Double.isFinite(cells[inColumn] + cells[outColumn] + (timeColumn > 0 ? cells[timeColumn] : 0))) {
+                    int column = !Double.isFinite(cells[inColumn]) ? inColumn
+                            : !Double.isFinite(cells[outColumn]) ? outColumn : timeColumn;
+                    throw new InputProblem(file, lineNo, "column " + column + " of this sample row is not a number",
+                            "check the profile's header-lines, delimiter and decimal-mark against the record");
                 }
                 if (count == in.length) {
                     int grown = count * 2;

@@ -458,41 +458,4 @@ public final class SineFitter {
         double folded = radians - TWO_PI * Math.floor(radians / TWO_PI);
         return folded > Math.PI ? folded - TWO_PI : folded;
     }
-
-    /**
-     * cos θᵢ and sin θᵢ for θᵢ = w·(i − (n−1)/2)/n, by one rotation a sample, recomputed with
-     * Math.cos and Math.sin every {@value #RESYNC} samples.
-     */
-    static final class Rotation {
-        private final double w;
-        private final double middle;
-        private final double invN;
-        private final double stepCos;
-        private final double stepSin;
-        double c;
-        double s;
-
-        Rotation(double w, int n) {
-            this.w = w;
-            this.middle = (n - 1) / 2.0;
-            this.invN = 1.0 / n;
-            this.stepCos = Math.cos(w * invN);
-            this.stepSin = Math.sin(w * invN);
-        }
-
-        /** Recomputes exactly at every {@value #RESYNC}-th sample; call before reading c and s. */
-        void at(int i) {
-            if ((i & (RESYNC - 1)) == 0) {
-                double theta = w * ((i - middle) * invN);
-                c = Math.cos(theta);
-                s = Math.sin(theta);
-            }
-        }
-
-        void next() {
-            double c1 = c * stepCos - s * stepSin;
-            s = s * stepCos + c * stepSin;
-            c = c1;
-        }
-    }
 }
