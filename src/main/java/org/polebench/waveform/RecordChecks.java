@@ -7,6 +7,7 @@ import java.util.Optional;
 import java.util.OptionalDouble;
 import org.polebench.InputWarning;
 import org.polebench.profile.SampleCoding;
+import org.polebench.units.MeasuredValueFormat;
 
 /**
  * The checks of one fitted record (docs/method.md, "Checks of each record"), each a warning
@@ -45,8 +46,8 @@ public final class RecordChecks {
         for (int k = 0; k < 2; k++) {
             FittedSine sine = k == 0 ? fit.input() : fit.output();
             if (!(sine.snrDb() > NOISE_DROP_DB)) {
-                return Optional.of(String.format(Locale.ROOT, "the %s channel's sine (%.3g V) is not above its noise "
-                        + "(σ %.3g V)", k == 0 ? "input" : "output", sine.amplitudeVolts(), sine.noiseSigmaVolts()));
+                return Optional.of(String.format(Locale.ROOT, "the %s channel's sine (%s) is not above its noise "
+                        + "(σ %s)", k == 0 ? "input" : "output", volts(sine.amplitudeVolts()), volts(sine.noiseSigmaVolts())));
             }
         }
         if (!Double.isFinite(fit.gainDb()) || !Double.isFinite(fit.phaseDeg())) {
@@ -96,9 +97,9 @@ public final class RecordChecks {
         double bottom = sine.offsetVolts() - sine.amplitudeVolts();
         if (top > high.getAsDouble() || bottom < low.getAsDouble()) {
             return Optional.of(new InputWarning(record.file(), 0, String.format(Locale.ROOT,
-                    "the %s channel's DC offset %.4g V takes the sine (%.4g V peak) beyond the channel's range "
-                            + "%.4g V to %.4g V", channel, sine.offsetVolts(), sine.amplitudeVolts(),
-                    low.getAsDouble(), high.getAsDouble())));
+                    "the %s channel's DC offset %s takes the sine (%s peak) beyond the channel's range %s to %s",
+                    channel, volts(sine.offsetVolts()), volts(sine.amplitudeVolts()), volts(low.getAsDouble()),
+                    volts(high.getAsDouble()))));
         }
         return Optional.empty();
     }
@@ -148,10 +149,15 @@ public final class RecordChecks {
         return Optional.empty();
     }
 
-    private static InputWarning warning(WaveformRecord record, String channel, Run run, double volts, String where) {
+    /** Volts for people: four figures with an SI prefix and a true minus sign (units/MeasuredValueFormat). */
+    private static String volts(double value) {
+        return MeasuredValueFormat.engineering(value, "V", 4);
+    }
+
+    private static InputWarning warning(WaveformRecord record, String channel, Run run, double level, String where) {
         return new InputWarning(record.file(), record.lineOf(run.start), String.format(Locale.ROOT,
-                "the %s channel is clipped: %d samples in a row %s (%.4g V) from sample %d; its amplitude, "
-                        + "and so the gain, reads low", channel, run.length, where, volts, run.start + 1));
+                "the %s channel is clipped: %d samples in a row %s (%s) from sample %d; its amplitude, "
+                        + "and so the gain, reads low", channel, run.length, where, volts(level), run.start + 1));
     }
 
     private record Run(int start, int length) {

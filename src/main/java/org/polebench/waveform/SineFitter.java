@@ -6,11 +6,12 @@ import org.apache.commons.math3.linear.DecompositionSolver;
 import org.apache.commons.math3.linear.LUDecomposition;
 import org.apache.commons.math3.linear.RealMatrix;
 import org.polebench.InputProblem;
+import org.polebench.units.MeasuredValueFormat;
 
 /**
  * The sine fits of IEEE Std 1057-2017 (IEEE Standard for Digitizing Waveform Recorders, clause 8,
- * "sine fitting"), applied to both channels of a record at one frequency (docs/method.md, "Sine
- * fitting of scope records"):
+ * "sine fitting"), applied to both channels of a record at one frequency
+ * (docs/method.md, "Sine fitting of scope records"):
  *
  * <ul>
  * <li>the three-parameter fit: with the frequency known, y ≈ a·cos ωt + b·sin ωt + d is linear in
@@ -72,7 +73,7 @@ public final class SineFitter {
         }
         if (first == null) {
             throw new InputProblem(record.file(), 0, "the four-parameter sine fit did not converge from "
-                    + String.format(java.util.Locale.ROOT, "%.6g", startHz) + " Hz",
+                    + MeasuredValueFormat.engineering(startHz, "Hz", 6),
                     "check that the record holds one sine of a steady frequency, or state the frequency");
         }
         // the last step was a thousandth of w's uncertainty or less: the parameters it solved for

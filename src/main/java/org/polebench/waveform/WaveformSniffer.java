@@ -59,8 +59,8 @@ public final class WaveformSniffer {
         Path where = first != null ? first : paths.get(0);
         if (matching.isEmpty()) {
             throw new InputProblem(where, 0, "no waveform profile recognises these records (tried " + names + ")",
-                    "name one with --profile, or write a waveform profile for this layout (docs/user-guide.md, "
-                            + "\"Scope waveform records\")");
+                    "name one with --profile, or write a waveform profile for this layout "
+                            + "(docs/user-guide.md, \"Scope waveform records\")");
         }
         throw new InputProblem(where, 0, "more than one waveform profile recognises these records: "
                 + String.join(", ", matching.stream().map(WaveformProfile::name).toList()), "name one with --profile");
