@@ -6,6 +6,7 @@ import java.io.IOException;
 import java.io.PrintWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.List;
 import java.util.concurrent.Callable;
 import org.polebench.InputProblem;
 import org.polebench.bench.Bench;
@@ -37,8 +38,9 @@ final class FitCommand implements Callable<Integer> {
     @Spec
     CommandSpec spec;
 
-    @Parameters(index = "0", paramLabel = "SWEEP", description = "the sweep file: CSV or other table, or a serial log")
-    Path sweepFile;
+    @Parameters(index = "0", arity = "1..*", paramLabel = "SWEEP", description = "the sweep file: CSV or other table, "
+            + "or a serial log; or a folder or list of scope waveform records, one per frequency")
+    List<Path> sweepFiles;
 
     @Mixin
     SweepLayoutOption layout = new SweepLayoutOption();
@@ -74,14 +76,14 @@ final class FitCommand implements Callable<Integer> {
                     "name another file, or add --force to replace it");
         }
         Bench bench = benchFile == null ? null : new BenchReader().read(benchFile);
-        ImportedSweep imported = layout.read(sweepFile);
+        ImportedSweep imported = layout.read(sweepFiles);
         FitSettings settings = FitSettings.defaults().withMaxPoles(maxPoles);
         if (band != null) {
             settings = settings.withBand(FitBand.parse(band));
         }
         FitResult result = new SweepFitter(settings).fit(imported.sweep());
         if (plot != null) {
-            BodeChart.ofFit("Bode plot: " + sweepFile.getFileName(), imported.sweep(), result).write(plot);
+            BodeChart.ofFit("Bode plot: " + sweepFiles.get(0).getFileName(), imported.sweep(), result).write(plot);
         }
         PrintWriter out = spec.commandLine().getOut();
         if (json) {
@@ -99,7 +101,7 @@ final class FitCommand implements Callable<Integer> {
             }
             new JsonOutput().print(root, out);
         } else {
-            out.println("sweep:    " + sweepFile + " (" + imported.sweep().size() + " points, profile "
+            out.println("sweep:    " + SweepLayoutOption.label(sweepFiles) + " (" + imported.sweep().size() + " points, profile "
                     + imported.profileName() + ")");
             for (InputWarning warning : imported.warnings()) {
                 out.println("import warning: " + warning.describe());

@@ -26,14 +26,15 @@ import picocli.CommandLine.Spec;
 
 /** {@code polebench inspect SWEEP}: says what was read from a sweep file and what looks wrong with it. */
 @Command(name = "inspect", mixinStandardHelpOptions = true,
-        description = "Reads a sweep (a table or a serial log) and prints the number of points, the band, the "
+        description = "Reads a sweep (a table, a serial log, or a folder of scope waveform records) and prints the number of points, the band, the "
                 + "profile and column mapping used, the midband level, a rough lower -3 dB corner and every warning.")
 public final class InspectCommand implements Callable<Integer> {
     @Spec
     CommandSpec spec;
 
-    @Parameters(index = "0", paramLabel = "SWEEP", description = "the sweep file: CSV or other table, or a serial log")
-    Path sweepFile;
+    @Parameters(index = "0", arity = "1..*", paramLabel = "SWEEP", description = "the sweep file: CSV or other table, "
+            + "or a serial log; or a folder or list of scope waveform records, one per frequency")
+    List<Path> sweepFiles;
 
     @Mixin
     SweepLayoutOption layout = new SweepLayoutOption();
@@ -49,7 +50,7 @@ public final class InspectCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws InputProblem, IOException {
-        ImportedSweep imported = layout.read(sweepFile);
+        ImportedSweep imported = layout.read(sweepFiles);
         LowerCornerEstimate corner = new RoughLowerCorner().estimate(imported.sweep());
         if (export != null) {
             new SweepWriter().writeCanonical(imported.sweep(), export, force);
@@ -67,7 +68,10 @@ public final class InspectCommand implements Callable<Integer> {
     private Map<String, Object> asJson(ImportedSweep imported, LowerCornerEstimate corner) {
         Sweep sweep = imported.sweep();
         Map<String, Object> json = new LinkedHashMap<>();
-        json.put("file", sweepFile.toString());
+        json.put("file", sweepFiles.get(0).toString());
+        if (sweepFiles.size() > 1) {
+            json.put("files", sweepFiles.stream().map(Path::toString).toList());
+        }
         json.put("sha256", sweep.source().sha256());
         json.put("profile", imported.profileName());
         json.put("mapping", imported.mapping());
@@ -98,7 +102,7 @@ public final class InspectCommand implements Callable<Integer> {
 
     private void printText(PrintWriter out, ImportedSweep imported, LowerCornerEstimate corner) {
         Sweep sweep = imported.sweep();
-        out.println("sweep:     " + sweepFile);
+        out.println("sweep:     " + SweepLayoutOption.label(sweepFiles));
         out.println("profile:   " + imported.profileName());
         out.println("mapping:   " + imported.mapping());
         out.println("points:    " + sweep.size() + (sweep.hasPhase() ? " (gain and phase)" : " (gain only)"));

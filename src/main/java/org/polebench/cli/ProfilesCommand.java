@@ -7,6 +7,7 @@ import org.polebench.InputProblem;
 import org.polebench.profile.InstrumentProfile;
 import org.polebench.profile.SerialProfile;
 import org.polebench.profile.TableProfile;
+import org.polebench.profile.WaveformProfile;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Spec;
@@ -41,6 +42,11 @@ public final class ProfilesCommand implements Callable<Integer> {
             @Override
             public String serial(SerialProfile serial) {
                 return "serial";
+            }
+
+            @Override
+            public String waveform(WaveformProfile waveform) {
+                return "waveform";
             }
         });
     }

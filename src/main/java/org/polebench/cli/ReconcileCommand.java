@@ -4,6 +4,7 @@ import java.io.IOException;
 import java.nio.file.Path;
 import java.time.Instant;
 import java.util.Optional;
+import java.util.List;
 import java.util.Locale;
 import java.util.concurrent.Callable;
 import com.fasterxml.jackson.databind.node.ObjectNode;
@@ -65,8 +66,9 @@ final class ReconcileCommand implements Callable<Integer> {
                     + "is estimated), and the limits are decided on the board's own response")
     Path benchFile;
 
-    @Option(names = "--sweep", paramLabel = "W", description = "the sweep file: CSV or other table, or a serial log")
-    Path sweep;
+    @Option(names = "--sweep", paramLabel = "W", arity = "1..*", description = "the sweep file: CSV or other table, "
+            + "or a serial log; or a folder or list of scope waveform records, one per frequency")
+    List<Path> sweep;
 
     @Mixin
     SweepLayoutOption layout = new SweepLayoutOption();
@@ -126,12 +128,13 @@ final class ReconcileCommand implements Callable<Integer> {
         }
         Identification identified = identification.read();
         Path stageFile = stage != null ? stage : BundledSamples.locate(BundledSamples.DEMO_STAGE);
-        Path sweepFile = sweep != null ? sweep : BundledSamples.locate(DEMO_SWEEP);
+        List<Path> sweepFiles = sweep != null ? sweep : List.of(BundledSamples.locate(DEMO_SWEEP));
+        Path sweepFile = sweepFiles.get(0);
         StagePrediction predicted = new StageAnalysis().withSpread(new ToleranceSpread(samples, seed))
                 .analyse(new StageReader().read(stageFile), new SpreadProgressLine(spec.commandLine().getErr()));
         // the bundled demo sweep is canonical: no need to sniff its layout
         ImportedSweep imported = sweep == null && layout.isAuto()
-                ? layout.read(sweepFile, SweepWriter.CANONICAL) : layout.read(sweepFile);
+                ? layout.read(sweepFile, SweepWriter.CANONICAL) : layout.read(sweepFiles);
         Optional<Bench> bench = benchFile != null ? Optional.of(new BenchReader().read(benchFile)) : Optional.empty();
         ReconcileResult result = new Reconciler().reconcile(predicted, imported.sweep(), decisionRule, bench);
         // the result document (with its Bode curves and their tolerance band) only for --json
@@ -150,7 +153,7 @@ final class ReconcileCommand implements Callable<Integer> {
             out.print(new ResultJson().text(root));
         } else {
             out.println("Stage file: " + stageFile);
-            out.println("Sweep file: " + sweepFile + " (profile " + imported.profileName() + ")");
+            out.println("Sweep file: " + SweepLayoutOption.label(sweepFiles) + " (profile " + imported.profileName() + ")");
             for (InputWarning warning : predicted.warnings()) {
                 out.println("stage warning: " + warning.describe());
             }

@@ -1,6 +1,7 @@
 package org.polebench.cli;
 
 import java.nio.file.Path;
+import java.util.List;
 import org.polebench.InputProblem;
 import org.polebench.sweepfile.ImportedSweep;
 import org.polebench.profile.ProfileLibrary;
@@ -23,6 +24,16 @@ final class SweepLayoutOption {
 
     ImportedSweep read(Path sweepFile) throws InputProblem {
         return read(sweepFile, profile);
+    }
+
+    /** Reads one sweep file, or a folder or list of scope waveform records. */
+    ImportedSweep read(List<Path> paths) throws InputProblem {
+        return new SweepReader(profiles()).read(paths, profile);
+    }
+
+    /** @return how the paths are named in output: the one path, or the first and how many more */
+    static String label(List<Path> paths) {
+        return paths.size() == 1 ? paths.get(0).toString() : paths.get(0) + " and " + (paths.size() - 1) + " more";
     }
 
     /** Reads with another profile than the option's (a bundled file whose layout is known). */

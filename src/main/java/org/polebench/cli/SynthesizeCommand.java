@@ -20,6 +20,7 @@ import org.polebench.synth.BoardSynthesizer;
 import org.polebench.synth.Fault;
 import org.polebench.synth.FaultText;
 import org.polebench.sweep.Provenance;
+import org.polebench.synth.ScopeRecordSynthesizer;
 import org.polebench.sweep.Sweep;
 import org.polebench.spread.BoardDraw;
 import org.polebench.synth.SweepNoise;
@@ -44,7 +45,8 @@ import picocli.CommandLine.Spec;
         footer = {"", "Examples:", "  polebench synthesize --stage s.stage.yaml --fault C3=4.7u --out board.csv",
                 "  polebench synthesize --stage s.stage.yaml --fault R2=12k --fault beta:Q1=1.7 --out board.csv",
                 "  polebench synthesize --stage s.stage.yaml --fault bias:Q1=0.6 --fault gain=10 --seed 7 --out b.csv",
-                "  polebench synthesize --stage s.stage.yaml --draw-seed 12 --board B-012 --seed 12 --out b-012.csv"})
+                "  polebench synthesize --stage s.stage.yaml --draw-seed 12 --board B-012 --seed 12 --out b-012.csv",
+                "  polebench synthesize --stage s.stage.yaml --fault C2=1u --waveforms --points 21 --out board-7"})
 final class SynthesizeCommand implements Callable<Integer> {
     @Spec
     CommandSpec spec;
@@ -75,8 +77,37 @@ final class SynthesizeCommand implements Callable<Integer> {
             description = "write in this table profile's layout (default ${DEFAULT-VALUE})")
     String layout;
 
-    @Option(names = "--out", paramLabel = "FILE", required = true, description = "the sweep file to write")
+    @Option(names = "--out", paramLabel = "FILE", required = true,
+            description = "the sweep file to write (with --waveforms: the folder for the records)")
     Path out;
+
+    @Option(names = "--waveforms", description = "write scope waveform records instead of a sweep: one file per "
+            + "frequency in the folder --out, in the scope-time-volts layout, each channel with Gaussian noise")
+    boolean waveforms;
+
+    @Option(names = "--amplitude", paramLabel = "V", defaultValue = "10m",
+            description = "with --waveforms: the input sine's peak volts (default ${DEFAULT-VALUE})")
+    String amplitude;
+
+    @Option(names = "--record-samples", paramLabel = "N", defaultValue = "2000",
+            description = "with --waveforms: samples per record (default ${DEFAULT-VALUE})")
+    int recordSamples;
+
+    @Option(names = "--record-periods", paramLabel = "P", defaultValue = "4.7",
+            description = "with --waveforms: periods per record (default ${DEFAULT-VALUE})")
+    double recordPeriods;
+
+    @Option(names = "--record-noise", paramLabel = "V", defaultValue = "100u",
+            description = "with --waveforms: each channel's noise, standard deviation in volts (default ${DEFAULT-VALUE})")
+    String recordNoise;
+
+    @Option(names = "--adc-bits", paramLabel = "B", defaultValue = "0",
+            description = "with --waveforms: quantise to B bits over +/- --full-scale (default: none)")
+    int adcBits;
+
+    @Option(names = "--full-scale", paramLabel = "V",
+            description = "with --waveforms: each channel clips at +/- V (default: no clipping)")
+    String fullScale;
 
     @Option(names = "--force", description = "replace an existing output file")
     boolean force;
@@ -95,7 +126,7 @@ final class SynthesizeCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws InputProblem, IOException {
-        if (Files.exists(out) && !force) {
+        if (Files.exists(out) && !force && !(waveforms && Files.isDirectory(out))) {
             throw new InputProblem(out, 0, "the output file exists already and is kept",
                     "name another file, or add --force to replace it");
         }
@@ -129,6 +160,9 @@ final class SynthesizeCommand implements Callable<Integer> {
         double high = toHz == null ? corner * 300 : frequency(toHz, "--to");
         if (!(high > low)) {
             throw new InputProblem(null, 0, "--to must lie above --from", "swap or widen the band");
+        }
+        if (waveforms) {
+            return writeRecords(stage, parsed, bench, BoardSynthesizer.logSpaced(low, high, points), low, high);
         }
         Sweep sweep = new BoardSynthesizer().synthesize(stage, parsed, sweepNoise,
                 BoardSynthesizer.logSpaced(low, high, points), true, seed, bench);
@@ -167,6 +201,38 @@ final class SynthesizeCommand implements Callable<Integer> {
         Provenance p = sweep.source();
         return new Sweep(new Provenance(p.sourceFile(), p.sha256(), p.instrument(), p.profile(), p.captured(),
                 board == null ? p.board() : Optional.of(board), notes), sweep.points(), sweep.calibration());
+    }
+
+    private int writeRecords(Stage stage, List<Fault> faults, Optional<MeasuringChain> bench, List<Double> frequencies,
+                             double low, double high) throws InputProblem, IOException {
+        ScopeRecordSynthesizer.Settings settings;
+        try {
+            settings = new ScopeRecordSynthesizer.Settings(volts(amplitude, "--amplitude"), recordSamples,
+                    recordPeriods, volts(recordNoise, "--record-noise"), adcBits,
+                    fullScale == null ? 0 : volts(fullScale, "--full-scale"), seed);
+        } catch (IllegalArgumentException e) {
+            throw new InputProblem(null, 0, "the record settings are out of range", "use --record-samples of 16 or "
+                    + "more, positive --record-periods and --amplitude, --adc-bits up to 24 with a --full-scale");
+        }
+        String prefix = out.getFileName() == null ? "record" : out.getFileName().toString();
+        List<Path> files = new ScopeRecordSynthesizer().write(stage, faults, bench, frequencies, out, prefix, settings,
+                force);
+        spec.commandLine().getOut().println("wrote " + files.size() + " waveform records to " + out + ", "
+                + EngineeringValue.format(low, "Hz") + " to " + EngineeringValue.format(high, "Hz")
+                + " (invented demo data)");
+        return ExitCodes.OK;
+    }
+
+    private static double volts(String text, String option) throws InputProblem {
+        try {
+            double volts = EngineeringValue.parse(text, Quantity.VOLTS);
+            if (volts >= 0 && Double.isFinite(volts)) {
+                return volts;
+            }
+        } catch (IllegalArgumentException e) {
+            // refused below with the option named
+        }
+        throw new InputProblem(null, 0, option + " " + text + " is not a voltage", "write e.g. 0.1 or 2m");
     }
 
     private static double frequency(String text, String option) throws InputProblem {

@@ -5,14 +5,15 @@ import java.util.Optional;
 import org.polebench.bench.Bench;
 
 /**
- * How to read one kind of instrument's output: a table layout or a serial line protocol.
+ * How to read one kind of instrument's output: a table layout, a serial line protocol or the
+ * layout of scope waveform records.
  * Profiles live in {@code instrument-profiles/*.yaml} (this project's own format, see
  * docs/user-guide.md, "Instrument profiles") and are read by {@link ProfileReader}. Code that
  * treats the kinds differently calls {@link #match} with a {@link Cases}, or asks for one kind
- * with {@link #asTable()} or {@link #asSerial()}, never {@code instanceof}: a new kind of
+ * with {@link #asTable()}, {@link #asSerial()} or {@link #asWaveform()}, never {@code instanceof}: a new kind of
  * profile then fails to compile until every such place handles it.
  */
-public sealed interface InstrumentProfile permits TableProfile, SerialProfile {
+public sealed interface InstrumentProfile permits TableProfile, SerialProfile, WaveformProfile {
     /** @return the profile's name, used with {@code --profile} */
     String name();
 
@@ -41,6 +42,9 @@ public sealed interface InstrumentProfile permits TableProfile, SerialProfile {
     /** @return this profile when it talks to a serial instrument, empty for another kind */
     Optional<SerialProfile> asSerial();
 
+    /** @return this profile when it reads scope waveform records, empty for another kind */
+    Optional<WaveformProfile> asWaveform();
+
     /** @return what {@code cases} gives for this profile's kind */
     <R> R match(Cases<R> cases);
 
@@ -52,5 +56,7 @@ public sealed interface InstrumentProfile permits TableProfile, SerialProfile {
         R table(TableProfile table);
 
         R serial(SerialProfile serial);
+
+        R waveform(WaveformProfile waveform);
     }
 }

@@ -158,6 +158,15 @@ public final class ProfileLibrary {
         return out;
     }
 
+    /** @return the profiles of scope waveform records, in {@link #profiles()} order */
+    public List<WaveformProfile> waveformProfiles() {
+        List<WaveformProfile> out = new ArrayList<>();
+        for (InstrumentProfile profile : profiles()) {
+            profile.asWaveform().ifPresent(out::add);
+        }
+        return out;
+    }
+
     public Optional<InstrumentProfile> find(String name) {
         InstrumentProfile mine = own.get(name);
         if (mine != null) {

@@ -34,6 +34,9 @@ public final class ProfileReader {
             "stop", "point", "ignore", "error", "end", "timeout-ms", "amplitude", "max-amplitude", "units",
             "accuracy", "limits", "bench");
 
+    private static final Set<String> WAVEFORM_KEYS = Set.of("kind", "name", "description", "detect", "layout", "time",
+            "channels", "samples", "frequency", "accuracy", "bench");
+
     private final YamlReader yaml = new YamlReader();
 
     public InstrumentProfile read(Path file) throws InputProblem {
@@ -59,9 +62,12 @@ public final class ProfileReader {
             case "serial-stream":
                 doc.onlyKeys(top, STREAM_KEYS);
                 return stream(doc, top);
+            case "waveform":
+                doc.onlyKeys(top, WAVEFORM_KEYS);
+                return waveform(doc, top);
             default:
                 throw new InputProblem(file, top.entry("kind").orElseThrow().line(),
-                        "unknown profile kind '" + kind + "'", "use table, serial-scpi or serial-stream");
+                        "unknown profile kind '" + kind + "'", "use table, serial-scpi, serial-stream or waveform");
         }
     }
 
@@ -120,6 +126,118 @@ public final class ProfileReader {
         }
         return new TableProfile(name, doc.description(top), layout, columns, scale, accuracy(doc, top),
                 limits(doc, top), Optional.ofNullable(doc.file), bench(doc, top));
+    }
+
+    /** A {@code kind: waveform} profile (docs/user-guide.md, "Scope waveform records"). */
+    private WaveformProfile waveform(Doc doc, YamlNode.Mapping top) throws InputProblem {
+        String name = doc.name(top);
+        YamlNode.Mapping layoutNode = doc.optionalMapping(top, "layout");
+        doc.onlyKeys(layoutNode, Set.of("delimiter", "decimal-mark", "header-lines", "comment-prefixes", "files"));
+        Delimiter delimiter = doc.choice(layoutNode, "delimiter", Delimiter::parse, Delimiter.COMMA,
+                "comma, semicolon, tab or spaces");
+        String mark = doc.textOr(layoutNode, "decimal-mark", "point");
+        if (!mark.equals("point") && !mark.equals("comma")) {
+            throw doc.problem(layoutNode, "decimal-mark", "decimal-mark '" + mark + "' is neither point nor comma",
+                    "write point or comma");
+        }
+        if (mark.equals("comma") && delimiter == Delimiter.COMMA) {
+            throw doc.problem(layoutNode, "decimal-mark", "a comma cannot be both the delimiter and the decimal mark",
+                    "use delimiter: semicolon (usual with a decimal comma) or decimal-mark: point");
+        }
+        WaveformLayout layout = new WaveformLayout(delimiter, mark.equals("comma"),
+                doc.integer(layoutNode, "header-lines", 0, 0, 10_000), doc.texts(layoutNode, "comment-prefixes",
+                List.of("#")), doc.textOr(layoutNode, "files", "*.csv"));
+
+        YamlNode.Mapping timeNode = doc.requiredMapping(top, "time");
+        doc.onlyKeys(timeNode, Set.of("column", "interval-line"));
+        if (timeNode.get("column").isPresent() == timeNode.get("interval-line").isPresent()) {
+            throw doc.problemAt(timeNode.line(), "time needs either a column or an interval-line",
+                    "write column: 1 (times in seconds) or interval-line: '<regex with (?<seconds>...)>'");
+        }
+        SampleClock clock;
+        if (timeNode.get("column").isPresent()) {
+            clock = SampleClock.column(doc.integer(timeNode, "column", 1, 1, 10_000));
+        } else {
+            clock = SampleClock.intervalLine(doc.group(timeNode, "interval-line", "seconds"));
+        }
+
+        YamlNode.Mapping channelsNode = doc.requiredMapping(top, "channels");
+        doc.onlyKeys(channelsNode, Set.of("input", "output"));
+        if (channelsNode.get("input").isEmpty() || channelsNode.get("output").isEmpty()) {
+            throw doc.problemAt(channelsNode.line(), "channels needs both input and output",
+                    "give each as its 1-based column number, such as input: 2, output: 3");
+        }
+        int input = doc.integer(channelsNode, "input", 2, 1, 10_000);
+        int output = doc.integer(channelsNode, "output", 3, 1, 10_000);
+        if (input == output || clock.timeColumn().orElse(-1) == input || clock.timeColumn().orElse(-1) == output) {
+            throw doc.problemAt(channelsNode.line(), "the time, input and output columns must differ",
+                    "give each its own column number");
+        }
+
+        SampleCoding coding = samples(doc, doc.optionalMapping(top, "samples"));
+
+        YamlNode.Mapping frequencyNode = doc.optionalMapping(top, "frequency");
+        doc.onlyKeys(frequencyNode, Set.of("from", "pattern"));
+        FrequencySource.From from = doc.choice(frequencyNode, "from", FrequencySource.From::parse,
+                FrequencySource.From.ESTIMATED, "header, file-name or estimated");
+        FrequencySource frequency;
+        if (from == FrequencySource.From.ESTIMATED) {
+            if (frequencyNode.get("pattern").isPresent()) {
+                throw doc.problem(frequencyNode, "pattern", "an estimated frequency takes no pattern",
+                        "drop the pattern or say from: header or from: file-name");
+            }
+            frequency = FrequencySource.estimated();
+        } else {
+            if (frequencyNode.get("pattern").isEmpty()) {
+                throw doc.problemAt(frequencyNode.line(), "from: " + from.word() + " needs a pattern",
+                        "add pattern: '<regex with (?<hz>...)>', such as '(?<hz>[0-9.]+) ?Hz'");
+            }
+            frequency = new FrequencySource(from, Optional.of(doc.group(frequencyNode, "pattern", "hz")));
+        }
+        Optional<Pattern> signature = doc.pattern(top, "detect");
+        return new WaveformProfile(name, doc.description(top), layout, clock, new WaveformChannels(input, output),
+                coding, frequency, signature, accuracy(doc, top), Optional.ofNullable(doc.file), bench(doc, top));
+    }
+
+    private SampleCoding samples(Doc doc, YamlNode.Mapping node) throws InputProblem {
+        doc.onlyKeys(node, Set.of("unit", "range", "volts-per-code", "zero-code", "rails"));
+        String unit = doc.textOr(node, "unit", "volts");
+        if (unit.equals("volts")) {
+            for (String key : List.of("volts-per-code", "zero-code", "rails")) {
+                if (node.get(key).isPresent()) {
+                    throw doc.problem(node, key, key + " applies to unit: codes", "drop it or say unit: codes");
+                }
+            }
+            OptionalDouble range = node.get("range").isPresent()
+                    ? OptionalDouble.of(doc.positive(node, "range", doc.engineering(node, "range", Quantity.VOLTS)))
+                    : OptionalDouble.empty();
+            return SampleCoding.volts(range);
+        }
+        if (!unit.equals("codes")) {
+            throw doc.problem(node, "unit", "unit '" + unit + "' is neither volts nor codes", "write volts or codes");
+        }
+        if (node.get("range").isPresent()) {
+            throw doc.problem(node, "range", "ADC codes take their range from the rails", "give rails: [low, high]");
+        }
+        if (node.get("volts-per-code").isEmpty()) {
+            throw doc.problemAt(node.line(), "unit: codes needs volts-per-code", "add volts-per-code: such as 1.22 mV");
+        }
+        double scale = doc.positive(node, "volts-per-code", doc.engineering(node, "volts-per-code", Quantity.VOLTS));
+        double zero = doc.number(node, "zero-code", 0);
+        OptionalDouble low = OptionalDouble.empty();
+        OptionalDouble high = OptionalDouble.empty();
+        if (node.get("rails").isPresent()) {
+            List<String> rails = doc.texts(node, "rails", List.of());
+            double lowCode = rails.size() == 2 ? StrictNumber.parse(rails.get(0), false) : Double.NaN;
+            double highCode = rails.size() == 2 ? StrictNumber.parse(rails.get(1), false) : Double.NaN;
+            if (!(lowCode < highCode) || !Double.isFinite(lowCode) || !Double.isFinite(highCode)) {
+                throw doc.problem(node, "rails", "rails must be two codes, the lowest then the highest",
+                        "such as rails: [0, 4095] for a 12-bit converter");
+            }
+            low = OptionalDouble.of(lowCode);
+            high = OptionalDouble.of(highCode);
+        }
+        return new SampleCoding(true, scale, zero, low, high, OptionalDouble.empty());
     }
 
     private SerialProfile scpi(Doc doc, YamlNode.Mapping top) throws InputProblem {
@@ -567,6 +685,23 @@ public final class ProfileReader {
                 return Optional.empty();
             }
             return Optional.of(compile(text(map, key), map.entry(key).orElseThrow().line()));
+        }
+
+        /** A regular expression that must have the named group, which holds the value wanted. */
+        Pattern group(YamlNode.Mapping map, String key, String group) throws InputProblem {
+            Pattern pattern = pattern(map, key).orElseThrow();
+            if (!pattern.pattern().contains("(?<" + group + ">")) {
+                throw problem(map, key, key + " has no group named '" + group + "'",
+                        "put (?<" + group + ">...) around the number, such as '(?<" + group + ">[0-9.eE+-]+)'");
+            }
+            return pattern;
+        }
+
+        double positive(YamlNode.Mapping map, String key, double value) throws InputProblem {
+            if (!(value > 0) || !Double.isFinite(value)) {
+                throw problem(map, key, key + " must be positive", "give a positive value");
+            }
+            return value;
         }
 
         Pattern compile(String regex, int line) throws InputProblem {

@@ -26,6 +26,11 @@ public record SerialProfile(String name, String description, LineProtocol protoc
     }
 
     @Override
+    public Optional<WaveformProfile> asWaveform() {
+        return Optional.empty();
+    }
+
+    @Override
     public <R> R match(Cases<R> cases) {
         return cases.serial(this);
     }

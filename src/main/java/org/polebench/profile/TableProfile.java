@@ -37,6 +37,11 @@ public record TableProfile(String name, String description, TableLayout layout, 
     }
 
     @Override
+    public Optional<WaveformProfile> asWaveform() {
+        return Optional.empty();
+    }
+
+    @Override
     public <R> R match(Cases<R> cases) {
         return cases.table(this);
     }

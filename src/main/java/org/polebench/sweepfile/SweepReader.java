@@ -15,15 +15,22 @@ import java.security.MessageDigest;
 import java.security.NoSuchAlgorithmException;
 import java.util.HexFormat;
 import org.polebench.InputLimits;
+import java.util.List;
 import org.polebench.InputProblem;
 import org.polebench.profile.InstrumentProfile;
 import org.polebench.profile.ProfileLibrary;
 import org.polebench.profile.SerialProfile;
 import org.polebench.profile.TableProfile;
+import org.polebench.profile.WaveformProfile;
+import org.polebench.waveform.RecordFiles;
+import org.polebench.waveform.RecordSetReader;
+import org.polebench.waveform.WaveformImport;
+import org.polebench.waveform.WaveformSniffer;
 
 /**
- * Reads a sweep file, a table or a serial log, with a named profile or by sniffing its
- * layout ({@code auto}). The one entry point the fit, reconcile and CLI code use.
+ * Reads a sweep file, a table or a serial log, or a set of scope waveform records, with a named
+ * profile or by sniffing its layout ({@code auto}). The one entry point the fit, reconcile and
+ * CLI code use.
  */
 public final class SweepReader {
     /** The profile name that asks for the layout to be sniffed. */
@@ -58,6 +65,35 @@ public final class SweepReader {
         return read(file, profile, profile.name(), "");
     }
 
+    /**
+     * Reads one sweep file as {@link #read(Path, String)} does, or a set of scope waveform
+     * records: a folder, or more than one file (docs/user-guide.md, "Scope waveform records").
+     */
+    public ImportedSweep read(List<Path> paths, String profileName) throws InputProblem {
+        if (!RecordFiles.isRecordSet(paths)) {
+            return read(paths.get(0), profileName);
+        }
+        WaveformProfile profile;
+        if (AUTO.equals(profileName)) {
+            profile = WaveformSniffer.choose(paths, profiles.waveformProfiles());
+        } else {
+            InstrumentProfile named = profiles.resolve(profileName);
+            profile = named.asWaveform().orElseThrow(() -> new InputProblem(paths.get(0), 0, "profile '"
+                    + named.name() + "' reads one sweep file, not a set of waveform records",
+                    "name a waveform profile (polebench profiles lists them) or give one sweep file"));
+        }
+        return readRecords(paths, profile, AUTO.equals(profileName) ? AUTO : profile.name(),
+                AUTO.equals(profileName) ? "sniffed: records match profile " + profile.name() + "; " : "");
+    }
+
+    private static ImportedSweep readRecords(List<Path> paths, WaveformProfile profile, String label, String preface)
+            throws InputProblem {
+        List<Path> files = RecordFiles.expand(paths, profile.layout().files());
+        Path origin = paths.size() == 1 ? paths.get(0) : files.get(0).toAbsolutePath().getParent();
+        WaveformImport records = new RecordSetReader(profile).read(files, origin == null ? files.get(0) : origin, label);
+        return new ImportedSweep(records.sweep(), label, preface + records.mapping(), records.warnings());
+    }
+
     private ImportedSweep read(Path file, InstrumentProfile profile, String label, String preface) throws InputProblem {
         // the visitor cannot throw InputProblem, so each kind gives the import to run
         Import reading = profile.match(new InstrumentProfile.Cases<Import>() {
@@ -73,6 +109,11 @@ public final class SweepReader {
                     return preface.isEmpty() ? log
                             : new ImportedSweep(log.sweep(), label, preface + log.mapping(), log.warnings());
                 };
+            }
+
+            @Override
+            public Import waveform(WaveformProfile waveform) {
+                return () -> readRecords(List.of(file), waveform, label, preface);
             }
         });
         return reading.run();

@@ -115,9 +115,11 @@ class DocumentCommandsTest {
         }
         // the README's five (the demo reconcile and the tour's four) and the user guide's six
         // (predict, fit, reconcile, synthesize, and capture against simulate over socat and over
-        // TCP), batch with history and synthesize --draw-seed (issue 16): counted, so that a block
-        // lost or turned into text in an edit is noticed
-        assertEquals(15, blocks.size(), blocks.stream().map(Block::name).collect(Collectors.joining("\n")));
+        // TCP), batch with history and synthesize --draw-seed (issue 16), and the three of scope
+        // records (synthesize and read records, synthesize clipped ones and inspect them,
+        // reconcile the demo records): counted, so that a block lost or turned into text in an
+        // edit is noticed
+        assertEquals(18, blocks.size(), blocks.stream().map(Block::name).collect(Collectors.joining("\n")));
 
         List<Future<Outcome>> runs = new ArrayList<>();
         for (Block block : blocks) {

@@ -48,13 +48,20 @@ class SealedCasesTest {
                 public String serial(SerialProfile serial) {
                     return "serial";
                 }
+
+                @Override
+                public String waveform(WaveformProfile waveform) {
+                    return "waveform";
+                }
             });
-            // the kinds exclude each other (InstrumentProfile's Javadoc): asTable and asSerial
+            // the kinds exclude each other (InstrumentProfile's Javadoc): asTable, asSerial and asWaveform
             // must agree with match, and each must hand back the profile itself
             assertEquals(kind.equals("table") ? List.of(profile) : List.of(), profile.asTable().stream().toList(),
                     profile.name() + ".asTable()");
             assertEquals(kind.equals("serial") ? List.of(profile) : List.of(), profile.asSerial().stream().toList(),
                     profile.name() + ".asSerial()");
+            assertEquals(kind.equals("waveform") ? List.of(profile) : List.of(), profile.asWaveform().stream().toList(),
+                    profile.name() + ".asWaveform()");
         }
     }
 }
