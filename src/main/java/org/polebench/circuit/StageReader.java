@@ -36,6 +36,19 @@ public final class StageReader {
         return new Reading(file).stageFile(root);
     }
 
+    /**
+     * Reads a stage file's text held elsewhere (the ledger keeps the text of every stage it was
+     * tested against).
+     *
+     * @param name what messages call the file
+     * @param text the file's text
+     * @return the stage and the warnings about it, in file order
+     */
+    public StageFile read(Path name, String text) throws InputProblem {
+        YamlNode root = yaml.read(name, new java.io.StringReader(text));
+        return new Reading(name).stageFile(root);
+    }
+
     // ---------------------------------------------------------------------------------------
     // keys
 

@@ -50,6 +50,7 @@ public final class Main implements Runnable {
             new Subcommand("capture", "org.polebench.cli.CaptureCommand"),
             new Subcommand("simulate", "org.polebench.cli.SimulateCommand"),
             new Subcommand("batch", "org.polebench.cli.BatchCommand"),
+            new Subcommand("lot", "org.polebench.cli.LotCommand"),
             new Subcommand("history", "org.polebench.cli.HistoryCommand"));
 
     /** A subcommand's name on the command line and the class that implements it. */

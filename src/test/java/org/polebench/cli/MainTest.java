@@ -14,7 +14,7 @@ import org.junit.jupiter.api.Test;
  */
 class MainTest {
     private static final List<String> NAMES = List.of("help", "predict", "inspect", "profiles", "fit",
-            "reconcile", "report", "synthesize", "capture", "simulate", "batch", "history");
+            "reconcile", "report", "synthesize", "capture", "simulate", "batch", "lot", "history");
 
     @Test
     void theUsageListsEverySubcommandInOrder() {
