@@ -37,9 +37,10 @@ import picocli.CommandLine.Spec;
         description = {"Reconciles every sweep against one stage, several boards at once, records each board's test "
                 + "in the ledger (an SQLite file, or PostgreSQL for many stations) and ends with the lot's counts "
                 + "and yield.",
-                "A folder stands for its files ending in .csv, .tsv, .txt, .log or .dat. The board id is the "
-                        + "sweep's own (# board:), else the file name without its endings; --board-pattern takes it "
-                        + "from the file name instead.",
+                "A folder stands for its files ending in .csv, .tsv, .txt, .log or .dat, each one board, and its "
+                        + "sub-folders, each one board's scope waveform records. The board id is the sweep's own "
+                        + "(# board:), else the file or sub-folder name without its endings; --board-pattern takes it "
+                        + "from the name instead.",
                 "A sweep the ledger already holds for this stage is counted, not reconciled again: a batch that "
                         + "was stopped resumes by being run again. A file that cannot be read or reconciled is "
                         + "recorded as an input problem and the batch goes on.",
@@ -88,7 +89,8 @@ final class BatchCommand implements Callable<Integer> {
             description = "boards reconciled at once (default: one per core)")
     Integer threads;
 
-    @Parameters(paramLabel = "SWEEP|FOLDER", arity = "1..*", description = "sweep files, or folders of them")
+    @Parameters(paramLabel = "SWEEP|FOLDER", arity = "1..*",
+            description = "sweep files, or folders of sweep files and of sub-folders of scope records")
     List<Path> sweeps;
 
     @Override

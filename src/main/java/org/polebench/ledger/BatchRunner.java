@@ -169,7 +169,8 @@ public final class BatchRunner {
             try {
                 String sweepSha;
                 try {
-                    sweepSha = Sha256.of(Files.readAllBytes(sweepFile));
+                    sweepSha = Files.isDirectory(sweepFile) ? folderSha(sweepFile)
+                            : Sha256.of(Files.readAllBytes(sweepFile));
                 } catch (IOException unreadable) {
                     // recorded as the input problem it is; its identity is its name, since its
                     // bytes are not to be had
@@ -187,7 +188,9 @@ public final class BatchRunner {
                 }
                 ImportedSweep imported;
                 try {
-                    imported = new SweepReader(request.profiles()).read(sweepFile, request.profile());
+                    SweepReader reader = new SweepReader(request.profiles());
+                    imported = Files.isDirectory(sweepFile) ? reader.read(List.of(sweepFile), request.profile())
+                            : reader.read(sweepFile, request.profile());
                 } catch (InputProblem problem) {
                     record(sweepFile, sweepSha, Optional.empty(), problem, progress);
                     return;
@@ -221,6 +224,24 @@ public final class BatchRunner {
             Recording done = ledger.record(new TestRecord(outcome, request.toolVersion(), stageSha, stageText,
                     sweepSha, sweepFile.toString(), text, benchText, Optional.empty()));
             progress.done(boardId, Outcome.INPUT_PROBLEM, done == Recording.ALREADY_RECORDED);
+        }
+
+        /**
+         * A folder of scope records is one sweep: its identity is every regular file in it, by
+         * name and content (the SHA-256 of each name with its file's SHA-256, in name order), so
+         * that a record added, changed or renamed makes a new test and an untouched folder does not.
+         */
+        private static String folderSha(Path folder) throws IOException {
+            List<Path> files;
+            try (java.util.stream.Stream<Path> entries = Files.list(folder)) {
+                files = entries.filter(Files::isRegularFile)
+                        .filter(f -> !f.getFileName().toString().startsWith(".")).sorted().toList();
+            }
+            StringBuilder listing = new StringBuilder("scope records\n");
+            for (Path file : files) {
+                listing.append(file.getFileName()).append('\0').append(Sha256.of(Files.readAllBytes(file))).append('\n');
+            }
+            return Sha256.of(listing.toString().getBytes(StandardCharsets.UTF_8));
         }
 
         private String canonical(ImportedSweep imported) throws IOException {

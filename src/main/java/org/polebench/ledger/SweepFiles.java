@@ -11,10 +11,11 @@ import java.util.stream.Stream;
 import org.polebench.InputProblem;
 
 /**
- * The sweep files a batch takes: each file named as it is, and each folder's sweep files (its
+ * The boards a batch takes: each file named as it is; each named folder's sweep files (its
  * regular files ending in {@code .csv}, {@code .tsv}, {@code .txt}, {@code .log} or {@code .dat},
- * not hidden; not its sub-folders), in name order, so that a batch run again takes them in the
- * same order.
+ * not hidden), each one board; and each named folder's sub-folders (not hidden), each one board's
+ * set of scope waveform records (issue 17). In name order, so that a batch run again takes them
+ * in the same order. Deeper folders are not searched.
  */
 public final class SweepFiles {
     /** The endings a folder's sweep files have. */
@@ -29,7 +30,7 @@ public final class SweepFiles {
         for (Path path : given) {
             if (Files.isDirectory(path)) {
                 try (Stream<Path> entries = Files.list(path)) {
-                    entries.filter(SweepFiles::isSweep).sorted().forEach(files::add);
+                    entries.filter(entry -> isSweep(entry) || isRecordFolder(entry)).sorted().forEach(files::add);
                 }
             } else if (Files.exists(path)) {
                 files.add(path);
@@ -38,11 +39,16 @@ public final class SweepFiles {
             }
         }
         if (files.isEmpty()) {
-            throw new InputProblem(given.isEmpty() ? null : given.get(0), 0, "no sweep files to take",
-                    "name sweep files, or folders holding files ending in " + String.join(", ", ENDINGS.stream()
+            throw new InputProblem(given.isEmpty() ? null : given.get(0), 0, "no sweep files or record folders to take",
+                    "name sweep files, or folders holding sub-folders of scope records or files ending in " + String.join(", ", ENDINGS.stream()
                             .sorted().toList()));
         }
         return files;
+    }
+
+    /** @return whether a folder's entry is a sub-folder of records: one board's scope records */
+    public static boolean isRecordFolder(Path entry) {
+        return Files.isDirectory(entry) && !entry.getFileName().toString().startsWith(".");
     }
 
     private static boolean isSweep(Path file) {

@@ -153,7 +153,7 @@ public final class LotAnalysis {
                 continue;
             }
             if (b.outcome() == BoardOutcome.Outcome.FAIL || !b.explained()) {
-                String name = b.topHypothesis().isBlank() ? NONE_NAMED : b.topHypothesis();
+                String name = b.topHypothesis().isBlank() ? NONE_NAMED : samePairOneName(b.topHypothesis());
                 counts.merge(name, 1, Integer::sum);
                 total++;
             }
@@ -167,6 +167,19 @@ public final class LotAnalysis {
             out.add(new Culprit(e.getKey(), e.getValue(), running / (double) total));
         }
         return out;
+    }
+
+    /**
+     * A pair is named in the order its board's ranking happened to form it ("C3 and C2" on one
+     * board, "C2 and C3" on the next); the Pareto counts one cause, so a pair's two names are put
+     * in order.
+     */
+    static String samePairOneName(String hypothesis) {
+        String[] two = hypothesis.split(" and ");
+        if (two.length != 2) {
+            return hypothesis;
+        }
+        return two[0].compareTo(two[1]) <= 0 ? hypothesis : two[1] + " and " + two[0];
     }
 
     /**

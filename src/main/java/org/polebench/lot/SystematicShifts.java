@@ -7,6 +7,7 @@ import java.util.Map;
 import java.util.Optional;
 import org.polebench.circuit.Part;
 import org.polebench.circuit.Stage;
+import org.polebench.circuit.Bjt;
 import org.polebench.circuit.Tolerance;
 import org.polebench.circuit.Transistor;
 
@@ -168,9 +169,9 @@ final class SystematicShifts {
     }
 
     /**
-     * @return the part's tolerance band in ln(value/nominal): a part's drawn tolerance, a given
-     *         bias current's tolerance for "Q1 bias", the gain calibration's band for "gain", else
-     *         the point 0
+     * @return the part's tolerance band in ln(value/nominal): a part's drawn tolerance, the bias
+     *         current's tolerance for "Q1 bias", the beta-tolerance for "Q1 beta", the gain
+     *         calibration's band for "gain", else the point 0
      */
     static double[] band(Stage stage, String name) {
         if (stage == null) {
@@ -182,10 +183,18 @@ final class SystematicShifts {
             return new double[]{-half, half};
         }
         Optional<Tolerance> tolerance = stage.part(name).flatMap(Part::drawnTolerance);
+        // a transistor's bias and β carry the bands the back-solve's tolerance priors use
+        // (docs/method.md, "The hypotheses"): the bias its own (±20 % unless the stage says, for a
+        // solved bias as for a given one), β its beta-tolerance (±50 % unless the stage says).
+        // Without them a β that spreads within its band read as a lot finding on every board.
         if (tolerance.isEmpty() && name.endsWith(" bias")) {
             String id = name.substring(0, name.length() - " bias".length());
             tolerance = stage.transistors().stream().filter(t -> t.name().equals(id))
-                    .filter(t -> t.bias().givenAmps().isPresent()).map(Transistor::biasTolerance).findFirst();
+                    .map(Transistor::biasTolerance).findFirst();
+        }
+        if (tolerance.isEmpty() && name.endsWith(" beta")) {
+            String id = name.substring(0, name.length() - " beta".length());
+            tolerance = stage.part(id).filter(p -> p instanceof Bjt).flatMap(Part::drawnTolerance);
         }
         return tolerance.map(t -> new double[]{t.lnLower(), t.lnUpper()}).orElse(new double[]{0, 0});
     }

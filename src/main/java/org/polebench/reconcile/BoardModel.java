@@ -178,33 +178,38 @@ final class BoardModel {
         if (dRe == null || biasColumns == null) {
             return true;
         }
+        // the derivative's base is the exact high band here, not one reused from a nearby point
+        HighFactor here = exactHighBand ? high : highFactor(lnBias, true, reduced.d);
+        if (here == null) {
+            return false;
+        }
         for (int j = 0; j < m; j++) {
             if (!biasColumns[j]) {
                 continue;
             }
             double[] stepped = lnBias.clone();
             stepped[j] += BIAS_STEP;
-            // between exact evaluations the derivative leaves out the high band's dependence on
-            // the network (its value is kept): a Jacobian only steers the search. The exact
-            // evaluation, whose Jacobian gives the Hessian of the evidence, steps the high band
-            // too for a resistor, which moves the Miller capacitances' corners; a bias current or
-            // a β moves them by 2e-3 at most at the top of a low-band sweep (BoardModelTest).
+            // the high band is stepped too, for every network parameter and in every evaluation: a
+            // bias current or a β moves gm and so the Miller capacitances' corner, and where the
+            // sweep reaches the high band those points hold most of the gradient. Leaving that
+            // dependence out (as this code once did between exact evaluations, and for bias and β
+            // even in them) made the bias and β columns 25–33 % wrong and their gradient four
+            // orders too small on a sweep to 2 MHz, and the search stopped far from the MAP:
+            // healthy boards with ordinary β spread were blamed on a resistor or the generator
+            // (BoardModelTest checks every column against central differences).
             Reduced other = reduced(stepped);
-            boolean withHigh = exactHighBand && j >= firstResistor;
-            HighFactor otherHigh = !withHigh || other == null ? null : highFactor(stepped, true, other.d);
-            if (other == null || (withHigh && otherHigh == null)
+            HighFactor otherHigh = other == null ? null : highFactor(stepped, true, other.d);
+            if (other == null || otherHigh == null
                     || !lowBandDifference(reduced, other, dRe[k + j], dIm[k + j])) {
                 return false;
             }
-            if (withHigh) {
-                for (int n = 0; n < omegas.length; n++) {
-                    // ln(H'_high/H_high)/h: a ratio, so no branch cut of the logarithm is crossed
-                    double size = high.re[n] * high.re[n] + high.im[n] * high.im[n];
-                    double qr = (otherHigh.re[n] * high.re[n] + otherHigh.im[n] * high.im[n]) / size;
-                    double qi = (otherHigh.im[n] * high.re[n] - otherHigh.re[n] * high.im[n]) / size;
-                    dRe[k + j][n] += 0.5 * Math.log(qr * qr + qi * qi) / BIAS_STEP;
-                    dIm[k + j][n] += Math.atan2(qi, qr) / BIAS_STEP;
-                }
+            for (int n = 0; n < omegas.length; n++) {
+                // ln(H'_high/H_high)/h: a ratio, so no branch cut of the logarithm is crossed
+                double size = here.re[n] * here.re[n] + here.im[n] * here.im[n];
+                double qr = (otherHigh.re[n] * here.re[n] + otherHigh.im[n] * here.im[n]) / size;
+                double qi = (otherHigh.im[n] * here.re[n] - otherHigh.re[n] * here.im[n]) / size;
+                dRe[k + j][n] += 0.5 * Math.log(qr * qr + qi * qi) / BIAS_STEP;
+                dIm[k + j][n] += Math.atan2(qi, qr) / BIAS_STEP;
             }
         }
         return true;

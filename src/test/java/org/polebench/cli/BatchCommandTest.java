@@ -172,4 +172,37 @@ class BatchCommandTest {
         assertEquals("2", noLedger[0]);
         assertTrue(!Files.exists(folder.resolve("none.db")), "history must not create a ledger");
     }
+
+    @Test
+    void aSubFolderOfScopeRecordsIsOneBoard() throws Exception {
+        // the bundled scope records of HP-12 board 31 (invented demo data, C2 fitted as 1 µF for
+        // 10 µF: sample-measurements/waveforms/README.md) beside one board's sweep file
+        Path sweeps = folder.resolve("run");
+        Path records = sweeps.resolve("hp12-board-31");
+        Files.createDirectories(records);
+        try (var listing = Files.list(Path.of("sample-measurements/waveforms/hp12-board-31"))) {
+            for (Path file : listing.toList()) {
+                Files.copy(file, records.resolve(file.getFileName().toString()));
+            }
+        }
+        synthesize(HYDROPHONE, sweeps.resolve("hp12-board-32.csv"), 32);
+        String[] batch = run("batch", "--stage", HYDROPHONE, "--ledger", ledger(), "--lot", "scope", sweeps.toString());
+        assertTrue(batch[2].contains("batch: 2 sweeps"), batch[2]);
+        List<BoardOutcome> lot = lot("scope");
+        assertEquals(2, lot.size(), lot.toString());
+        BoardOutcome board31 = lot.stream().filter(b -> b.boardId().equals("hp12-board-31")).findFirst().orElseThrow();
+        // the truth the records were made with: C2
+        assertEquals("C2", board31.topHypothesis(), board31.toString());
+        // run again: the folder is the same sweep, so nothing is added
+        run("batch", "--stage", HYDROPHONE, "--ledger", ledger(), "--lot", "scope", sweeps.toString());
+        assertEquals(2, lot("scope").size());
+        // a record changed makes a new test of that board
+        Path first;
+        try (var listing = Files.list(records)) {
+            first = listing.sorted().findFirst().orElseThrow();
+        }
+        Files.writeString(first, Files.readString(first) + "\n");
+        run("batch", "--stage", HYDROPHONE, "--ledger", ledger(), "--lot", "scope", sweeps.toString());
+        assertEquals(3, lot("scope").size());
+    }
 }

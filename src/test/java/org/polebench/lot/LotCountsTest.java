@@ -63,6 +63,17 @@ class LotCountsTest {
     }
 
     @Test
+    void aPairIsOneCulpritWhicheverOrderItsBoardNamedIt() {
+        List<BoardOutcome> boards = List.of(
+                at("B1", 1, Outcome.FAIL, "", "2026-05-04T09:00:00Z", true, "C3 and C2"),
+                at("B2", 2, Outcome.FAIL, "", "2026-05-04T09:01:00Z", true, "C2 and C3"),
+                at("B3", 3, Outcome.FAIL, "", "2026-05-04T09:02:00Z", true, "C1"));
+        // by hand: the same two parts on B1 and B2, so two boards for one cause, then C1
+        assertEquals(List.of(new Culprit("C2 and C3", 2, 2 / 3.0), new Culprit("C1", 1, 1.0)),
+                findings(boards).culprits());
+    }
+
+    @Test
     void anEmptyLotHasNoYieldAndNoStatistics() {
         LotFindings lot = findings(List.of());
         assertEquals(0, lot.boards());

@@ -122,6 +122,12 @@ class SystematicShiftsTest {
         assertEquals(Math.log(1.8), c3[1], 1e-12);
         double[] gain = SystematicShifts.band(STAGE, "gain");
         assertEquals(Math.log(10) / 20, gain[1], 1e-12);
+        // β: the stage file's beta-tolerance: 50 %; the bias current, solved from its parts:
+        // ±20 %, the back-solve's default band (docs/method.md, "The hypotheses")
+        assertEquals(Math.log(0.5), SystematicShifts.band(STAGE, "Q1 beta")[0], 1e-12);
+        assertEquals(Math.log(1.5), SystematicShifts.band(STAGE, "Q1 beta")[1], 1e-12);
+        assertEquals(Math.log(0.8), SystematicShifts.band(STAGE, "Q1 bias")[0], 1e-9);
+        assertEquals(Math.log(1.2), SystematicShifts.band(STAGE, "Q1 bias")[1], 1e-9);
         // a name the stage does not know: the point 0
         assertEquals(0, SystematicShifts.band(STAGE, "bench")[1]);
     }
