@@ -2,7 +2,7 @@
 rem polebench launcher for Windows (issue 15): the same choices as bin/polebench, which explains
 rem them. Runs target\polebench.jar with the class-data archive target\polebench.jsa when it is
 rem there; the quick compiler (C1) and the serial collector for ordinary runs, the full tiered JIT
-rem for a batch, a lot, a folder or an input file of 8 MB or more.
+rem for a batch, a lot, a folder, an input file of 8 MB or more or a stage file over 4 KB.
 rem   POLEBENCH_JIT=quick or full overrides; POLEBENCH_JAVA_OPTS adds JVM options; JAVA_HOME picks Java.
 setlocal EnableDelayedExpansion
 set "HERE=%~dp0.."
@@ -24,6 +24,7 @@ if not defined JIT (
   for %%A in (%*) do (
     if exist "%%~A\*" set "JIT=full"
     if exist "%%~A" if %%~zA GEQ 8388608 set "JIT=full"
+    if /i "%%~xA"==".yaml" if exist "%%~A" if %%~zA GTR 4096 echo %%~nA| findstr /i /e /l ".stage" >nul && set "JIT=full"
   )
 )
 set "JIT_OPTS="

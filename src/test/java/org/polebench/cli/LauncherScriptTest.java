@@ -79,7 +79,7 @@ class LauncherScriptTest {
     }
 
     @Test
-    void aBatchAFolderOrALargeFileGetTheFullJit() throws Exception {
+    void aBatchAFolderALargeFileOrALongStageGetTheFullJit() throws Exception {
         assertFalse(launch(Map.of(), "batch", "--stage", "s.yaml").javaArgs().contains(QUICK));
         Files.createDirectories(home.resolve("records"));
         assertFalse(launch(Map.of(), "inspect", home.resolve("records").toString()).javaArgs().contains(QUICK));
@@ -88,6 +88,13 @@ class LauncherScriptTest {
             file.setLength(9L * 1024 * 1024);   // sparse: 9 MiB, over the 8 MB line
         }
         assertFalse(launch(Map.of(), "inspect", large.toString()).javaArgs().contains(QUICK));
+        // a stage file over 4 KB (a long cascade; the bundled demos are 1-2 KB) and a small one
+        Path cascade = home.resolve("cascade.stage.yaml");
+        Files.writeString(cascade, "#".repeat(5000) + "\n");
+        assertFalse(launch(Map.of(), "predict", cascade.toString()).javaArgs().contains(QUICK));
+        Path demo = home.resolve("demo.stage.yaml");
+        Files.writeString(demo, "#".repeat(1500) + "\n");
+        assertTrue(launch(Map.of(), "predict", demo.toString()).javaArgs().contains(QUICK));
         Path small = home.resolve("small.csv");
         Files.writeString(small, "frequency_hz,gain_db\n");
         assertTrue(launch(Map.of(), "inspect", small.toString()).javaArgs().contains(QUICK));
