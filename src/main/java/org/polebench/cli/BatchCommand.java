@@ -56,11 +56,8 @@ final class BatchCommand implements Callable<Integer> {
     @Option(names = "--stage", paramLabel = "S", required = true, description = "the stage file (*.stage.yaml)")
     Path stage;
 
-    @Option(names = "--ledger", paramLabel = "L",
-            description = "the ledger: an SQLite file (default " + LedgerLocation.DEFAULT_FILE + " here) or "
-                    + "jdbc:postgresql://HOST[:PORT]/DB, with PGUSER and PGPASSWORD from the environment or the "
-                    + "password in ~/.pgpass")
-    String ledger;
+    @Mixin
+    LedgerOption ledger = new LedgerOption();
 
     @Option(names = "--lot", paramLabel = "NAME", description = "the lot's name (default: the stage file's name)")
     String lot;
@@ -124,7 +121,7 @@ final class BatchCommand implements Callable<Integer> {
             // a profile that does not exist is the command line's fault, not every file's
             SweepLayoutOption.profiles().resolve(layout.profile);
         }
-        LedgerLocation location = LedgerLocation.parse(Optional.ofNullable(ledger), System.getenv());
+        LedgerLocation location = ledger.location();
         List<Path> files = new SweepFiles().expand(sweeps);
         String lotName = lot != null ? lot : stageName(stage);
         BatchRequest request = new BatchRequest(stage, Optional.ofNullable(benchFile), files, lotName, station,

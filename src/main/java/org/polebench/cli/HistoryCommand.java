@@ -1,9 +1,7 @@
 package org.polebench.cli;
 
 import java.io.IOException;
-import java.nio.file.Files;
 import java.util.List;
-import java.util.Optional;
 import java.util.concurrent.Callable;
 import org.polebench.InputProblem;
 import org.polebench.ledger.BoardHistory;
@@ -13,6 +11,7 @@ import org.polebench.ledger.RecordedTest;
 import org.polebench.report.HistoryJson;
 import org.polebench.report.HistoryText;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
@@ -28,10 +27,8 @@ final class HistoryCommand implements Callable<Integer> {
     @Spec
     CommandSpec spec;
 
-    @Option(names = "--ledger", paramLabel = "L",
-            description = "the ledger: an SQLite file (default " + LedgerLocation.DEFAULT_FILE + " here) or "
-                    + "jdbc:postgresql://HOST[:PORT]/DB")
-    String ledger;
+    @Mixin
+    LedgerOption ledger = new LedgerOption();
 
     @Option(names = "--board", paramLabel = "ID", required = true, description = "the board's id")
     String board;
@@ -41,11 +38,7 @@ final class HistoryCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws InputProblem, IOException {
-        LedgerLocation location = LedgerLocation.parse(Optional.ofNullable(ledger), System.getenv());
-        if (location.file().isPresent() && !Files.exists(location.file().get())) {
-            throw new InputProblem(location.file().get(), 0, "no ledger here",
-                    "run polebench batch first, or name the ledger with --ledger");
-        }
+        LedgerLocation location = ledger.existing();
         List<RecordedTest> tests;
         try (Ledger opened = Ledger.open(location)) {
             tests = opened.history(board);

@@ -1,7 +1,6 @@
 package org.polebench.cli;
 
 import java.io.IOException;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.Instant;
 import java.util.List;
@@ -19,6 +18,7 @@ import org.polebench.report.LotJson;
 import org.polebench.report.LotReportWriter;
 import org.polebench.report.LotText;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
@@ -37,10 +37,8 @@ final class LotCommand implements Callable<Integer> {
     @Spec
     CommandSpec spec;
 
-    @Option(names = "--ledger", paramLabel = "L",
-            description = "the ledger: an SQLite file (default " + LedgerLocation.DEFAULT_FILE + " here) or "
-                    + "jdbc:postgresql://HOST[:PORT]/DB")
-    String ledger;
+    @Mixin
+    LedgerOption ledger = new LedgerOption();
 
     @Option(names = "--lot", paramLabel = "NAME", required = true, description = "the lot's name, as batch recorded it")
     String lot;
@@ -70,11 +68,7 @@ final class LotCommand implements Callable<Integer> {
                     "use at least 20 (the default is " + LotAnalysis.DEFAULT_DRAWS + ")");
         }
         CountLimits.samples(draws);
-        LedgerLocation location = LedgerLocation.parse(Optional.ofNullable(ledger), System.getenv());
-        if (location.file().isPresent() && !Files.exists(location.file().get())) {
-            throw new InputProblem(location.file().get(), 0, "no ledger here",
-                    "run polebench batch first, or name the ledger with --ledger");
-        }
+        LedgerLocation location = ledger.existing();
         List<BoardOutcome> boards;
         Optional<String> stageText;
         try (Ledger opened = Ledger.open(location)) {
