@@ -181,6 +181,7 @@ final class HypothesisSearch {
         }
         bench(noFault);
         convergeNear();
+        rescreenFromLeader();
         last = finish();
         return last;
     }
@@ -525,6 +526,63 @@ final class HypothesisSearch {
         converge(own);
         if (theirs != null) {
             theirs.join();
+        }
+    }
+
+    /**
+     * A second start for the single faults left far behind. Every single is screened from the
+     * no-fault MAP; when a large fault bends that MAP (the network's β and bias currents pulled
+     * far from their priors to mimic, say, a coupling capacitor a decade low), the right part's
+     * hypothesis can stay in the bent basin and lose by hundreds of nats unconverged, while a
+     * part that escaped it wins at p = 1.000: a drawn geophone board with C2 at a tenth, swept to
+     * 2 MHz, was named "C1" so. Each capacitor, bias or gain single more than
+     * {@link FaultRanking#SKIP_NATS} behind the leader is therefore screened again from the
+     * leader's MAP (the leader's own freed parameters put back to their tolerance means, this
+     * one's at its mean and a decade either side), kept where that lowers its objective, and
+     * converged when that brings it near. Boards whose singles are all near pay nothing.
+     */
+    private void rescreenFromLeader() {
+        double[] lnZ = evidence(statedPoints());
+        int leaderIndex = argMax(lnZ);
+        Candidate leader = candidates.get(leaderIndex);
+        double lead = leader.logPrior + lnZ[leaderIndex];
+        if (leader.kind == HypothesisKind.NONE || leader.own != null) {
+            return;
+        }
+        double[] base = leader.stated.theta().clone();
+        for (int f : leader.freed) {
+            base[f] = mean[f];
+        }
+        boolean moved = false;
+        for (int h = 0; h < candidates.size(); h++) {
+            Candidate candidate = candidates.get(h);
+            if (h == leaderIndex || candidate.freed.length != 1 || candidate.own != null || candidate.settled
+                    || candidate.logPrior + lnZ[h] > lead - FaultRanking.SKIP_NATS) {
+                continue;
+            }
+            int j = candidate.freed[0];
+            ParameterKind kind = parameters.get(j).kind();
+            if (kind != ParameterKind.CAPACITOR && kind != ParameterKind.BIAS && kind != ParameterKind.GAIN) {
+                continue;
+            }
+            boolean[] free = networkHeld.clone();
+            free[j] = true;
+            double[] offsets = kind == ParameterKind.CAPACITOR ? new double[] {0, -Math.log(10), Math.log(10)}
+                    : new double[] {0};
+            List<double[]> starts = new ArrayList<>();
+            for (double offset : offsets) {
+                double[] start = base.clone();
+                start[j] = tolerance[j].mean() + offset;
+                starts.add(start);
+            }
+            MapPoint again = screen(candidate.misfit, starts, free);
+            if (again.objective() < candidate.stated.objective()) {
+                candidate.stated = again;
+                moved = true;
+            }
+        }
+        if (moved) {
+            convergeNear();
         }
     }
 

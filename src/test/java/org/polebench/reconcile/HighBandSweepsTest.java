@@ -100,6 +100,47 @@ class HighBandSweepsTest {
     }
 
     @Test
+    void aDecadeSlipThatBendsTheNoFaultFitIsStillFoundOrLeftUnsure() throws Exception {
+        // the two-stage geophone, every part and β drawn, the interstage coupling C2 at a tenth
+        // (220 nF for 2.2 µF), swept 0.2 Hz to 2 MHz: the no-fault fit bends β and the bias
+        // currents far from their priors to mimic the slip, and every single fault is screened
+        // from there. Before the second screen from the leader, board 7003 was named "C1" at
+        // p = 1.000 with C2's hypothesis left unconverged hundreds of nats behind.
+        DemoBoards demo = new DemoBoards(DemoBoards.GEOPHONE);
+        StagePrediction predicted = new StageAnalysis().withSpread(new ToleranceSpread(200, 1))
+                .analyse(new StageFile(demo.stage, List.of()));
+        List<Long> seeds = List.of(7000L, 7001L, 7002L, 7003L, 7004L, 7005L, 7006L, 7007L);
+        List<ReconcileResult> results = seeds.parallelStream().map(seed -> {
+            try {
+                Sweep sweep = new BoardSynthesizer().synthesize(BoardDraw.draw(demo.stage, seed),
+                        List.of(new Fault.CapacitorValue("C2", 0.22e-6)), SweepNoise.BENCH, BAND, true, seed);
+                return Reconciler.onOneThread().reconcile(predicted, sweep, DecisionRule.SIMPLE);
+            } catch (InputProblem problem) {
+                throw new IllegalStateException(problem);
+            }
+        }).collect(Collectors.toList());
+        int right = 0;
+        int wrong = 0;
+        List<String> lines = new ArrayList<>();
+        for (int i = 0; i < seeds.size(); i++) {
+            Hypothesis top = results.get(i).diagnosis().top();
+            boolean isRight = parts(top).equals(Set.of("C2"));
+            boolean confident = results.get(i).adequacy().explained() && top.probability() >= 0.9;
+            right += isRight ? 1 : 0;
+            wrong += !isRight && confident ? 1 : 0;
+            lines.add(String.format(Locale.ROOT, "seed %d: top %s p=%.3f%s", seeds.get(i), top.label(),
+                    top.probability(), !isRight && confident ? "  CONFIDENTLY WRONG" : ""));
+        }
+        String summary = right + "/" + seeds.size() + " right, " + wrong + " confidently wrong\n  "
+                + String.join("\n  ", lines);
+        TestFigures.keep(getClass(), "aDecadeSlipThatBendsTheNoFaultFitIsStillFoundOrLeftUnsure", summary);
+        assertTrue(wrong == 0, summary);
+        // C1 and C2 are both 2.2 µF couplings whose slips move the corner alike; where the sweep
+        // cannot tell them apart the ranking may lean to C1, unsure (seen: 6 of 8 right)
+        assertTrue(right >= 5, summary);
+    }
+
+    @Test
     void everyNetworkColumnMatchesCentralDifferencesAcrossTheHighBand() throws Exception {
         DemoBoards demo = new DemoBoards(DemoBoards.HYDROPHONE);
         double[] frequencies = BAND.stream().mapToDouble(Double::doubleValue).toArray();
