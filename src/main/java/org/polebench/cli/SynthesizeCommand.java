@@ -162,6 +162,13 @@ final class SynthesizeCommand implements Callable<Integer> {
             throw new InputProblem(null, 0, "--to must lie above --from", "swap or widen the band");
         }
         if (waveforms) {
+            // the records have their own noise and layout: say so rather than drop the option
+            for (String[] pair : new String[][] {{"--noise", "--record-noise"}, {"--layout", "(the scope-time-volts layout)"}}) {
+                if (spec.commandLine().getParseResult().hasMatchedOption(pair[0])) {
+                    throw new InputProblem(null, 0, pair[0] + " does not apply to --waveforms",
+                            "leave it out; the records take " + pair[1] + " instead");
+                }
+            }
             return writeRecords(stage, parsed, bench, BoardSynthesizer.logSpaced(low, high, points), low, high);
         }
         Sweep sweep = new BoardSynthesizer().synthesize(stage, parsed, sweepNoise,

@@ -46,6 +46,19 @@ class SynthesizeCommandTest {
     }
 
     @Test
+    void optionsTheWaveformRecordsDoNotTakeAreRefusedNotIgnored(@TempDir Path dir) {
+        Path out = dir.resolve("records");
+        String[] noise = run("synthesize", "--stage", "sample-measurements/hydrophone-preamp-ce.stage.yaml",
+                "--waveforms", "--noise", "0.1dB,1deg", "--out", out.toString());
+        assertEquals("2", noise[0]);
+        assertTrue(noise[2].contains("--record-noise"), noise[2]);
+        String[] layout = run("synthesize", "--stage", "sample-measurements/hydrophone-preamp-ce.stage.yaml",
+                "--waveforms", "--layout", "canonical", "--out", out.toString());
+        assertEquals("2", layout[0]);
+        assertTrue(!Files.exists(out), "nothing is written when an option is refused");
+    }
+
+    @Test
     void forceWritesThroughASymbolicLinkAndRefusesAFolder(@TempDir Path dir) throws IOException {
         // issue 14: --force on a link replaces its target and keeps the link; a folder is never written over
         Path real = Files.writeString(dir.resolve("real.csv"), "old\n");
