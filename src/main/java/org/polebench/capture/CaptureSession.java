@@ -235,16 +235,6 @@ final class CaptureSession {
         return Double.isNaN(previousPhaseDeg) ? PhaseUnwrap.fold(deg) : PhaseUnwrap.nearestTurn(deg, previousPhaseDeg);
     }
 
-    /** @return the profile's stated standard uncertainty of gain, in dB, when it states one */
-    OptionalDouble profileGainUncertaintyDb() {
-        return uGain;
-    }
-
-    /** @return the profile's stated standard uncertainty of phase, in degrees, when it states one */
-    OptionalDouble profilePhaseUncertaintyDeg() {
-        return uPhase;
-    }
-
     /** Puts a point on disk; the next point's phase is unwrapped against it. */
     void append(SweepPoint point) throws IOException {
         sweep.append(point);

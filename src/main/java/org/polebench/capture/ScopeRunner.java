@@ -32,9 +32,10 @@ import org.polebench.waveform.WaveformRecord;
  * records (ASCII numbers, or definite-length blocks read by their length prefix), and fit the
  * pair as it arrives with the three-parameter sine fit of IEEE Std 1057 at the frequency set
  * (it is known), with the record's checks as warnings (docs/method.md, "Sine fitting of scope
- * records"). The point goes to the sweep file at once, with the fit's standard uncertainties
- * combined with the profile's stated accuracy in quadrature (GUM, JCGM 100:2008, 5.1.2, both
- * sensitivities 1). A timeout or an unreadable answer repeats the step after the links are
+ * records"). The point goes to the sweep file at once, with the fit's own standard
+ * uncertainties, as record import gives them (the profile's stated accuracy is a calibration
+ * term common to all points, not a point's own; docs/method.md, "Sine fitting of scope
+ * records"). A timeout or an unreadable answer repeats the step after the links are
  * drained quiet; a record the fit cannot use leaves the point out, as import drops it.
  */
 final class ScopeRunner implements ProtocolRunner {
@@ -286,10 +287,7 @@ final class ScopeRunner implements ProtocolRunner {
                 s.warn(at + warning.message());
             }
             RecordFit fit = measured.fit();
-            double uGain = Math.hypot(fit.gainUncertaintyDb(), s.profileGainUncertaintyDb().orElse(0));
-            double uPhase = Math.hypot(fit.phaseUncertaintyDeg(), s.profilePhaseUncertaintyDeg().orElse(0));
-            return StepAttempt.of(new SweepPoint(frequencyHz, fit.gainDb(),
-                    OptionalDouble.of(s.unwrapPhaseDeg(fit.phaseDeg())), OptionalDouble.of(uGain), OptionalDouble.of(uPhase)));
+            return StepAttempt.of(RecordMeasurement.point(fit, s.unwrapPhaseDeg(fit.phaseDeg())));
         }
 
         private SampleCoding scaled(double voltsPerCode) {

@@ -348,7 +348,7 @@ public final class ProfileReader {
         SampleCoding coding = samples(doc, samplesNode);
         if (format == LineProtocol.WaveformFormat.BLOCK) {
             if (!coding.codes() && inputScale.isEmpty()) {
-                throw doc.problemAt(samplesNode.line(), "a block holds codes: its samples need unit: codes and "
+                throw doc.problem(fetch, "format", "a block holds codes: its samples need unit: codes and "
                         + "volts-per-code, or scale queries", "add samples: {unit: codes, volts-per-code: 10 mV}, or input-scale "
                         + "and output-scale queries");
             }
