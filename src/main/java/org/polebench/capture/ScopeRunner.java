@@ -31,12 +31,12 @@ import org.polebench.waveform.WaveformRecord;
  * each channel's volts per code when the profile has scale queries), fetch both channels'
  * records (ASCII numbers, or definite-length blocks read by their length prefix), and fit the
  * pair as it arrives with the three-parameter sine fit of IEEE Std 1057 at the frequency set
- * (it is known), with the record's checks as warnings (docs/method.md, "Sine fitting of scope
- * records"). The point goes to the sweep file at once, with the fit's own standard
- * uncertainties, as record import gives them (the profile's stated accuracy is a calibration
- * term common to all points, not a point's own; docs/method.md, "Sine fitting of scope
- * records"). A timeout or an unreadable answer repeats the step after the links are
- * drained quiet; a record the fit cannot use leaves the point out, as import drops it.
+ * (it is known), with the record's checks as warnings. The method is in
+ * docs/method.md, "Sine fitting of scope records".
+ * The point goes to the sweep file at once, with the fit's own standard uncertainties, as
+ * record import gives them (the profile's stated accuracy is a calibration term common to all
+ * points, not a point's own). A timeout or an unreadable answer repeats the step after the
+ * links are drained quiet; a record the fit cannot use leaves the point out, as import drops it.
  */
 final class ScopeRunner implements ProtocolRunner {
     private final SerialProfile profile;

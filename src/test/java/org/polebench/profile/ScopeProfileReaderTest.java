@@ -77,7 +77,7 @@ class ScopeProfileReaderTest {
             {BASE + "  format: block\n", 14, "a block holds codes"},
             {BASE + "  coding: int8\n", 14, "coding applies to format: block"},
             {BASE + "  format: morse\n", 14, "morse"},
-            {BASE + "  input-scale: {to: scope, send: 'YINC? 1'}\n", 10, "output-scale"},
+            {BASE + "  input-scale: {to: scope, send: 'YINC? 1'}\n", 11, "output-scale"},
             {BASE.replace("'FREQ {frequency_nr3}'", "'FREQ 1000'"), 7, "{frequency_nr3}"},
             {BASE.replace("to: scope, send: 'XINC?'", "to: meter, send: 'XINC?'"), 11, "no instrument named 'meter'"},
             {BASE + "colour: blue\n", 14, "unknown key 'colour'"},
@@ -85,7 +85,7 @@ class ScopeProfileReaderTest {
         for (Object[] c : cases) {
             InputProblem problem = assertThrows(InputProblem.class, () -> read((String) c[0]), (String) c[2]);
             assertTrue(problem.getMessage().contains((String) c[2]), problem.describe());
-            assertEquals(c[1], problem.line(), problem.describe());
+            assertEquals(((Integer) c[1]).longValue(), problem.line(), problem.describe());
             assertTrue(!problem.hint().isBlank());
         }
     }

@@ -54,7 +54,7 @@ class WaveformProfileReaderTest {
         };
         for (Object[] c : cases) {
             InputProblem problem = assertThrows(InputProblem.class, () -> read((String) c[0]), (String) c[2]);
-            assertEquals(c[1], problem.line(), problem.describe());
+            assertEquals(((Integer) c[1]).longValue(), problem.line(), problem.describe());
             assertTrue(problem.getMessage().contains((String) c[2]), problem.describe());
             assertTrue(!problem.hint().isBlank());
         }
