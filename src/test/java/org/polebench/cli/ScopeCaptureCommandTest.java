@@ -129,6 +129,48 @@ class ScopeCaptureCommandTest {
                     "at " + p.frequencyHz() + " Hz");
             assertTrue(p.gainUncertaintyDb().isPresent() && p.phaseUncertaintyDeg().isPresent(), "uncertainty columns");
         }
+        // the transcript holds records, not readings: reading it as a sweep is refused with a hint
+        Result inspect = run("inspect", "--profile", resource("scope-test-ascii.yaml"),
+                dir.resolve("ascii.transcript.log").toString());
+        assertEquals(2, inspect.code(), inspect.err());
+        assertTrue(inspect.err().contains("holds scope records"), inspect.err());
+    }
+
+    @Test
+    void aPortLostMidSweepStopsWithExitCode3AndResumeCompletesIt() throws Exception {
+        String profile = resource("scope-test-blocks.yaml");
+        String stage = resource("rc-coupling.stage.yaml");
+        Path name = dir.resolve("board");
+        Result first;
+        try (PseudoTerminalPair pty = PseudoTerminalPair.open(dir)) {
+            Background simulator = new Background("simulate", "--port", pty.instrumentEnd().toString(),
+                    "--profile", profile, "--stage", stage, "--misbehave", "close@5");
+            simulator.awaitOutput(Pattern.compile("(answering)"), 30_000);
+            first = run("capture", "--port", pty.benchEnd().toString(), "--profile", profile, "--from", "2Hz",
+                    "--to", "20kHz", "--points", "12", "--out", name.toString());
+            assertEquals(0, simulator.join(10_000));
+        }
+        assertEquals(3, first.code(), first.err());
+        assertTrue(first.err().contains("4 of 12 points are in"), first.err());
+
+        Result second;
+        try (PseudoTerminalPair pty = PseudoTerminalPair.open(dir)) {
+            Background simulator = new Background("simulate", "--port", pty.instrumentEnd().toString(),
+                    "--profile", profile, "--stage", stage);
+            simulator.awaitOutput(Pattern.compile("(answering)"), 30_000);
+            second = run("capture", "--port", pty.benchEnd().toString(), "--profile", profile,
+                    "--resume", name.toString());
+            pty.close();
+            assertEquals(0, simulator.join(10_000));
+        }
+        assertEquals(0, second.code(), second.err());
+        assertTrue(second.out().contains("resuming at point 5 of 12"), second.out());
+        Sweep sweep = read(dir.resolve("board.sweep.csv"));
+        assertEquals(12, sweep.size());
+        for (SweepPoint p : sweep.points()) {
+            // the designed 1 µF (τ = 10.6 ms), within the int8 blocks' quantisation as above
+            assertEquals(highPassDb(p.frequencyHz(), 10_600 * 1e-6), p.gainDb(), 0.02, "at " + p.frequencyHz() + " Hz");
+        }
     }
 
     @Test
