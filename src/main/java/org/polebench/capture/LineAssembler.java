@@ -111,6 +111,11 @@ final class LineAssembler {
                     block = BlockState.DIGIT;
                     return true;
                 }
+                if (b == '\r' || b == '\n') {
+                    // the line ending of the block before, when it came in a later read than its
+                    // block: not an answer, so it is passed over
+                    return true;
+                }
                 block = BlockState.NONE;
                 refusing = true;
                 return false;

@@ -42,6 +42,20 @@ class BlockReadingTest {
     }
 
     @Test
+    void aBlocksLineEndingArrivingAfterTheNextBlockIsAskedForIsPassedOver() {
+        LineAssembler assembler = new LineAssembler(PortSettings.LineEnding.LF);
+        assembler.expectBlock();
+        byte[] first = bytes("#12", new byte[] {1, 2});
+        assembler.accept(first, first.length);
+        assertArrayEquals(bytes("#12", new byte[] {1, 2}), assembler.nextBlock().orElseThrow().bytes());
+        assembler.expectBlock();
+        byte[] rest = bytes("\n#11", new byte[] {3}, "\n");
+        assembler.accept(rest, rest.length);
+        assertArrayEquals(bytes("#11", new byte[] {3}), assembler.nextBlock().orElseThrow().bytes());
+        assertEquals(Optional.empty(), assembler.next());
+    }
+
+    @Test
     void aLineWhereABlockWasExpectedIsItsRefusalWithTheText() {
         LineAssembler assembler = new LineAssembler(PortSettings.LineEnding.LF);
         assembler.expectBlock();
