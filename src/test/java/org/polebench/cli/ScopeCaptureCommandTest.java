@@ -254,6 +254,19 @@ class ScopeCaptureCommandTest {
     }
 
     @Test
+    void theCautionsBeforeARealScopeCaptureNameTheProbes() {
+        // the user guide's cautions for scope capture ("Live scope capture"): probe grounds,
+        // attenuation, the output's rating; a meter's capture leaves them out
+        StringWriter scope = new StringWriter();
+        BenchCautions.print(new PrintWriter(scope), 0.2, 5, "Vpp", true);
+        assertTrue(scope.toString().contains("ground clips go to the stage's ground only"), scope.toString());
+        assertTrue(scope.toString().contains("attenuation"), scope.toString());
+        StringWriter meter = new StringWriter();
+        BenchCautions.print(new PrintWriter(meter), 0.2, 5, "Vpp", false);
+        assertFalse(meter.toString().contains("scope probes"), meter.toString());
+    }
+
+    @Test
     void aBlockScopeWithMoreConverterBitsThanItsCodingIsRefused() {
         Result r = run("simulate", "--tcp", "127.0.0.1:0", "--profile", resource("scope-test-blocks.yaml"),
                 "--scope-bits", "12");
