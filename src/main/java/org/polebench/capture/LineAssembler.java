@@ -216,6 +216,14 @@ final class LineAssembler {
         return !lines.isEmpty();
     }
 
+    /** @return the unfinished line, now dropped (the tail of a block cut short, once the line went quiet) */
+    String discardUnfinished() {
+        String text = decode(length);
+        length = 0;
+        cut = false;
+        return text;
+    }
+
     String unfinished() {
         return decode(length);
     }

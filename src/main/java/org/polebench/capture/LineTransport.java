@@ -59,6 +59,14 @@ public sealed interface LineTransport extends Closeable permits SerialLine, TcpL
      */
     void sendBytes(byte[] bytes) throws IOException;
 
+    /**
+     * Drops the text received after the last complete line: once a line has gone quiet after a
+     * block cut short, its tail is stale and must not start the next answer.
+     *
+     * @return the text dropped, empty when there was none
+     */
+    String discardUnfinished();
+
     /** @return text received after the last complete line, empty when there is none */
     String unfinishedLine();
 

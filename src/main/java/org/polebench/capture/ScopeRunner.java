@@ -229,8 +229,14 @@ final class ScopeRunner implements ProtocolRunner {
         private void drainAll() throws IOException, CaptureHalt {
             Map<LineTransport, Boolean> seen = new IdentityHashMap<>();
             for (LineProtocol.ScpiInstrument instrument : scope.instruments()) {
-                if (seen.put(s.links.get(instrument.name()), Boolean.TRUE) == null) {
+                LineTransport link = s.links.get(instrument.name());
+                if (seen.put(link, Boolean.TRUE) == null) {
                     s.drainUntilQuiet(instrument.name(), CaptureSession.QUIET_MS);
+                    String tail = link.discardUnfinished();
+                    if (!tail.isEmpty()) {
+                        s.transcript.note("discarded " + tail.length() + " characters from " + instrument.name()
+                                + " without a line ending (the tail of an answer cut short)");
+                    }
                 }
             }
         }

@@ -185,6 +185,11 @@ public final class SerialLine implements LineTransport {
     }
 
     @Override
+    public String discardUnfinished() {
+        return assembler.discardUnfinished();
+    }
+
+    @Override
     public String unfinishedLine() {
         return assembler.unfinished();
     }

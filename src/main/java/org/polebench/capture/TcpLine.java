@@ -168,6 +168,11 @@ public final class TcpLine implements LineTransport {
     }
 
     @Override
+    public String discardUnfinished() {
+        return assembler.discardUnfinished();
+    }
+
+    @Override
     public String unfinishedLine() {
         return assembler.unfinished();
     }
