@@ -81,8 +81,8 @@ final class CaptureSession {
             drainStaleLines();
             identify();
             if (sweep == null) {
-                sweep = AppendedSweep.create(request.sweepFile(), provenance(), hasPhase, uGain.isPresent(),
-                        uPhase.isPresent());
+                sweep = AppendedSweep.create(request.sweepFile(), provenance(), hasPhase,
+                        uGain.isPresent() || runner.pointUncertainties(), uPhase.isPresent() || runner.pointUncertainties());
             } else {
                 checkIdentity();
                 sweep.last().ifPresent(p -> previousPhaseDeg = p.phaseDeg().orElse(Double.NaN));
@@ -227,6 +227,14 @@ final class CaptureSession {
         return conversion.frequencyHz(rawFrequency);
     }
 
+    /**
+     * @param deg a phase folded into one turn, in degrees
+     * @return it moved by whole turns to lie nearest the previous point's phase (the first point's folded)
+     */
+    double unwrapPhaseDeg(double deg) {
+        return Double.isNaN(previousPhaseDeg) ? PhaseUnwrap.fold(deg) : PhaseUnwrap.nearestTurn(deg, previousPhaseDeg);
+    }
+
     /** Puts a point on disk; the next point's phase is unwrapped against it. */
     void append(SweepPoint point) throws IOException {
         sweep.append(point);
@@ -317,6 +325,24 @@ final class CaptureSession {
                 return line;
             }
         }
+    }
+
+    /**
+     * @return the next answer from that instrument's link read as a definite-length block (or
+     *         why it is not one), noted in the transcript by its size; empty after the timeout.
+     *         A stop request is looked at before the wait, not during it: the wait is one
+     *         timeout at most.
+     */
+    Optional<BlockAnswer> awaitBlock(String who, long timeoutMs) throws IOException, CaptureHalt {
+        if (stopRequested.getAsBoolean()) {
+            throw new CaptureHalt(CaptureOutcome.StopReason.INTERRUPTED, "stopped on request (Ctrl-C)");
+        }
+        Optional<BlockAnswer> block = links.get(runner.linkFor(who)).receiveBlock(timeoutMs);
+        if (block.isPresent()) {
+            transcript.note(block.get().refusal().isPresent() ? "from " + who + ", not a block: "
+                    + block.get().refusal().get() : "from " + who + ": a block of " + block.get().length() + " bytes");
+        }
+        return block;
     }
 
     /** Waits the settling time at that frequency, polling for a stop request. */

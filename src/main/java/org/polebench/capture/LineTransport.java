@@ -41,6 +41,32 @@ public sealed interface LineTransport extends Closeable permits SerialLine, TcpL
      */
     Optional<String> receive(long timeoutMs) throws IOException;
 
+    /**
+     * Waits for the next answer as an IEEE 488.2 definite-length block, read by its length
+     * prefix (its bytes may hold the line ending), the line ending after it dropped.
+     *
+     * @param timeoutMs how long to wait for the whole block, in milliseconds
+     * @return the block, or why the answer is not one (also a block cut short by the time);
+     *         empty when nothing arrived within the time
+     * @throws PortLostException when the port or connection is gone
+     */
+    Optional<BlockAnswer> receiveBlock(long timeoutMs) throws IOException;
+
+    /**
+     * Sends bytes as they are, without a line ending (a block, by the simulator's side).
+     *
+     * @throws PortLostException when the port or connection is gone
+     */
+    void sendBytes(byte[] bytes) throws IOException;
+
+    /**
+     * Drops the text received after the last complete line: once a line has gone quiet after a
+     * block cut short, its tail is stale and must not start the next answer.
+     *
+     * @return the text dropped, empty when there was none
+     */
+    String discardUnfinished();
+
     /** @return text received after the last complete line, empty when there is none */
     String unfinishedLine();
 

@@ -16,7 +16,7 @@ import org.polebench.profile.SerialProfile;
  * <p>A runner holds configuration only (the profile and its protocol); a capture's own state
  * lives in its session, so one runner serves any number of captures.
  */
-sealed interface ProtocolRunner permits ScpiRunner, StreamRunner {
+sealed interface ProtocolRunner permits ScpiRunner, StreamRunner, ScopeRunner {
 
     static ProtocolRunner of(SerialProfile profile) {
         return profile.protocol().apply(new LineProtocol.Cases<ProtocolRunner>() {
@@ -28,6 +28,11 @@ sealed interface ProtocolRunner permits ScpiRunner, StreamRunner {
             @Override
             public ProtocolRunner stream(LineProtocol.StreamedLines stream) {
                 return new StreamRunner(profile, stream);
+            }
+
+            @Override
+            public ProtocolRunner scope(LineProtocol.ScopeFetch scope) {
+                return new ScopeRunner(profile, scope);
             }
         });
     }
@@ -49,6 +54,11 @@ sealed interface ProtocolRunner permits ScpiRunner, StreamRunner {
 
     /** @return whether every point carries a phase */
     boolean hasPhase();
+
+    /** @return whether each point carries uncertainties of its own (a fitted record's), so the sweep file has their columns */
+    default boolean pointUncertainties() {
+        return false;
+    }
 
     /** @return the identity query of each instrument that has one, by instrument, in order */
     Map<String, String> identityQueries();

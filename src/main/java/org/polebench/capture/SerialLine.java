@@ -112,10 +112,14 @@ public final class SerialLine implements LineTransport {
 
     @Override
     public void send(String line) throws IOException {
+        sendBytes((line + settings.lineEnding().text()).getBytes(StandardCharsets.UTF_8));
+    }
+
+    @Override
+    public void sendBytes(byte[] bytes) throws IOException {
         if (lost || closed) {
             throw new PortLostException("serial port " + path + " is gone");
         }
-        byte[] bytes = (line + settings.lineEnding().text()).getBytes(StandardCharsets.UTF_8);
         int written = 0;
         while (written < bytes.length) {
             int n = port.writeBytes(bytes, bytes.length - written, written);
@@ -153,6 +157,36 @@ public final class SerialLine implements LineTransport {
                 return assembler.next();
             }
         }
+    }
+
+    @Override
+    public Optional<BlockAnswer> receiveBlock(long timeoutMs) throws IOException {
+        assembler.expectBlock();
+        long deadline = System.nanoTime() + timeoutMs * 1_000_000L;
+        while (true) {
+            Optional<BlockAnswer> block = assembler.nextBlock();
+            if (block.isPresent()) {
+                return block;
+            }
+            if (lost || closed) {
+                assembler.abandonBlock();
+                throw new PortLostException("serial port " + path + " is gone");
+            }
+            if (System.nanoTime() >= deadline) {
+                return assembler.abandonBlock().map(BlockAnswer::refused);
+            }
+            int n = port.readBytes(buffer, buffer.length);
+            if (n < 0) {
+                lost = true;
+                continue;
+            }
+            assembler.accept(buffer, n);
+        }
+    }
+
+    @Override
+    public String discardUnfinished() {
+        return assembler.discardUnfinished();
     }
 
     @Override

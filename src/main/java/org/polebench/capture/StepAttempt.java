@@ -43,6 +43,11 @@ final class StepAttempt {
         return new StepAttempt(null, failure, reason, Double.NaN);
     }
 
+    /** A point left out for a reason a repeat would meet again (a record that cannot be fitted). */
+    static StepAttempt leftOut(double frequencyHz, String reason) {
+        return new StepAttempt(null, Failure.LEFT_OUT, reason, frequencyHz);
+    }
+
     static StepAttempt leftOut(double frequencyHz, ReadingConversion.Dropped dropped) {
         return new StepAttempt(null, Failure.LEFT_OUT, dropped.message(), frequencyHz);
     }

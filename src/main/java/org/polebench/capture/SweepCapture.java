@@ -87,6 +87,11 @@ public final class SweepCapture {
         return runner.maxAmplitude();
     }
 
+    /** @return true when the capture fetches scope records (a {@code serial-scope} profile), whose probes need their own cautions */
+    public boolean fetchesRecords() {
+        return runner.pointUncertainties();
+    }
+
     /** @return the profile's own level, in volts of its amplitude kind */
     public double defaultAmplitude() {
         return runner.defaultAmplitude();

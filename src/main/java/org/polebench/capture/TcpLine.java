@@ -122,6 +122,57 @@ public final class TcpLine implements LineTransport {
     }
 
     @Override
+    public Optional<BlockAnswer> receiveBlock(long timeoutMs) throws IOException {
+        assembler.expectBlock();
+        long deadline = System.nanoTime() + timeoutMs * 1_000_000L;
+        while (true) {
+            Optional<BlockAnswer> block = assembler.nextBlock();
+            if (block.isPresent()) {
+                return block;
+            }
+            if (lost || closed) {
+                assembler.abandonBlock();
+                throw new PortLostException(name + " was closed by the far end");
+            }
+            if (System.nanoTime() >= deadline) {
+                return assembler.abandonBlock().map(BlockAnswer::refused);
+            }
+            int n;
+            try {
+                n = in.read(buffer);
+            } catch (SocketTimeoutException e) {
+                continue;
+            } catch (IOException e) {
+                n = -1;
+            }
+            if (n < 0) {
+                lost = true;
+                continue;
+            }
+            assembler.accept(buffer, n);
+        }
+    }
+
+    @Override
+    public void sendBytes(byte[] bytes) throws IOException {
+        if (lost || closed) {
+            throw new PortLostException(name + " is closed");
+        }
+        try {
+            out.write(bytes);
+            out.flush();
+        } catch (IOException e) {
+            lost = true;
+            throw new PortLostException(name + " was closed by the far end (" + e.getMessage() + ")");
+        }
+    }
+
+    @Override
+    public String discardUnfinished() {
+        return assembler.discardUnfinished();
+    }
+
+    @Override
     public String unfinishedLine() {
         return assembler.unfinished();
     }

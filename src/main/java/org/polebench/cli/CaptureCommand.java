@@ -111,7 +111,7 @@ final class CaptureCommand implements Callable<Integer> {
             }
             if (!links.allLocal() && !noCautions) {
                 BenchCautions.print(err, request.amplitude().orElse(capture.defaultAmplitude()), capture.maxAmplitude(),
-                        profile.scale().amplitudeKind().symbol());
+                        profile.scale().amplitudeKind().symbol(), capture.fetchesRecords());
             }
             AtomicBoolean stop = new AtomicBoolean();
             CountDownLatch stopped = new CountDownLatch(1);

@@ -27,6 +27,9 @@ import org.polebench.synth.MeasuredBoard;
 import org.polebench.synth.StageBoard;
 import org.polebench.capture.SweepCapture;
 import org.polebench.synth.SweepNoise;
+import org.polebench.synth.ScopeSignal;
+import org.polebench.units.EngineeringValue;
+import org.polebench.units.Quantity;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
@@ -37,13 +40,17 @@ import picocli.CommandLine.Spec;
         description = {"Plays the instruments of a serial profile on a port, measuring the stage's exact small-signal "
                 + "response with the faults and noise given, so that capture can be tried without a bench. It "
                 + "identifies itself as a simulation; its data are invented.",
+                "A serial-scope profile's scope serves records of both channels (--scope-samples, --scope-noise, "
+                        + "--scope-bits, --scope-clip).",
                 "On request it misbehaves: drops an answer, sends garbage, stalls, or closes the port "
                         + "(--misbehave drop@5,garbage@9,stall@12=4s,close@20; N counts frequency commands)."},
         footer = {"", "Examples:",
                 "  socat -d -d pty,raw,echo=0,link=/tmp/bench pty,raw,echo=0,link=/tmp/instr &",
                 "  polebench simulate --port /tmp/instr --stage sample-measurements/hydrophone-preamp-ce.stage.yaml "
                         + "--fault C3=4.7u --noise 0.05dB,0.5deg",
-                "  polebench simulate --tcp 127.0.0.1:5025 --profile scpi-generator-meter --once"})
+                "  polebench simulate --tcp 127.0.0.1:5025 --profile scpi-generator-meter --once",
+                "  polebench simulate --tcp 127.0.0.1:5025 --profile generator-scope-blocks --fault C3=4.7u "
+                        + "--scope-noise 2mV --scope-clip 1.5V --once"})
 final class SimulateCommand implements Callable<Integer> {
     @Spec
     CommandSpec spec;
@@ -82,6 +89,23 @@ final class SimulateCommand implements Callable<Integer> {
             description = "faults of the line: drop@N, garbage@N, stall@N=TIME, close@N")
     List<String> misbehave = new ArrayList<>();
 
+    @Option(names = "--scope-samples", paramLabel = "N", defaultValue = "2000",
+            description = "a serial-scope profile's records: samples per channel (default ${DEFAULT-VALUE})")
+    int scopeSamples;
+
+    @Option(names = "--scope-noise", paramLabel = "VOLTS", defaultValue = "0",
+            description = "white Gaussian noise on every sample, as a standard deviation such as 2mV (default none)")
+    String scopeNoise;
+
+    @Option(names = "--scope-bits", paramLabel = "BITS", defaultValue = "0",
+            description = "quantise each channel to this many bits over its range (default: the block coding's "
+                    + "resolution, six figures in ASCII)")
+    int scopeBits;
+
+    @Option(names = "--scope-clip", paramLabel = "VOLTS",
+            description = "the channels' input limit: samples beyond ±VOLTS read ±VOLTS (default none)")
+    String scopeClip;
+
     @Option(names = "--bench", paramLabel = "FILE",
             description = "a bench file (*.bench.yaml): measure the board as that bench would (default: the profile's"
                     + " bench: section, if any)")
@@ -114,10 +138,11 @@ final class SimulateCommand implements Callable<Integer> {
                 : StageBoard.asBuilt(designed, asBuilt);
         InstrumentSimulator simulator;
         try {
-            simulator = new InstrumentSimulator(profile, board, sigma, seed, faultsOfLine);
+            simulator = new InstrumentSimulator(profile, board, sigma, seed, faultsOfLine, scopeSignal());
         } catch (IllegalArgumentException e) {
             throw new InputProblem(profile.source().orElse(null), 0, e.getMessage(),
-                    "simulate a profile in the line format of streaming-sweeper, or a SCPI profile");
+                    "simulate a profile in the line format of streaming-sweeper, a SCPI profile, or a scope profile "
+                            + "with --scope-bits within its block coding");
         }
         PrintWriter out = spec.commandLine().getOut();
         out.println("simulating " + profile.name() + " measuring " + board.describe()
@@ -136,6 +161,34 @@ final class SimulateCommand implements Callable<Integer> {
                 // Ctrl-C: the JVM is stopping anyway
             }
         }
+    }
+
+    /** @return the scope options as the simulator takes them */
+    private ScopeSignal scopeSignal() throws InputProblem {
+        double noiseVolts = volts("--scope-noise", scopeNoise, 0);
+        double clipVolts = scopeClip == null ? Double.POSITIVE_INFINITY : volts("--scope-clip", scopeClip, 0);
+        if (scopeClip != null && !(clipVolts > 0)) {
+            throw new InputProblem(null, 0, "--scope-clip " + scopeClip + " is not a positive level",
+                    "give the input limit in volts, such as 1.5V");
+        }
+        try {
+            return new ScopeSignal(scopeSamples, ScopeSignal.PLAIN.periods(), noiseVolts, scopeBits, clipVolts);
+        } catch (IllegalArgumentException e) {
+            throw new InputProblem(null, 0, e.getMessage(), "see polebench simulate --help for the scope options");
+        }
+    }
+
+    private static double volts(String option, String text, double least) throws InputProblem {
+        double value;
+        try {
+            value = EngineeringValue.parse(text, Quantity.VOLTS);
+        } catch (IllegalArgumentException e) {
+            throw new InputProblem(null, 0, option + ": " + e.getMessage(), "give volts such as 2mV");
+        }
+        if (value < least) {
+            throw new InputProblem(null, 0, option + " " + text + " is negative", "give zero or more volts");
+        }
+        return value;
     }
 
     private int serveSerial(SerialProfile profile, InstrumentSimulator simulator, AtomicBoolean stop)

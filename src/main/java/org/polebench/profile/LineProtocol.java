@@ -6,7 +6,8 @@ import java.util.Optional;
 import com.google.re2j.Pattern;
 
 /** How a serial instrument talks: SCPI command and answer, or a stream of result lines. */
-public sealed interface LineProtocol permits LineProtocol.ScpiExchange, LineProtocol.StreamedLines {
+public sealed interface LineProtocol permits LineProtocol.ScpiExchange, LineProtocol.StreamedLines,
+        LineProtocol.ScopeFetch {
 
     /** @return milliseconds to wait for one answer line */
     int timeoutMs();
@@ -22,6 +23,8 @@ public sealed interface LineProtocol permits LineProtocol.ScpiExchange, LineProt
         R exchange(ScpiExchange scpi);
 
         R stream(StreamedLines stream);
+
+        R scope(ScopeFetch scope);
     }
 
     /**
@@ -110,6 +113,87 @@ public sealed interface LineProtocol permits LineProtocol.ScpiExchange, LineProt
         @Override
         public <R> R apply(Cases<R> cases) {
             return cases.stream(this);
+        }
+    }
+
+    /** How a scope sends one channel's record: ASCII numbers or IEEE 488.2 definite-length blocks. */
+    enum WaveformFormat {
+        /** Numbers separated by commas on one line. */
+        ASCII,
+        /** {@code #<n><length><bytes>} (IEEE Std 488.2-1992, 8.7.9), then the line ending. */
+        BLOCK;
+
+        /** @return the profile's spelling */
+        public String word() {
+            return name().toLowerCase(java.util.Locale.ROOT);
+        }
+    }
+
+    /**
+     * One query sent to one instrument.
+     *
+     * @param instrument the instrument it goes to, as named in the profile
+     * @param query      the query's text
+     */
+    record ScopeQuery(String instrument, String query) {
+        public ScopeQuery {
+            if (query == null || query.isBlank()) {
+                throw new IllegalArgumentException("a query needs text");
+            }
+        }
+    }
+
+    /**
+     * A generator and a two-channel scope: per frequency the generator is set, then the scope's
+     * sample interval and both channels' records are fetched, and each record pair is fitted as
+     * it arrives (docs/user-guide.md, "Live scope capture").
+     *
+     * @param instruments  the instruments by name, with port settings and identity query
+     * @param setup        commands sent once before the sweep (the level among them)
+     * @param setFrequency the command that sets the generator's frequency ({@code {frequency_nr3}})
+     * @param interval     the query answered by the sample interval in seconds
+     * @param input        the query answered by the stage input's record (channel 1 as a rule)
+     * @param output       the query answered by the stage output's record
+     * @param inputScale   a query answered by the input channel's volts per code, read with each
+     *                     record (the scope's vertical setting); empty to use {@code coding}'s
+     * @param outputScale  the same for the output channel
+     * @param format       ASCII numbers or definite-length blocks
+     * @param blockCoding  how a block's bytes hold the codes (ignored for ASCII)
+     * @param coding       how the numbers (or codes) become volts, and the channel's rails or range
+     * @param finish       commands sent once after the sweep
+     * @param settle       the wait after the frequency is set
+     * @param retries      how often a step is repeated after a timeout or an unreadable record
+     * @param amplitude    generator level in the profile's amplitude kind, in volts
+     * @param maxAmplitude the highest level the profile allows, in volts of that kind
+     */
+    record ScopeFetch(List<ScpiInstrument> instruments, List<ScpiCommand> setup, ScpiCommand setFrequency,
+                      ScopeQuery interval, ScopeQuery input, ScopeQuery output, Optional<ScopeQuery> inputScale,
+                      Optional<ScopeQuery> outputScale, WaveformFormat format,
+                      BlockCoding blockCoding, SampleCoding coding,
+                      List<ScpiCommand> finish, Settling settle, int retries, int timeoutMs, double amplitude,
+                      double maxAmplitude) implements LineProtocol {
+        public ScopeFetch {
+            instruments = List.copyOf(instruments);
+            setup = List.copyOf(setup);
+            finish = List.copyOf(finish);
+            Objects.requireNonNull(settle);
+            Objects.requireNonNull(format);
+            Objects.requireNonNull(blockCoding);
+            Objects.requireNonNull(coding);
+            if (inputScale.isPresent() != outputScale.isPresent()) {
+                throw new IllegalArgumentException("scale queries come as a pair");
+            }
+            if (setFrequency.role() != CommandRole.SETS_FREQUENCY) {
+                throw new IllegalArgumentException("the frequency command must set the frequency");
+            }
+            if (!(amplitude > 0) || amplitude > maxAmplitude) {
+                throw new IllegalArgumentException("the amplitude must be positive and at most the maximum");
+            }
+        }
+
+        @Override
+        public <R> R apply(Cases<R> cases) {
+            return cases.scope(this);
         }
     }
 }

@@ -34,6 +34,9 @@ public final class ProfileReader {
             "stop", "point", "ignore", "error", "end", "timeout-ms", "amplitude", "max-amplitude", "units",
             "accuracy", "limits", "bench");
 
+    private static final Set<String> SCOPE_KEYS = Set.of("kind", "name", "description", "instruments", "setup",
+            "set-frequency", "fetch", "finish", "settle", "retries", "timeout-ms", "amplitude", "max-amplitude", "units",
+            "accuracy", "limits", "bench");
     private static final Set<String> WAVEFORM_KEYS = Set.of("kind", "name", "description", "detect", "layout", "time",
             "channels", "samples", "frequency", "accuracy", "bench");
 
@@ -62,12 +65,15 @@ public final class ProfileReader {
             case "serial-stream":
                 doc.onlyKeys(top, STREAM_KEYS);
                 return stream(doc, top);
+            case "serial-scope":
+                doc.onlyKeys(top, SCOPE_KEYS);
+                return scope(doc, top);
             case "waveform":
                 doc.onlyKeys(top, WAVEFORM_KEYS);
                 return waveform(doc, top);
             default:
                 throw new InputProblem(file, top.entry("kind").orElseThrow().line(),
-                        "unknown profile kind '" + kind + "'", "use table, serial-scpi, serial-stream or waveform");
+                        "unknown profile kind '" + kind + "'", "use table, serial-scpi, serial-stream, serial-scope or waveform");
         }
     }
 
@@ -240,8 +246,7 @@ public final class ProfileReader {
         return new SampleCoding(true, scale, zero, low, high, OptionalDouble.empty());
     }
 
-    private SerialProfile scpi(Doc doc, YamlNode.Mapping top) throws InputProblem {
-        String name = doc.name(top);
+    private List<LineProtocol.ScpiInstrument> instruments(Doc doc, YamlNode.Mapping top) throws InputProblem {
         YamlNode.Mapping instrumentsNode = doc.requiredMapping(top, "instruments");
         List<LineProtocol.ScpiInstrument> instruments = new ArrayList<>();
         for (YamlNode.Entry entry : instrumentsNode.entries()) {
@@ -253,6 +258,12 @@ public final class ProfileReader {
         if (instruments.isEmpty()) {
             throw doc.problemAt(instrumentsNode.line(), "no instruments", "name at least one instrument with its port");
         }
+        return instruments;
+    }
+
+    private SerialProfile scpi(Doc doc, YamlNode.Mapping top) throws InputProblem {
+        String name = doc.name(top);
+        List<LineProtocol.ScpiInstrument> instruments = instruments(doc, top);
         String errorQuery = doc.textOr(top, "error-query", "SYST:ERR?");
         List<ScpiCommand> setup = commands(doc, top, "setup", instruments, errorQuery, false);
         List<ScpiCommand> step = commands(doc, top, "step", instruments, errorQuery, true);
@@ -290,6 +301,93 @@ public final class ProfileReader {
                 amplitude, max);
         return new SerialProfile(name, doc.description(top), protocol, scale, accuracy(doc, top), limits(doc, top),
                 Optional.ofNullable(doc.file), bench(doc, top));
+    }
+
+    /**
+     * A {@code kind: serial-scope} profile: a generator and a two-channel scope whose records are
+     * fetched and fitted per frequency (docs/user-guide.md, "Live scope capture").
+     */
+    private SerialProfile scope(Doc doc, YamlNode.Mapping top) throws InputProblem {
+        String name = doc.name(top);
+        List<LineProtocol.ScpiInstrument> instruments = instruments(doc, top);
+        List<ScpiCommand> setup = commands(doc, top, "setup", instruments, "SYST:ERR?", false);
+        List<ScpiCommand> finish = commands(doc, top, "finish", instruments, "SYST:ERR?", false);
+        YamlNode.Mapping setNode = doc.requiredMapping(top, "set-frequency");
+        LineProtocol.ScopeQuery set = query(doc, setNode, instruments);
+        if (!set.query().contains(ScpiCommand.FREQUENCY)) {
+            throw doc.problem(setNode, "send", "the frequency command has no " + ScpiCommand.FREQUENCY,
+                    "write it as 'FREQ " + ScpiCommand.FREQUENCY + "'");
+        }
+        ScpiCommand setFrequency = new ScpiCommand(set.instrument(), set.query(), CommandRole.SETS_FREQUENCY);
+        YamlNode.Mapping fetch = doc.requiredMapping(top, "fetch");
+        doc.onlyKeys(fetch, Set.of("interval", "input", "output", "input-scale", "output-scale", "format",
+                "coding", "samples"));
+        LineProtocol.ScopeQuery interval = query(doc, doc.requiredMapping(fetch, "interval"), instruments);
+        LineProtocol.ScopeQuery input = query(doc, doc.requiredMapping(fetch, "input"), instruments);
+        LineProtocol.ScopeQuery output = query(doc, doc.requiredMapping(fetch, "output"), instruments);
+        Optional<LineProtocol.ScopeQuery> inputScale = Optional.empty();
+        Optional<LineProtocol.ScopeQuery> outputScale = Optional.empty();
+        if (fetch.get("input-scale").isPresent() || fetch.get("output-scale").isPresent()) {
+            inputScale = Optional.of(query(doc, doc.requiredMapping(fetch, "input-scale"), instruments));
+            outputScale = Optional.of(query(doc, doc.requiredMapping(fetch, "output-scale"), instruments));
+        }
+        LineProtocol.WaveformFormat format = doc.choice(fetch, "format", text -> {
+            for (LineProtocol.WaveformFormat f : LineProtocol.WaveformFormat.values()) {
+                if (f.word().equals(text.strip().toLowerCase(java.util.Locale.ROOT))) {
+                    return Optional.of(f);
+                }
+            }
+            return Optional.empty();
+        }, LineProtocol.WaveformFormat.ASCII, "ascii or block");
+        BlockCoding blockCoding = doc.choice(fetch, "coding", BlockCoding::parse, BlockCoding.INT8,
+                "int8, int16-big-endian or int16-little-endian");
+        if (format == LineProtocol.WaveformFormat.ASCII && fetch.get("coding").isPresent()) {
+            throw doc.problem(fetch, "coding", "coding applies to format: block", "drop it or say format: block");
+        }
+        YamlNode.Mapping samplesNode = doc.optionalMapping(fetch, "samples");
+        SampleCoding coding = samples(doc, samplesNode);
+        if (format == LineProtocol.WaveformFormat.BLOCK) {
+            if (!coding.codes() && inputScale.isEmpty()) {
+                throw doc.problem(fetch, "format", "a block holds codes: its samples need unit: codes and "
+                        + "volts-per-code, or scale queries", "add samples: {unit: codes, volts-per-code: 10 mV}, or input-scale "
+                        + "and output-scale queries");
+            }
+            if (!coding.codes()) {
+                coding = new SampleCoding(true, 1, 0, OptionalDouble.empty(), OptionalDouble.empty(),
+                        OptionalDouble.empty());
+            }
+            if (coding.lowRail().isEmpty()) {
+                // a block's codes cannot leave the coding's range: its ends are the rails
+                coding = new SampleCoding(true, coding.voltsPerCode(), coding.zeroCode(),
+                        OptionalDouble.of(blockCoding.lowestCode()), OptionalDouble.of(blockCoding.highestCode()),
+                        OptionalDouble.empty());
+            }
+        }
+        ReadingScale scale = units(doc, top, false);
+        YamlNode.Mapping settleNode = doc.optionalMapping(top, "settle");
+        doc.onlyKeys(settleNode, Set.of("periods", "min-ms"));
+        LineProtocol.Settling settle = new LineProtocol.Settling(doc.integer(settleNode, "periods", 0, 0, 1_000_000),
+                doc.integer(settleNode, "min-ms", 0, 0, 600_000));
+        double amplitude = doc.volts(top, "amplitude", scale.amplitudeKind(), OptionalDouble.empty());
+        double max = doc.volts(top, "max-amplitude", scale.amplitudeKind(), OptionalDouble.of(amplitude));
+        if (amplitude > max) {
+            throw doc.problem(top, "amplitude", "the amplitude is above max-amplitude", "lower it or raise the maximum");
+        }
+        LineProtocol protocol = new LineProtocol.ScopeFetch(instruments, setup, setFrequency, interval, input, output,
+                inputScale, outputScale, format, blockCoding, coding, finish, settle, doc.integer(top, "retries", 2, 0, 100),
+                doc.integer(top, "timeout-ms", 5000, 1, 600_000), amplitude, max);
+        return new SerialProfile(name, doc.description(top), protocol, scale, accuracy(doc, top), limits(doc, top),
+                Optional.ofNullable(doc.file), bench(doc, top));
+    }
+
+    private LineProtocol.ScopeQuery query(Doc doc, YamlNode.Mapping node, List<LineProtocol.ScpiInstrument> instruments)
+            throws InputProblem {
+        doc.onlyKeys(node, Set.of("to", "send"));
+        String to = doc.textOr(node, "to", instruments.get(0).name());
+        if (instruments.stream().noneMatch(i -> i.name().equals(to))) {
+            throw doc.problem(node, "to", "no instrument named '" + to + "'", "use one named under instruments");
+        }
+        return new LineProtocol.ScopeQuery(to, doc.text(node, "send"));
     }
 
     private List<ScpiCommand> commands(Doc doc, YamlNode.Mapping top, String key,

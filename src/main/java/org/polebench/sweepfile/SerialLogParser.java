@@ -131,6 +131,17 @@ public final class SerialLogParser {
                         "streamed lines: points from lines matching '" + stream.point().pattern() + "'",
                         (lineNo, body, sender, sent, received) -> streamLine(stream, lineNo, body, sent));
             }
+
+            @Override
+            public Reading scope(LineProtocol.ScopeFetch scope) {
+                // a scope capture's transcript holds the commands and records, not readings; the
+                // records were fitted as they arrived and the sweep file is the capture's result
+                refused = new InputProblem(file, 0, "a log of profile '" + profile.name() + "' (kind serial-scope) "
+                        + "holds scope records, not readings, and is not read as a sweep",
+                        "read the sweep file the capture wrote (its --out file), or save the records as files and "
+                                + "read them with a waveform profile");
+                return new Reading(true, "scope records", (lineNo, body, sender, sent, received) -> { });
+            }
         });
         mapping = reading.mapping();
         lines = reading.lines();

@@ -1,6 +1,7 @@
 package org.polebench.synth;
 
 import java.io.IOException;
+import java.nio.charset.StandardCharsets;
 import java.util.ArrayDeque;
 import java.util.ArrayList;
 import java.util.Deque;
@@ -17,7 +18,9 @@ import org.apache.commons.math3.complex.Complex;
 import org.polebench.capture.LineTransport;
 import org.polebench.capture.PortLostException;
 import org.polebench.capture.SweepPlan;
+import org.polebench.profile.BlockCoding;
 import org.polebench.profile.CommandRole;
+import org.polebench.profile.SampleCoding;
 import org.polebench.profile.GainForm;
 import org.polebench.profile.LineProtocol;
 import org.polebench.profile.ReadingScale;
@@ -65,6 +68,7 @@ public final class InstrumentSimulator {
     private final SweepNoise noise;
     private final long seed;
     private final List<Misbehaviour> misbehaviours;
+    private final ScopeSignal scopeSignal;
 
     /**
      * @param noise the Gaussian noise on gain and phase
@@ -74,6 +78,18 @@ public final class InstrumentSimulator {
      */
     public InstrumentSimulator(SerialProfile profile, BoardResponse board, SweepNoise noise, long seed,
                                List<Misbehaviour> misbehaviours) {
+        this(profile, board, noise, seed, misbehaviours, ScopeSignal.PLAIN);
+    }
+
+    /**
+     * As above, with what a simulated scope ({@code kind: serial-scope}) does to its records.
+     *
+     * @throws IllegalArgumentException also when the scope's converter has more bits than its
+     *                                  block coding holds
+     */
+    public InstrumentSimulator(SerialProfile profile, BoardResponse board, SweepNoise noise, long seed,
+                               List<Misbehaviour> misbehaviours, ScopeSignal scopeSignal) {
+        this.scopeSignal = scopeSignal;
         this.profile = profile;
         this.board = board;
         this.noise = noise;
@@ -93,6 +109,16 @@ public final class InstrumentSimulator {
                         || Math.abs(StrictNumber.parse(m.group("frequency"), false) - 1234.5) > 1e-6) {
                     throw new IllegalArgumentException("the simulator streams lines such as '" + sample
                             + "', which the profile's point pattern does not read");
+                }
+                return null;
+            }
+
+            @Override
+            public Void scope(LineProtocol.ScopeFetch scope) {
+                if (scope.format() == LineProtocol.WaveformFormat.BLOCK
+                        && scopeSignal.bits() > 8 * scope.blockCoding().bytesPerSample()) {
+                    throw new IllegalArgumentException("the scope's converter cannot have " + scopeSignal.bits()
+                            + " bits in blocks of " + scope.blockCoding().word());
                 }
                 return null;
             }
@@ -159,6 +185,19 @@ public final class InstrumentSimulator {
                 public Answering stream(LineProtocol.StreamedLines stream) {
                     level = stream.amplitude();
                     return (line, text, stop, sent) -> streamLine(stream, line, text, stop, sent);
+                }
+
+                @Override
+                public Answering scope(LineProtocol.ScopeFetch scope) {
+                    level = scope.amplitude();
+                    for (LineProtocol.ScpiInstrument instrument : scope.instruments()) {
+                        commands.add(new Known(new ScpiCommand(instrument.name(), instrument.identify(),
+                                CommandRole.IDENTIFIES)));
+                    }
+                    commands.add(new Known(scope.setFrequency()));
+                    scope.setup().forEach(c -> commands.add(new Known(c)));
+                    scope.finish().forEach(c -> commands.add(new Known(c)));
+                    return new ScopeAnswers(scope)::answer;
                 }
             });
         }
@@ -382,6 +421,231 @@ public final class InstrumentSimulator {
             return b.toString();
         }
 
+        // ---- scope ----------------------------------------------------------------------
+
+        /** The simulated generator and scope of a {@code serial-scope} profile. */
+        private final class ScopeAnswers {
+            private final LineProtocol.ScopeFetch scope;
+            private final Pattern interval;
+            private final Pattern input;
+            private final Pattern output;
+            private final Pattern inputScale;
+            private final Pattern outputScale;
+
+            ScopeAnswers(LineProtocol.ScopeFetch scope) {
+                this.scope = scope;
+                this.interval = pattern(scope.interval());
+                this.input = pattern(scope.input());
+                this.output = pattern(scope.output());
+                this.inputScale = scope.inputScale().map(ScopeAnswers::pattern).orElse(null);
+                this.outputScale = scope.outputScale().map(ScopeAnswers::pattern).orElse(null);
+            }
+
+            private static Pattern pattern(LineProtocol.ScopeQuery query) {
+                return new ScpiCommand(query.instrument(), query.query(), CommandRole.SETTING).logPattern();
+            }
+
+            /** @return false when a misbehaviour closed the line */
+            boolean answer(LineTransport line, String text, BooleanSupplier stop, Consumer<String> sent)
+                    throws IOException {
+                double hz;
+                double peakVolts;
+                synchronized (Session.this) {
+                    hz = frequencyHz;
+                    peakVolts = peak(level);
+                }
+                boolean garbageHere = scope.format() == LineProtocol.WaveformFormat.ASCII;
+                if (interval.matcher(text).matches()) {
+                    send(line, ScpiCommand.nr3(intervalSeconds(hz)), sent, garbageHere);
+                    return true;
+                }
+                for (int channel = 0; channel < 2; channel++) {
+                    Pattern scale = channel == 0 ? inputScale : outputScale;
+                    if (scale != null && scale.matcher(text).matches()) {
+                        send(line, ScpiCommand.nr3(voltsPerCode(channelPeak(channel, hz, peakVolts))), sent, garbageHere);
+                        return true;
+                    }
+                    if ((channel == 0 ? input : output).matcher(text).matches()) {
+                        sendRecord(line, channel, hz, peakVolts, sent);
+                        return true;
+                    }
+                }
+                Optional<String> answer;
+                synchronized (Session.this) {
+                    Known known = match(text);
+                    if (known == null) {
+                        errors.add("-113,\"Undefined header\"");
+                        return true;
+                    }
+                    answer = Optional.empty();
+                    switch (known.command.role()) {
+                        case SETS_FREQUENCY: {
+                            frequencyCommands++;
+                            arm(frequencyCommands);
+                            if (take(Misbehaviour.Kind.CLOSE).isPresent()) {
+                                return false;
+                            }
+                            double value = argument(known, text);
+                            if (value > 0 && Double.isFinite(value)) {
+                                frequencyHz = profile.scale().hertz(value);
+                            }
+                            break;
+                        }
+                        case SETS_AMPLITUDE: {
+                            double value = argument(known, text);
+                            if (value > 0 && value <= scope.maxAmplitude()) {
+                                level = value;
+                            }
+                            break;
+                        }
+                        case IDENTIFIES:
+                            answer = Optional.of(identity());
+                            break;
+                        case WAITS_FOR_COMPLETION:
+                            answer = Optional.of("1");
+                            break;
+                        default:
+                            break;
+                    }
+                }
+                if (answer.isPresent()) {
+                    send(line, answer.get(), sent, garbageHere);
+                }
+                return true;
+            }
+
+            private double intervalSeconds(double hz) {
+                return scopeSignal.periods() / (hz * scopeSignal.samples());
+            }
+
+            /** @return the peak volts the channel shows: the level, or the level times |H| */
+            private double channelPeak(int channel, double hz, double inputPeakVolts) {
+                return channel == 0 ? inputPeakVolts : inputPeakVolts * board.atHz(hz).abs();
+            }
+
+            /**
+             * The simulated scope sets each channel's range so that its sine's peak (or the
+             * clipping level, when lower) fills 80 % of it, as an automatic vertical setting
+             * does; with no scale query the profile's fixed volts per code hold.
+             */
+            private double rangeVolts(double peakVolts) {
+                return 1.25 * Math.min(peakVolts, scopeSignal.clipVolts());
+            }
+
+            private double voltsPerCode(double peakVolts) {
+                if (scope.inputScale().isEmpty()) {
+                    return scope.coding().voltsPerCode();
+                }
+                double highest = scope.format() == LineProtocol.WaveformFormat.BLOCK
+                        ? scope.blockCoding().highestCode() + 1 : 128;
+                return rangeVolts(peakVolts) / highest;
+            }
+
+            private void sendRecord(LineTransport line, int channel, double hz, double inputPeakVolts,
+                                    Consumer<String> sent) throws IOException {
+                double peakVolts = channelPeak(channel, hz, inputPeakVolts);
+                double phase = channel == 0 ? 0 : board.atHz(hz).getArgument();
+                double dt = intervalSeconds(hz);
+                int n = scopeSignal.samples();
+                double range = rangeVolts(peakVolts);
+                double step = scopeSignal.bits() == 0 ? 0 : range / Math.pow(2, scopeSignal.bits() - 1);
+                SplittableRandom random = new SplittableRandom(seed * 0x9E3779B97F4A7C15L
+                        ^ Double.doubleToLongBits(hz) ^ (channel + 1L) * 0xBF58476D1CE4E5B9L);
+                double[] volts = new double[n];
+                for (int k = 0; k < n; k++) {
+                    // a start phase of 0.3 rad, so that the record does not begin at a zero crossing
+                    double v = peakVolts * Math.sin(2 * Math.PI * hz * k * dt + 0.3 + phase)
+                            + scopeSignal.noiseVolts() * random.nextGaussian();
+                    v = Math.max(-scopeSignal.clipVolts(), Math.min(scopeSignal.clipVolts(), v));
+                    if (step > 0) {
+                        v = Math.max(-range, Math.min(range, Math.round(v / step) * step));
+                    }
+                    volts[k] = v;
+                }
+                SampleCoding coding = scope.coding();
+                double vpc = voltsPerCode(peakVolts);
+                if (scope.format() == LineProtocol.WaveformFormat.BLOCK) {
+                    BlockCoding blockCoding = scope.blockCoding();
+                    int width = blockCoding.bytesPerSample();
+                    String length = Integer.toString(n * width);
+                    byte[] header = ("#" + length.length() + length).getBytes(StandardCharsets.US_ASCII);
+                    byte[] ending = profile.protocol().apply(new PortEnding()).getBytes(StandardCharsets.US_ASCII);
+                    byte[] block = new byte[header.length + n * width + ending.length];
+                    System.arraycopy(header, 0, block, 0, header.length);
+                    for (int k = 0; k < n; k++) {
+                        double code = Math.rint(volts[k] / vpc + coding.zeroCode());
+                        int c = (int) Math.max(blockCoding.lowestCode(), Math.min(blockCoding.highestCode(), code));
+                        int at = header.length + k * width;
+                        switch (blockCoding) {
+                            case INT8:
+                                block[at] = (byte) c;
+                                break;
+                            case INT16_BIG_ENDIAN:
+                                block[at] = (byte) (c >> 8);
+                                block[at + 1] = (byte) c;
+                                break;
+                            case INT16_LITTLE_ENDIAN:
+                                block[at] = (byte) c;
+                                block[at + 1] = (byte) (c >> 8);
+                                break;
+                            default:
+                                throw new IllegalStateException("no coding " + blockCoding);
+                        }
+                    }
+                    System.arraycopy(ending, 0, block, block.length - ending.length, ending.length);
+                    sendBlock(line, block, sent);
+                    return;
+                }
+                StringBuilder text = new StringBuilder(n * 14);
+                for (int k = 0; k < n; k++) {
+                    if (k > 0) {
+                        text.append(',');
+                    }
+                    double value = coding.codes() ? Math.rint(volts[k] / vpc + coding.zeroCode()) : volts[k];
+                    text.append(String.format(Locale.ROOT, "%.6E", value));
+                }
+                send(line, text.toString(), sent);
+            }
+
+            /** @return the level as peak volts, from the profile's amplitude kind */
+            private double peak(double levelOfKind) {
+                switch (profile.scale().amplitudeKind()) {
+                    case PEAK_TO_PEAK:
+                        return levelOfKind / 2;
+                    case RMS:
+                        return levelOfKind * Math.sqrt(2);
+                    default:
+                        return levelOfKind;
+                }
+            }
+        }
+
+        /** Sends a block, with the line's misbehaviours: dropped, stalled, or its header spoilt. */
+        private void sendBlock(LineTransport line, byte[] block, Consumer<String> sent) throws IOException {
+            Optional<Misbehaviour> drop;
+            Optional<Misbehaviour> garbage;
+            Optional<Misbehaviour> stall;
+            synchronized (this) {
+                drop = take(Misbehaviour.Kind.DROP);
+                garbage = drop.isPresent() ? Optional.empty() : take(Misbehaviour.Kind.GARBAGE);
+                stall = drop.isPresent() ? Optional.empty() : take(Misbehaviour.Kind.STALL);
+            }
+            if (drop.isPresent()) {
+                return;
+            }
+            if (stall.isPresent()) {
+                pause(stall.get().stallMs());
+            }
+            if (garbage.isPresent()) {
+                // a header whose count is not digits: the block cannot be read by its length
+                line.send(garbage("block"));
+                sent.accept("(a spoilt block header)");
+                return;
+            }
+            line.sendBytes(block);
+            sent.accept("(a block of " + block.length + " bytes)");
+        }
+
         // ---- misbehaviour and noise ---------------------------------------------------
 
         private void arm(int count) {
@@ -404,12 +668,18 @@ public final class InstrumentSimulator {
         }
 
         private void send(LineTransport line, String text, Consumer<String> sent) throws IOException {
+            send(line, text, sent, true);
+        }
+
+        /** @param garbageHere false to keep a garbage misbehaviour for the next block (a scope's record) */
+        private void send(LineTransport line, String text, Consumer<String> sent, boolean garbageHere)
+                throws IOException {
             Optional<Misbehaviour> drop;
             Optional<Misbehaviour> garbage;
             Optional<Misbehaviour> stall;
             synchronized (this) {
                 drop = take(Misbehaviour.Kind.DROP);
-                garbage = drop.isPresent() ? Optional.empty() : take(Misbehaviour.Kind.GARBAGE);
+                garbage = drop.isPresent() || !garbageHere ? Optional.empty() : take(Misbehaviour.Kind.GARBAGE);
                 stall = drop.isPresent() ? Optional.empty() : take(Misbehaviour.Kind.STALL);
             }
             if (drop.isPresent()) {
@@ -461,6 +731,29 @@ public final class InstrumentSimulator {
 
     private static String pointLine(int index, double frequency, double gainDb, double phaseDeg) {
         return String.format(Locale.ROOT, "PT %d %s %.6f %.4f", index, ScpiCommand.nr3(frequency), gainDb, phaseDeg);
+    }
+
+    /** The line ending of the profile's first instrument's port, which a block's end carries. */
+    private static final class PortEnding implements LineProtocol.Cases<String> {
+        @Override
+        public String exchange(LineProtocol.ScpiExchange scpi) {
+            return scpi.instruments().get(0).port().lineEnding().text();
+        }
+
+        @Override
+        public String stream(LineProtocol.StreamedLines stream) {
+            return stream.port().lineEnding().text();
+        }
+
+        @Override
+        public String scope(LineProtocol.ScopeFetch scope) {
+            for (LineProtocol.ScpiInstrument instrument : scope.instruments()) {
+                if (instrument.name().equals(scope.input().instrument())) {
+                    return instrument.port().lineEnding().text();
+                }
+            }
+            return scope.instruments().get(0).port().lineEnding().text();
+        }
     }
 
     /** A command template with its compiled pattern. */

@@ -45,8 +45,7 @@ public final class RecordSetReader {
     public WaveformImport read(List<Path> files, Path origin, String label) throws InputProblem {
         MessageDigest all = sha256();
         RecordReader reader = new RecordReader(profile);
-        SineFitter fitter = new SineFitter();
-        RecordChecks checks = new RecordChecks(profile.coding());
+        RecordMeasurement measurement = new RecordMeasurement(profile.coding());
         List<InputWarning> warnings = new ArrayList<>();
         List<Kept> kept = new ArrayList<>();
         int threeParameter = 0;
@@ -55,10 +54,8 @@ public final class RecordSetReader {
             MessageDigest one = sha256();
             try {
                 WaveformRecord record = reader.read(file, one);
-                RecordFit fit;
                 OptionalDouble stated = record.statedFrequencyHz();
                 if (stated.isPresent()) {
-                    fit = fitter.fitKnown(record, stated.getAsDouble());
                     threeParameter++;
                 } else {
                     if (profile.frequency().pattern().isPresent()) {
@@ -66,15 +63,15 @@ public final class RecordSetReader {
                                 + profile.frequency().pattern().get().pattern() + " in the " + profile.frequency().from().word()
                                 + "); the frequency was fitted"));
                     }
-                    fit = fitter.fitFree(record);
                     fourParameter++;
                 }
-                Optional<String> unusable = checks.unusable(record, fit);
-                if (unusable.isPresent()) {
-                    warnings.add(new InputWarning(file, 0, "record dropped: " + unusable.get()));
+                RecordMeasurement.Outcome measured = measurement.measure(record, stated);
+                if (measured.dropped().isPresent()) {
+                    warnings.add(new InputWarning(file, 0, "record dropped: " + measured.dropped().get()));
                     continue;
                 }
-                warnings.addAll(checks.check(record, fit));
+                warnings.addAll(measured.warnings());
+                RecordFit fit = measured.fit();
                 kept.add(new Kept(file, fit));
             } catch (InputProblem problem) {
                 warnings.add(new InputWarning(file, problem.line(), "record dropped: " + problem.getMessage()
@@ -118,8 +115,7 @@ public final class RecordSetReader {
         List<SweepPoint> points = new ArrayList<>();
         for (int i = 0; i < n; i++) {
             RecordFit fit = distinct.get(i).fit;
-            points.add(new SweepPoint(fit.frequencyHz(), fit.gainDb(), OptionalDouble.of(phase[i]),
-                    OptionalDouble.of(fit.gainUncertaintyDb()), OptionalDouble.of(fit.phaseUncertaintyDeg())));
+            points.add(RecordMeasurement.point(fit, phase[i]));
         }
         String how = String.format(Locale.ROOT, "%d of %d records fitted (%d with the frequency stated, "
                 + "three-parameter; %d with it free, four-parameter; IEEE Std 1057)", n, files.size(), threeParameter,

@@ -3,35 +3,16 @@ package org.polebench.waveform;
 import java.util.Arrays;
 import java.util.Locale;
 import org.polebench.InputProblem;
+import org.polebench.profile.BlockCoding;
 import org.polebench.units.StrictNumber;
 
 /**
  * One channel's samples as a scope answers a waveform query: ASCII numbers separated by commas,
  * or an IEEE 488.2 definite-length arbitrary block (IEEE Std 488.2-1992, 8.7.9: {@code #}, one
- * digit n, n digits giving the byte count L, then L bytes) of signed 8- or 16-bit codes. The
- * groundwork for fetching records live; a capture that uses it is not yet written.
+ * digit n, n digits giving the byte count L, then L bytes) of signed 8- or 16-bit codes, as
+ * live scope capture fetches them (capture's scope runner).
  */
 public final class ScopeBlock {
-    /** How the block's bytes hold the codes. */
-    public enum Coding {
-        /** One signed byte a sample. */
-        INT8(1),
-        /** Two bytes a sample, most significant first. */
-        INT16_BIG_ENDIAN(2),
-        /** Two bytes a sample, least significant first. */
-        INT16_LITTLE_ENDIAN(2);
-
-        private final int bytes;
-
-        Coding(int bytes) {
-            this.bytes = bytes;
-        }
-
-        public int bytesPerSample() {
-            return bytes;
-        }
-    }
-
     private ScopeBlock() {
     }
 
@@ -41,7 +22,7 @@ public final class ScopeBlock {
      * @throws InputProblem when the header is malformed, the block is shorter than it says, or
      *                      its length is not a whole number of samples
      */
-    public static double[] definiteLength(byte[] answer, Coding coding) throws InputProblem {
+    public static double[] definiteLength(byte[] answer, BlockCoding coding) throws InputProblem {
         if (answer.length < 2 || answer[0] != '#' || answer[1] < '1' || answer[1] > '9') {
             throw new InputProblem(null, 0, "the waveform answer does not start with a definite-length block header"
                     + " ('#' and a digit 1 to 9)", "check the scope's waveform format setting (binary blocks)");

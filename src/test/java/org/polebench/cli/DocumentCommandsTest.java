@@ -117,9 +117,10 @@ class DocumentCommandsTest {
         // (predict, fit, reconcile, synthesize, and capture against simulate over socat and over
         // TCP), batch with history and synthesize --draw-seed (issue 16), and the three of scope
         // records (synthesize and read records, synthesize clipped ones and inspect them,
-        // reconcile the demo records): counted, so that a block lost or turned into text in an
+        // reconcile the demo records), and live scope capture against simulate over TCP (issue 17):
+        // counted, so that a block lost or turned into text in an
         // edit is noticed
-        assertEquals(18, blocks.size(), blocks.stream().map(Block::name).collect(Collectors.joining("\n")));
+        assertEquals(19, blocks.size(), blocks.stream().map(Block::name).collect(Collectors.joining("\n")));
 
         List<Future<Outcome>> runs = new ArrayList<>();
         for (Block block : blocks) {

@@ -42,10 +42,11 @@ class ProfileLibraryTest {
     }
 
     @Test
-    void shipsAtLeastSixTableLayoutsAndTwoSerialProtocols() {
+    void shipsAtLeastSixTableLayoutsAndThreeSerialProtocols() {
         ProfileLibrary library = ProfileLibrary.bundled();
         assertTrue(library.tableProfiles().size() - 1 >= 6, "six table profiles besides canonical");
-        assertEquals(2, library.serialProfiles().size());
+        // SCPI command and answer, a streaming sweeper, a generator plus scope
+        assertEquals(3, library.serialProfiles().size());
         LineProtocol.ScpiExchange scpi = (LineProtocol.ScpiExchange) library.serialProfiles().get(0).protocol();
         // SCPI-99 spellings and IEEE 488.2 common commands, NR3 numbers
         assertEquals("SYST:ERR?", scpi.errorQuery());

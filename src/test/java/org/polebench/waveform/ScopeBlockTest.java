@@ -9,6 +9,7 @@ import java.nio.ByteOrder;
 import java.nio.charset.StandardCharsets;
 import org.junit.jupiter.api.Test;
 import org.polebench.InputProblem;
+import org.polebench.profile.BlockCoding;
 
 class ScopeBlockTest {
     private static byte[] block(byte[] payload) {
@@ -32,12 +33,12 @@ class ScopeBlockTest {
             for (short c : codes) {
                 buffer.putShort(c);
             }
-            ScopeBlock.Coding coding = order == ByteOrder.BIG_ENDIAN ? ScopeBlock.Coding.INT16_BIG_ENDIAN
-                    : ScopeBlock.Coding.INT16_LITTLE_ENDIAN;
+            BlockCoding coding = order == ByteOrder.BIG_ENDIAN ? BlockCoding.INT16_BIG_ENDIAN
+                    : BlockCoding.INT16_LITTLE_ENDIAN;
             assertArrayEquals(expected, ScopeBlock.definiteLength(block(buffer.array()), coding));
         }
         assertArrayEquals(new double[] {-128, 127, 0}, ScopeBlock.definiteLength(block(new byte[] {-128, 127, 0}),
-                ScopeBlock.Coding.INT8));
+                BlockCoding.INT8));
     }
 
     @Test
@@ -45,12 +46,12 @@ class ScopeBlockTest {
         byte[] whole = block(new byte[10]);
         byte[] cut = java.util.Arrays.copyOf(whole, whole.length - 4);
         InputProblem problem = assertThrows(InputProblem.class,
-                () -> ScopeBlock.definiteLength(cut, ScopeBlock.Coding.INT8));
+                () -> ScopeBlock.definiteLength(cut, BlockCoding.INT8));
         assertTrue(problem.getMessage().contains("says 10 bytes but 7 arrived"), problem.getMessage());
         assertThrows(InputProblem.class, () -> ScopeBlock.definiteLength("#0".getBytes(StandardCharsets.US_ASCII),
-                ScopeBlock.Coding.INT8));
+                BlockCoding.INT8));
         assertThrows(InputProblem.class, () -> ScopeBlock.definiteLength(block(new byte[3]),
-                ScopeBlock.Coding.INT16_BIG_ENDIAN));
+                BlockCoding.INT16_BIG_ENDIAN));
     }
 
     @Test
