@@ -2,7 +2,6 @@ package org.polebench.capture;
 
 import java.io.IOException;
 import java.time.Duration;
-import java.util.ArrayList;
 import java.util.IdentityHashMap;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -49,21 +48,12 @@ final class ScopeRunner implements ProtocolRunner {
 
     @Override
     public List<String> linkNames() {
-        List<String> names = new ArrayList<>();
-        for (LineProtocol.ScpiInstrument instrument : scope.instruments()) {
-            names.add(instrument.name());
-        }
-        return names;
+        return new InstrumentLinks(scope.instruments()).names();
     }
 
     @Override
     public PortSettings portSettings(String linkName) {
-        for (LineProtocol.ScpiInstrument instrument : scope.instruments()) {
-            if (instrument.name().equals(linkName)) {
-                return instrument.port();
-            }
-        }
-        throw new IllegalArgumentException("the profile has no instrument " + linkName);
+        return new InstrumentLinks(scope.instruments()).port(linkName);
     }
 
     @Override

@@ -44,21 +44,12 @@ final class ScpiRunner implements ProtocolRunner {
 
     @Override
     public List<String> linkNames() {
-        List<String> names = new ArrayList<>();
-        for (LineProtocol.ScpiInstrument instrument : scpi.instruments()) {
-            names.add(instrument.name());
-        }
-        return names;
+        return new InstrumentLinks(scpi.instruments()).names();
     }
 
     @Override
     public PortSettings portSettings(String linkName) {
-        for (LineProtocol.ScpiInstrument instrument : scpi.instruments()) {
-            if (instrument.name().equals(linkName)) {
-                return instrument.port();
-            }
-        }
-        throw new IllegalArgumentException("the profile has no instrument " + linkName);
+        return new InstrumentLinks(scpi.instruments()).port(linkName);
     }
 
     /** Each SCPI instrument has a link of its own name (several names may share one link). */
