@@ -3,7 +3,6 @@ package org.polebench.capture;
 import java.io.IOException;
 import java.time.Duration;
 import java.util.IdentityHashMap;
-import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
@@ -41,9 +40,12 @@ final class ScopeRunner implements ProtocolRunner {
     private final SerialProfile profile;
     private final LineProtocol.ScopeFetch scope;
 
+    private final ScpiCommandSender sender;
+
     ScopeRunner(SerialProfile profile, LineProtocol.ScopeFetch scope) {
         this.profile = profile;
         this.scope = scope;
+        this.sender = new ScpiCommandSender(profile, scope.maxAmplitude());
     }
 
     @Override
@@ -83,13 +85,7 @@ final class ScopeRunner implements ProtocolRunner {
 
     @Override
     public Map<String, String> identityQueries() {
-        Map<String, String> queries = new LinkedHashMap<>();
-        for (LineProtocol.ScpiInstrument instrument : scope.instruments()) {
-            if (!instrument.identify().isBlank()) {
-                queries.put(instrument.name(), instrument.identify());
-            }
-        }
-        return queries;
+        return new InstrumentLinks(scope.instruments()).identityQueries();
     }
 
     @Override
@@ -104,23 +100,13 @@ final class ScopeRunner implements ProtocolRunner {
 
     @Override
     public void finishQuietly(CaptureSession session) {
-        try {
-            for (ScpiCommand command : scope.finish()) {
-                session.send(command.instrument(), render(session, command, Double.NaN));
-            }
-        } catch (IOException e) {
-            // the port failed as well: the stop message says what was done
-        }
+        sender.finishQuietly(session, scope.finish());
     }
 
     private String render(CaptureSession session, ScpiCommand command, double frequencyHz) {
-        // the level was checked against the maximum before anything was sent; this guards the templates
-        if (command.template().contains(ScpiCommand.AMPLITUDE) && session.amplitude > maxAmplitude()) {
-            throw new IllegalStateException("a level above the profile's maximum was about to be sent");
-        }
-        double raw = Double.isNaN(frequencyHz) ? 0 : profile.scale().rawFrequency(frequencyHz);
-        return command.render(raw, session.amplitude);
+        return sender.render(session, command, frequencyHz);
     }
+
 
     /** The steps of one capture, with what they keep from point to point. */
     private final class Steps {

@@ -4,7 +4,6 @@ import java.io.IOException;
 import java.time.Duration;
 import java.util.ArrayList;
 import java.util.IdentityHashMap;
-import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
@@ -37,9 +36,12 @@ final class ScpiRunner implements ProtocolRunner {
     private final SerialProfile profile;
     private final LineProtocol.ScpiExchange scpi;
 
+    private final ScpiCommandSender sender;
+
     ScpiRunner(SerialProfile profile, LineProtocol.ScpiExchange scpi) {
         this.profile = profile;
         this.scpi = scpi;
+        this.sender = new ScpiCommandSender(profile, scpi.maxAmplitude());
     }
 
     @Override
@@ -75,13 +77,7 @@ final class ScpiRunner implements ProtocolRunner {
 
     @Override
     public Map<String, String> identityQueries() {
-        Map<String, String> queries = new LinkedHashMap<>();
-        for (LineProtocol.ScpiInstrument instrument : scpi.instruments()) {
-            if (!instrument.identify().isBlank()) {
-                queries.put(instrument.name(), instrument.identify());
-            }
-        }
-        return queries;
+        return new InstrumentLinks(scpi.instruments()).identityQueries();
     }
 
     @Override
@@ -96,23 +92,13 @@ final class ScpiRunner implements ProtocolRunner {
 
     @Override
     public void finishQuietly(CaptureSession session) {
-        try {
-            for (ScpiCommand command : scpi.finish()) {
-                session.send(command.instrument(), render(session, command, Double.NaN));
-            }
-        } catch (IOException e) {
-            // the port failed as well: the stop message says what was done
-        }
+        sender.finishQuietly(session, scpi.finish());
     }
 
     private String render(CaptureSession session, ScpiCommand command, double frequencyHz) {
-        // the level was checked against the maximum before anything was sent; this guards the templates
-        if (command.template().contains(ScpiCommand.AMPLITUDE) && session.amplitude > maxAmplitude()) {
-            throw new IllegalStateException("a level above the profile's maximum was about to be sent");
-        }
-        double raw = Double.isNaN(frequencyHz) ? 0 : profile.scale().rawFrequency(frequencyHz);
-        return command.render(raw, session.amplitude);
+        return sender.render(session, command, frequencyHz);
     }
+
 
     private static int code(Matcher error) {
         return Integer.parseInt(error.group("code").replace("+", ""));

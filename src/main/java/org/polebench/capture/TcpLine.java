@@ -105,19 +105,7 @@ public final class TcpLine implements LineTransport {
             if (timeoutMs > 0 && System.nanoTime() >= deadline) {
                 return Optional.empty();
             }
-            int n;
-            try {
-                n = in.read(buffer);
-            } catch (SocketTimeoutException e) {
-                continue;
-            } catch (IOException e) {
-                n = -1;
-            }
-            if (n < 0) {
-                lost = true;
-                continue;
-            }
-            assembler.accept(buffer, n);
+            readOnce();
         }
     }
 
@@ -137,20 +125,25 @@ public final class TcpLine implements LineTransport {
             if (System.nanoTime() >= deadline) {
                 return assembler.abandonBlock().map(BlockAnswer::refused);
             }
-            int n;
-            try {
-                n = in.read(buffer);
-            } catch (SocketTimeoutException e) {
-                continue;
-            } catch (IOException e) {
-                n = -1;
-            }
-            if (n < 0) {
-                lost = true;
-                continue;
-            }
-            assembler.accept(buffer, n);
+            readOnce();
         }
+    }
+
+    // one read into the assembler: a timeout reads nothing, an end or an error marks the link lost
+    private void readOnce() {
+        int n;
+        try {
+            n = in.read(buffer);
+        } catch (SocketTimeoutException e) {
+            return;
+        } catch (IOException e) {
+            n = -1;
+        }
+        if (n < 0) {
+            lost = true;
+            return;
+        }
+        assembler.accept(buffer, n);
     }
 
     @Override
