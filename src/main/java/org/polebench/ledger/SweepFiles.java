@@ -47,7 +47,7 @@ public final class SweepFiles {
     }
 
     /** @return whether a folder's entry is a sub-folder of records: one board's scope records */
-    public static boolean isRecordFolder(Path entry) {
+    private static boolean isRecordFolder(Path entry) {
         return Files.isDirectory(entry) && !entry.getFileName().toString().startsWith(".");
     }
 

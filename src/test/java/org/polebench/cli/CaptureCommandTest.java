@@ -1,87 +1,30 @@
 package org.polebench.cli;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.polebench.cli.CaptureRuns.read;
+import static org.polebench.cli.CaptureRuns.resource;
+import static org.polebench.cli.CaptureRuns.run;
 import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import java.io.PrintWriter;
-import java.io.StringWriter;
-import java.net.URISyntaxException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
-import java.util.concurrent.atomic.AtomicInteger;
-import java.util.regex.Matcher;
 import java.util.regex.Pattern;
+import org.polebench.cli.CaptureRuns.Background;
+import org.polebench.cli.CaptureRuns.Result;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.Timeout;
 import org.junit.jupiter.api.io.TempDir;
-import org.polebench.profile.ProfileLibrary;
 import org.polebench.capture.PseudoTerminalPair;
 import org.polebench.sweep.Sweep;
 import org.polebench.sweep.SweepPoint;
-import org.polebench.sweepfile.SweepReader;
 
 /** The capture and simulate commands end to end: real pseudo-terminals and loopback sockets, no mocks. */
 @Timeout(180)
 class CaptureCommandTest {
     @TempDir
     Path dir;
-
-    /** One command line's outcome. */
-    private record Result(int code, String out, String err) {
-    }
-
-    private static Result run(String... args) {
-        StringWriter out = new StringWriter();
-        StringWriter err = new StringWriter();
-        int code = Main.run(args, new PrintWriter(out), new PrintWriter(err));
-        return new Result(code, out.toString(), err.toString());
-    }
-
-    /** A command running in a thread of its own, its output readable while it runs. */
-    private static final class Background {
-        final StringWriter out = new StringWriter();
-        final StringWriter err = new StringWriter();
-        final AtomicInteger code = new AtomicInteger(-1);
-        final Thread thread;
-
-        Background(String... args) {
-            thread = new Thread(() -> code.set(Main.run(args, new PrintWriter(out, true), new PrintWriter(err, true))),
-                    "background polebench");
-            thread.setDaemon(true);
-            thread.start();
-        }
-
-        String awaitOutput(Pattern pattern, long millis) throws InterruptedException {
-            long deadline = System.currentTimeMillis() + millis;
-            while (System.currentTimeMillis() < deadline) {
-                Matcher m = pattern.matcher(out.toString());
-                if (m.find()) {
-                    return m.group(1);
-                }
-                Thread.sleep(20);
-            }
-            throw new AssertionError("no " + pattern + " in: " + out + err);
-        }
-
-        int join(long millis) throws InterruptedException {
-            thread.join(millis);
-            return code.get();
-        }
-    }
-
-    private static String resource(String name) {
-        try {
-            return Path.of(CaptureCommandTest.class.getResource("/capture/" + name).toURI()).toString();
-        } catch (URISyntaxException e) {
-            throw new IllegalStateException(e);
-        }
-    }
-
-    private static Sweep read(Path file) throws Exception {
-        return new SweepReader(ProfileLibrary.bundled()).read(file, "canonical").sweep();
-    }
 
     /** First-order high-pass, RL/(RS+RL)·jωτ/(1+jωτ), τ = (RS+RL)·C: closed form. @return gain in dB */
     private static double highPassDb(double frequencyHz, double farads) {
