@@ -105,7 +105,19 @@ public final class TcpLine implements LineTransport {
             if (timeoutMs > 0 && System.nanoTime() >= deadline) {
                 return Optional.empty();
             }
-            readOnce();
+            int n;
+            try {
+                n = in.read(buffer);
+            } catch (SocketTimeoutException e) {
+                continue;
+            } catch (IOException e) {
+                n = -1;
+            }
+            if (n < 0) {
+                lost = true;
+                continue;
+            }
+            assembler.accept(buffer, n);
         }
     }
 
@@ -125,25 +137,20 @@ public final class TcpLine implements LineTransport {
             if (System.nanoTime() >= deadline) {
                 return assembler.abandonBlock().map(BlockAnswer::refused);
             }
-            readOnce();
+            int n;
+            try {
+                n = in.read(buffer);
+            } catch (SocketTimeoutException e) {
+                continue;
+            } catch (IOException e) {
+                n = -1;
+            }
+            if (n < 0) {
+                lost = true;
+                continue;
+            }
+            assembler.accept(buffer, n);
         }
-    }
-
-    // one read into the assembler: a timeout reads nothing, an end or an error marks the link lost
-    private void readOnce() {
-        int n;
-        try {
-            n = in.read(buffer);
-        } catch (SocketTimeoutException e) {
-            return;
-        } catch (IOException e) {
-            n = -1;
-        }
-        if (n < 0) {
-            lost = true;
-            return;
-        }
-        assembler.accept(buffer, n);
     }
 
     @Override
